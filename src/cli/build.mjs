@@ -1,0 +1,63 @@
+// Bundles the TypeScript sources with esbuild: the Node entry points into dist/, the browser matcher into dist/browser/.
+
+import { existsSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { build } from 'esbuild';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
+
+/** Node entry points: name in dist/ → source. Missing sources are skipped so a partial tree still builds. */
+const nodeEntries = {
+  bandshelf: 'src/cli/main.ts',
+  demo: 'src/cli/demo.ts',
+  schema: 'src/cli/writeSchemas.ts',
+  bench: 'src/cli/bench.ts',
+  'bench-site': 'src/cli/benchSite.ts',
+  'scores-worker': 'src/match/scoresWorker.ts',
+};
+
+const browserEntries = {
+  'bandshelf-browser': 'src/site/browser/main.ts',
+};
+
+function existing(entries) {
+  return Object.fromEntries(Object.entries(entries).filter(([, src]) => existsSync(join(root, src))));
+}
+
+export async function buildAll() {
+  const node = existing(nodeEntries);
+  await build({
+    absWorkingDir: root,
+    entryPoints: Object.fromEntries(Object.entries(node).map(([k, v]) => [k, join(root, v)])),
+    outdir: join(root, 'dist'),
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    packages: 'external',
+    sourcemap: 'linked',
+    logLevel: 'warning',
+    loader: { '.wasm': 'binary' },
+  });
+  const browser = existing(browserEntries);
+  if (Object.keys(browser).length > 0) {
+    await build({
+      absWorkingDir: root,
+      entryPoints: Object.fromEntries(Object.entries(browser).map(([k, v]) => [k, join(root, v)])),
+      outdir: join(root, 'dist', 'browser'),
+      bundle: true,
+      platform: 'browser',
+      format: 'iife',
+      target: 'es2020',
+      minify: true,
+      legalComments: 'none',
+      logLevel: 'warning',
+      loader: { '.wasm': 'binary' },
+    });
+  }
+}
+
+if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  await buildAll();
+}

@@ -1,0 +1,135 @@
+// The processing recipe: a JSON object stored with every revision that fully determines the processed vector.
+import { z } from 'zod';
+
+/** A wavenumber window in cm⁻¹; min and max may be given in either order and are stored sorted. */
+export const windowSchema = z
+  .object({ min: z.number().finite(), max: z.number().finite() })
+  .strict()
+  .transform((w) => (w.min <= w.max ? w : { min: w.max, max: w.min }))
+  .refine((w) => w.max > w.min, { message: 'a window needs max > min' });
+export type WavenumberWindow = z.output<typeof windowSchema>;
+
+/** The library grid: `start` and `stop` in cm⁻¹ (either order), `step` > 0. Vectors on it run ascending. */
+export const gridSchema = z
+  .object({ start: z.number().finite(), stop: z.number().finite(), step: z.number().finite().positive() })
+  .strict()
+  .refine((g) => Math.abs(g.start - g.stop) >= g.step, { message: 'the grid must span at least one step' })
+  .refine(
+    (g) =>
+      Math.abs(Math.round((g.start - g.stop) / g.step) * g.step - (g.start - g.stop)) < 1e-9 * g.step * 1e3,
+    {
+      message: 'start − stop must be a whole number of steps',
+    },
+  );
+export type Grid = z.output<typeof gridSchema>;
+
+export const baselineSchema = z.discriminatedUnion('method', [
+  z.object({ method: z.literal('none') }).strict(),
+  /** Lower convex hull, anchored on the spectrum's ends. */
+  z.object({ method: z.literal('rubberband') }).strict(),
+  /** Asymmetric least squares (Eilers & Boelens 2005). */
+  z
+    .object({
+      method: z.literal('als'),
+      lambda: z.number().positive().default(1e5),
+      p: z.number().gt(0).lt(1).default(0.01),
+      iterations: z.number().int().min(1).max(100).default(10),
+    })
+    .strict(),
+  /** Adaptive iteratively reweighted penalised least squares (Zhang et al. 2010). */
+  z
+    .object({
+      method: z.literal('airpls'),
+      lambda: z.number().positive().default(100),
+      iterations: z.number().int().min(1).max(100).default(20),
+    })
+    .strict(),
+]);
+export type BaselineStep = z.output<typeof baselineSchema>;
+
+export const normaliseSchema = z.discriminatedUnion('method', [
+  z.object({ method: z.literal('none') }).strict(),
+  z.object({ method: z.literal('vector') }).strict(),
+  z.object({ method: z.literal('minmax') }).strict(),
+  z.object({ method: z.literal('area') }).strict(),
+  /** Divide by the maximum inside a band window, e.g. amide I 1600–1700 cm⁻¹. */
+  z.object({ method: z.literal('band'), window: windowSchema }).strict(),
+]);
+export type NormaliseStep = z.output<typeof normaliseSchema>;
+
+export const timeDomainSchema = z
+  .object({
+    /** Delay unit of the trace files when their header does not say. */
+    timeUnit: z.enum(['fs', 'ps']).default('fs'),
+    /** Keep only this delay range (in `timeUnit`), with a raised-cosine edge of `edge` on each side. */
+    gate: z
+      .object({ start: z.number(), end: z.number(), edge: z.number().min(0).default(0) })
+      .strict()
+      .nullable()
+      .default(null),
+    apodisation: z.enum(['none', 'hann', 'blackman-harris', 'happ-genzel']).default('hann'),
+    /** Zero-fill to the next power of two times this factor. */
+    zeroFill: z.number().int().min(1).max(16).default(2),
+    /** Coverage keeps only wavenumbers where the reference power exceeds this fraction of its peak. */
+    powerThreshold: z.number().gt(0).lt(1).default(1e-4),
+  })
+  .strict();
+export type TimeDomainStep = z.output<typeof timeDomainSchema>;
+
+export const recipeSchema = z
+  .object({
+    version: z.literal(1).default(1),
+    crop: windowSchema.nullable().default(null),
+    /** Windows removed before anything else; default the atmospheric CO₂ stretch. */
+    exclude: z.array(windowSchema).default([{ min: 2280, max: 2400 }]),
+    baseline: baselineSchema.default({ method: 'rubberband' }),
+    /** Subtract a library spectrum (water, buffer) scaled by least squares inside `window`. */
+    reference: z
+      .object({
+        id: z.string().min(1),
+        /** Pinned at ingest so the processed vector stays reproducible. */
+        revision: z.number().int().positive().optional(),
+        window: windowSchema.default({ min: 1900, max: 2300 }),
+      })
+      .strict()
+      .nullable()
+      .default(null),
+    /** Extended multiplicative scatter correction against a library spectrum (Martens & Stark 1991). */
+    emsc: z
+      .object({
+        id: z.string().min(1),
+        revision: z.number().int().positive().optional(),
+        degree: z.number().int().min(0).max(6).default(2),
+      })
+      .strict()
+      .nullable()
+      .default(null),
+    smooth: z
+      .object({
+        window: z
+          .number()
+          .int()
+          .min(3)
+          .max(101)
+          .refine((w) => w % 2 === 1, { message: 'the window must be odd' })
+          .default(9),
+        order: z.number().int().min(0).max(6).default(2),
+      })
+      .strict()
+      .refine((s) => s.order < s.window, { message: 'order must be below the window' })
+      .nullable()
+      .default(null),
+    resample: z
+      .object({
+        /** Source points further apart than this (cm⁻¹) leave the grid between them not covered. */
+        maxGap: z.number().positive().default(16),
+      })
+      .strict()
+      .default({ maxGap: 16 }),
+    normalise: normaliseSchema.default({ method: 'vector' }),
+    /** Present only for entries ingested from field-resolved time-domain traces. */
+    timeDomain: timeDomainSchema.nullable().default(null),
+  })
+  .strict();
+export type Recipe = z.output<typeof recipeSchema>;
+export type RecipeInput = z.input<typeof recipeSchema>;
