@@ -8,6 +8,8 @@ export const config = defineConfig({
     testTimeout: 60_000,
     hookTimeout: 300_000,
     pool: 'forks',
+    reporters: ['default', 'json'],
+    outputFile: { json: 'test-output/vitest.json' },
   },
 });
 

@@ -11,6 +11,7 @@ const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const nodeEntries = {
   bandshelf: 'src/cli/main.ts',
   demo: 'src/cli/demo.ts',
+  'demo-data': 'src/cli/writeDemoData.ts',
   schema: 'src/cli/writeSchemas.ts',
   bench: 'src/cli/bench.ts',
   'bench-site': 'src/cli/benchSite.ts',

@@ -1,0 +1,262 @@
+// `bandshelf add`: ingests spectrum files, folders or time-domain traces into the library, one transaction per file
+// (or one for all with --atomic).
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { BandshelfError } from '../../error.js';
+import { metaErrorFromIssues } from '../../formats/metaErrorFromIssues.js';
+import { buildRevisionInputs } from '../../library/buildRevisionInputs.js';
+import { closeLibrary } from '../../library/closeLibrary.js';
+import { commitRevisions } from '../../library/commitRevisions.js';
+import { defaultAuthor } from '../../library/defaultAuthor.js';
+import type { CommitOutcome, PreparedRevision } from '../../library/ingestTypes.js';
+import { libraryPath } from '../../library/libraryPath.js';
+import { type LoadedSidecar, loadSidecar } from '../../library/loadSidecar.js';
+import type { NearDuplicatePool } from '../../library/nearDuplicateFlag.js';
+import { openLibrary } from '../../library/openLibrary.js';
+import { type IngestJob, planIngest } from '../../library/planIngest.js';
+import { prepareRevision } from '../../library/prepareRevision.js';
+import { readRecipeFile } from '../../library/readRecipeFile.js';
+import { readSearchSet } from '../../library/readSearchSet.js';
+import type { Library, ReadOptions } from '../../library/types.js';
+import { entryMetaPatchSchema } from '../../schema/meta.js';
+import type { CommandSpec } from '../command.js';
+import { textTable } from '../textTable.js';
+
+const X_UNITS = ['cm-1', 'um', 'nm'] as const;
+const Y_UNITS = ['absorbance', 'transmittance', 'percent-transmittance'] as const;
+
+function collect(value: string, previous: string[] = []): string[] {
+  return [...previous, value];
+}
+
+function oneLine(error: unknown): string {
+  if (error instanceof BandshelfError) return error.oneLine();
+  return `internal error: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`;
+}
+
+function choice<T extends string>(value: unknown, allowed: readonly T[], field: string): T | undefined {
+  if (value === undefined) return undefined;
+  if (typeof value === 'string' && (allowed as readonly string[]).includes(value)) return value as T;
+  throw new BandshelfError('BAD_OPTION', `--${field} must be one of ${allowed.join(', ')} (not '${String(value)}')`, {
+    field,
+  });
+}
+
+/** A NOT_FOUND on a recipe's reference or EMSC id may only mean that entry comes later in the same add. */
+function waitsForAnotherEntry(error: unknown): boolean {
+  return (
+    error instanceof BandshelfError &&
+    error.code === 'NOT_FOUND' &&
+    (error.field === 'reference.id' || error.field === 'emsc.id')
+  );
+}
+
+function poolOf(library: Library): { pool: NearDuplicatePool; index: Map<string, number> } {
+  const set = readSearchSet(library);
+  const rows = set.entries.map((_, i) => set.processed.subarray(i * set.cols, (i + 1) * set.cols));
+  return { pool: { ids: set.entries.map((e) => e.id), rows }, index: new Map(set.entries.map((e, i) => [e.id, i])) };
+}
+
+export const addCommand: CommandSpec = {
+  name: 'add',
+  summary: 'ingest spectrum files, folders or time-domain traces',
+  example: [
+    'bandshelf add library/                      # every spectrum file with its sidecar (*.meta.json)',
+    'bandshelf add serum-07.csv --class biofluid --name "Pooled serum film 07"',
+    'bandshelf add old-bench/ --manifest old-bench/manifest.csv --y-unit percent-transmittance --atomic',
+    'bandshelf add s1.csv s2.csv --time-domain --reference r1.csv --reference r2.csv --id lactate-eos',
+    '',
+    'A folder is walked with its sub-folders (hidden ones and folders named "unknowns" are skipped); its own',
+    'manifest.csv is used unless --manifest names one. Metadata precedence: flags > --meta > sidecar > manifest >',
+    'the file\'s labels (JCAMP-DX TITLE, CAS …). Re-adding identical content is reported as unchanged.',
+  ].join('\n'),
+  configure(command) {
+    command
+      .argument('<paths...>', 'spectrum files or folders (with --time-domain: the repeated sample traces of one entry)')
+      .option('--library <path>', 'library file', 'bandshelf.sqlite')
+      .option('--meta <file>', 'metadata JSON (sidecar format, may hold a recipe) for every file of this add')
+      .option('--manifest <csv>', 'metadata table with a "file" column naming each data file')
+      .option('--id <id>', 'entry id (one file only; default from the file name or JCAMP-DX TITLE)')
+      .option('--name <name>', 'entry name')
+      .option('--class <class>', 'entry class (protein, lipid, …, biofluid, other)')
+      .option('--x-unit <unit>', `abscissa unit of the files: ${X_UNITS.join('|')}`)
+      .option('--y-unit <unit>', `ordinate unit of the files: ${Y_UNITS.join('|')}`)
+      .option('--block <n>', 'take only this 1-based block of a multi-block JCAMP-DX file')
+      .option('--recipe <file>', 'processing recipe JSON for these entries instead of the library default')
+      .option('--message <text>', 'why (stored with each revision)', '')
+      .option('--author <name>', 'who (default $BANDSHELF_AUTHOR or the OS user)')
+      .option('--force', 'store entries even when QC raises an error-level flag')
+      .option('--atomic', 'all files in one transaction: any failure stores nothing')
+      .option('--time-domain', 'the files are field-resolved sample traces; see --reference')
+      .option('--reference <file>', 'reference trace for --time-domain (repeat for several)', collect, [])
+      .option('--time-unit <unit>', 'delay unit of the traces, overriding their headers: fs|ps')
+      .option('--json', 'print {added, unchanged, failed} as JSON');
+  },
+  async run(args, options, context) {
+    const paths = (args[0] as string[] | undefined) ?? [];
+    const flags: Record<string, unknown> = {};
+    for (const key of ['id', 'name', 'class'] as const) {
+      if (typeof options[key] === 'string') flags[key] = options[key];
+    }
+    const checkedFlags = entryMetaPatchSchema.safeParse(flags);
+    if (!checkedFlags.success) {
+      const error = metaErrorFromIssues(checkedFlags.error.issues, {});
+      throw new BandshelfError('BAD_OPTION', `--${error.field}: ${error.message}`, { field: error.field });
+    }
+    const read: ReadOptions = {};
+    const xUnit = choice(options.xUnit, X_UNITS, 'x-unit');
+    const yUnit = choice(options.yUnit, Y_UNITS, 'y-unit');
+    const timeUnit = choice(options.timeUnit, ['fs', 'ps'] as const, 'time-unit');
+    if (xUnit) read.xUnit = xUnit;
+    if (yUnit) read.yUnit = yUnit;
+    if (timeUnit) read.timeUnit = timeUnit;
+    if (options.block !== undefined) {
+      const block = Number(options.block);
+      if (!Number.isInteger(block) || block < 1) {
+        throw new BandshelfError('BAD_OPTION', `--block wants a block number from 1 (not '${options.block}')`, {
+          field: 'block',
+        });
+      }
+      read.block = block;
+    }
+    const recipe =
+      typeof options.recipe === 'string'
+        ? readRecipeFile(resolve(context.cwd, options.recipe), { label: options.recipe })
+        : undefined;
+    let metaFile: { sections: LoadedSidecar; label: string } | undefined;
+    if (typeof options.meta === 'string') {
+      let text: string;
+      try {
+        text = readFileSync(resolve(context.cwd, options.meta), 'utf8');
+      } catch (error) {
+        throw new BandshelfError('IO_ERROR', `cannot read: ${(error as NodeJS.ErrnoException).code ?? error}`, {
+          file: options.meta,
+        });
+      }
+      metaFile = { sections: loadSidecar(text, { file: options.meta }), label: options.meta };
+    }
+    const author = typeof options.author === 'string' && options.author.trim() ? options.author.trim() : defaultAuthor();
+    const message = typeof options.message === 'string' ? options.message : '';
+
+    const library = openLibrary(libraryPath(options.library, context.cwd));
+    try {
+      const plan = planIngest(paths, {
+        cwd: context.cwd,
+        manifest: typeof options.manifest === 'string' ? options.manifest : undefined,
+        timeDomain: Boolean(options.timeDomain),
+        references: (options.reference as string[] | undefined) ?? [],
+      });
+      if (flags.id !== undefined && plan.jobs.length > 1) {
+        throw new BandshelfError('BAD_OPTION', `--id names one entry but ${plan.jobs.length} files are being added`, {
+          field: 'id',
+        });
+      }
+      const { pool, index } = poolOf(library);
+      const owners = new Map<string, string>();
+      const added: CommitOutcome[] = [];
+      const unchanged: CommitOutcome[] = [];
+      const failed: { file: string; error: string }[] = [];
+      const notes: string[] = [...plan.warnings];
+
+      const prepare = (job: IngestJob): PreparedRevision[] => {
+        const inputs = buildRevisionInputs(library, job, { flags: checkedFlags.data, metaFile, recipe, read });
+        for (const input of inputs) {
+          const owner = owners.get(input.meta.id);
+          if (owner !== undefined && owner !== job.label) {
+            throw new BandshelfError('ALREADY_EXISTS', `entry id '${input.meta.id}' is also given to ${owner} in this add`, {
+              file: job.label,
+              field: 'id',
+            });
+          }
+        }
+        const prepared = inputs.map((input) => prepareRevision(library, input, { force: Boolean(options.force), pool }));
+        for (const p of prepared) owners.set(p.id, job.label);
+        return prepared;
+      };
+      const record = (prepared: PreparedRevision[], outcomes: CommitOutcome[]) => {
+        outcomes.forEach((o, i) => {
+          (o.status === 'added' ? added : unchanged).push(o);
+          for (const flag of o.qc) notes.push(`${o.label}: ${o.id}: ${flag.level} ${flag.code}: ${flag.message}`);
+          const p = prepared[i]!;
+          if (o.status !== 'added') return;
+          const at = index.get(o.id);
+          if (at === undefined) {
+            index.set(o.id, pool.ids.length);
+            pool.ids.push(o.id);
+            pool.rows.push(p.processed);
+          } else pool.rows[at] = p.processed;
+        });
+      };
+
+      const jobs = plan.jobs;
+      let done = 0;
+      if (options.atomic) {
+        const all: PreparedRevision[] = [];
+        for (const job of jobs) {
+          try {
+            all.push(...prepare(job));
+          } catch (error) {
+            failed.push({ file: job.label, error: oneLine(error) });
+          }
+          context.progress(++done, jobs.length, job.label);
+        }
+        if (failed.length === 0) {
+          try {
+            record(all, commitRevisions(library, all, { author, message }));
+          } catch (error) {
+            failed.push({ file: all[0]?.label ?? String(paths[0]), error: oneLine(error) });
+          }
+        }
+      } else {
+        let pending = jobs;
+        for (;;) {
+          const waiting: { job: IngestJob; error: unknown }[] = [];
+          for (const job of pending) {
+            try {
+              const prepared = prepare(job);
+              record(prepared, commitRevisions(library, prepared, { author, message }));
+            } catch (error) {
+              if (waitsForAnotherEntry(error)) waiting.push({ job, error });
+              else failed.push({ file: job.label, error: oneLine(error) });
+            }
+            if (!waiting.some((w) => w.job === job)) context.progress(++done, jobs.length, job.label);
+          }
+          // Retry files whose recipe names an entry while another pass still adds entries.
+          if (waiting.length === 0 || waiting.length === pending.length) {
+            for (const w of waiting) {
+              failed.push({ file: w.job.label, error: oneLine(w.error) });
+              context.progress(++done, jobs.length, w.job.label);
+            }
+            break;
+          }
+          pending = waiting.map((w) => w.job);
+        }
+      }
+
+      const exitCode = failed.length > 0 ? 1 : 0;
+      const stderrLines = [...notes, ...failed.map((f) => `bandshelf: ${f.error}`)];
+      if (options.json) {
+        const brief = (o: CommitOutcome) => ({ id: o.id, revision: o.revision, hash: o.hash });
+        return {
+          stdout: JSON.stringify({ added: added.map(brief), unchanged: unchanged.map(brief), failed }),
+          stderr: stderrLines.join('\n'),
+          exitCode,
+        };
+      }
+      const rows = [
+        ...added.map((o) => ['added', o.id, `r${o.revision}`, o.hash.slice(0, 12), o.label]),
+        ...unchanged.map((o) => ['unchanged', o.id, `r${o.revision}`, o.hash.slice(0, 12), o.label]),
+      ];
+      const summary = `${added.length} added, ${unchanged.length} unchanged, ${failed.length} failed${
+        options.atomic && failed.length > 0 ? ' (--atomic: nothing was stored)' : ''
+      }`;
+      return {
+        stdout: [rows.length > 0 ? textTable(rows) : '', summary].filter((s) => s !== '').join('\n'),
+        stderr: stderrLines.join('\n'),
+        exitCode,
+      };
+    } finally {
+      closeLibrary(library);
+    }
+  },
+};

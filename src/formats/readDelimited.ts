@@ -1,0 +1,268 @@
+// Reads two-column delimited text (CSV, semicolon, tab or whitespace) into a spectrum in cm⁻¹ and absorbance.
+import { BandshelfError } from '../error.js';
+import { spectrumFromPoints } from './spectrumFromPoints.js';
+import { toWavenumberAbsorbance } from './toWavenumberAbsorbance.js';
+import type { ParsedSpectrum, ParseWarning, XUnit, YUnit } from './types.js';
+
+export interface ReadDelimitedOptions {
+  /** File named in errors and warnings. @default undefined */
+  file?: string;
+  /** Unit of the first column, overriding the header and the value range. @default undefined (detected) */
+  xUnit?: XUnit;
+  /** Unit of the second column, overriding the header and the value range. @default undefined (detected) */
+  yUnit?: YUnit;
+}
+
+/**
+ * Lines starting with `#` are comments. Leading lines that are not numbers form the header; its cells name
+ * the units (`wavenumber_cm-1`, `wavelength_um`, `nm`, `absorbance`, `%T`, `transmittance` …). The delimiter is
+ * the first of `;`, tab, `,`, whitespace that splits every sampled data line into numbers; with `;`, tab or
+ * whitespace a decimal comma is accepted. x may run either way. Without a unit in the header, x in 2–25 is
+ * read as µm and anything else as cm⁻¹, y as absorbance, each with a warning; `xUnit`/`yUnit` override.
+ * Errors name the line: a non-number → NOT_NUMERIC, NaN/Infinity → NOT_FINITE.
+ */
+export function readDelimited(text: string, options: ReadDelimitedOptions = {}): ParsedSpectrum {
+  const { file } = options;
+  checkUnitOption(options.xUnit, X_UNITS, 'xUnit', file);
+  checkUnitOption(options.yUnit, Y_UNITS, 'yUnit', file);
+  const lines = text.split(/\r\n|\r|\n/);
+  const warnings: ParseWarning[] = [];
+
+  // Find the header (non-numeric lines before the first data line) and sample data lines for the delimiter.
+  const header: { text: string; line: number }[] = [];
+  const sample: string[] = [];
+  let firstData = -1;
+  for (let i = 0; i < lines.length && sample.length < 50; i++) {
+    const t = lines[i]!.trim();
+    if (t === '' || t.startsWith('#')) continue;
+    if (firstData < 0 && !DELIMITERS.some((d) => numericFields(t, d) >= 2)) {
+      header.push({ text: t, line: i + 1 });
+      continue;
+    }
+    if (firstData < 0) firstData = i;
+    sample.push(t);
+  }
+  if (firstData < 0) {
+    if (header.length <= 1) {
+      throw new BandshelfError(
+        'EMPTY_FILE',
+        header.length === 1 ? 'the file has a header but no rows of numbers' : 'the file holds no data',
+        { file, line: header[0]?.line },
+      );
+    }
+    throw new BandshelfError('NOT_NUMERIC', `no line of the file is a row of numbers: ${show(header[1]!.text)}`, {
+      file,
+      line: header[1]!.line,
+    });
+  }
+  const delimiter = chooseDelimiter(sample);
+  const decimalComma = delimiter !== ',';
+
+  let x = new Float64Array(1024);
+  let y = new Float64Array(1024);
+  let pointLine = new Uint32Array(1024);
+  let n = 0;
+  let extraColumns = 0;
+  for (let i = firstData; i < lines.length; i++) {
+    const t = lines[i]!.trim();
+    if (t === '' || t.startsWith('#')) continue;
+    const cells = splitCells(t, delimiter);
+    if (cells.length < 2) {
+      throw new BandshelfError(
+        'NOT_NUMERIC',
+        `expected two numbers (x and y) but found ${cells.length === 1 ? `only ${show(cells[0]!)}` : 'none'}`,
+        { file, line: i + 1 },
+      );
+    }
+    if (cells.length > 2) extraColumns = Math.max(extraColumns, cells.length);
+    const xv = parseCell(cells[0]!, decimalComma, file, i + 1, 'x');
+    const yv = parseCell(cells[1]!, decimalComma, file, i + 1, 'y');
+    if (n >= x.length) {
+      const cap = x.length * 2;
+      const nx = new Float64Array(cap);
+      nx.set(x);
+      x = nx;
+      const ny = new Float64Array(cap);
+      ny.set(y);
+      y = ny;
+      const nl = new Uint32Array(cap);
+      nl.set(pointLine);
+      pointLine = nl;
+    }
+    x[n] = xv;
+    y[n] = yv;
+    pointLine[n] = i + 1;
+    n++;
+  }
+  x = x.slice(0, n);
+  y = y.slice(0, n);
+  pointLine = pointLine.slice(0, n);
+  if (extraColumns > 0) {
+    warnings.push({ line: firstData + 1, message: `rows have up to ${extraColumns} columns; the first two were read` });
+  }
+
+  // Each column's header text, gathered over all header lines (a name line and a unit line, say).
+  const columns: string[] = [];
+  for (const h of header) {
+    headerFields(h.text, delimiter).forEach((cell, k) => {
+      columns[k] = columns[k] === undefined ? cell : `${columns[k]} ${cell}`;
+    });
+  }
+  const headerLine = header[header.length - 1]?.line;
+  const xUnit = options.xUnit ?? detectXUnit(columns[0] ?? '', x, warnings, headerLine);
+  const yUnit = options.yUnit ?? detectYUnit(columns[1] ?? '', y, warnings, headerLine);
+  const converted = toWavenumberAbsorbance({ x, y }, { xUnit, yUnit, file, lines: pointLine });
+  const { spectrum, warnings: pointWarnings } = spectrumFromPoints(converted, { file, lines: pointLine });
+  warnings.push(...pointWarnings);
+  return { spectrum, meta: {}, source: { format: 'delimited', xUnit, yUnit }, warnings };
+}
+
+const X_UNITS: readonly string[] = ['cm-1', 'um', 'nm'];
+const Y_UNITS: readonly string[] = ['absorbance', 'transmittance', 'percent-transmittance'];
+
+type Delimiter = ';' | '\t' | ',' | ' ';
+const DELIMITERS: readonly Delimiter[] = [';', '\t', ',', ' '];
+
+const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+const NUMBER_DECIMAL_COMMA = /^[+-]?(?:\d+,?\d*|,\d+)(?:[eE][+-]?\d+)?$/;
+const NOT_FINITE_WORD = /^[+-]?(nan|inf|infinity|∞)$/i;
+
+function checkUnitOption(value: string | undefined, allowed: readonly string[], field: string, file?: string): void {
+  if (value !== undefined && !allowed.includes(value)) {
+    throw new BandshelfError('BAD_OPTION', `${field} ${show(value)} is not one of ${allowed.join(', ')}`, {
+      file,
+      field,
+    });
+  }
+}
+
+function splitCells(line: string, delimiter: Delimiter): string[] {
+  const raw = delimiter === ' ' ? line.split(/\s+/) : line.split(delimiter);
+  const cells = raw.map((c) => unquote(c.trim()));
+  // A trailing delimiter leaves an empty last cell; that is not a missing value.
+  while (cells.length > 0 && cells[cells.length - 1] === '') cells.pop();
+  return cells;
+}
+
+function unquote(cell: string): string {
+  return cell.length >= 2 && cell.startsWith('"') && cell.endsWith('"') ? cell.slice(1, -1).trim() : cell;
+}
+
+function isNumber(cell: string, decimalComma: boolean): boolean {
+  return NUMBER.test(cell) || (decimalComma && NUMBER_DECIMAL_COMMA.test(cell));
+}
+
+/** How many leading cells of the line read as numbers under this delimiter (0 if the first two do not). */
+function numericFields(line: string, delimiter: Delimiter): number {
+  const cells = splitCells(line, delimiter);
+  if (cells.length < 2) return 0;
+  const dc = delimiter !== ',';
+  const okCell = (c: string): boolean => isNumber(c, dc) || NOT_FINITE_WORD.test(c);
+  return okCell(cells[0]!) && okCell(cells[1]!) ? cells.length : 0;
+}
+
+function chooseDelimiter(sample: string[]): Delimiter {
+  for (const d of DELIMITERS) {
+    if (sample.every((line) => numericFields(line, d) >= 2)) return d;
+  }
+  // No delimiter fits every line: take the one that fits most, so the error names the first line that fails.
+  let best: Delimiter = ',';
+  let bestCount = -1;
+  for (const d of DELIMITERS) {
+    const count = sample.filter((line) => numericFields(line, d) >= 2).length;
+    if (count > bestCount) {
+      best = d;
+      bestCount = count;
+    }
+  }
+  return best;
+}
+
+function parseCell(cell: string, decimalComma: boolean, file: string | undefined, line: number, field: string): number {
+  if (NUMBER.test(cell)) return Number(cell);
+  if (decimalComma && NUMBER_DECIMAL_COMMA.test(cell)) return Number(cell.replace(',', '.'));
+  if (NOT_FINITE_WORD.test(cell)) {
+    throw new BandshelfError('NOT_FINITE', `${field} = ${show(cell)} is not a finite number`, { file, line, field });
+  }
+  throw new BandshelfError('NOT_NUMERIC', `${field} = ${show(cell)} is not a number`, { file, line, field });
+}
+
+function headerFields(line: string, delimiter: Delimiter): string[] {
+  const cells = splitCells(line, delimiter);
+  if (cells.length >= 2) return cells;
+  for (const d of DELIMITERS) {
+    const alt = splitCells(line, d);
+    if (alt.length >= 2) return alt;
+  }
+  return cells;
+}
+
+function range(v: Float64Array): { min: number; max: number } {
+  let min = Number.POSITIVE_INFINITY;
+  let max = Number.NEGATIVE_INFINITY;
+  for (const a of v) {
+    if (a < min) min = a;
+    if (a > max) max = a;
+  }
+  return { min, max };
+}
+
+/** A unit word standing alone or between separators, so `um` matches `wavelength_um` but not `wavenumber`. */
+function word(cell: string, pattern: string): boolean {
+  return new RegExp(`(^|[^a-zµμ])(${pattern})([^a-zµμ]|$)`, 'i').test(cell);
+}
+
+function detectXUnit(cell: string, x: Float64Array, warnings: ParseWarning[], line?: number): XUnit {
+  const c = cell.toLowerCase();
+  if (/cm-1|cm\^-1|cm\^\(-1\)|cm−1|cm⁻¹|1\/cm|cm\*\*-1|wave ?numbers?/.test(c)) return 'cm-1';
+  if (word(c, 'um|µm|μm|microns?|micromet(?:er|re)s?')) return 'um';
+  if (word(c, 'nm|nanomet(?:er|re)s?')) return 'nm';
+  const { min, max } = range(x);
+  if (min >= 2 && max <= 25) {
+    warnings.push({
+      line,
+      message: `no x unit in a header; x from ${min} to ${max} read as wavelength in µm (give the x unit if not)`,
+    });
+    return 'um';
+  }
+  if (/wavelength|lambda|λ/.test(c)) {
+    warnings.push({ line, message: 'the header says wavelength without a unit; read as nm (give the x unit if not)' });
+    return 'nm';
+  }
+  if (max > 15000 || min < 10) {
+    warnings.push({
+      line,
+      message: `no x unit in a header; x from ${min} to ${max} read as wavenumber in cm⁻¹, an unusual range (give the x unit if not)`,
+    });
+  }
+  return 'cm-1';
+}
+
+function detectYUnit(cell: string, y: Float64Array, warnings: ParseWarning[], line?: number): YUnit {
+  const c = cell.toLowerCase();
+  const { min, max } = range(y);
+  const looksPercent = min >= 0 && max <= 100.5 && max > 3;
+  if (/%|percent/.test(c)) return 'percent-transmittance';
+  if (/transmittance|transmission/.test(c) || word(c, 't')) {
+    if (looksPercent) {
+      warnings.push({
+        line,
+        message: `the header says transmittance but values reach ${max}: read as percent transmittance (0–100)`,
+      });
+      return 'percent-transmittance';
+    }
+    return 'transmittance';
+  }
+  if (/absorbance|optical density/.test(c) || word(c, 'a|abs|au|od')) return 'absorbance';
+  warnings.push({
+    line,
+    message: looksPercent
+      ? `no y unit in a header; read as absorbance, though values from ${min} to ${max} look like %T (give the y unit if so)`
+      : 'no y unit in a header; y read as absorbance (give the y unit if not)',
+  });
+  return 'absorbance';
+}
+
+function show(text: string): string {
+  return JSON.stringify(text.length > 30 ? `${text.slice(0, 30)}…` : text);
+}

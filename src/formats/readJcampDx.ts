@@ -1,0 +1,511 @@
+// Reads JCAMP-DX 4.24 (and tolerated 5.01) infrared spectra: one ParsedSpectrum per spectrum block.
+import { BandshelfError } from '../error.js';
+import { decodeAsdfLines } from './decodeAsdfLines.js';
+import { decodeXyPairs } from './decodeXyPairs.js';
+import type { JcampBlock, JcampRecord } from './jcampTypes.js';
+import { spectrumFromPoints } from './spectrumFromPoints.js';
+import { splitJcampRecords } from './splitJcampRecords.js';
+import { toWavenumberAbsorbance } from './toWavenumberAbsorbance.js';
+import type { ParsedSpectrum, ParseWarning, XUnit, YUnit } from './types.js';
+
+export interface ReadJcampDxOptions {
+  /** File named in errors and warnings. @default undefined */
+  file?: string;
+  /** Read only the n-th spectrum block (1-based, counting spectrum blocks only). @default undefined (all) */
+  block?: number;
+  /** Take the abscissa to be in this unit whatever XUNITS says. @default undefined (from XUNITS) */
+  xUnit?: XUnit;
+  /** Take the ordinate to be in this unit whatever YUNITS says. @default undefined (from YUNITS) */
+  yUnit?: YUnit;
+  /** Refuse blocks with more points than this. @default 5_000_000 */
+  maxPoints?: number;
+}
+
+/**
+ * JCAMP-DX after McDonald & Wilks, Appl. Spectrosc. 42 (1988). Each block holding `##XYDATA=(X++(Y..Y))`
+ * (AFFN, PAC, SQZ, DIF, DUP in any mix) or `##XYPOINTS=(XY..XY)` becomes one spectrum in cm⁻¹ and absorbance,
+ * ascending; LINK blocks only group them. Real instrument files bend the rules, so NPOINTS, FIRSTY or line
+ * abscissae that disagree with the data, `?` ordinates, missing ##END and the like are read with a warning;
+ * a peak table alone is NOT_A_SPECTRUM and a unit that cannot be converted is UNKNOWN_UNIT.
+ */
+export function readJcampDx(text: string, options: ReadJcampDxOptions = {}): ParsedSpectrum[] {
+  const { file } = options;
+  if (text.trim() === '') throw new BandshelfError('EMPTY_FILE', 'the file is empty', { file });
+  const { lines, blocks, warnings: fileWarnings } = splitJcampRecords(text);
+  if (blocks.length === 0) {
+    throw new BandshelfError('BAD_FORMAT', 'no ##LABEL= records: this is not JCAMP-DX text', { file });
+  }
+
+  const spectra: { block: JcampBlock; data: JcampRecord }[] = [];
+  const peakTables: JcampRecord[] = [];
+  const unsupported: JcampRecord[] = [];
+  for (const block of blocks) {
+    const data = block.records.find((r) => DATA_LABELS.has(r.label));
+    if (!data) continue;
+    const dataType = (ownValue(block, 'DATATYPE') ?? '').toUpperCase();
+    if (data.label === 'PEAKTABLE' || data.label === 'PEAKASSIGNMENTS' || /PEAK/.test(dataType)) {
+      peakTables.push(data);
+    } else if (data.label === 'XYDATA' || data.label === 'XYPOINTS') spectra.push({ block, data });
+    else unsupported.push(data);
+  }
+  if (spectra.length === 0) {
+    if (peakTables.length > 0) {
+      throw new BandshelfError('NOT_A_SPECTRUM', 'a peak table is not a spectrum', {
+        file,
+        line: peakTables[0]!.line,
+        field: peakTables[0]!.rawLabel,
+      });
+    }
+    if (unsupported.length > 0) {
+      throw new BandshelfError(
+        'BAD_FORMAT',
+        `##${unsupported[0]!.rawLabel} data are not read by bandshelf; export the spectrum as ##XYDATA`,
+        { file, line: unsupported[0]!.line, field: unsupported[0]!.rawLabel },
+      );
+    }
+    throw new BandshelfError('NOT_A_SPECTRUM', 'the file has no ##XYDATA or ##XYPOINTS data', { file });
+  }
+  for (const table of peakTables) {
+    fileWarnings.push({ line: table.line, message: 'a peak table is not a spectrum; that block was skipped' });
+  }
+  for (const rec of unsupported) {
+    fileWarnings.push({ line: rec.line, message: `##${rec.rawLabel} data are not read; that block was skipped` });
+  }
+
+  let chosen = spectra.map((s, i) => ({ ...s, index: i + 1 }));
+  if (options.block !== undefined) {
+    const n = options.block;
+    if (!Number.isInteger(n) || n < 1 || n > spectra.length) {
+      throw new BandshelfError(
+        'BAD_OPTION',
+        `block ${n} does not exist: the file holds ${spectra.length} spectr${spectra.length === 1 ? 'um' : 'a'} (1–${spectra.length})`,
+        { file, field: 'block' },
+      );
+    }
+    chosen = [chosen[n - 1]!];
+  }
+  return chosen.map(({ block, data, index }) => {
+    const parsed = readBlock(block, data, lines, options);
+    parsed.source.block = index;
+    parsed.warnings = [...fileWarnings, ...parsed.warnings];
+    return parsed;
+  });
+}
+
+const DATA_LABELS = new Set(['XYDATA', 'XYPOINTS', 'PEAKTABLE', 'PEAKASSIGNMENTS', 'NTUPLES', 'DATATABLE']);
+
+/** Labels carried into `meta`, normalised label → key. LONGDATE is preferred over DATE when both exist. */
+const META_LABELS: [string, string][] = [
+  ['TITLE', 'title'],
+  ['JCAMPDX', 'jcampVersion'],
+  ['DATATYPE', 'dataType'],
+  ['ORIGIN', 'origin'],
+  ['OWNER', 'owner'],
+  ['LONGDATE', 'date'],
+  ['DATE', 'date'],
+  ['SPECTROMETERDATASYSTEM', 'instrument'],
+  ['RESOLUTION', 'resolution'],
+  ['STATE', 'state'],
+  ['SAMPLINGPROCEDURE', 'samplingProcedure'],
+  ['CASREGISTRYNO', 'cas'],
+  ['MOLFORM', 'formula'],
+  ['CASNAME', 'casName'],
+  ['NAMES', 'names'],
+];
+
+function ownRecord(block: JcampBlock, label: string): JcampRecord | undefined {
+  return block.records.find((r) => r.label === label);
+}
+
+function ownValue(block: JcampBlock, label: string): string | undefined {
+  return ownRecord(block, label)?.value;
+}
+
+/** The record in this block, or else in a block that holds it (compound files state shared labels once). */
+function inheritedRecord(block: JcampBlock, label: string): JcampRecord | undefined {
+  for (let b: JcampBlock | undefined = block; b; b = b.parent) {
+    const rec = ownRecord(b, label);
+    if (rec) return rec;
+  }
+  return undefined;
+}
+
+/** A label's whole value: the `=` line plus its continuation lines, joined. */
+function fullValue(rec: JcampRecord, lines: string[], joiner: string): string {
+  const parts = [rec.value];
+  for (let i = rec.bodyStart; i < rec.bodyEnd; i++) parts.push(lines[i]!.trim());
+  return parts.filter((p) => p !== '').join(joiner);
+}
+
+function readMeta(block: JcampBlock, lines: string[]): Record<string, string | number> {
+  const meta: Record<string, string | number> = {};
+  for (const [label, key] of META_LABELS) {
+    if (meta[key] !== undefined) continue;
+    const rec = label === 'TITLE' ? ownRecord(block, label) : inheritedRecord(block, label);
+    if (!rec) continue;
+    const value = fullValue(rec, lines, label === 'NAMES' ? '; ' : ' ');
+    if (value === '') continue;
+    if (key === 'resolution') {
+      const m = /^([+-]?(?:\d+\.?\d*|\.\d+))\s*(?:1\/CM|CM-1|CM\^-1|CM⁻¹)?$/i.exec(value);
+      meta[key] = m ? Number(m[1]) : value;
+    } else meta[key] = value;
+  }
+  return meta;
+}
+
+function numberLabel(block: JcampBlock, label: string, file: string | undefined): number | undefined {
+  const rec = ownRecord(block, label);
+  if (!rec || rec.value === '') return undefined;
+  if (!AFFN.test(rec.value)) {
+    throw new BandshelfError('NOT_NUMERIC', `##${rec.rawLabel}=${clip(rec.value)} is not a number`, {
+      file,
+      line: rec.line,
+      field: rec.rawLabel,
+    });
+  }
+  const v = Number(rec.value);
+  if (!Number.isFinite(v)) {
+    throw new BandshelfError('NOT_FINITE', `##${rec.rawLabel}=${clip(rec.value)} is not a finite number`, {
+      file,
+      line: rec.line,
+      field: rec.rawLabel,
+    });
+  }
+  return v;
+}
+
+function factorLabel(block: JcampBlock, label: string, file: string | undefined): number {
+  const v = numberLabel(block, label, file);
+  if (v === undefined) return 1;
+  if (v === 0) {
+    const rec = ownRecord(block, label)!;
+    throw new BandshelfError('BAD_FORMAT', `##${rec.rawLabel}=0 would turn every value into 0`, {
+      file,
+      line: rec.line,
+      field: rec.rawLabel,
+    });
+  }
+  return v;
+}
+
+function readXUnit(
+  block: JcampBlock,
+  file: string | undefined,
+  warnings: ParseWarning[],
+): XUnit {
+  const rec = inheritedRecord(block, 'XUNITS');
+  if (!rec || rec.value === '') {
+    warnings.push({ line: block.line, message: 'no ##XUNITS; x read as wavenumber in 1/CM' });
+    return 'cm-1';
+  }
+  const v = rec.value.toUpperCase().replace(/\s+/g, '');
+  if (/^(1\/CM|CM-1|CM\^-1|CM\^\(-1\)|CM\*\*-1|CM−1|CM⁻¹|1\/CENTIMETERS?|WAVENUMBERS?(\(CM-1\)|\(1\/CM\))?)$/.test(v)) {
+    return 'cm-1';
+  }
+  if (/^(MICROMET(ER|RE)S?|MICRONS?|UM|µM|ΜM|μM)$/.test(v)) return 'um';
+  if (/^(NANOMET(ER|RE)S?|NM)$/.test(v)) return 'nm';
+  throw new BandshelfError(
+    'UNKNOWN_UNIT',
+    `##${rec.rawLabel}=${clip(rec.value)} is not a unit bandshelf reads (1/CM, MICROMETERS, NANOMETERS); give the x unit as an option`,
+    { file, line: rec.line, field: rec.rawLabel },
+  );
+}
+
+function readYUnit(
+  block: JcampBlock,
+  y: Float64Array,
+  file: string | undefined,
+  warnings: ParseWarning[],
+): YUnit {
+  const rec = inheritedRecord(block, 'YUNITS');
+  const max = maxFinite(y);
+  if (!rec || rec.value === '') {
+    warnings.push({
+      line: block.line,
+      message:
+        'no ##YUNITS; y read as absorbance' +
+        (looksPercent(y) ? ` (values reach ${max}, which looks like %T: give the y unit if so)` : ''),
+    });
+    return 'absorbance';
+  }
+  const v = rec.value.toUpperCase().replace(/\s+/g, ' ').trim();
+  if (/^(%\s?T|%\s?TRANSMITTANCE|PERCENT ?TRANSMITTANCE|PERCENT ?TRANSMISSION|TRANSMITTANCE ?\(%\)|T ?\(%\)|TRANSMITTANCE ?%|%)$/.test(v)) {
+    if (max <= 1.0) {
+      warnings.push({
+        line: rec.line,
+        message: `##${rec.rawLabel} says percent but no value exceeds ${max}; read as percent all the same`,
+      });
+    }
+    return 'percent-transmittance';
+  }
+  if (/^(TRANSMITTANCE|TRANSMISSION|T)$/.test(v)) {
+    if (looksPercent(y)) {
+      warnings.push({
+        line: rec.line,
+        message: `##${rec.rawLabel}=${rec.value} but values reach ${max}: read as percent transmittance (0–100)`,
+      });
+      return 'percent-transmittance';
+    }
+    return 'transmittance';
+  }
+  if (/^(ABSORBANCE|ABSORBANCE UNITS|A|AU|ABS|OPTICAL DENSITY|OD)$/.test(v)) return 'absorbance';
+  throw new BandshelfError(
+    'UNKNOWN_UNIT',
+    `##${rec.rawLabel}=${clip(rec.value)} is not absorbance or transmittance; give the y unit as an option`,
+    { file, line: rec.line, field: rec.rawLabel },
+  );
+}
+
+/** Transmittance on a 0–100 scale: every value inside it and some well above what a fraction or absorbance reaches. */
+function looksPercent(y: Float64Array): boolean {
+  let min = Number.POSITIVE_INFINITY;
+  let max = Number.NEGATIVE_INFINITY;
+  for (const v of y) {
+    if (!Number.isFinite(v)) continue;
+    if (v < min) min = v;
+    if (v > max) max = v;
+  }
+  return min >= 0 && max <= 100.5 && max > 3;
+}
+
+function maxFinite(y: Float64Array): number {
+  let max = Number.NEGATIVE_INFINITY;
+  for (const v of y) if (Number.isFinite(v) && v > max) max = v;
+  return max;
+}
+
+function readBlock(
+  block: JcampBlock,
+  data: JcampRecord,
+  lines: string[],
+  options: ReadJcampDxOptions,
+): ParsedSpectrum {
+  const { file, maxPoints = 5_000_000 } = options;
+  const warnings: ParseWarning[] = [];
+  const meta = readMeta(block, lines);
+  const dataType = (ownValue(block, 'DATATYPE') ?? '').toUpperCase();
+  if (dataType !== '' && !/INFRARED|\bIR\b/.test(dataType)) {
+    warnings.push({
+      line: ownRecord(block, 'DATATYPE')?.line,
+      message: `##DATA TYPE=${clip(dataType)} is not an infrared spectrum; read all the same`,
+    });
+  }
+  const version = ownValue(block, 'JCAMPDX') ?? inheritedRecord(block, 'JCAMPDX')?.value;
+  if (version !== undefined && Number.parseFloat(version) >= 6) {
+    warnings.push({ message: `JCAMP-DX version ${clip(version)} is newer than 5.01; read by the 5.01 rules` });
+  }
+
+  const xFactor = factorLabel(block, 'XFACTOR', file);
+  const yFactor = factorLabel(block, 'YFACTOR', file);
+  const nPoints = numberLabel(block, 'NPOINTS', file);
+  const nPointsRec = ownRecord(block, 'NPOINTS');
+  const firstY = numberLabel(block, 'FIRSTY', file);
+  const body = lines.slice(data.bodyStart, data.bodyEnd);
+  const form = data.value.toUpperCase().replace(/\s+/g, '');
+
+  let x: Float64Array;
+  let yRaw: Float64Array;
+  let pointLine: Uint32Array;
+  if (data.label === 'XYDATA' && /^\(X\+\+\((Y\.\.Y|R\.\.R)\)\)$/.test(form)) {
+    const decoded = decodeAsdfLines(body, { file, firstLine: data.bodyStart + 1, maxPoints });
+    warnings.push(...decoded.warnings);
+    yRaw = decoded.y;
+    pointLine = decoded.pointLine;
+    if (yRaw.length === 0) {
+      throw new BandshelfError('EMPTY_FILE', `##${data.rawLabel} holds no data`, { file, line: data.line });
+    }
+    x = abscissae(block, decoded, xFactor, nPoints, warnings, file, data);
+  } else if (form === '(XY..XY)' || form === '(XYW..XYW)') {
+    const decoded = decodeXyPairs(body, {
+      file,
+      firstLine: data.bodyStart + 1,
+      columns: form === '(XY..XY)' ? 2 : 3,
+      maxPoints,
+    });
+    yRaw = decoded.y;
+    pointLine = decoded.pointLine;
+    if (yRaw.length === 0) {
+      throw new BandshelfError('EMPTY_FILE', `##${data.rawLabel} holds no data`, { file, line: data.line });
+    }
+    x = new Float64Array(decoded.x.length);
+    for (let i = 0; i < x.length; i++) x[i] = decoded.x[i]! * xFactor;
+    if (nPoints !== undefined && nPoints !== yRaw.length) {
+      warnings.push({
+        line: nPointsRec?.line,
+        message: `NPOINTS=${nPoints} but the data hold ${yRaw.length} points; the data were used`,
+      });
+    }
+  } else {
+    throw new BandshelfError(
+      'BAD_FORMAT',
+      `##${data.rawLabel}=${clip(data.value)} is not a variable list bandshelf reads ((X++(Y..Y)) or (XY..XY))`,
+      { file, line: data.line, field: data.rawLabel },
+    );
+  }
+
+  // Real values; FIRSTY is checked against the first ordinate in file order, before any reordering.
+  const yReal = new Float64Array(yRaw.length);
+  let maxAbs = 0;
+  for (let i = 0; i < yRaw.length; i++) {
+    const v = yRaw[i]! * yFactor;
+    yReal[i] = v;
+    if (Number.isFinite(v) && Math.abs(v) > maxAbs) maxAbs = Math.abs(v);
+  }
+  if (firstY !== undefined && Number.isFinite(yReal[0]!)) {
+    const tolerance = 1e-3 * maxAbs + Math.abs(yFactor);
+    if (Math.abs(firstY - yReal[0]!) > tolerance) {
+      warnings.push({
+        line: ownRecord(block, 'FIRSTY')?.line,
+        message: `FIRSTY=${firstY} but the first ordinate is ${yReal[0]}; the data were used`,
+      });
+    }
+  }
+
+  // `?` ordinates keep their abscissa slot until here, then drop out.
+  let missing = 0;
+  const missingLines: number[] = [];
+  for (let i = 0; i < yReal.length; i++) {
+    if (Number.isNaN(yRaw[i]!)) {
+      missing++;
+      const line = pointLine[i]!;
+      if (missingLines.length < 10 && missingLines[missingLines.length - 1] !== line) missingLines.push(line);
+    }
+  }
+  let xs = x;
+  let ys = yReal;
+  let ls = pointLine;
+  if (missing > 0) {
+    const keep = yReal.length - missing;
+    xs = new Float64Array(keep);
+    ys = new Float64Array(keep);
+    ls = new Uint32Array(keep);
+    let k = 0;
+    for (let i = 0; i < yReal.length; i++) {
+      if (Number.isNaN(yRaw[i]!)) continue;
+      xs[k] = x[i]!;
+      ys[k] = yReal[i]!;
+      ls[k] = pointLine[i]!;
+      k++;
+    }
+    warnings.push({
+      line: missingLines[0],
+      message: `${missing} missing ordinate${missing === 1 ? '' : 's'} (?) skipped, on line${missingLines.length === 1 ? '' : 's'} ${missingLines.join(', ')}${missingLines.length === 10 ? ' …' : ''}`,
+    });
+  }
+
+  const xUnit = options.xUnit ?? readXUnit(block, file, warnings);
+  const yUnit = options.yUnit ?? readYUnit(block, ys, file, warnings);
+  const converted = toWavenumberAbsorbance({ x: xs, y: ys }, { xUnit, yUnit, file, lines: ls });
+  const { spectrum, warnings: pointWarnings } = spectrumFromPoints(converted, { file, lines: ls });
+  warnings.push(...pointWarnings);
+  return { spectrum, meta, source: { format: 'jcamp-dx', xUnit, yUnit }, warnings };
+}
+
+/**
+ * Abscissae from FIRSTX + i·ΔX. ΔX = (LASTX − FIRSTX)/(NPOINTS − 1) when NPOINTS agrees with the data; when
+ * it does not, the X values written on the data lines decide (the data win over the header), then DELTAX.
+ * Every line's X is checked against the abscissa of its first ordinate.
+ */
+function abscissae(
+  block: JcampBlock,
+  decoded: { y: Float64Array; lineX: Float64Array; lineFirstIndex: Int32Array; lineNumber: Uint32Array },
+  xFactor: number,
+  nPoints: number | undefined,
+  warnings: ParseWarning[],
+  file: string | undefined,
+  data: JcampRecord,
+): Float64Array {
+  const count = decoded.y.length;
+  const nLines = decoded.lineX.length;
+  const lineXReal = new Float64Array(nLines);
+  for (let k = 0; k < nLines; k++) lineXReal[k] = decoded.lineX[k]! * xFactor;
+  const firstXLabel = numberLabel(block, 'FIRSTX', file);
+  const lastX = numberLabel(block, 'LASTX', file);
+  const deltaX = numberLabel(block, 'DELTAX', file);
+  const firstX =
+    firstXLabel ?? (nLines > 0 && decoded.lineFirstIndex[0] === 0 ? lineXReal[0]! : undefined);
+  if (firstX === undefined) {
+    throw new BandshelfError('BAD_FORMAT', 'the block has no ##FIRSTX and its first data line no x', {
+      file,
+      line: data.line,
+    });
+  }
+  if (nPoints !== undefined && nPoints !== count) {
+    warnings.push({
+      line: ownRecord(block, 'NPOINTS')?.line,
+      message: `NPOINTS=${nPoints} but the data hold ${count} points; the data were used`,
+    });
+  }
+  const x = new Float64Array(count);
+  if (count < 2) {
+    x.fill(firstX);
+    return x;
+  }
+
+  const fromLast = lastX === undefined ? undefined : (lastX - firstX) / (count - 1);
+  let fromLines: number | undefined;
+  for (let k = nLines - 1; k > 0; k--) {
+    const di = decoded.lineFirstIndex[k]! - decoded.lineFirstIndex[0]!;
+    if (di > 0) {
+      fromLines = (lineXReal[k]! - lineXReal[0]!) / di;
+      break;
+    }
+  }
+  const agrees = (a: number, b: number | undefined): boolean =>
+    b === undefined || Math.abs(a - b) <= 1e-3 * Math.abs(b);
+  // NPOINTS that matches the data vouches for the header; without it, the header must agree with the lines.
+  let delta: number;
+  if (fromLast !== undefined && (nPoints === count || (nPoints === undefined && agrees(fromLast, fromLines)))) {
+    delta = fromLast;
+    if (deltaX !== undefined && !agrees(deltaX, fromLast)) {
+      warnings.push({
+        line: ownRecord(block, 'DELTAX')?.line,
+        message: `DELTAX=${deltaX} disagrees with (LASTX − FIRSTX)/(NPOINTS − 1) = ${fromLast}; the latter was used`,
+      });
+    }
+  } else if (deltaX !== undefined && agrees(deltaX, fromLines)) {
+    delta = deltaX;
+  } else if (fromLines !== undefined) {
+    delta = fromLines;
+    if (fromLast !== undefined || deltaX !== undefined) {
+      warnings.push({
+        line: data.line,
+        message: `LASTX/DELTAX disagree with the x values on the data lines; the spacing ${fromLines} was taken from the lines`,
+      });
+    }
+  } else if (fromLast !== undefined) {
+    delta = fromLast;
+  } else {
+    throw new BandshelfError('BAD_FORMAT', 'cannot tell the x spacing: the block has no ##LASTX or ##DELTAX', {
+      file,
+      line: data.line,
+    });
+  }
+  for (let i = 0; i < count; i++) x[i] = firstX + i * delta;
+
+  let off = 0;
+  let firstOff: ParseWarning | undefined;
+  const tolerance = 0.5 * Math.abs(delta);
+  for (let k = 0; k < nLines; k++) {
+    const expected = firstX + decoded.lineFirstIndex[k]! * delta;
+    const got = lineXReal[k]!;
+    if (Math.abs(got - expected) > tolerance + 1e-9 * Math.abs(expected)) {
+      off++;
+      firstOff ??= {
+        line: decoded.lineNumber[k],
+        message: `the line's x is ${got} where FIRSTX and the spacing put ${expected}`,
+      };
+    }
+  }
+  if (firstOff) {
+    if (off > 1) firstOff.message += ` (${off} lines disagree)`;
+    warnings.push(firstOff);
+  }
+  return x;
+}
+
+const AFFN = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+function clip(text: string): string {
+  return text.length > 40 ? `${text.slice(0, 40)}…` : text;
+}

@@ -1,0 +1,60 @@
+// Reads any spectrum file bandshelf accepts from its bytes: sniffs JCAMP-DX or delimited text and parses it.
+import { BandshelfError } from '../error.js';
+import { decodeText } from './decodeText.js';
+import { readDelimited } from './readDelimited.js';
+import { readJcampDx } from './readJcampDx.js';
+import type { ParsedSpectrum, XUnit, YUnit } from './types.js';
+
+export interface ReadSpectrumFileOptions {
+  /** The file's name as the user gave it; every error and warning is about it. @default undefined */
+  file?: string;
+  /** Unit of x, overriding what the file says or suggests. @default undefined (detected) */
+  xUnit?: XUnit;
+  /** Unit of y, overriding what the file says or suggests. @default undefined (detected) */
+  yUnit?: YUnit;
+  /** Read only this spectrum (1-based) of a multi-block JCAMP-DX file. @default undefined (all) */
+  block?: number;
+  /** Refuse files larger than this many bytes. @default 67_108_864 (64 MiB) */
+  maxBytes?: number;
+}
+
+/**
+ * Browser-safe (no fs): the caller reads the bytes. Too large → FILE_TOO_LARGE; empty → EMPTY_FILE; binary →
+ * BINARY_DATA; text whose first label line starts with `##` (or that holds `##TITLE=` / `##JCAMP-DX=`) is
+ * JCAMP-DX, anything else delimited text. Always returns at least one spectrum, converted to cm⁻¹ and
+ * absorbance, ascending, finite and free of duplicate x; anything wrong is a BandshelfError naming the file.
+ */
+export function readSpectrumFile(bytes: Uint8Array, options: ReadSpectrumFileOptions = {}): ParsedSpectrum[] {
+  const { file, xUnit, yUnit, block, maxBytes = 64 * 1024 * 1024 } = options;
+  if (bytes.length > maxBytes) {
+    throw new BandshelfError(
+      'FILE_TOO_LARGE',
+      `the file is ${mebibytes(bytes.length)} MiB; the limit is ${mebibytes(maxBytes)} MiB`,
+      { file },
+    );
+  }
+  if (bytes.length === 0) throw new BandshelfError('EMPTY_FILE', 'the file is empty', { file });
+  const text = decodeText(bytes, { file });
+  if (text.trim() === '') throw new BandshelfError('EMPTY_FILE', 'the file holds only white space', { file });
+  if (isJcampDx(text)) return readJcampDx(text, { file, block, xUnit, yUnit });
+  if (block !== undefined && block !== 1) {
+    throw new BandshelfError('BAD_OPTION', `block ${block} does not exist: delimited text holds one spectrum`, {
+      file,
+      field: 'block',
+    });
+  }
+  return [readDelimited(text, { file, xUnit, yUnit })];
+}
+
+function isJcampDx(text: string): boolean {
+  const head = text.slice(0, 65536);
+  const start = head.search(/\S/);
+  const end = head.indexOf('\n', start);
+  const first = start < 0 ? '' : head.slice(start, end < 0 ? undefined : end);
+  if (first.startsWith('##') && first.includes('=')) return true;
+  return /^[ \t]*##[ \t]*(TITLE|JCAMP[-_ ]?DX)[ \t]*=/im.test(head);
+}
+
+function mebibytes(n: number): string {
+  return (n / 1048576).toFixed(n < 1048576 ? 3 : 1);
+}

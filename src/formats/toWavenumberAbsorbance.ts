@@ -1,0 +1,53 @@
+// Converts a file's abscissa and ordinate from their stated units to cm⁻¹ and decadic absorbance.
+import { BandshelfError } from '../error.js';
+import { absorbanceFromPercentTransmittance } from '../spectrum/units/absorbanceFromPercentTransmittance.js';
+import { absorbanceFromTransmittance } from '../spectrum/units/absorbanceFromTransmittance.js';
+import { wavenumberFromMicrometres } from '../spectrum/units/wavenumberFromMicrometres.js';
+import { wavenumberFromNanometres } from '../spectrum/units/wavenumberFromNanometres.js';
+import type { XUnit, YUnit } from './types.js';
+
+export interface ToWavenumberAbsorbanceOptions {
+  /** Unit of `x`. @default 'cm-1' */
+  xUnit?: XUnit;
+  /** Unit of `y`. @default 'absorbance' */
+  yUnit?: YUnit;
+  /** File named in errors. @default undefined */
+  file?: string;
+  /** 1-based source line of each point, for errors. @default undefined */
+  lines?: ArrayLike<number>;
+}
+
+/** Returns new arrays (inputs untouched); NaN/Infinity → NOT_FINITE, T ≤ 0 → BAD_TRANSMITTANCE and λ ≤ 0 → NOT_FINITE, each with its line. */
+export function toWavenumberAbsorbance(
+  points: { x: Float64Array; y: Float64Array },
+  options: ToWavenumberAbsorbanceOptions = {},
+): { x: Float64Array; y: Float64Array } {
+  const { xUnit = 'cm-1', yUnit = 'absorbance', file, lines } = options;
+  const where = { file, lines };
+  // Report NaN/Infinity as such before a unit conversion could word it as a bad wavelength or transmittance.
+  const n = Math.min(points.x.length, points.y.length);
+  for (let i = 0; i < n; i++) {
+    const bad = !Number.isFinite(points.x[i]!) ? 'x' : !Number.isFinite(points.y[i]!) ? 'y' : undefined;
+    if (bad !== undefined) {
+      const value = bad === 'x' ? points.x[i] : points.y[i];
+      throw new BandshelfError('NOT_FINITE', `${bad} = ${value} is not a finite number`, {
+        file,
+        line: lines?.[i],
+        field: bad,
+      });
+    }
+  }
+  const x =
+    xUnit === 'um'
+      ? wavenumberFromMicrometres(points.x, where)
+      : xUnit === 'nm'
+        ? wavenumberFromNanometres(points.x, where)
+        : points.x.slice();
+  const y =
+    yUnit === 'transmittance'
+      ? absorbanceFromTransmittance(points.y, where)
+      : yUnit === 'percent-transmittance'
+        ? absorbanceFromPercentTransmittance(points.y, where)
+        : points.y.slice();
+  return { x, y };
+}

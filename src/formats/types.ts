@@ -1,0 +1,36 @@
+// Shapes shared by the readers and writers: what a parsed spectrum file gives the library.
+import type { Spectrum } from '../spectrum/types.js';
+
+/** Abscissa unit of a source file; readers always convert to cm⁻¹. */
+export type XUnit = 'cm-1' | 'um' | 'nm';
+
+/** Ordinate unit of a source file; readers always convert to decadic absorbance. */
+export type YUnit = 'absorbance' | 'transmittance' | 'percent-transmittance';
+
+/** Something a reader tolerated but the user should hear about (a bent rule, a guessed unit …). */
+export interface ParseWarning {
+  /** 1-based line of the file, where the warning is tied to one. */
+  line?: number;
+  message: string;
+}
+
+/** One spectrum read from a file: converted to cm⁻¹ and absorbance, ascending, finite, no duplicate x. */
+export interface ParsedSpectrum {
+  spectrum: Spectrum;
+  /**
+   * Labels the file carried, with camelCase keys: title, origin, owner, resolution (number when it reads as
+   * one), state, samplingProcedure, cas, formula, casName, names, date, instrument, dataType, jcampVersion.
+   * Only labels present and non-empty appear.
+   */
+  meta: Record<string, string | number>;
+  source: {
+    format: 'jcamp-dx' | 'delimited';
+    /** The unit the file's abscissa was in before conversion. */
+    xUnit: XUnit;
+    /** The unit the file's ordinate was in before conversion. */
+    yUnit: YUnit;
+    /** 1-based position of this spectrum among the spectra of a JCAMP-DX file. */
+    block?: number;
+  };
+  warnings: ParseWarning[];
+}

@@ -1,0 +1,91 @@
+// Writes a library state as a folder `add` can read back: every entry's files in their original bytes, renamed
+// after the entry id, beside a sidecar carrying its metadata, recipe and reading options. Adding the folder to an
+// empty library reproduces every content hash (see the note on pinned references below).
+import { existsSync, mkdirSync, readdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { BandshelfError } from '../error.js';
+import { canonicalJson } from './canonicalJson.js';
+import { stateSelect } from './stateSelect.js';
+import type { Library } from './types.js';
+
+export interface ExportAllOptions {
+  /** A release tag, or undefined / 'current' for the working state.
+   * @default undefined */
+  at?: string | null;
+  /** Called after each entry. */
+  progress?: (done: number, total: number, label: string) => void;
+}
+
+export interface ExportAllResult {
+  entries: number;
+  files: string[];
+}
+
+function extensionOf(name: string): string {
+  const dot = name.lastIndexOf('.');
+  return dot > 0 ? name.slice(dot) : '.txt';
+}
+
+/**
+ * The folder must be new or empty: an export never mixes with (or overwrites) other files. A recipe that pins a
+ * reference or EMSC spectrum keeps its revision number, so its content hash survives only where the referenced
+ * entry gets that same revision number on re-import (revision 1 in an empty library).
+ */
+export function exportAll(library: Library, dir: string, options: ExportAllOptions = {}): ExportAllResult {
+  if (existsSync(dir) && readdirSync(dir).length > 0) {
+    throw new BandshelfError('OUT_NOT_EMPTY', 'the export folder is not empty; name a new or empty folder', {
+      file: dir,
+    });
+  }
+  const select = stateSelect(library, 'r.key, r.entry_id, r.meta, r.recipe, r.read_options', options);
+  const rows = library.db.prepare(select.sql).all(...select.params) as {
+    key: number;
+    entry_id: string;
+    meta: string;
+    recipe: string;
+    read_options: string;
+  }[];
+  const filesOf = library.db.prepare(
+    `SELECT f.role, f.name, b.bytes FROM revision_files f JOIN files b ON b.sha256 = f.sha256
+     WHERE f.revision_key = ? ORDER BY f.position`,
+  );
+  try {
+    mkdirSync(dir, { recursive: true });
+  } catch (error) {
+    throw new BandshelfError('IO_ERROR', `cannot create the folder: ${(error as Error).message}`, { file: dir });
+  }
+  const written: string[] = [];
+  const write = (name: string, data: Uint8Array | string) => {
+    try {
+      writeFileSync(join(dir, name), data, { flag: 'wx' });
+    } catch (error) {
+      throw new BandshelfError('IO_ERROR', `cannot write: ${(error as Error).message}`, { file: join(dir, name) });
+    }
+    written.push(name);
+  };
+  rows.forEach((row, index) => {
+    const files = filesOf.all(row.key) as { role: string; name: string; bytes: Buffer }[];
+    const sidecar: Record<string, unknown> = { ...(JSON.parse(row.meta) as object), recipe: JSON.parse(row.recipe) };
+    const read = JSON.parse(row.read_options) as Record<string, unknown>;
+    if (Object.keys(read).length > 0) sidecar.read = read;
+    const id = row.entry_id;
+    if (files.length === 1 && files[0]!.role === 'data') {
+      write(`${id}${extensionOf(files[0]!.name)}`, files[0]!.bytes);
+    } else {
+      const timeDomain: { sample: string[]; reference: string[] } = { sample: [], reference: [] };
+      let s = 0;
+      let r = 0;
+      for (const f of files) {
+        const name =
+          f.role === 'sample-trace' ? `${id}.sample-${++s}${extensionOf(f.name)}` : `${id}.reference-${++r}${extensionOf(f.name)}`;
+        write(name, f.bytes);
+        (f.role === 'sample-trace' ? timeDomain.sample : timeDomain.reference).push(name);
+      }
+      sidecar.timeDomain = timeDomain;
+    }
+    // Canonical key order keeps exports diffable; indentation keeps them readable.
+    write(`${id}.meta.json`, `${JSON.stringify(JSON.parse(canonicalJson(sidecar)), null, 2)}\n`);
+    options.progress?.(index + 1, rows.length, id);
+  });
+  return { entries: rows.length, files: written };
+}

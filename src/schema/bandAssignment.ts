@@ -1,0 +1,44 @@
+// One row of the band-assignment table: a wavenumber range, what vibrates there, and the published source.
+import { z } from 'zod';
+
+/**
+ * Why the row is believed: `seen` checked against the cited source, `memory` recalled from it (treat as such),
+ * `lab` a row a lab added to its own library.
+ */
+export const assignmentBasisSchema = z.enum(['seen', 'memory', 'lab']);
+export type AssignmentBasis = z.output<typeof assignmentBasisSchema>;
+
+export const bandAssignmentSchema = z
+  .object({
+    /** Lowest wavenumber of the range, cm⁻¹ (inclusive). */
+    min: z.number().finite().positive(),
+    /** Highest wavenumber of the range, cm⁻¹ (inclusive). */
+    max: z.number().finite().positive(),
+    /** Where the published value sits inside the range, cm⁻¹, when the source gives one value. */
+    centre: z.number().finite().positive().optional(),
+    /** Short name of the band, e.g. `amide I`. */
+    label: z.string().trim().min(1),
+    /** The vibration, e.g. `C=O stretch`. */
+    vibration: z.string().trim().min(1),
+    /** The functional group or molecule that carries it, e.g. `peptide backbone`. */
+    group: z.string().trim().min(1),
+    /** Biomolecule classes the band points to (entry-class vocabulary, plus `phospholipid`). */
+    class: z.array(z.string().trim().min(1)).min(1),
+    /** The published source (citation) of the row; never empty. */
+    source: z.string().trim().min(3),
+    basis: assignmentBasisSchema,
+    /** Whether the row ships with bandshelf or was added by the lab to its library. */
+    origin: z.enum(['shipped', 'lab']).default('shipped'),
+  })
+  .strict()
+  .refine((row) => row.max >= row.min, { message: 'max must not be below min', path: ['max'] })
+  .refine((row) => row.centre === undefined || (row.centre >= row.min && row.centre <= row.max), {
+    message: 'centre must lie inside min–max',
+    path: ['centre'],
+  });
+
+export type BandAssignment = z.output<typeof bandAssignmentSchema>;
+export type BandAssignmentInput = z.input<typeof bandAssignmentSchema>;
+
+/** The whole table as shipped or as stored by a lab. */
+export const bandAssignmentTableSchema = z.array(bandAssignmentSchema);

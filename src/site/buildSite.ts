@@ -1,0 +1,249 @@
+// Builds the static site: entry downloads, the search index, the matcher's binary matrix, the Eleventy pages and
+// the copied scripts and styles, then records what it wrote so a later build knows its own files.
+import { createHash } from 'node:crypto';
+import { mkdirSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { dirname, join, relative, resolve, sep } from 'node:path';
+import { BandshelfError } from '../error.js';
+import { writeCsv } from '../formats/writeCsv.js';
+import { writeJcampDx } from '../formats/writeJcampDx.js';
+import { buildSearchIndex, type SearchIndexEntry } from './buildSearchIndex.js';
+import { copySiteAssets } from './copySiteAssets.js';
+import { encodeSearchMatrix } from './encodeSearchMatrix.js';
+import { entryJson } from './entryJson.js';
+import { entryPage } from './entryPage.js';
+import { findPackageRoot } from './findPackageRoot.js';
+import { jsonForScript } from './jsonForScript.js';
+import { BUILD_MANIFEST, prepareOutDir } from './prepareOutDir.js';
+import { reportPage } from './reportPage.js';
+import { siteEleventyPlugin } from './siteEleventyPlugin.js';
+import { siteView } from './siteView.js';
+import type { EntryPage, SiteReport, SiteSource } from './types.js';
+
+export interface BuildSiteOptions {
+  /** The output folder. */
+  out: string;
+  /** Path prefix the site is served under, e.g. `/spectra/`.
+   * @default '/' */
+  base?: string;
+  /** Empty an output folder that holds files an earlier build did not make.
+   * @default false */
+  clean?: boolean;
+  /** Validated match reports to publish.
+   * @default [] */
+  reports?: SiteReport[];
+  /** Paths the output folder must not contain (the library file).
+   * @default [] */
+  protect?: string[];
+  /** The working directory (relative paths, and --clean never empties it).
+   * @default process.cwd() */
+  cwd?: string;
+  /** Called as entries are written.
+   * @default no-op */
+  progress?: (done: number, total: number, label: string) => void;
+  /** Printed in the footer and the generator meta tag.
+   * @default 'bandshelf' */
+  version?: string;
+  /** The caution every page and download carries. */
+  caution: string;
+  /** Largest number of points per plotted trace.
+   * @default 1200 */
+  maxPlotPoints?: number;
+}
+
+export interface BuiltSite {
+  out: string;
+  files: number;
+  bytes: number;
+  entries: number;
+  reports: number;
+  pathPrefix: string;
+}
+
+/** `/`, `/spectra/`, `/a/b/`: leading and trailing slash added when missing; only plain path segments. */
+function pathPrefixOf(base: string | undefined): string {
+  const raw = (base ?? '/').trim();
+  const withSlashes = `/${raw}/`.replace(/\/{2,}/g, '/');
+  const segments = withSlashes.split('/').filter((s) => s !== '');
+  if (segments.some((s) => !/^[A-Za-z0-9._~-]+$/.test(s) || s === '.' || s === '..')) {
+    throw new BandshelfError(
+      'BAD_OPTION',
+      `'${raw}' is not a path prefix: use letters, digits, '-', '_', '.', '~' between slashes, e.g. /spectra/`,
+      { field: '--base' },
+    );
+  }
+  return withSlashes;
+}
+
+/** Entry ids are slugs already; anything outside the safe set still becomes a safe, unique path segment. */
+function slugFor(id: string, taken: Set<string>): string {
+  let slug = /^[A-Za-z0-9][A-Za-z0-9._~-]*$/.test(id) && !id.includes('..') ? id : id.replace(/[^A-Za-z0-9_-]/g, '_');
+  if (slug === '' || slug.startsWith('.')) slug = `_${slug}`;
+  let unique = slug;
+  for (let n = 2; taken.has(unique); n++) unique = `${slug}-${n}`;
+  taken.add(unique);
+  return unique;
+}
+
+function listFiles(dir: string): string[] {
+  const out: string[] = [];
+  const walk = (d: string): void => {
+    for (const name of readdirSync(d).sort()) {
+      const full = join(d, name);
+      if (statSync(full).isDirectory()) walk(full);
+      else out.push(relative(dir, full).split(sep).join('/'));
+    }
+  };
+  walk(dir);
+  return out;
+}
+
+/** Eleventy wraps errors thrown inside plugins and templates; find ours, or the first message that says something. */
+function unwrapError(error: unknown): BandshelfError {
+  let e: unknown = error;
+  const messages: string[] = [];
+  for (let depth = 0; e && depth < 10; depth++) {
+    if (e instanceof BandshelfError) return e;
+    if (e instanceof Error) {
+      messages.push(e.message);
+      e = (e as { cause?: unknown }).cause ?? (e as { originalError?: unknown }).originalError;
+    } else break;
+  }
+  return new BandshelfError('IO_ERROR', `the site templates failed: ${messages.at(-1) ?? String(error)}`);
+}
+
+export async function buildSite(source: SiteSource, options: BuildSiteOptions): Promise<BuiltSite> {
+  const pathPrefix = pathPrefixOf(options.base);
+  const cwd = resolve(options.cwd ?? process.cwd());
+  const out = resolve(cwd, options.out);
+  const root = findPackageRoot(import.meta.url);
+  const templates = join(root, 'site');
+  // Everything that can be missing is checked before the output folder is touched.
+  copySiteAssets(root, out, { checkOnly: true });
+  prepareOutDir(out, { clean: options.clean, protect: [...(options.protect ?? []), templates, root], cwd });
+
+  const write = (path: string, content: string | Uint8Array): number => {
+    const full = join(out, path);
+    mkdirSync(dirname(full), { recursive: true });
+    writeFileSync(full, content);
+    return typeof content === 'string' ? Buffer.byteLength(content) : content.byteLength;
+  };
+
+  const taken = new Set<string>();
+  const slugs = new Map(source.entries.map((e) => [e.id, slugFor(e.id, taken)]));
+  const entryPages: EntryPage[] = [];
+  const searchEntries: SearchIndexEntry[] = [];
+  const total = source.entries.length;
+  for (const [i, summary] of source.entries.entries()) {
+    const slug = slugs.get(summary.id)!;
+    const detail = source.loadEntry(summary.id);
+    const folder = `entries/${slug}/`;
+    const title = summary.name;
+    const downloads = [
+      {
+        label: 'CSV (original data)',
+        file: `${slug}.csv`,
+        bytes: write(`${folder}${slug}.csv`, writeCsv(detail.original, {})),
+      },
+      {
+        label: 'JCAMP-DX (original data, DIFDUP)',
+        file: `${slug}.jdx`,
+        bytes: write(
+          `${folder}${slug}.jdx`,
+          writeJcampDx(detail.original, { form: 'difdup', title, meta: detail.summary.meta }),
+        ),
+      },
+      {
+        label: 'JSON (metadata, original and processed data, peaks, QC)',
+        file: `${slug}.json`,
+        bytes: write(`${folder}${slug}.json`, entryJson(detail, { caution: options.caution })),
+      },
+    ];
+    entryPages.push(
+      entryPage(detail, {
+        assignments: source.assignments,
+        downloads,
+        slug,
+        maxPlotPoints: options.maxPlotPoints,
+      }),
+    );
+    searchEntries.push({
+      summary: detail.summary,
+      path: folder,
+      peakPositions: detail.peaks.map((p) => p.position),
+    });
+    options.progress?.(i + 1, total, summary.id);
+  }
+
+  const summaries = new Map(source.entries.map((e) => [e.id, e]));
+  write('assets/search-index.json', buildSearchIndex(searchEntries, { assignments: source.assignments }));
+  write('assets/search-matrix.bin', encodeSearchMatrix(source.matrix));
+  write(
+    'assets/search-matrix.json',
+    `${jsonForScript({
+      format: 'bandshelf-search-matrix',
+      version: 1,
+      rows: source.matrix.rows,
+      cols: source.matrix.cols,
+      grid: source.grid,
+      recipe: source.recipe,
+      stateKey: source.stateKey,
+      at: source.at,
+      entries: source.matrix.ids.map((id, i) => {
+        const summary = summaries.get(id);
+        return {
+          id,
+          revision: source.matrix.revisions[i],
+          name: summary?.name ?? id,
+          class: summary?.class ?? 'other',
+          path: slugs.has(id) ? `entries/${slugs.get(id)}/` : null,
+        };
+      }),
+      references: Object.fromEntries(
+        Object.entries(source.references).map(([id, s]) => [
+          id,
+          { wavenumber: Array.from(s.wavenumber), absorbance: Array.from(s.absorbance) },
+        ]),
+      ),
+    })}\n`,
+  );
+
+  const reportTaken = new Set<string>();
+  const reportPages = (options.reports ?? []).map((r) =>
+    reportPage(r, { slugs, slug: slugFor(r.slug, reportTaken), caution: options.caution }),
+  );
+  const view = siteView(source, {
+    entryPages,
+    reportPages,
+    slugs,
+    version: options.version,
+    caution: options.caution,
+  });
+
+  const { Eleventy } = await import('@11ty/eleventy');
+  const eleventy = new Eleventy(templates, out, {
+    quietMode: true,
+    configPath: false,
+    pathPrefix,
+    config(config) {
+      config.addPlugin(siteEleventyPlugin, { view });
+    },
+  });
+  eleventy.disableLogger();
+  try {
+    await eleventy.write();
+  } catch (error) {
+    throw unwrapError(error);
+  }
+  copySiteAssets(root, out);
+
+  const files = listFiles(out).filter((f) => f !== BUILD_MANIFEST);
+  const hashes: Record<string, string> = {};
+  let bytes = 0;
+  for (const f of files) {
+    const content = readFileSync(join(out, f));
+    bytes += content.byteLength;
+    hashes[f] = createHash('sha256').update(content).digest('hex');
+  }
+  write(BUILD_MANIFEST, `${JSON.stringify({ generator: 'bandshelf site', files: hashes }, null, 1)}\n`);
+  return { out, files: files.length, bytes, entries: total, reports: reportPages.length, pathPrefix };
+}

@@ -1,0 +1,145 @@
+// Gathers what a site build shows from an open library: entries, releases with their diffs, the band-assignment
+// table and the processed vectors of one state. Entry vectors are read later, one entry at a time.
+import { BandshelfError } from '../error.js';
+import { entryHistory } from '../library/entryHistory.js';
+import { listEntries } from '../library/listEntries.js';
+import { listReleases } from '../library/listReleases.js';
+import { readEntry } from '../library/readEntry.js';
+import { readRelease } from '../library/readRelease.js';
+import { readSearchSet } from '../library/readSearchSet.js';
+import { diffStates } from '../library/diffStates.js';
+import type { EntrySummary, Library } from '../library/types.js';
+import { shippedAssignments } from '../match/shippedAssignments.js';
+import type { Spectrum } from '../spectrum/types.js';
+import type { SiteAssignment, SiteEntrySummary, SiteRelease, SiteSource } from './types.js';
+
+export interface CollectSiteDataOptions {
+  /** A release tag, or undefined / 'current' for the working state.
+   * @default undefined */
+  at?: string | null;
+  /** Band-assignment rows the lab keeps in its library, shown after the shipped table.
+   * @default [] */
+  labAssignments?: SiteAssignment[];
+}
+
+function text(meta: Record<string, unknown>, key: string): string {
+  const v = meta[key];
+  return typeof v === 'string' ? v : typeof v === 'number' ? String(v) : '';
+}
+
+function list(meta: Record<string, unknown>, key: string): string[] {
+  const v = meta[key];
+  return Array.isArray(v) ? v.filter((t): t is string => typeof t === 'string') : [];
+}
+
+function summaryOf(e: EntrySummary): SiteEntrySummary {
+  const meta = e.meta;
+  return {
+    id: e.id,
+    revision: e.revision,
+    name: e.name,
+    class: e.class,
+    technique: text(meta, 'technique'),
+    sampleForm: text(meta, 'sampleForm'),
+    tags: list(meta, 'tags'),
+    synonyms: list(meta, 'synonyms'),
+    formula: text(meta, 'formula'),
+    inchiKey: text(meta, 'inchiKey'),
+    cas: text(meta, 'cas'),
+    notes: text(meta, 'notes'),
+    date: text(meta, 'date') || e.createdAt.slice(0, 10),
+    createdAt: e.createdAt,
+    reviewState: e.reviewState,
+    synthetic: meta.synthetic === true,
+    meta,
+  };
+}
+
+export function collectSiteData(library: Library, options: CollectSiteDataOptions = {}): SiteSource {
+  const at = options.at === undefined || options.at === null || options.at === 'current' ? null : options.at;
+  // readSearchSet first: it refuses an unknown release tag before anything else is read.
+  const set = readSearchSet(library, { at });
+  const entries = listEntries(library, { at }).map(summaryOf);
+  const summaries = new Map(entries.map((e) => [e.id, e]));
+
+  const releases: SiteRelease[] = [];
+  let previous: string | null = null;
+  for (const r of listReleases(library)) {
+    let diff: SiteRelease['diff'];
+    if (previous === null) {
+      diff = { added: readRelease(library, r.tag).members.map((m) => ({ id: m.id })), changed: [], removed: [] };
+    } else {
+      const d = diffStates(library, previous, r.tag);
+      diff = {
+        added: d.added.map((a) => ({ id: a.id })),
+        changed: d.changed.map((c) => ({ id: c.id, what: [...c.what] })),
+        removed: d.removed.map((a) => ({ id: a.id })),
+      };
+    }
+    releases.push({ ...r, previous, diff });
+    previous = r.tag;
+  }
+
+  const assignments: SiteAssignment[] = [
+    ...shippedAssignments().map((a) => ({ ...a, class: [...a.class], origin: a.origin ?? 'shipped' })),
+    ...(options.labAssignments ?? []),
+  ];
+
+  // The in-browser matcher processes an unknown with the library recipe, which may need library spectra.
+  const references: Record<string, Spectrum> = {};
+  for (const step of [set.recipe.reference, set.recipe.emsc]) {
+    if (step && !(step.id in references)) {
+      const view = readEntry(library, step.id, step.revision === undefined ? {} : { revision: step.revision });
+      references[step.id] = view.original;
+    }
+  }
+
+  return {
+    name: library.name,
+    at,
+    stateKey: set.stateKey,
+    grid: set.grid,
+    recipe: set.recipe,
+    entries,
+    releases,
+    assignments,
+    matrix: {
+      processed: set.processed,
+      rows: set.rows,
+      cols: set.cols,
+      ids: set.entries.map((e) => e.id),
+      revisions: set.entries.map((e) => e.revision),
+    },
+    references,
+    loadEntry(id) {
+      const summary = summaries.get(id);
+      if (summary === undefined) {
+        throw new BandshelfError('NOT_FOUND', `entry '${id}' is not in the state the site shows`, { field: 'id' });
+      }
+      const view = readEntry(library, id, { at });
+      return {
+        summary,
+        hash: view.hash,
+        original: view.original,
+        grid: view.grid,
+        processed: view.processed,
+        recipe: view.recipe,
+        peaks: view.peaks,
+        qc: view.qc,
+        extras: { ...view.extras },
+        files: view.files.map((f) => ({ ...f })),
+        history: entryHistory(library, id).map((h) => ({
+          revision: h.revision,
+          kind: h.kind,
+          hash: h.hash,
+          author: h.author,
+          message: h.message,
+          createdAt: h.createdAt,
+          reviewState: h.reviewState,
+          changed: [...h.changed],
+          releases: [...h.releases],
+        })),
+      };
+    },
+  };
+}

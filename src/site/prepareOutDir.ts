@@ -1,0 +1,122 @@
+// Makes the output folder ready for a build without ever deleting a file the build did not make, unless asked to.
+import { createHash } from 'node:crypto';
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { homedir } from 'node:os';
+import { dirname, join, parse, relative, resolve, sep } from 'node:path';
+import { BandshelfError } from '../error.js';
+
+export interface PrepareOutDirOptions {
+  /** Empty the folder even when it holds files an earlier build did not make.
+   * @default false */
+  clean?: boolean;
+  /** Paths the folder must not contain or be (the library file, the templates), so --clean cannot delete them.
+   * @default [] */
+  protect?: string[];
+  /** The working directory, which --clean never empties.
+   * @default process.cwd() */
+  cwd?: string;
+}
+
+/** Name of the list of built files the build leaves in the output folder. */
+export const BUILD_MANIFEST = '.bandshelf-site.json';
+
+export interface BuildManifest {
+  generator: 'bandshelf site';
+  /** Relative path (with `/`) → SHA-256 of the bytes written. */
+  files: Record<string, string>;
+}
+
+function listFiles(dir: string, base = dir): string[] {
+  const out: string[] = [];
+  for (const name of readdirSync(dir).sort()) {
+    const full = join(dir, name);
+    const st = statSync(full);
+    if (st.isDirectory()) out.push(...listFiles(full, base));
+    else out.push(relative(base, full).split(sep).join('/'));
+  }
+  return out;
+}
+
+function readManifest(dir: string): BuildManifest | undefined {
+  const path = join(dir, BUILD_MANIFEST);
+  if (!existsSync(path)) return undefined;
+  try {
+    const parsed = JSON.parse(readFileSync(path, 'utf8')) as BuildManifest;
+    return parsed && parsed.generator === 'bandshelf site' && typeof parsed.files === 'object' ? parsed : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+function removeEmptyDirs(dir: string, keep: string): void {
+  for (const name of readdirSync(dir)) {
+    const full = join(dir, name);
+    if (statSync(full).isDirectory()) removeEmptyDirs(full, keep);
+  }
+  if (dir !== keep && readdirSync(dir).length === 0) rmSync(dir, { recursive: false, force: true });
+}
+
+function isInside(child: string, parent: string): boolean {
+  const rel = relative(parent, child);
+  return rel === '' || (!rel.startsWith('..') && !parse(rel).root);
+}
+
+/**
+ * - A missing folder is created; an empty one is used as is.
+ * - A folder holding exactly what an earlier build wrote (its manifest lists every file with the same bytes) has
+ *   those files removed, so pages of entries that left the library do not linger.
+ * - Anything else (a file the build did not make, or a built file someone changed) is refused with OUT_NOT_EMPTY
+ *   unless `clean`; even then the root, the home folder, the working directory, any of their ancestors and any
+ *   folder holding a protected path are refused.
+ */
+export function prepareOutDir(out: string, options: PrepareOutDirOptions = {}): void {
+  const dir = resolve(out);
+  const cwd = resolve(options.cwd ?? process.cwd());
+  if (existsSync(dir) && !statSync(dir).isDirectory()) {
+    throw new BandshelfError('OUT_NOT_EMPTY', 'the output path exists and is not a folder', { file: out, field: '--out' });
+  }
+  for (const p of options.protect ?? []) {
+    if (isInside(resolve(p), dir)) {
+      throw new BandshelfError('OUT_NOT_EMPTY', `the output folder would contain ${p}; choose another folder`, {
+        file: out,
+        field: '--out',
+      });
+    }
+  }
+  if (!existsSync(dir)) {
+    mkdirSync(dir, { recursive: true });
+    return;
+  }
+  const files = listFiles(dir);
+  if (files.length === 0) return;
+  const manifest = readManifest(dir);
+  const foreign = files.filter((f) => {
+    if (f === BUILD_MANIFEST) return manifest === undefined;
+    const expected = manifest?.files[f];
+    if (expected === undefined) return true;
+    const actual = createHash('sha256').update(readFileSync(join(dir, f))).digest('hex');
+    return actual !== expected;
+  });
+  if (foreign.length > 0 && !options.clean) {
+    const shown = foreign.slice(0, 3).join(', ') + (foreign.length > 3 ? ` and ${foreign.length - 3} more` : '');
+    throw new BandshelfError(
+      'OUT_NOT_EMPTY',
+      `the output folder holds files this build did not make (${shown}); choose an empty folder or pass --clean to empty it`,
+      { file: out, field: '--out' },
+    );
+  }
+  if (foreign.length > 0) {
+    const home = resolve(homedir());
+    const refused = [parse(dir).root, home, cwd].some((p) => isInside(p, dir));
+    if (refused || dir === dirname(dir)) {
+      throw new BandshelfError('OUT_NOT_EMPTY', '--clean refuses to empty the root, home or working folder or one holding them', {
+        file: out,
+        field: '--out',
+      });
+    }
+    for (const name of readdirSync(dir)) rmSync(join(dir, name), { recursive: true, force: true });
+    return;
+  }
+  for (const f of files) rmSync(join(dir, f), { force: true });
+  removeEmptyDirs(dir, dir);
+}

@@ -1,0 +1,56 @@
+// The Eleventy configuration of the site, as a plugin: checks its options before Eleventy reads a template.
+import type { EleventyUserConfig } from '@11ty/eleventy';
+import { z } from 'zod';
+import { BandshelfError } from '../error.js';
+import type { SiteView } from './types.js';
+
+export interface SiteEleventyPluginOptions {
+  /** The global data every template reads as `bs`. */
+  view: SiteView;
+}
+
+// Page paths become output folders: only safe path segments, always ending in `/`.
+const pagePath = (prefix: string) =>
+  z.string().regex(new RegExp(`^${prefix}/[A-Za-z0-9._~-]+/$`), { message: `must be ${prefix}/<safe segment>/` });
+
+const optionsSchema = z.object({
+  view: z
+    .object({
+      name: z.string(),
+      version: z.string(),
+      caution: z.string().min(1, { message: 'every page carries the caution; it must not be empty' }),
+      empty: z.boolean(),
+      state: z.object({ label: z.string(), stateKey: z.string(), shortKey: z.string() }).loose(),
+      entries: z.array(z.object({ path: pagePath('entries'), plotJson: z.string() }).loose()),
+      reports: z.array(z.object({ path: pagePath('reports') }).loose()),
+      releases: z.array(z.object({ tag: z.string(), anchor: z.string().regex(/^[A-Za-z0-9._-]+$/) }).loose()),
+      assignments: z.array(z.object({}).loose()),
+      browse: z.object({ rows: z.array(z.object({}).loose()) }).loose(),
+    })
+    .loose(),
+});
+
+/** Freezing lets Eleventy share the data with every template instead of deep-copying it into each. */
+function deepFreeze<T>(value: T): T {
+  if (value !== null && typeof value === 'object' && !Object.isFrozen(value)) {
+    for (const v of Object.values(value)) deepFreeze(v);
+    Object.freeze(value);
+  }
+  return value;
+}
+
+export function siteEleventyPlugin(eleventyConfig: EleventyUserConfig, options: SiteEleventyPluginOptions): void {
+  const parsed = optionsSchema.safeParse(options);
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0]!;
+    throw new BandshelfError('BAD_OPTION', `site plugin: ${issue.message}`, { field: issue.path.join('.') });
+  }
+  eleventyConfig.setTemplateFormats(['njk']);
+  eleventyConfig.setUseGitIgnore(false);
+  eleventyConfig.setQuietMode(true);
+  // Autoescape on: every value printed with {{ }} is HTML-escaped unless a template marks it `| safe`, and the only
+  // values marked so are the site's own markup and JSON already escaped by jsonForScript.
+  eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, throwOnUndefined: false, trimBlocks: true, lstripBlocks: true });
+  eleventyConfig.ignores.add('assets/**');
+  eleventyConfig.addGlobalData('bs', deepFreeze(options.view));
+}

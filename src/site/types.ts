@@ -1,0 +1,285 @@
+// Shapes of the site's data layer: what is gathered from the library and the reports, and the page models the
+// templates print. Page models hold display-ready strings only, so templates stay free of logic and every string
+// reaches the page through the template engine's escaping.
+import type { Grid, Recipe } from '../schema/recipe.js';
+import type { Peak, QcFlag, Spectrum } from '../spectrum/types.js';
+
+/** What the site needs to know about one entry without loading its vectors. */
+export interface SiteEntrySummary {
+  id: string;
+  revision: number;
+  name: string;
+  class: string;
+  /** Metadata technique, '' when not given. */
+  technique: string;
+  sampleForm: string;
+  tags: string[];
+  synonyms: string[];
+  formula: string;
+  inchiKey: string;
+  cas: string;
+  notes: string;
+  /** Measurement date from the metadata (yyyy-mm-dd), else the day of the revision. */
+  date: string;
+  /** ISO time of the revision shown. */
+  createdAt: string;
+  reviewState: string;
+  synthetic: boolean;
+  /** All metadata as stored. */
+  meta: Record<string, unknown>;
+}
+
+/** One revision in an entry's history. */
+export interface SiteHistoryItem {
+  revision: number;
+  kind: string;
+  hash: string;
+  author: string;
+  message: string;
+  createdAt: string;
+  reviewState: string;
+  /** What differs from the previous revision: data, recipe, metadata. */
+  changed: string[];
+  /** Release tags holding this revision. */
+  releases: string[];
+}
+
+/** Everything an entry page and its downloads show. */
+export interface SiteEntryDetail {
+  summary: SiteEntrySummary;
+  hash: string;
+  original: Spectrum;
+  grid: Grid;
+  /** gridLength(grid) values, ascending wavenumber, NaN where not covered. */
+  processed: Float32Array | Float64Array;
+  recipe: Recipe;
+  peaks: Peak[];
+  qc: QcFlag[];
+  /** Figures stored beside the vectors (reference scale, dynamic range, timing spread, source format …). */
+  extras: Record<string, unknown>;
+  files: { role: string; name: string; sha256: string; size: number }[];
+  history: SiteHistoryItem[];
+}
+
+export interface SiteReleaseDiff {
+  added: { id: string }[];
+  changed: { id: string; what: string[] }[];
+  removed: { id: string }[];
+}
+
+export interface SiteRelease {
+  tag: string;
+  createdAt: string;
+  message: string;
+  reviewedOnly: boolean;
+  entries: number;
+  /** The release before this one, null for the first. */
+  previous: string | null;
+  /** Against `previous` (everything added for the first release). */
+  diff: SiteReleaseDiff;
+}
+
+export interface SiteAssignment {
+  min: number;
+  max: number;
+  centre?: number;
+  label: string;
+  vibration: string;
+  group: string;
+  class: string[];
+  source: string;
+  basis: string;
+  origin: string;
+}
+
+/** A validated match report and the name of the file it came from. */
+export interface SiteReport {
+  /** URL segment: the file name without `.json`, reduced to safe characters. */
+  slug: string;
+  /** The file name as found in the reports folder. */
+  file: string;
+  /** The report as `matchReportSchema` parsed it. */
+  report: Record<string, unknown>;
+}
+
+/** Everything one site build reads, gathered once; entry vectors are loaded one entry at a time. */
+export interface SiteSource {
+  /** The library's display name. */
+  name: string;
+  /** The release the site shows, null for the working state. */
+  at: string | null;
+  /** Hash of the revision set shown (`SearchSet.stateKey`). */
+  stateKey: string;
+  grid: Grid;
+  recipe: Recipe;
+  /** Sorted by id. */
+  entries: SiteEntrySummary[];
+  /** Oldest first. */
+  releases: SiteRelease[];
+  assignments: SiteAssignment[];
+  /** The processed vectors of the state shown, rows in `entries` order. */
+  matrix: { processed: Float32Array; rows: number; cols: number; ids: string[]; revisions: number[] };
+  /** Library spectra the recipe subtracts or corrects against, by id, for the in-browser matcher. */
+  references: Record<string, Spectrum>;
+  loadEntry: (id: string) => SiteEntryDetail;
+}
+
+/** A label and a display value, plus an outbound link where the value is a DOI. */
+export interface SiteRow {
+  label: string;
+  value: string;
+  /** Only ever an https://doi.org/ address built by the site, never a string from the metadata. */
+  href?: string;
+}
+
+/** A decimated trace for a plot: ascending x, null where the plot must break (not covered). */
+export interface PlotTrace {
+  x: number[];
+  y: (number | null)[];
+}
+
+/** What an entry page's plot draws. */
+export interface EntryPlotData {
+  original: PlotTrace | null;
+  processed: PlotTrace | null;
+  /** Axis titles. */
+  originalLabel: string;
+  processedLabel: string;
+  /** Points before decimation, so the page can say how much it thinned. */
+  originalPoints: number;
+  processedPoints: number;
+}
+
+export interface EntryPage {
+  id: string;
+  /** Site path of the page without the prefix, e.g. `entries/serum-07/`. */
+  path: string;
+  name: string;
+  class: string;
+  technique: string;
+  revision: number;
+  reviewState: string;
+  createdAt: string;
+  synthetic: boolean;
+  coverage: string;
+  metaRows: SiteRow[];
+  /** Stored figures such as the dynamic range of a time-domain reference. */
+  extraRows: SiteRow[];
+  peaks: { position: string; height: string; prominence: string; fwhm: string; assignments: string }[];
+  qc: { level: string; code: string; message: string; value: string }[];
+  history: {
+    revision: number;
+    kind: string;
+    date: string;
+    author: string;
+    message: string;
+    changed: string;
+    reviewState: string;
+    releases: string;
+    shown: boolean;
+  }[];
+  releases: { tag: string; revision: number; anchor: string }[];
+  downloads: { label: string; file: string; bytes: number; size: string }[];
+  recipe: string;
+  /** JSON of `EntryPlotData`, escaped for a `<script type="application/json">` block. */
+  plotJson: string;
+}
+
+export interface BrowseRow {
+  id: string;
+  path: string;
+  name: string;
+  class: string;
+  technique: string;
+  techniqueLabel: string;
+  sampleForm: string;
+  /** Tags joined for display. */
+  tags: string;
+  /** Tags as `|a|b|` so a filter can test membership with one substring search. */
+  tagKey: string;
+  date: string;
+  revision: number;
+}
+
+export interface ReleasePage {
+  tag: string;
+  /** URL fragment on the releases page. */
+  anchor: string;
+  date: string;
+  message: string;
+  reviewedOnly: boolean;
+  entries: number;
+  previous: string | null;
+  added: { id: string; path: string | null }[];
+  changed: { id: string; path: string | null; what: string }[];
+  removed: { id: string; path: string | null }[];
+  shown: boolean;
+}
+
+export interface AssignmentRow {
+  range: string;
+  label: string;
+  vibration: string;
+  group: string;
+  class: string;
+  source: string;
+  basis: string;
+  origin: string;
+}
+
+/** The page model of one match report; built by reportPage. */
+export interface ReportPage {
+  slug: string;
+  path: string;
+  file: string;
+  title: string;
+  /** One-line summaries for the reports index. */
+  summary: string;
+  rows: SiteRow[];
+  state: SiteRow[];
+  hits: { metric: string; rows: { rank: number; id: string; path: string | null; name: string; score: string; extra: string }[] }[];
+  mixture: {
+    r2: string;
+    components: { id: string; path: string | null; name: string; weight: string; share: string }[];
+    unexplained: { position: string; height: string }[];
+  } | null;
+  bands: {
+    position: string;
+    height: string;
+    width: string;
+    kind: string;
+    assignments: { label: string; class: string; source: string }[];
+    candidates: { id: string; path: string | null }[];
+    explained: string;
+  }[];
+  caution: string;
+  /** JSON of the report's plot data, escaped for a `<script type="application/json">` block; '' when none. */
+  plotJson: string;
+}
+
+/** Everything the templates read (Eleventy global data `bs`). */
+export interface SiteView {
+  name: string;
+  version: string;
+  caution: string;
+  empty: boolean;
+  state: { label: string; at: string | null; stateKey: string; shortKey: string; newestRelease: string | null };
+  grid: string;
+  counts: {
+    total: number;
+    byClass: { label: string; count: number }[];
+    byTechnique: { label: string; count: number }[];
+  };
+  newest: { id: string; path: string; name: string; class: string; revision: number; date: string }[];
+  browse: {
+    rows: BrowseRow[];
+    classes: string[];
+    techniques: { value: string; label: string }[];
+    tags: string[];
+    sampleForms: string[];
+  };
+  entries: EntryPage[];
+  reports: ReportPage[];
+  releases: ReleasePage[];
+  assignments: AssignmentRow[];
+}

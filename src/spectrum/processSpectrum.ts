@@ -1,0 +1,134 @@
+// The whole processing recipe, from a parsed original spectrum to the library's processed grid vector.
+import { BandshelfError } from '../error.js';
+import type { Grid, Recipe } from '../schema/recipe.js';
+import { cropToWindow } from './cropToWindow.js';
+import { emscCorrect } from './emscCorrect.js';
+import { excludeWindows } from './excludeWindows.js';
+import { gridAxis } from './gridAxis.js';
+import { normaliseVector } from './normaliseVector.js';
+import { resampleToGrid } from './resampleToGrid.js';
+import { savitzkyGolay } from './savitzkyGolay.js';
+import { sortAndMerge } from './sortAndMerge.js';
+import { subtractBaseline } from './subtractBaseline.js';
+import { subtractReference } from './subtractReference.js';
+import type { Spectrum } from './types.js';
+
+export interface ProcessSpectrumOptions {
+  /**
+   * Original spectra of the library entries the recipe names (reference subtraction, EMSC), by entry id;
+   * the caller resolves the pinned revision.
+   * @default an empty map
+   */
+  references?: ReadonlyMap<string, Spectrum>;
+  /**
+   * The file the spectrum came from, named in any error.
+   * @default undefined
+   */
+  file?: string;
+}
+
+export interface ProcessedSpectrum {
+  /** gridLength(grid) values ascending in wavenumber; NaN where not covered. */
+  processed: Float64Array;
+  /** The fitted scale of the subtracted reference, when the recipe has one. */
+  referenceScale?: number;
+  /** The EMSC model coefficients, when the recipe has the step. */
+  emscCoefficients?: number[];
+}
+
+/**
+ * Applies the recipe in its fixed order: sortAndMerge → crop → exclude → baseline → reference subtraction →
+ * EMSC → Savitzky–Golay smoothing → resample onto the grid → exclusion windows set NaN on the grid →
+ * normalise. Pure and deterministic: the same inputs always give the same bytes, which is what lets the
+ * library re-check every stored vector. The input spectrum is not modified.
+ *
+ * A reference or EMSC spectrum first goes through the same sort, crop, exclusion and baseline steps as the
+ * sample, so the fit compares like with like. Smoothing runs separately on each stretch between gaps wider
+ * than `resample.maxGap` (the excluded CO₂ window, the holes of a scattered tunable-laser spectrum), so no
+ * window mixes data across a gap; a stretch shorter than the window is left unsmoothed. Time-domain
+ * entries arrive here already converted to absorbance; `recipe.timeDomain` is applied before, not here.
+ */
+export function processSpectrum(
+  original: Spectrum,
+  recipe: Recipe,
+  grid: Grid,
+  options: ProcessSpectrumOptions = {},
+): ProcessedSpectrum {
+  const file = options.file;
+  const where = file === undefined ? {} : { file };
+  const references = options.references ?? new Map<string, Spectrum>();
+  const maxGap = recipe.resample.maxGap;
+  const prepare = (spectrum: Spectrum, label: string | undefined): Spectrum => {
+    const at = label === undefined ? {} : { file: label };
+    let s = sortAndMerge(spectrum, at);
+    s = cropToWindow(s, recipe.crop, at);
+    s = excludeWindows(s, recipe.exclude, at);
+    return subtractBaseline(s, recipe.baseline, at);
+  };
+  const lookUp = (id: string, field: string): Spectrum => {
+    const found = references.get(id);
+    if (found === undefined) {
+      throw new BandshelfError(
+        'NOT_FOUND',
+        `the recipe names library entry "${id}", which was not supplied`,
+        {
+          ...where,
+          field,
+        },
+      );
+    }
+    return prepare(found, `reference ${id}`);
+  };
+
+  let spectrum = prepare(original, file);
+  const result: ProcessedSpectrum = { processed: new Float64Array(0) };
+
+  if (recipe.reference !== null) {
+    const reference = lookUp(recipe.reference.id, 'reference.id');
+    const subtracted = subtractReference(spectrum, reference, recipe.reference.window, { maxGap, ...where });
+    spectrum = subtracted.spectrum;
+    result.referenceScale = subtracted.scale;
+  }
+  if (recipe.emsc !== null) {
+    const reference = lookUp(recipe.emsc.id, 'emsc.id');
+    const corrected = emscCorrect(spectrum, reference, { degree: recipe.emsc.degree, maxGap, ...where });
+    spectrum = corrected.spectrum;
+    result.emscCoefficients = Array.from(corrected.coefficients);
+  }
+  if (recipe.smooth !== null) {
+    spectrum = smoothBetweenGaps(spectrum, recipe.smooth.window, recipe.smooth.order, maxGap);
+  }
+
+  const vector = resampleToGrid(spectrum, grid, { maxGap });
+  if (recipe.exclude.length > 0) {
+    const axis = gridAxis(grid);
+    for (const w of recipe.exclude) {
+      const lo = Math.min(w.min, w.max);
+      const hi = Math.max(w.min, w.max);
+      for (let i = 0; i < axis.length; i++) {
+        const x = axis[i]!;
+        if (x >= lo && x <= hi) vector[i] = Number.NaN;
+      }
+    }
+  }
+  result.processed = normaliseVector(vector, recipe.normalise, grid);
+  return result;
+}
+
+/** Savitzky–Golay smoothing of each run of points whose neighbours are at most maxGap apart. */
+function smoothBetweenGaps(spectrum: Spectrum, window: number, order: number, maxGap: number): Spectrum {
+  const x = spectrum.wavenumber;
+  const y = spectrum.absorbance;
+  const n = x.length;
+  const out = y.slice();
+  let start = 0;
+  while (start < n) {
+    let end = start;
+    while (end + 1 < n && x[end + 1]! - x[end]! <= maxGap) end++;
+    if (end - start + 1 >= window) {
+      out.set(savitzkyGolay(y.subarray(start, end + 1), { window, order }), start);
+    }
+    start = end + 1;
+  }
+  return { wavenumber: x.slice(), absorbance: out };
+}

@@ -1,0 +1,383 @@
+// Quality checks run at ingest: each finding becomes a flag with a level, a readable sentence and its figure.
+import { BandshelfError } from '../error.js';
+import type { Grid, WavenumberWindow } from '../schema/recipe.js';
+import { estimateSnr } from './estimateSnr.js';
+import { gridAxis } from './gridAxis.js';
+import { gridLength } from './gridLength.js';
+import type { QcFlag, Spectrum } from './types.js';
+
+export interface QcFlagsOptions {
+  /**
+   * A maximum absorbance above this is an error: the detector saw too little light for a trustworthy value.
+   * @default 2.0
+   */
+  saturationLimit?: number;
+  /**
+   * A flat top needs at least this many consecutive points within `flatTolerance` of the maximum …
+   * @default 5
+   */
+  flatPoints?: number;
+  /**
+   * … spanning at least this many cm⁻¹, so the naturally rounded top of a broad band (even a 400 cm⁻¹ wide
+   * water band at 1 AU) is not taken for clipping.
+   * @default 8
+   */
+  flatWidth?: number;
+  /**
+   * Absorbance units within which points count as equal to the maximum.
+   * @default 1e-4
+   */
+  flatTolerance?: number;
+  /** The spectrum after the baseline step, for the negative-absorbance check (skipped without it). */
+  baselineCorrected?: Spectrum;
+  /**
+   * Negative absorbance is flagged below −negativeTolerance × the corrected spectrum's maximum.
+   * @default 0.02
+   */
+  negativeTolerance?: number;
+  /**
+   * Band-free window for the noise estimate.
+   * @default { min: 1900, max: 2000 }
+   */
+  noiseWindow?: WavenumberWindow;
+  /**
+   * An SNR ((max − min) / RMS noise) below this is a warning.
+   * @default 100
+   */
+  minSnr?: number;
+  /**
+   * A point is a spike when it stands out from its local background by more than this many robust standard
+   * deviations (1.4826 × MAD of all such excursions) while its neighbours do not.
+   * @default 8
+   */
+  spikeThreshold?: number;
+  /**
+   * Source points further apart than this (cm⁻¹) leave a gap in coverage (the recipe's `resample.maxGap`).
+   * @default 16
+   */
+  maxGap?: number;
+  /**
+   * Median point spacing above this multiple of the grid step is coarse.
+   * @default 2
+   */
+  coarseFactor?: number;
+  /**
+   * Covered fraction of the grid (outside the exclusion windows) below which coverage is narrow.
+   * @default 0.9
+   */
+  minCoverage?: number;
+  /**
+   * The recipe's exclusion windows: gaps inside them are expected, and grid points inside them are not counted
+   * against coverage.
+   * @default []
+   */
+  exclude?: WavenumberWindow[];
+  /** The reference's spectral dynamic range in orders of magnitude (field-resolved entries). */
+  dynamicRangeOrders?: number;
+  /**
+   * A dynamic range below this many orders is a warning.
+   * @default 3
+   */
+  minDynamicRangeOrders?: number;
+}
+
+/** The name the task contracts use for these options. */
+export type QcOptions = QcFlagsOptions;
+
+/**
+ * Checks, in this order: saturation (error above the limit; warning for a flat top), negative absorbance after
+ * the baseline, low SNR in the noise window (no flag when the window is not covered), single-point spikes
+ * (narrower than any band: points with y(i±1) close to the background while y(i) is far from it; two adjacent
+ * bad points, or bands under 1.6 points wide, are beyond this test), gaps in the source coverage, coarse point
+ * spacing, narrow coverage of the grid, and low dynamic range. `original` is the parsed spectrum (any order;
+ * sorted here), `processed` the grid vector (NaN not covered). Near-duplicates are the library's check.
+ */
+export function qcFlags(
+  original: Spectrum,
+  processed: Float64Array,
+  grid: Grid,
+  options: QcFlagsOptions = {},
+): QcFlag[] {
+  const flags: QcFlag[] = [];
+  const { wavenumber: x, absorbance: y } = ascending(original);
+  const n = x.length;
+  const exclude = options.exclude ?? [];
+
+  // Saturation.
+  const limit = options.saturationLimit ?? 2.0;
+  let iMax = -1;
+  for (let i = 0; i < n; i++) if (Number.isFinite(y[i]!) && (iMax < 0 || y[i]! > y[iMax]!)) iMax = i;
+  if (iMax >= 0) {
+    const max = y[iMax]!;
+    if (max > limit) {
+      flags.push({
+        code: 'saturation',
+        level: 'error',
+        message: `The maximum absorbance ${num(max)} at ${wn(x[iMax]!)} exceeds the saturation limit of ${num(limit)}.`,
+        value: max,
+      });
+    }
+    const flat = longestFlatTop(x, y, max, options.flatTolerance ?? 1e-4);
+    if (flat.points >= (options.flatPoints ?? 5) && flat.width >= (options.flatWidth ?? 8)) {
+      flags.push({
+        code: 'saturation',
+        level: 'warning',
+        message: `The band top at ${wn(flat.from)}–${wn(flat.to)} is flat: ${flat.points} points within ${num(options.flatTolerance ?? 1e-4)} of the maximum ${num(max)}, as when the detector clips.`,
+        value: flat.points,
+      });
+    }
+  }
+
+  // Negative absorbance after the baseline.
+  if (options.baselineCorrected) {
+    const c = options.baselineCorrected;
+    let lo = -1;
+    let hiValue = Number.NEGATIVE_INFINITY;
+    for (let i = 0; i < c.absorbance.length; i++) {
+      const v = c.absorbance[i]!;
+      if (!Number.isFinite(v)) continue;
+      if (lo < 0 || v < c.absorbance[lo]!) lo = i;
+      if (v > hiValue) hiValue = v;
+    }
+    const tolerance = options.negativeTolerance ?? 0.02;
+    if (lo >= 0) {
+      const min = c.absorbance[lo]!;
+      const threshold = tolerance * Math.max(Math.abs(hiValue), Number.MIN_VALUE);
+      if (min < -threshold) {
+        flags.push({
+          code: 'negative-absorbance',
+          level: 'warning',
+          message: `After baseline correction the absorbance falls to ${num(min)} at ${wn(c.wavenumber[lo]!)}, more than ${num(tolerance * 100)} % of the maximum below zero.`,
+          value: min,
+        });
+      }
+    }
+  }
+
+  // Noise and SNR.
+  const window = options.noiseWindow ?? { min: 1900, max: 2000 };
+  const snrOptions = options.baselineCorrected ? { window, signal: options.baselineCorrected } : { window };
+  const { noise, snr } = estimateSnr({ wavenumber: x, absorbance: y }, snrOptions);
+  const minSnr = options.minSnr ?? 100;
+  if (Number.isFinite(noise) && snr < minSnr) {
+    flags.push({
+      code: 'low-snr',
+      level: 'warning',
+      message: `The signal-to-noise ratio is ${num(snr)} (noise ${num(noise)} RMS in ${wn(Math.min(window.min, window.max), false)}–${wn(Math.max(window.min, window.max))}), below ${num(minSnr)}.`,
+      value: snr,
+    });
+  }
+
+  // Spikes.
+  const spikes = findSpikes(x, y, options.spikeThreshold ?? 8);
+  if (spikes.count > 0) {
+    flags.push({
+      code: 'spikes',
+      level: 'warning',
+      message: `${spikes.count} single-point spike${spikes.count === 1 ? '' : 's'} found; the largest, ${num(spikes.largest)} absorbance units, at ${wn(spikes.at)}.`,
+      value: spikes.count,
+    });
+  }
+
+  // Gaps in the source coverage, where they touch the grid and are not an excluded window.
+  const gridLo = Math.min(grid.start, grid.stop);
+  const gridHi = Math.max(grid.start, grid.stop);
+  const maxGap = options.maxGap ?? 16;
+  let gaps = 0;
+  let widest = 0;
+  let widestFrom = 0;
+  for (let i = 1; i < n; i++) {
+    const a = x[i - 1]!;
+    const b = x[i]!;
+    if (b - a <= maxGap || b < gridLo || a > gridHi) continue;
+    if (exclude.some((w) => a >= Math.min(w.min, w.max) - maxGap && b <= Math.max(w.min, w.max) + maxGap)) {
+      continue;
+    }
+    gaps++;
+    if (b - a > widest) {
+      widest = b - a;
+      widestFrom = a;
+    }
+  }
+  if (gaps > 0) {
+    flags.push({
+      code: 'coverage-gap',
+      level: 'warning',
+      message: `${gaps} gap${gaps === 1 ? '' : 's'} wider than ${num(maxGap)} cm⁻¹ between data points; the widest is ${num(widest)} cm⁻¹ (${wn(widestFrom, false)}–${wn(widestFrom + widest)}), left not covered.`,
+      value: widest,
+    });
+  }
+
+  // Coarse point spacing.
+  if (n >= 2) {
+    const spacing = new Float64Array(n - 1);
+    for (let i = 1; i < n; i++) spacing[i - 1] = x[i]! - x[i - 1]!;
+    const median = medianOf(spacing);
+    const factor = options.coarseFactor ?? 2;
+    if (median > factor * grid.step) {
+      flags.push({
+        code: 'coarse-spacing',
+        level: 'warning',
+        message: `The median point spacing is ${num(median)} cm⁻¹, coarser than ${num(factor)} × the grid step of ${num(grid.step)} cm⁻¹.`,
+        value: median,
+      });
+    }
+  }
+
+  // Narrow coverage of the grid.
+  const length = gridLength(grid);
+  if (processed.length !== length) {
+    throw new BandshelfError(
+      'BAD_OPTION',
+      `the processed vector has ${processed.length} values but the grid has ${length} points`,
+      { field: 'processed' },
+    );
+  }
+  const axis = gridAxis(grid);
+  let counted = 0;
+  let covered = 0;
+  let first = -1;
+  let last = -1;
+  for (let i = 0; i < length; i++) {
+    const v = axis[i]!;
+    if (exclude.some((w) => v >= Math.min(w.min, w.max) && v <= Math.max(w.min, w.max))) continue;
+    counted++;
+    if (Number.isFinite(processed[i]!)) {
+      covered++;
+      if (first < 0) first = i;
+      last = i;
+    }
+  }
+  const fraction = counted > 0 ? covered / counted : 0;
+  const minCoverage = options.minCoverage ?? 0.9;
+  if (fraction < minCoverage) {
+    const span = first >= 0 ? ` (data over ${wn(axis[first]!, false)}–${wn(axis[last]!)})` : '';
+    flags.push({
+      code: 'narrow-coverage',
+      level: 'warning',
+      message: `The spectrum covers ${num(fraction * 100)} % of the library grid ${wn(gridLo, false)}–${wn(gridHi)}${span}, below ${num(minCoverage * 100)} %; matching uses the overlap only.`,
+      value: fraction,
+    });
+  }
+
+  // Dynamic range of a field-resolved reference.
+  if (options.dynamicRangeOrders !== undefined) {
+    const minOrders = options.minDynamicRangeOrders ?? 3;
+    if (!(options.dynamicRangeOrders >= minOrders)) {
+      flags.push({
+        code: 'low-dynamic-range',
+        level: 'warning',
+        message: `The reference's spectral dynamic range is ${num(options.dynamicRangeOrders)} orders of magnitude, below ${num(minOrders)}.`,
+        value: options.dynamicRangeOrders,
+      });
+    }
+  }
+  return flags;
+}
+
+/** The spectrum in ascending wavenumber; a copy only when the input is not already ascending. */
+function ascending(spectrum: Spectrum): Spectrum {
+  const x = spectrum.wavenumber;
+  const n = Math.min(x.length, spectrum.absorbance.length);
+  let sorted = true;
+  for (let i = 1; i < n; i++) {
+    if (x[i]! < x[i - 1]!) {
+      sorted = false;
+      break;
+    }
+  }
+  if (sorted && n === x.length && n === spectrum.absorbance.length) return spectrum;
+  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => x[a]! - x[b]!);
+  const wavenumber = new Float64Array(n);
+  const absorbance = new Float64Array(n);
+  order.forEach((k, i) => {
+    wavenumber[i] = x[k]!;
+    absorbance[i] = spectrum.absorbance[k]!;
+  });
+  return { wavenumber, absorbance };
+}
+
+function longestFlatTop(
+  x: Float64Array,
+  y: Float64Array,
+  max: number,
+  tolerance: number,
+): { points: number; width: number; from: number; to: number } {
+  let best = { points: 0, width: 0, from: 0, to: 0 };
+  let start = -1;
+  for (let i = 0; i <= y.length; i++) {
+    const inside = i < y.length && y[i]! >= max - tolerance;
+    if (inside && start < 0) start = i;
+    if (!inside && start >= 0) {
+      const points = i - start;
+      if (points > best.points)
+        best = { points, width: x[i - 1]! - x[start]!, from: x[start]!, to: x[i - 1]! };
+      start = -1;
+    }
+  }
+  return best;
+}
+
+// Excursion of point i above its background, the median of the points two and three away on each side.
+function findSpikes(
+  x: Float64Array,
+  y: Float64Array,
+  threshold: number,
+): { count: number; largest: number; at: number } {
+  const n = y.length;
+  const result = { count: 0, largest: 0, at: 0 };
+  if (n < 7) return result;
+  const height = new Float64Array(n);
+  const background = new Float64Array(n);
+  const four = new Float64Array(4);
+  for (let i = 3; i < n - 3; i++) {
+    four[0] = y[i - 3]!;
+    four[1] = y[i - 2]!;
+    four[2] = y[i + 2]!;
+    four[3] = y[i + 3]!;
+    four.sort();
+    background[i] = (four[1]! + four[2]!) / 2;
+    height[i] = y[i]! - background[i]!;
+  }
+  const inner = height.slice(3, n - 3);
+  const centre = medianOf(inner);
+  for (let i = 0; i < inner.length; i++) inner[i] = Math.abs(inner[i]! - centre);
+  let min = Number.POSITIVE_INFINITY;
+  let max = Number.NEGATIVE_INFINITY;
+  for (let i = 0; i < n; i++) {
+    if (y[i]! < min) min = y[i]!;
+    if (y[i]! > max) max = y[i]!;
+  }
+  // A floor keeps noise-free synthetic data, whose MAD is zero, from calling rounding errors spikes.
+  const sigma = Math.max(1.4826 * medianOf(inner), 1e-9 * (max - min), Number.MIN_VALUE);
+  for (let i = 3; i < n - 3; i++) {
+    const h = height[i]! - centre;
+    if (!(Math.abs(h) > threshold * sigma)) continue;
+    const left = y[i - 1]! - background[i]! - centre;
+    const right = y[i + 1]! - background[i]! - centre;
+    if (Math.abs(left) >= Math.abs(h) / 3 || Math.abs(right) >= Math.abs(h) / 3) continue;
+    result.count++;
+    if (Math.abs(h) > Math.abs(result.largest)) {
+      result.largest = h;
+      result.at = x[i]!;
+    }
+  }
+  return result;
+}
+
+function medianOf(values: Float64Array): number {
+  if (values.length === 0) return Number.NaN;
+  const sorted = values.slice().sort();
+  const mid = sorted.length >> 1;
+  return sorted.length % 2 === 1 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
+}
+
+function num(v: number): string {
+  if (!Number.isFinite(v)) return String(v);
+  if (v !== 0 && (Math.abs(v) >= 1e6 || Math.abs(v) < 1e-3)) return v.toExponential(2);
+  return String(Number(v.toPrecision(3)));
+}
+
+function wn(v: number, unit = true): string {
+  return `${v.toFixed(1)}${unit ? ' cm⁻¹' : ''}`;
+}

@@ -1,0 +1,118 @@
+import { describe, expect, it } from 'vitest';
+import { BandshelfError } from '../../src/error.js';
+import { readManifest } from '../../src/formats/readManifest.js';
+
+const file = 'library/manifest.csv';
+
+function errorOf(run: () => unknown): BandshelfError {
+  try {
+    run();
+  } catch (error) {
+    if (error instanceof BandshelfError) return error;
+    throw error;
+  }
+  throw new Error('expected a BandshelfError');
+}
+
+describe('readManifest', () => {
+  it('reads one metadata object per data file', () => {
+    const text = [
+      '# synthetic demo manifest',
+      'file,id,name,class,synonyms,cas,resolution,synthetic,concentration',
+      'bsa.csv,bsa,Bovine serum albumin,protein,BSA; albumin,,4,yes,50 mg/mL',
+      '',
+      'glucose.jdx,glucose,D-Glucose,carbohydrate,dextrose,50-99-7,"4,0",true,',
+    ].join('\n');
+    const manifest = readManifest(text, { file });
+    expect([...manifest.keys()]).toEqual(['bsa.csv', 'glucose.jdx']);
+    expect(manifest.get('bsa.csv')).toEqual({
+      id: 'bsa',
+      name: 'Bovine serum albumin',
+      class: 'protein',
+      synonyms: ['BSA', 'albumin'],
+      resolution: 4,
+      synthetic: true,
+      concentration: { value: 50, unit: 'mg/mL' },
+    });
+    expect(manifest.get('glucose.jdx')).toEqual({
+      id: 'glucose',
+      name: 'D-Glucose',
+      class: 'carbohydrate',
+      synonyms: ['dextrose'],
+      cas: '50-99-7',
+      resolution: 4,
+      synthetic: true,
+    });
+  });
+
+  it('matches header names loosely and takes concentration in two columns', () => {
+    const text =
+      'File,InChIKey,Sample Form,sample_form_x,License,concentration.value,concentration.unit\n' +
+      'w.csv,XLYOFNOQVPJJNP-UHFFFAOYSA-N,liquid,,CC0-1.0,55.5,mol/L\n';
+    const e = errorOf(() => readManifest(text, { file }));
+    expect(e.field).toBe('sample_form_x');
+    expect(e.line).toBe(1);
+    const fixed = text.replace(',sample_form_x', '').replace('liquid,,', 'liquid,');
+    expect(readManifest(fixed, { file }).get('w.csv')).toEqual({
+      inchiKey: 'XLYOFNOQVPJJNP-UHFFFAOYSA-N',
+      sampleForm: 'liquid',
+      licence: 'CC0-1.0',
+      concentration: { value: 55.5, unit: 'mol/L' },
+    });
+  });
+
+  it('follows RFC 4180 quoting: commas, doubled quotes and line breaks inside cells', () => {
+    const text = 'file,name,notes\r\n"a,b.csv","Urea ""neat""","first line\r\nsecond, line"\r\nc.csv,C,\r\n';
+    const manifest = readManifest(text, { file });
+    expect(manifest.get('a,b.csv')).toEqual({ name: 'Urea "neat"', notes: 'first line\nsecond, line' });
+    expect(manifest.get('c.csv')).toEqual({ name: 'C' });
+  });
+
+  it('reads tab-separated tables', () => {
+    const manifest = readManifest('file\tname\ttags\nx.csv\tX\ta;b\n', { file });
+    expect(manifest.get('x.csv')).toEqual({ name: 'X', tags: ['a', 'b'] });
+  });
+
+  it('names the line and field of a bad cell, counting lines inside quoted cells', () => {
+    const text = 'file,notes,cas\nok.csv,"two\nlines",7732-18-5\nbad.csv,,7732-18-4\n';
+    const e = errorOf(() => readManifest(text, { file }));
+    expect(e.code).toBe('BAD_METADATA');
+    expect(e.oneLine()).toBe(`${file}:4: cas: has a wrong check digit [BAD_METADATA]`);
+    const e2 = errorOf(() => readManifest('file,resolution\nx.csv,four\n', { file }));
+    expect([e2.line, e2.field, e2.message]).toEqual([2, 'resolution', '"four" is not a number']);
+    const e3 = errorOf(() => readManifest('file,class\nx.csv,sugar\n', { file }));
+    expect([e3.line, e3.field]).toEqual([2, 'class']);
+  });
+
+  it('refuses a header without a file column, repeated columns and repeated files', () => {
+    expect(errorOf(() => readManifest('id,name\na,A\n', { file })).field).toBe('file');
+    const repeated = errorOf(() => readManifest('file,name,Name\nx.csv,a,b\n', { file }));
+    expect([repeated.line, repeated.field, repeated.message]).toEqual([1, 'name', 'column 3 repeats column 2']);
+    const twice = errorOf(() => readManifest('file,name\nx.csv,a\ny.csv,b\nx.csv,c\n', { file }));
+    expect([twice.line, twice.field, twice.message]).toEqual([4, 'file', 'x.csv is already described on line 2']);
+    expect(errorOf(() => readManifest('file,name\n,a\n', { file })).message).toBe('the row names no data file');
+  });
+
+  it('refuses rows wider than the header, open quotes and stray text after a quote', () => {
+    expect(errorOf(() => readManifest('file,name\nx.csv,a,b\n', { file })).line).toBe(2);
+    expect(errorOf(() => readManifest('file,name\nx.csv,"open\n\n', { file })).message).toContain('never closed');
+    expect(errorOf(() => readManifest('file,name\nx.csv,"a"b\n', { file })).message).toContain('closing quote');
+  });
+
+  it('explains why a ";"-separated table cannot be read', () => {
+    const e = errorOf(() => readManifest('file;name\nx.csv;X\n', { file }));
+    expect(e.line).toBe(1);
+    expect(e.message).toContain('separate columns by commas');
+  });
+
+  it('refuses both concentration forms at once, an empty manifest and an oversized one', () => {
+    const both = 'file,concentration,concentration.value,concentration.unit\nx.csv,1 mM,1,mM\n';
+    expect(errorOf(() => readManifest(both, { file })).field).toBe('concentration');
+    expect(errorOf(() => readManifest('\n# nothing\n', { file })).code).toBe('EMPTY_FILE');
+    expect(errorOf(() => readManifest('file\n', { file, maxChars: 2 })).code).toBe('FILE_TOO_LARGE');
+  });
+
+  it('gives an empty map for a header alone and strips a byte-order mark', () => {
+    expect(readManifest('\ufefffile,name\n', { file }).size).toBe(0);
+  });
+});

@@ -1,0 +1,165 @@
+// Tests of the whole processing recipe end to end on small literal spectra.
+import { describe, expect, it } from 'vitest';
+import { BandshelfError } from '../../src/error.js';
+import { type RecipeInput, recipeSchema } from '../../src/schema/recipe.js';
+import { gridAxis } from '../../src/spectrum/gridAxis.js';
+import { processSpectrum } from '../../src/spectrum/processSpectrum.js';
+import type { Spectrum } from '../../src/spectrum/types.js';
+
+const spectrum = (x: ArrayLike<number>, y: ArrayLike<number>): Spectrum => ({
+  wavenumber: Float64Array.from(x),
+  absorbance: Float64Array.from(y),
+});
+/** Every step off unless the case turns it on, so each hand value follows from the steps named. */
+const plain = (extra: RecipeInput = {}) =>
+  recipeSchema.parse({ exclude: [], baseline: { method: 'none' }, normalise: { method: 'none' }, ...extra });
+const grid = { start: 1010, stop: 1000, step: 2 };
+const values = (v: Float64Array) =>
+  Array.from(v, (a) => (Number.isNaN(a) ? null : Math.round(a * 1e9) / 1e9));
+
+describe('processSpectrum', () => {
+  it('sorts, merges, crops and resamples a descending file spectrum (by hand)', () => {
+    // Descending with the middle point written twice; after the crop to 1002–1010 only 1005 and 1010 remain,
+    // so 1006 and 1008 interpolate 10 → 0 and everything below 1005 is not covered.
+    const original = spectrum([1010, 1005, 1005, 1000], [0, 10, 10, 0]);
+    const whole = processSpectrum(original, plain(), grid);
+    expect(values(whole.processed)).toEqual([0, 4, 8, 8, 4, 0]);
+    const cropped = processSpectrum(original, plain({ crop: { min: 1010, max: 1002 } }), grid);
+    expect(values(cropped.processed)).toEqual([null, null, null, 8, 4, 0]);
+  });
+
+  it('removes exclusion windows from the data and from the grid, then normalises to unit length', () => {
+    // On-grid source; 1004 and 1006 lie in the window [1003, 1007]: NaN on the grid although the 6 cm⁻¹
+    // hole would be within maxGap. Vector norm of (0, 2, 8, 10) is √168.
+    const original = spectrum([1000, 1002, 1004, 1006, 1008, 1010], [0, 2, 4, 6, 8, 10]);
+    const recipe = plain({ exclude: [{ min: 1003, max: 1007 }], normalise: { method: 'vector' } });
+    const { processed } = processSpectrum(original, recipe, grid);
+    const norm = Math.sqrt(168);
+    expect(values(processed)).toEqual(
+      [0, 2 / norm, null, null, 8 / norm, 10 / norm].map((v) =>
+        v === null ? null : Math.round(v * 1e9) / 1e9,
+      ),
+    );
+  });
+
+  it('smooths each stretch between gaps separately, so nothing leaks across the excluded CO₂ window', () => {
+    // Absorbance 1 below the default CO₂ window (2280–2400 cm⁻¹, common practice) and 5 above: smoothing the
+    // stretches together would blend them next to the window.
+    const x = Array.from({ length: 301 }, (_, i) => 2200 + i);
+    const original = spectrum(
+      x,
+      x.map((v) => (v < 2340 ? 1 : 5)),
+    );
+    const recipe = recipeSchema.parse({
+      baseline: { method: 'none' },
+      normalise: { method: 'none' },
+      smooth: { window: 9, order: 2 },
+    });
+    const g = { start: 2500, stop: 2200, step: 2 };
+    const { processed } = processSpectrum(original, recipe, g);
+    const axis = gridAxis(g);
+    for (let i = 0; i < axis.length; i++) {
+      const w = axis[i]!;
+      if (w >= 2280 && w <= 2400) expect(processed[i]).toBeNaN();
+      else expect(processed[i]).toBeCloseTo(w < 2280 ? 1 : 5, 12);
+    }
+  });
+
+  it('leaves a stretch shorter than the smoothing window unsmoothed', () => {
+    const original = spectrum([1000, 1002, 1004, 1006, 1008, 1010], [0, 3, 1, 4, 1, 5]);
+    const { processed } = processSpectrum(original, plain({ smooth: { window: 9, order: 2 } }), grid);
+    expect(values(processed)).toEqual([0, 3, 1, 4, 1, 5]);
+  });
+
+  it('subtracts a supplied reference and reports its fitted scale', () => {
+    // Sample = 0.5 × "water" + a band at 1004 outside the fit window (1006–1010): the band is what remains.
+    const x = [1000, 1001, 1002, 1003, 1004, 1005, 1006, 1007, 1008, 1009, 1010];
+    const water = x.map((v) => 1 + 0.1 * (v - 1000) + 0.02 * (v - 1005) ** 2);
+    const band = x.map((v) => (v <= 1005 ? Math.max(0, 1 - Math.abs(v - 1004) / 2) : 0));
+    const sample = spectrum(
+      x,
+      x.map((_, i) => 0.5 * water[i]! + band[i]!),
+    );
+    const references = new Map([['water-01', spectrum(x, water)]]);
+    const recipe = plain({ reference: { id: 'water-01', window: { min: 1006, max: 1010 } } });
+    const onGrid = { start: 1010, stop: 1000, step: 1 };
+    const result = processSpectrum(sample, recipe, onGrid, { references });
+    expect(result.referenceScale).toBeCloseTo(0.5, 9);
+    expect(values(result.processed)).toEqual(band.map((v) => Math.round(v * 1e9) / 1e9));
+  });
+
+  it('runs EMSC against a supplied reference and returns its coefficients', () => {
+    const x = Array.from({ length: 41 }, (_, i) => 1000 + i);
+    const ref = x.map((v) => Math.exp(-(((v - 1020) / 4) ** 2)) + 0.3 * Math.exp(-(((v - 1008) / 3) ** 2)));
+    // Multiplicative 1.3 and an offset of 0.1: EMSC should give back the reference.
+    const sample = spectrum(
+      x,
+      ref.map((v) => 1.3 * v + 0.1),
+    );
+    const recipe = plain({ emsc: { id: 'ref', degree: 1 } });
+    const onGrid = { start: 1040, stop: 1000, step: 1 };
+    const result = processSpectrum(sample, recipe, onGrid, {
+      references: new Map([['ref', spectrum(x, ref)]]),
+    });
+    expect(result.emscCoefficients?.length).toBe(3);
+    for (let i = 0; i < x.length; i++) expect(result.processed[i]).toBeCloseTo(ref[i]!, 9);
+  });
+
+  it('names a missing reference entry with NOT_FOUND', () => {
+    const original = spectrum([1000, 1010], [0, 1]);
+    let caught: unknown;
+    try {
+      processSpectrum(original, plain({ reference: { id: 'buffer-pbs' } }), grid, { file: 'u.csv' });
+    } catch (error) {
+      caught = error;
+    }
+    expect(caught).toBeInstanceOf(BandshelfError);
+    expect((caught as BandshelfError).code).toBe('NOT_FOUND');
+    expect((caught as BandshelfError).message).toContain('buffer-pbs');
+    expect((caught as BandshelfError).file).toBe('u.csv');
+  });
+
+  it('is deterministic and leaves its input untouched under the default recipe', () => {
+    // A synthetic descending spectrum 4000 → 600 at an uneven 1.93 cm⁻¹ with a sloped baseline and seeded noise.
+    let state = 31;
+    const rand = () => {
+      state = (state + 0x6d2b79f5) | 0;
+      let t = Math.imul(state ^ (state >>> 15), 1 | state);
+      t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
+      return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+    };
+    const n = 1762;
+    const x = Float64Array.from({ length: n }, (_, i) => 4000 - 1.93 * i);
+    const y = x.map(
+      (v) =>
+        0.05 +
+        2e-5 * v +
+        Math.exp(-(((v - 1652) / 12) ** 2)) +
+        0.6 * Math.exp(-(((v - 1545) / 14) ** 2)) +
+        0.002 * rand(),
+    );
+    const original = { wavenumber: x, absorbance: y };
+    const before = [x.slice(), y.slice()];
+    const recipe = recipeSchema.parse({ smooth: {} });
+    const libraryGrid = { start: 4000, stop: 600, step: 2 };
+    const first = processSpectrum(original, recipe, libraryGrid);
+    const second = processSpectrum(original, recipe, libraryGrid);
+    expect(Buffer.from(first.processed.buffer).equals(Buffer.from(second.processed.buffer))).toBe(true);
+    expect(Array.from(x)).toEqual(Array.from(before[0]!));
+    expect(Array.from(y)).toEqual(Array.from(before[1]!));
+    expect(first.processed.length).toBe(1701);
+    // Unit length over the covered points, the CO₂ window not covered, everything else finite.
+    const axis = gridAxis(libraryGrid);
+    let sumSq = 0;
+    for (let i = 0; i < axis.length; i++) {
+      const v = first.processed[i]!;
+      const w = axis[i]!;
+      if (w >= 2280 && w <= 2400) expect(v).toBeNaN();
+      else if (w >= x[n - 1]!) {
+        expect(Number.isFinite(v)).toBe(true);
+        sumSq += v * v;
+      }
+    }
+    expect(sumSq).toBeCloseTo(1, 12);
+  });
+});
