@@ -9,7 +9,11 @@ export interface TextTableOptions {
 export function textTable(rows: readonly (readonly string[])[], options: TextTableOptions = {}): string {
   const right = new Set(options.right ?? []);
   const widths: number[] = [];
-  for (const row of rows) row.forEach((cell, i) => (widths[i] = Math.max(widths[i] ?? 0, [...cell].length)));
+  for (const row of rows) {
+    row.forEach((cell, i) => {
+      widths[i] = Math.max(widths[i] ?? 0, [...cell].length);
+    });
+  }
   return rows
     .map((row) =>
       row

@@ -216,8 +216,8 @@ export function timeDomainDemoFiles(
   const measurements = options.fieldResolved ?? DEFAULT_FIELD_RESOLVED;
   const files: TimeDomainDemoFile[] = [];
   const pulse: PulseShape = { t0: 1200, tau: 18, carrier: 52, phase: 0.3 };
-  // Noise of each scan relative to the peak field: about 5 orders of spectral dynamic range.
-  const noise = 4e-4;
+  // Noise of each scan relative to the peak field: about 6 orders of spectral dynamic range.
+  const noise = 1.5e-4;
 
   measurements.forEach((m, index) => {
     const bands = bandsOf(m.compound);

@@ -9,6 +9,13 @@ export interface DecodeAsdfLinesOptions {
   firstLine?: number;
   /** Refuse more ordinates than this (a stray DUP count must not exhaust memory). @default 5_000_000 */
   maxPoints?: number;
+  /**
+   * The header's abscissa of ordinate 0 and step, in the units written on the lines (before XFACTOR). A DIF
+   * line whose X is within half a step of the next point's abscissa (not the repeated one's) comes from a
+   * writer that left the Y check out: its first value is kept as data, with a warning.
+   * @default undefined (every line after a DIF line is taken to start with the Y check)
+   */
+  xHint?: { first: number; step: number };
 }
 
 export interface AsdfDecoded {
@@ -34,11 +41,12 @@ const MISSING = 4;
  * Each line is an abscissa followed by ordinates. Pseudo-digits (McDonald & Wilks 1988): SQZ `@A–I a–i`
  * start an absolute value, DIF `% J–R j–r` a difference from the previous ordinate, DUP `S–Z s` repeat the
  * previous token (value or difference) to a total count. When a line ends in DIF form, the next line's first
- * ordinate repeats the last one as a check: it is verified (a mismatch is a warning with the line) and dropped.
+ * ordinate repeats the last one as a check: it is verified (a mismatch is a warning with the line) and dropped
+ * (unless `xHint` shows the line X belongs to a new point).
  * `?` is a missing ordinate: it keeps its place (so abscissae stay right) and comes back as NaN.
  */
 export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLinesOptions = {}): AsdfDecoded {
-  const { file, firstLine = 1, maxPoints = 5_000_000 } = options;
+  const { file, firstLine = 1, maxPoints = 5_000_000, xHint } = options;
   const warnings: ParseWarning[] = [];
   let y = new Float64Array(1024);
   let pointLine = new Uint32Array(1024);
@@ -59,6 +67,14 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
   let checkFailures = 0;
   let firstCheckFailure: ParseWarning | undefined;
   let difAfterMissing = 0;
+  let missingChecks = 0;
+  let firstMissingCheck: number | undefined;
+  // With the header's spacing known, a line's X tells a repeated last point (a Y check) from a new one.
+  // Only an X within half a step of the next point counts; anything vaguer leaves the standard's rule in force.
+  const startsNewPoint = (x: number, next: number): boolean => {
+    if (!xHint || xHint.step === 0 || !Number.isFinite(xHint.first + xHint.step)) return false;
+    return Math.abs(x - (xHint.first + next * xHint.step)) < 0.5 * Math.abs(xHint.step);
+  };
 
   const ensure = (extra: number, lineNo: number): void => {
     const need = count + extra;
@@ -111,7 +127,8 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
         i++;
         while (i < len && isDigitOrDot(s.charCodeAt(i))) i++;
         if (i < len && (s.charCodeAt(i) | 32) === 101 && hasExponent(s, i, compressed, start)) {
-          i += 2;
+          i++;
+          if (s.charCodeAt(i) === 43 || s.charCodeAt(i) === 45) i++;
           while (i < len && isDigit(s.charCodeAt(i))) i++;
         }
         value = Number(s.slice(start, i));
@@ -129,15 +146,28 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
         const digit = (pd & 0xff) - 10;
         const start = i + 1;
         i++;
-        while (i < len && isDigitOrDot(s.charCodeAt(i))) i++;
-        const magnitude = Number(`${Math.abs(digit)}${s.slice(start, i)}`);
+        // Whole numbers (the usual case) are accumulated directly; a decimal point falls back to Number().
+        let magnitude = Math.abs(digit);
+        let dot = false;
+        while (i < len) {
+          const d = s.charCodeAt(i);
+          if (d >= 48 && d <= 57) magnitude = magnitude * 10 + (d - 48);
+          else if (d === 46) dot = true;
+          else break;
+          i++;
+        }
+        if (dot || i - start > 15) magnitude = Number(`${Math.abs(digit)}${s.slice(start, i)}`);
         if (Number.isNaN(magnitude)) throw notNumeric(s.slice(start - 1, i), file, lineNo);
         value = digit < 0 ? -magnitude : magnitude;
         if (kind === DUP && (!Number.isInteger(value) || value < 1)) {
-          throw new BandshelfError('NOT_NUMERIC', `repeat count ${JSON.stringify(s.slice(start - 1, i))} is not a whole number ≥ 1`, {
-            file,
-            line: lineNo,
-          });
+          throw new BandshelfError(
+            'NOT_NUMERIC',
+            `repeat count ${JSON.stringify(s.slice(start - 1, i))} is not a whole number ≥ 1`,
+            {
+              file,
+              line: lineNo,
+            },
+          );
         }
       }
       if (nTok >= kinds.length) {
@@ -154,7 +184,10 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
     }
     if (nTok === 0) continue;
     if (kinds[0] !== ABS) {
-      throw new BandshelfError('BAD_FORMAT', 'a data line must start with its x value', { file, line: lineNo });
+      throw new BandshelfError('BAD_FORMAT', 'a data line must start with its x value', {
+        file,
+        line: lineNo,
+      });
     }
     if (nTok === 1) continue;
 
@@ -164,10 +197,11 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
       const kind = kinds[t]!;
       const v = values[t]!;
       if (kind === ABS) {
-        if (t === 1 && lineEndedDif && havePrev) {
+        const matches = Math.abs(v - prevY) <= 1e-9 * Math.max(1, Math.abs(v)) || Number.isNaN(prevY);
+        if (t === 1 && lineEndedDif && havePrev && !startsNewPoint(values[0]!, count)) {
           // The Y check: the previous line's last ordinate, repeated.
           checked = true;
-          if (!(Math.abs(v - prevY) <= 1e-9 * Math.max(1, Math.abs(v))) && !Number.isNaN(prevY)) {
+          if (!matches) {
             checkFailures++;
             firstCheckFailure ??= {
               line: lineNo,
@@ -176,6 +210,11 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
           }
           prevY = v;
         } else {
+          if (t === 1 && lineEndedDif && havePrev) {
+            // A writer that skips the Y check: the line's X names a new point, so its first value is one.
+            missingChecks++;
+            firstMissingCheck ??= lineNo;
+          }
           push(v, lineNo);
           prevY = v;
           havePrev = true;
@@ -241,6 +280,12 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
     if (checkFailures > 1) firstCheckFailure.message += ` (${checkFailures} lines fail their Y-check)`;
     warnings.push(firstCheckFailure);
   }
+  if (missingChecks > 0) {
+    warnings.push({
+      line: firstMissingCheck,
+      message: `${missingChecks} DIF line${missingChecks === 1 ? ' starts' : 's start'} without the Y check (the X names a new point); read as data`,
+    });
+  }
   if (difAfterMissing > 0) {
     warnings.push({
       message: `${difAfterMissing} difference${difAfterMissing === 1 ? '' : 's'} followed a missing ordinate and could not be resolved`,
@@ -287,18 +332,30 @@ function isDigitOrDot(c: number): boolean {
 }
 
 /**
- * Is the E/e at `at` an exponent of the AFFN number starting at `start`? On a plain AFFN line it is whenever
- * digits follow (with or without a sign); on a compressed line E/e are also SQZ +5/−5, so only a sign, or a
- * number that already has a decimal point, makes it an exponent.
+ * Is the E/e at `at` an exponent of the AFFN number starting at `start`? E/e are also SQZ +5/−5, so an exponent
+ * needs one to three digits (a double's range). A signed one (E+2, e-7) is taken as an exponent; an unsigned one
+ * must end the token (line end, separator, sign or `?` next) and, on a compressed line, follow a number with
+ * a decimal point.
  */
 function hasExponent(s: string, at: number, compressed: boolean, start: number): boolean {
-  const next = s.charCodeAt(at + 1);
-  if (next === 43 || next === 45) return isDigit(s.charCodeAt(at + 2));
-  if (!isDigit(next)) return false;
-  if (!compressed) return true;
-  return s.slice(start, at).includes('.');
+  let k = at + 1;
+  const signed = s.charCodeAt(k) === 43 || s.charCodeAt(k) === 45;
+  if (signed) k++;
+  const digitsFrom = k;
+  while (k < s.length && isDigit(s.charCodeAt(k))) k++;
+  const digits = k - digitsFrom;
+  if (digits < 1 || digits > 3) return false;
+  if (signed) return true;
+  if (k < s.length && !ENDS_EXPONENT.has(s.charCodeAt(k))) return false;
+  return !compressed || s.slice(start, at).includes('.');
 }
 
+/** Characters that may follow an exponent: space, tab, comma, semicolon, +, −, ?. */
+const ENDS_EXPONENT = new Set([32, 9, 44, 59, 43, 45, 63]);
+
 function notNumeric(text: string, file: string | undefined, line: number): BandshelfError {
-  return new BandshelfError('NOT_NUMERIC', `${JSON.stringify(text.slice(0, 30))} is not a number`, { file, line });
+  return new BandshelfError('NOT_NUMERIC', `${JSON.stringify(text.slice(0, 30))} is not a number`, {
+    file,
+    line,
+  });
 }

@@ -25,17 +25,25 @@ export function decodeText(bytes: Uint8Array, options: DecodeTextOptions = {}): 
   for (let i = 0; i < bytes.length; i++) {
     const c = bytes[i]!;
     if (c === 0) {
-      throw new BandshelfError('BINARY_DATA', `the file holds NUL bytes (first at byte ${i}): binary data, not text`, {
-        file,
-      });
+      throw new BandshelfError(
+        'BINARY_DATA',
+        `the file holds NUL bytes (first at byte ${i}): binary data, not text`,
+        {
+          file,
+        },
+      );
     }
     if ((c < 0x20 && c !== 9 && c !== 10 && c !== 13 && c !== 12 && c !== 0x1a) || c === 0x7f) controls++;
     else if (c >= 0x80) high++;
   }
   if (controls > 0.01 * bytes.length) {
-    throw new BandshelfError('BINARY_DATA', `${controls} of ${bytes.length} bytes are control characters: binary data, not text`, {
-      file,
-    });
+    throw new BandshelfError(
+      'BINARY_DATA',
+      `${controls} of ${bytes.length} bytes are control characters: binary data, not text`,
+      {
+        file,
+      },
+    );
   }
   if (high === 0) return new TextDecoder('utf-8').decode(bytes);
   try {
@@ -43,9 +51,13 @@ export function decodeText(bytes: Uint8Array, options: DecodeTextOptions = {}): 
   } catch {
     // Text that is mostly bytes ≥ 0x80 and not UTF-8 is not a Latin-1 spectrum either.
     if (high > 0.3 * bytes.length) {
-      throw new BandshelfError('BINARY_DATA', 'most bytes are neither ASCII nor UTF-8: binary data, not text', {
-        file,
-      });
+      throw new BandshelfError(
+        'BINARY_DATA',
+        'most bytes are neither ASCII nor UTF-8: binary data, not text',
+        {
+          file,
+        },
+      );
     }
     return new TextDecoder('latin1').decode(bytes);
   }
@@ -56,7 +68,9 @@ function checkText(text: string, file: string | undefined): void {
   for (let i = 0; i < text.length; i++) {
     const c = text.charCodeAt(i);
     if (c === 0) {
-      throw new BandshelfError('BINARY_DATA', 'the file holds NUL characters: binary data, not text', { file });
+      throw new BandshelfError('BINARY_DATA', 'the file holds NUL characters: binary data, not text', {
+        file,
+      });
     }
     if (c < 0x20 && c !== 9 && c !== 10 && c !== 13 && c !== 12) controls++;
   }

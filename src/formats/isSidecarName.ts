@@ -1,4 +1,4 @@
-// Tells a metadata sidecar from a data file by name, so `add DIR` skips sidecars instead of reading them as spectra.
+// Tells a metadata sidecar from a data file by name, so `add DIR` skips sidecars instead of reading them.
 
 export interface IsSidecarNameOptions {
   /**

@@ -4,11 +4,20 @@ import { BandshelfError, type ErrorCode } from '../error.js';
 import { entryMetaFields } from '../schema/meta.js';
 
 export interface MetaErrorFromIssuesOptions {
-  /** The file the metadata came from. */
+  /**
+   * The file the metadata came from.
+   * @default undefined
+   */
   file?: string;
-  /** The line of the record, where there is one. */
+  /**
+   * The line of the record, where there is one.
+   * @default undefined
+   */
   line?: number;
-  /** Field name to put before each issue's path (e.g. `recipe` for a sidecar's recipe section). */
+  /**
+   * Field name to put before each issue's path (e.g. `recipe` for a sidecar's recipe section).
+   * @default undefined
+   */
   prefix?: string;
   /**
    * The error code.
@@ -20,7 +29,10 @@ export interface MetaErrorFromIssuesOptions {
    * @default the entry metadata fields
    */
   knownFields?: readonly string[];
-  /** Gives the line of a field, where fields sit on different lines (a manifest cell spanning lines). */
+  /**
+   * Gives the line of a field, where fields sit on different lines (a manifest cell spanning lines).
+   * @default undefined
+   */
   lineOf?: (field: string) => number | undefined;
 }
 

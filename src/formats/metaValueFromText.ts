@@ -1,4 +1,4 @@
-// Converts one metadata value written as text (a manifest cell, `edit --set field=value`) into its typed form.
+// Converts one metadata value written as text (a manifest cell, `edit --set field=value`) to its typed form.
 import { BandshelfError } from '../error.js';
 import { type EntryMetaField, type EntryMetaPatch, entryMetaPatchSchema } from '../schema/meta.js';
 import { metaErrorFromIssues } from './metaErrorFromIssues.js';
@@ -10,9 +10,15 @@ export interface MetaText {
 }
 
 export interface MetaValueFromTextOptions {
-  /** The file the text came from, for error messages. */
+  /**
+   * The file the text came from, for error messages.
+   * @default undefined
+   */
   file?: string;
-  /** The line it came from. */
+  /**
+   * The line it came from.
+   * @default undefined
+   */
   line?: number;
   /**
    * Separator of list fields (synonyms, tags).
@@ -31,10 +37,11 @@ const numberFields: Record<string, RegExp> = {
 };
 
 /**
- * The typed value of a metadata field given as text: lists split on `;`, numbers with a decimal point or a single
- * decimal comma (and optionally the field's own unit: `4 cm-1`, `25 °C`), booleans as true/false/yes/no/1/0, a
- * concentration as `<number> <unit>` (e.g. `5 mg/mL`), everything else trimmed text. A whole field's value is
- * also checked against the metadata schema; the `concentration.*` parts are checked once assembled.
+ * The typed value of a metadata field given as text: lists split on `;`, numbers with a decimal point or a
+ * single decimal comma (and optionally the field's own unit: `4 cm-1`, `25 °C`), booleans as
+ * true/false/yes/no/1/0, a concentration as `<number> <unit>` (e.g. `5 mg/mL`), everything else trimmed text.
+ * A whole field's value is also checked against the metadata schema; the `concentration.*` parts are checked
+ * once assembled.
  */
 export function metaValueFromText(
   input: MetaText,

@@ -50,10 +50,14 @@ export function readDelimited(text: string, options: ReadDelimitedOptions = {}):
         { file, line: header[0]?.line },
       );
     }
-    throw new BandshelfError('NOT_NUMERIC', `no line of the file is a row of numbers: ${show(header[1]!.text)}`, {
-      file,
-      line: header[1]!.line,
-    });
+    throw new BandshelfError(
+      'NOT_NUMERIC',
+      `no line of the file is a row of numbers: ${show(header[1]!.text)}`,
+      {
+        file,
+        line: header[1]!.line,
+      },
+    );
   }
   const delimiter = chooseDelimiter(sample);
   const decimalComma = delimiter !== ',';
@@ -98,7 +102,10 @@ export function readDelimited(text: string, options: ReadDelimitedOptions = {}):
   y = y.slice(0, n);
   pointLine = pointLine.slice(0, n);
   if (extraColumns > 0) {
-    warnings.push({ line: firstData + 1, message: `rows have up to ${extraColumns} columns; the first two were read` });
+    warnings.push({
+      line: firstData + 1,
+      message: `rows have up to ${extraColumns} columns; the first two were read`,
+    });
   }
 
   // Each column's header text, gathered over all header lines (a name line and a unit line, say).
@@ -127,7 +134,12 @@ const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 const NUMBER_DECIMAL_COMMA = /^[+-]?(?:\d+,?\d*|,\d+)(?:[eE][+-]?\d+)?$/;
 const NOT_FINITE_WORD = /^[+-]?(nan|inf|infinity|∞)$/i;
 
-function checkUnitOption(value: string | undefined, allowed: readonly string[], field: string, file?: string): void {
+function checkUnitOption(
+  value: string | undefined,
+  allowed: readonly string[],
+  field: string,
+  file?: string,
+): void {
   if (value !== undefined && !allowed.includes(value)) {
     throw new BandshelfError('BAD_OPTION', `${field} ${show(value)} is not one of ${allowed.join(', ')}`, {
       file,
@@ -178,11 +190,21 @@ function chooseDelimiter(sample: string[]): Delimiter {
   return best;
 }
 
-function parseCell(cell: string, decimalComma: boolean, file: string | undefined, line: number, field: string): number {
+function parseCell(
+  cell: string,
+  decimalComma: boolean,
+  file: string | undefined,
+  line: number,
+  field: string,
+): number {
   if (NUMBER.test(cell)) return Number(cell);
   if (decimalComma && NUMBER_DECIMAL_COMMA.test(cell)) return Number(cell.replace(',', '.'));
   if (NOT_FINITE_WORD.test(cell)) {
-    throw new BandshelfError('NOT_FINITE', `${field} = ${show(cell)} is not a finite number`, { file, line, field });
+    throw new BandshelfError('NOT_FINITE', `${field} = ${show(cell)} is not a finite number`, {
+      file,
+      line,
+      field,
+    });
   }
   throw new BandshelfError('NOT_NUMERIC', `${field} = ${show(cell)} is not a number`, { file, line, field });
 }
@@ -226,7 +248,10 @@ function detectXUnit(cell: string, x: Float64Array, warnings: ParseWarning[], li
     return 'um';
   }
   if (/wavelength|lambda|λ/.test(c)) {
-    warnings.push({ line, message: 'the header says wavelength without a unit; read as nm (give the x unit if not)' });
+    warnings.push({
+      line,
+      message: 'the header says wavelength without a unit; read as nm (give the x unit if not)',
+    });
     return 'nm';
   }
   if (max > 15000 || min < 10) {

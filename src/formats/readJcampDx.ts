@@ -30,6 +30,21 @@ export interface ReadJcampDxOptions {
  */
 export function readJcampDx(text: string, options: ReadJcampDxOptions = {}): ParsedSpectrum[] {
   const { file } = options;
+  for (const [field, value, allowed] of [
+    ['xUnit', options.xUnit, ['cm-1', 'um', 'nm']],
+    ['yUnit', options.yUnit, ['absorbance', 'transmittance', 'percent-transmittance']],
+  ] as const) {
+    if (value !== undefined && !(allowed as readonly string[]).includes(value)) {
+      throw new BandshelfError(
+        'BAD_OPTION',
+        `${field} ${JSON.stringify(value)} is not one of ${allowed.join(', ')}`,
+        {
+          file,
+          field,
+        },
+      );
+    }
+  }
   if (text.trim() === '') throw new BandshelfError('EMPTY_FILE', 'the file is empty', { file });
   const { lines, blocks, warnings: fileWarnings } = splitJcampRecords(text);
   if (blocks.length === 0) {
@@ -66,10 +81,16 @@ export function readJcampDx(text: string, options: ReadJcampDxOptions = {}): Par
     throw new BandshelfError('NOT_A_SPECTRUM', 'the file has no ##XYDATA or ##XYPOINTS data', { file });
   }
   for (const table of peakTables) {
-    fileWarnings.push({ line: table.line, message: 'a peak table is not a spectrum; that block was skipped' });
+    fileWarnings.push({
+      line: table.line,
+      message: 'a peak table is not a spectrum; that block was skipped',
+    });
   }
   for (const rec of unsupported) {
-    fileWarnings.push({ line: rec.line, message: `##${rec.rawLabel} data are not read; that block was skipped` });
+    fileWarnings.push({
+      line: rec.line,
+      message: `##${rec.rawLabel} data are not read; that block was skipped`,
+    });
   }
 
   let chosen = spectra.map((s, i) => ({ ...s, index: i + 1 }));
@@ -141,7 +162,9 @@ function readMeta(block: JcampBlock, lines: string[]): Record<string, string | n
   const meta: Record<string, string | number> = {};
   for (const [label, key] of META_LABELS) {
     if (meta[key] !== undefined) continue;
-    const rec = label === 'TITLE' ? ownRecord(block, label) : inheritedRecord(block, label);
+    // A block's own title and data type never come from the LINK block around it.
+    const rec =
+      label === 'TITLE' || label === 'DATATYPE' ? ownRecord(block, label) : inheritedRecord(block, label);
     if (!rec) continue;
     const value = fullValue(rec, lines, label === 'NAMES' ? '; ' : ' ');
     if (value === '') continue;
@@ -188,18 +211,18 @@ function factorLabel(block: JcampBlock, label: string, file: string | undefined)
   return v;
 }
 
-function readXUnit(
-  block: JcampBlock,
-  file: string | undefined,
-  warnings: ParseWarning[],
-): XUnit {
+function readXUnit(block: JcampBlock, file: string | undefined, warnings: ParseWarning[]): XUnit {
   const rec = inheritedRecord(block, 'XUNITS');
   if (!rec || rec.value === '') {
     warnings.push({ line: block.line, message: 'no ##XUNITS; x read as wavenumber in 1/CM' });
     return 'cm-1';
   }
   const v = rec.value.toUpperCase().replace(/\s+/g, '');
-  if (/^(1\/CM|CM-1|CM\^-1|CM\^\(-1\)|CM\*\*-1|CM−1|CM⁻¹|1\/CENTIMETERS?|WAVENUMBERS?(\(CM-1\)|\(1\/CM\))?)$/.test(v)) {
+  if (
+    /^(1\/CM|CM-1|CM\^-1|CM\^\(-1\)|CM\*\*-1|CM−1|CM⁻¹|1\/CENTIMETERS?|WAVENUMBERS?(\(CM-1\)|\(1\/CM\))?)$/.test(
+      v,
+    )
+  ) {
     return 'cm-1';
   }
   if (/^(MICROMET(ER|RE)S?|MICRONS?|UM|µM|ΜM|μM)$/.test(v)) return 'um';
@@ -229,7 +252,11 @@ function readYUnit(
     return 'absorbance';
   }
   const v = rec.value.toUpperCase().replace(/\s+/g, ' ').trim();
-  if (/^(%\s?T|%\s?TRANSMITTANCE|PERCENT ?TRANSMITTANCE|PERCENT ?TRANSMISSION|TRANSMITTANCE ?\(%\)|T ?\(%\)|TRANSMITTANCE ?%|%)$/.test(v)) {
+  if (
+    /^(%\s?T|%\s?TRANSMITTANCE|PERCENT ?TRANSMITTANCE|PERCENT ?TRANSMISSION|TRANSMITTANCE ?\(%\)|T ?\(%\)|TRANSMITTANCE ?%|%)$/.test(
+      v,
+    )
+  ) {
     if (max <= 1.0) {
       warnings.push({
         line: rec.line,
@@ -292,7 +319,9 @@ function readBlock(
   }
   const version = ownValue(block, 'JCAMPDX') ?? inheritedRecord(block, 'JCAMPDX')?.value;
   if (version !== undefined && Number.parseFloat(version) >= 6) {
-    warnings.push({ message: `JCAMP-DX version ${clip(version)} is newer than 5.01; read by the 5.01 rules` });
+    warnings.push({
+      message: `JCAMP-DX version ${clip(version)} is newer than 5.01; read by the 5.01 rules`,
+    });
   }
 
   const xFactor = factorLabel(block, 'XFACTOR', file);
@@ -307,7 +336,12 @@ function readBlock(
   let yRaw: Float64Array;
   let pointLine: Uint32Array;
   if (data.label === 'XYDATA' && /^\(X\+\+\((Y\.\.Y|R\.\.R)\)\)$/.test(form)) {
-    const decoded = decodeAsdfLines(body, { file, firstLine: data.bodyStart + 1, maxPoints });
+    const decoded = decodeAsdfLines(body, {
+      file,
+      firstLine: data.bodyStart + 1,
+      maxPoints,
+      xHint: spacingHint(block, xFactor, file),
+    });
     warnings.push(...decoded.warnings);
     yRaw = decoded.y;
     pointLine = decoded.pointLine;
@@ -401,6 +435,21 @@ function readBlock(
   return { spectrum, meta, source: { format: 'jcamp-dx', xUnit, yUnit }, warnings };
 }
 
+/** FIRSTX and the header's step in line units, for telling a Y check from a new point; undefined if unknown. */
+function spacingHint(
+  block: JcampBlock,
+  xFactor: number,
+  file: string | undefined,
+): { first: number; step: number } | undefined {
+  const first = numberLabel(block, 'FIRSTX', file);
+  const last = numberLabel(block, 'LASTX', file);
+  const n = numberLabel(block, 'NPOINTS', file);
+  const delta = numberLabel(block, 'DELTAX', file);
+  if (first === undefined) return undefined;
+  const step = last !== undefined && n !== undefined && n > 1 ? (last - first) / (n - 1) : delta;
+  return step === undefined ? undefined : { first: first / xFactor, step: step / xFactor };
+}
+
 /**
  * Abscissae from FIRSTX + i·ΔX. ΔX = (LASTX − FIRSTX)/(NPOINTS − 1) when NPOINTS agrees with the data; when
  * it does not, the X values written on the data lines decide (the data win over the header), then DELTAX.
@@ -422,8 +471,7 @@ function abscissae(
   const firstXLabel = numberLabel(block, 'FIRSTX', file);
   const lastX = numberLabel(block, 'LASTX', file);
   const deltaX = numberLabel(block, 'DELTAX', file);
-  const firstX =
-    firstXLabel ?? (nLines > 0 && decoded.lineFirstIndex[0] === 0 ? lineXReal[0]! : undefined);
+  const firstX = firstXLabel ?? (nLines > 0 && decoded.lineFirstIndex[0] === 0 ? lineXReal[0]! : undefined);
   if (firstX === undefined) {
     throw new BandshelfError('BAD_FORMAT', 'the block has no ##FIRSTX and its first data line no x', {
       file,
@@ -455,7 +503,10 @@ function abscissae(
     b === undefined || Math.abs(a - b) <= 1e-3 * Math.abs(b);
   // NPOINTS that matches the data vouches for the header; without it, the header must agree with the lines.
   let delta: number;
-  if (fromLast !== undefined && (nPoints === count || (nPoints === undefined && agrees(fromLast, fromLines)))) {
+  if (
+    fromLast !== undefined &&
+    (nPoints === count || (nPoints === undefined && agrees(fromLast, fromLines)))
+  ) {
     delta = fromLast;
     if (deltaX !== undefined && !agrees(deltaX, fromLast)) {
       warnings.push({
@@ -476,10 +527,14 @@ function abscissae(
   } else if (fromLast !== undefined) {
     delta = fromLast;
   } else {
-    throw new BandshelfError('BAD_FORMAT', 'cannot tell the x spacing: the block has no ##LASTX or ##DELTAX', {
-      file,
-      line: data.line,
-    });
+    throw new BandshelfError(
+      'BAD_FORMAT',
+      'cannot tell the x spacing: the block has no ##LASTX or ##DELTAX',
+      {
+        file,
+        line: data.line,
+      },
+    );
   }
   for (let i = 0; i < count; i++) x[i] = firstX + i * delta;
 

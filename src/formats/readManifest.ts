@@ -1,11 +1,14 @@
-// Reads a folder's metadata manifest: a CSV table with one row per data file and one column per metadata field.
+// Reads a folder's metadata manifest: a CSV table, one row per data file and one column per metadata field.
 import { BandshelfError } from '../error.js';
 import { type EntryMetaPatch, entryMetaFields, entryMetaPatchSchema } from '../schema/meta.js';
 import { metaErrorFromIssues } from './metaErrorFromIssues.js';
 import { metaValueFromText } from './metaValueFromText.js';
 
 export interface ReadManifestOptions {
-  /** The manifest's name as the user sees it, for error messages. */
+  /**
+   * The manifest's name as the user sees it, for error messages.
+   * @default undefined
+   */
   file?: string;
   /**
    * Largest manifest accepted, in characters.
@@ -25,13 +28,13 @@ interface CsvRecord {
 }
 
 /**
- * One entry of metadata per data file, keyed by the `file` column as written (a name relative to the manifest's
- * folder). The header names metadata fields (case, spaces, `_` and `-` are ignored: `InChIKey`, `sample_form`;
- * `license` is taken as `licence`); `concentration` is a cell like `5 mg/mL`, or two columns `concentration.value`
- * and `concentration.unit`. Cells are comma-separated (tab-separated when the header has tabs and no commas), may
- * be quoted with `"` (doubled inside), and lists (synonyms, tags) are `;`-separated inside a cell. Empty cells
- * leave a field unset; blank lines and lines starting with `#` are skipped. Errors are BandshelfError
- * BAD_METADATA naming the file, the line and the field.
+ * One entry of metadata per data file, keyed by the `file` column as written (a name relative to the
+ * manifest's folder). The header names metadata fields (case, spaces, `_` and `-` are ignored: `InChIKey`,
+ * `sample_form`; `license` is taken as `licence`); `concentration` is a cell like `5 mg/mL`, or two columns
+ * `concentration.value` and `concentration.unit`. Cells are comma-separated (tab-separated when the header
+ * has tabs and no commas), may be quoted with `"` (doubled inside), and lists (synonyms, tags) are
+ * `;`-separated inside a cell. Empty cells leave a field unset; blank lines and lines starting with `#` are
+ * skipped. Errors are BandshelfError BAD_METADATA naming the file, the line and the field.
  */
 export function readManifest(text: string, options: ReadManifestOptions = {}): Map<string, EntryMetaPatch> {
   const file = options.file;
@@ -47,6 +50,7 @@ export function readManifest(text: string, options: ReadManifestOptions = {}): M
   const columns = header.cells.map((cell) => fieldOfColumn(cell.text, file, header.line));
   const seen = new Map<string, number>();
   columns.forEach((column, index) => {
+    if (column === unnamed) return;
     const before = seen.get(column);
     if (before !== undefined) {
       throw new BandshelfError('BAD_METADATA', `column ${index + 1} repeats column ${before + 1}`, {
@@ -104,6 +108,12 @@ function rowMeta(record: CsvRecord, columns: string[], file: string | undefined)
   record.cells.forEach((cell, index) => {
     const field = columns[index]!;
     if (field === 'file' || cell.text.trim() === '') return;
+    if (field === unnamed) {
+      throw new BandshelfError('BAD_METADATA', `column ${index + 1} has a value but no name in the header`, {
+        file,
+        line: cell.line,
+      });
+    }
     const value = metaValueFromText({ field, text: cell.text }, { file, line: cell.line });
     if (field.startsWith('concentration.')) {
       concentration[field.slice('concentration.'.length)] = value;
@@ -153,16 +163,22 @@ function normaliseColumn(name: string): string {
     .replace(/[\s_-]+/g, '');
 }
 
+// A spreadsheet often saves trailing empty columns: a column without a name is ignored while its cells are
+// empty.
+const unnamed = '';
+
 function fieldOfColumn(name: string, file: string | undefined, line: number): string {
+  if (name.trim() === '') return unnamed;
   const field = normalisedFields.get(normaliseColumn(name));
   if (field !== undefined) return field;
   throw metaErrorFromIssues(
-    [{ code: 'unrecognized_keys', keys: [name.trim() || '(empty)'], path: [], message: '', input: {} }],
+    [{ code: 'unrecognized_keys', keys: [name.trim()], path: [], message: '', input: {} }],
     { file, line, knownFields: ['file', ...entryMetaFields] },
   );
 }
 
-// Lists use `;` inside cells, so a `;`-delimited table (a spreadsheet's locale export) cannot be read unambiguously.
+// Lists use `;` inside cells, so a `;`-delimited table (a spreadsheet's locale export) cannot be read
+// unambiguously.
 function sniffDelimiter(text: string, file: string | undefined): ',' | '\t' {
   const lines = text.split(/\r\n|\n|\r/);
   const index = lines.findIndex((l) => l.trim() !== '' && !l.trimStart().startsWith('#'));

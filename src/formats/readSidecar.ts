@@ -1,5 +1,4 @@
-// Reads the metadata of a sidecar (`serum-07.meta.json`); its recipe and time-domain sections are read by
-// readSidecarSections.
+// Reads the metadata fields of a sidecar (`serum-07.meta.json`), the part every caller needs.
 import type { EntryMetaPatch } from '../schema/meta.js';
 import { type ReadSidecarSectionsOptions, readSidecarSections } from './readSidecarSections.js';
 

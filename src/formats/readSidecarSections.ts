@@ -1,4 +1,4 @@
-// Reads a metadata sidecar (JSON) into its sections: entry metadata, an optional recipe, optional time-domain files.
+// Reads a metadata sidecar (JSON) into its sections: entry metadata, an optional recipe, time-domain files.
 import { z } from 'zod';
 import { BandshelfError } from '../error.js';
 import { type EntryMetaPatch, entryMetaPatchSchema } from '../schema/meta.js';
@@ -21,7 +21,10 @@ export interface SidecarSections {
 }
 
 export interface ReadSidecarSectionsOptions {
-  /** The sidecar's name as the user sees it, for error messages. */
+  /**
+   * The sidecar's name as the user sees it, for error messages.
+   * @default undefined
+   */
   file?: string;
   /**
    * Largest sidecar accepted, in characters; metadata is small, so a huge file is a mistake.
@@ -45,8 +48,8 @@ const traceList = z.union([traceName.transform((s) => [s]), z.array(traceName).m
 const timeDomainSchema = z.object({ sample: traceList, reference: traceList }).strict();
 
 /**
- * Parses and validates a sidecar. Errors are BandshelfError BAD_METADATA (BAD_RECIPE inside `recipe`) naming the
- * file, the line for JSON syntax errors, and the field as its dotted path (`concentration.value`).
+ * Parses and validates a sidecar. Errors are BandshelfError BAD_METADATA (BAD_RECIPE inside `recipe`) naming
+ * the file, the line for JSON syntax errors, and the field as its dotted path (`concentration.value`).
  */
 export function readSidecarSections(text: string, options: ReadSidecarSectionsOptions = {}): SidecarSections {
   const file = options.file;

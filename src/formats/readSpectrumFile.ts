@@ -38,10 +38,14 @@ export function readSpectrumFile(bytes: Uint8Array, options: ReadSpectrumFileOpt
   if (text.trim() === '') throw new BandshelfError('EMPTY_FILE', 'the file holds only white space', { file });
   if (isJcampDx(text)) return readJcampDx(text, { file, block, xUnit, yUnit });
   if (block !== undefined && block !== 1) {
-    throw new BandshelfError('BAD_OPTION', `block ${block} does not exist: delimited text holds one spectrum`, {
-      file,
-      field: 'block',
-    });
+    throw new BandshelfError(
+      'BAD_OPTION',
+      `block ${block} does not exist: delimited text holds one spectrum`,
+      {
+        file,
+        field: 'block',
+      },
+    );
   }
   return [readDelimited(text, { file, xUnit, yUnit })];
 }

@@ -212,6 +212,7 @@ export function readTimeTrace(input: Uint8Array | string, options: ReadTimeTrace
   }
 
   const n = times.length;
+  if (n === 0) throw new BandshelfError('EMPTY_FILE', 'the file holds no data lines', { file });
   if (n < minPoints) {
     throw new BandshelfError(
       'TOO_FEW_POINTS',

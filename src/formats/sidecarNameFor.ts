@@ -1,4 +1,4 @@
-// The sidecar naming rule: `serum-07.csv` → `serum-07.meta.json`, so `add DIR` can pair a data file with its metadata.
+// The sidecar naming rule, `serum-07.csv` → `serum-07.meta.json`, so `add DIR` pairs data and metadata.
 
 export interface SidecarNameForOptions {
   /**
@@ -10,8 +10,8 @@ export interface SidecarNameForOptions {
 
 /**
  * The sidecar file name for a data file: its last extension replaced by `.meta.json`. Any folder part of the
- * name is kept (either separator), and a name without an extension (or a dotfile such as `.hidden`) just gains
- * the suffix.
+ * name is kept (either separator), and a name without an extension (or a dotfile such as `.hidden`) just
+ * gains the suffix.
  */
 export function sidecarNameFor(dataFileName: string, options: SidecarNameForOptions = {}): string {
   const suffix = options.suffix ?? '.meta.json';

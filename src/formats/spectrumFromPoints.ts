@@ -32,10 +32,14 @@ export function spectrumFromPoints(
   const warnings: ParseWarning[] = [];
   if (n === 0) throw new BandshelfError('EMPTY_FILE', 'the file holds no data points', { file });
   if (n === 1) {
-    throw new BandshelfError('TOO_FEW_POINTS', 'the file holds a single point; a spectrum needs at least two', {
-      file,
-      line: lines?.[0],
-    });
+    throw new BandshelfError(
+      'TOO_FEW_POINTS',
+      'the file holds a single point; a spectrum needs at least two',
+      {
+        file,
+        line: lines?.[0],
+      },
+    );
   }
   for (let i = 0; i < n; i++) {
     const xi = x[i]!;

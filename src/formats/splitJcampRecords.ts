@@ -18,7 +18,10 @@ export interface SplitJcampRecordsResult {
  * the lines up to the next `##` are its body. `##TITLE=` opens a block and `##END=` closes it; a TITLE
  * inside a block that already holds data means its END was left out, which is tolerated with a warning.
  */
-export function splitJcampRecords(text: string, _options: SplitJcampRecordsOptions = {}): SplitJcampRecordsResult {
+export function splitJcampRecords(
+  text: string,
+  _options: SplitJcampRecordsOptions = {},
+): SplitJcampRecordsResult {
   const lines = text.split(/\r\n|\r|\n/);
   const warnings: ParseWarning[] = [];
   const blocks: JcampBlock[] = [];
@@ -31,8 +34,7 @@ export function splitJcampRecords(text: string, _options: SplitJcampRecordsOptio
     if (record) record.bodyEnd = endIndex;
     record = undefined;
   };
-  const hasData = (block: JcampBlock): boolean =>
-    block.records.some((r) => DATA_LABELS.has(r.label));
+  const hasData = (block: JcampBlock): boolean => block.records.some((r) => DATA_LABELS.has(r.label));
 
   for (let i = 0; i < lines.length; i++) {
     let line = lines[i]!;

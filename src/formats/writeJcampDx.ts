@@ -71,16 +71,24 @@ export function writeJcampDx(spectrum: Spectrum, options: WriteJcampDxOptions = 
   const uniform = isUniform(x, n);
   const title = oneLine(String(options.title ?? meta.title ?? 'untitled'));
   const out: string[] = [
-    `##TITLE=${title}`,
+    ...labelLines('TITLE', title),
     '##JCAMP-DX=4.24',
     '##DATA TYPE=INFRARED SPECTRUM',
-    `##ORIGIN=${oneLine(String(meta.origin ?? ''))}`,
-    `##OWNER=${oneLine(String(meta.owner ?? ''))}`,
+    ...labelLines('ORIGIN', oneLine(String(meta.origin ?? ''))),
+    ...labelLines('OWNER', oneLine(String(meta.owner ?? ''))),
   ];
   for (const [key, label] of META_OUT) {
     const value = meta[key];
     if (value === undefined || value === '') continue;
-    if (key === 'names') out.push(...labelLines(label, String(value).split(/\s*;\s*/).join('\n')));
+    if (key === 'names')
+      out.push(
+        ...labelLines(
+          label,
+          String(value)
+            .split(/\s*;\s*/)
+            .join('\n'),
+        ),
+      );
     else out.push(...labelLines(label, oneLine(String(value))));
   }
   out.push(
@@ -192,12 +200,21 @@ const dup = (count: number): string => pseudo(count, '', 'STUVWXYZs', 'STUVWXYZs
 function plainLines(x: Float64Array, ints: Float64Array, n: number, form: JcampForm, out: string[]): void {
   let i = 0;
   while (i < n) {
-    let line = lineX(x[i]!);
+    // A space after X, as in the standard's `0 1JT%jX`: X's digits never run into a pseudo-digit E/e.
+    let line = `${lineX(x[i]!)} `;
     let j = i;
     while (j < n) {
       const v = ints[j]!;
       const token =
-        form === 'affn' ? ` ${v}` : form === 'pac' ? (v < 0 ? `${v}` : `+${v}`) : sqz(v);
+        form === 'affn'
+          ? j === i
+            ? `${v}`
+            : ` ${v}`
+          : form === 'pac'
+            ? j === i || v < 0
+              ? `${v}`
+              : `+${v}`
+            : sqz(v);
       if (j > i && line.length + token.length > MAX_LINE) break;
       line += token;
       j++;
@@ -210,7 +227,7 @@ function plainLines(x: Float64Array, ints: Float64Array, n: number, form: JcampF
 function difLines(x: Float64Array, ints: Float64Array, n: number, useDup: boolean, out: string[]): void {
   let i = 0;
   for (;;) {
-    let line = lineX(x[i]!) + sqz(ints[i]!);
+    let line = `${lineX(x[i]!)} ${sqz(ints[i]!)}`;
     let j = i;
     while (j < n - 1) {
       const d = ints[j + 1]! - ints[j]!;
@@ -231,7 +248,7 @@ function difLines(x: Float64Array, ints: Float64Array, n: number, useDup: boolea
     out.push(line);
     // The next line starts with the last ordinate again (the Y check); after the final point it stands alone.
     if (j === n - 1) {
-      out.push(lineX(x[n - 1]!) + sqz(ints[n - 1]!));
+      out.push(`${lineX(x[n - 1]!)} ${sqz(ints[n - 1]!)}`);
       return;
     }
     i = j;

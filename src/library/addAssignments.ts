@@ -19,7 +19,9 @@ export function addAssignments(
   options: AddAssignmentsOptions = {},
 ): BandAssignment[] {
   if (rows.length === 0) {
-    throw new BandshelfError('EMPTY_FILE', 'there are no band-assignment rows to add', { file: options.file });
+    throw new BandshelfError('EMPTY_FILE', 'there are no band-assignment rows to add', {
+      file: options.file,
+    });
   }
   const checked = rows.map((row, index) => {
     const input = row !== null && typeof row === 'object' ? { basis: 'lab', ...row, origin: 'lab' } : row;

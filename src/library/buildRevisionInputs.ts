@@ -62,7 +62,9 @@ function readBytes(path: string, label: string, maxBytes: number): Uint8Array {
   try {
     const size = statSync(path).size;
     if (size > maxBytes) {
-      throw new BandshelfError('FILE_TOO_LARGE', `the file has ${size} bytes; the limit is ${maxBytes}`, { file: label });
+      throw new BandshelfError('FILE_TOO_LARGE', `the file has ${size} bytes; the limit is ${maxBytes}`, {
+        file: label,
+      });
     }
     return new Uint8Array(readFileSync(path));
   } catch (error) {
@@ -77,13 +79,19 @@ function readBytes(path: string, label: string, maxBytes: number): Uint8Array {
 /** Labels the file carried, each kept only when valid on its own (a bad CAS in a file header is dropped, not fatal). */
 function metaFromLabels(labels: Record<string, string | number>, warnings: RevisionExtras['warnings'] & {}) {
   const meta: Record<string, unknown> = {};
-  const shape = entryMetaPatchSchema.shape as Record<string, { safeParse: (v: unknown) => { success: boolean; data?: unknown } }>;
+  const shape = entryMetaPatchSchema.shape as Record<
+    string,
+    { safeParse: (v: unknown) => { success: boolean; data?: unknown } }
+  >;
   for (const [label, field] of Object.entries(LABEL_FIELDS)) {
     const value = labels[label];
     if (value === undefined) continue;
     const checked = shape[field]!.safeParse(value);
     if (checked.success) meta[field] = checked.data;
-    else warnings.push({ message: `the file's ${label} label ${JSON.stringify(value)} is not valid metadata; ignored` });
+    else
+      warnings.push({
+        message: `the file's ${label} label ${JSON.stringify(value)} is not valid metadata; ignored`,
+      });
   }
   if (typeof labels.title === 'string' && labels.title.trim() !== '') {
     const checked = shape.name!.safeParse(labels.title);
@@ -118,14 +126,19 @@ export function buildRevisionInputs(
   }
   const timeDomain = job.samplePaths.length > 0;
   if (!timeDomain && sidecar?.timeDomain !== undefined) {
-    throw new BandshelfError('BAD_METADATA', 'its sidecar describes a time-domain measurement; add the sidecar instead', {
-      file: job.label,
-      field: 'timeDomain',
-    });
+    throw new BandshelfError(
+      'BAD_METADATA',
+      'its sidecar describes a time-domain measurement; add the sidecar instead',
+      {
+        file: job.label,
+        field: 'timeDomain',
+      },
+    );
   }
 
   // Recipe: --recipe > --meta file's recipe > sidecar recipe > library default.
-  let recipe: Recipe = options.recipe ?? options.metaFile?.sections.recipe ?? sidecar?.recipe ?? library.recipe;
+  let recipe: Recipe =
+    options.recipe ?? options.metaFile?.sections.recipe ?? sidecar?.recipe ?? library.recipe;
   const read: ReadOptions = { ...sidecar?.read, ...options.metaFile?.sections.read, ...options.read };
   if (timeDomain) {
     const step = recipe.timeDomain ?? library.recipe.timeDomain ?? timeDomainSchema.parse({});
@@ -140,7 +153,11 @@ export function buildRevisionInputs(
 
   const files: SourceFile[] = timeDomain
     ? [
-        ...job.samplePaths.map((p) => ({ role: 'sample-trace' as const, name: basename(p), bytes: readBytes(p, basename(p), maxBytes) })),
+        ...job.samplePaths.map((p) => ({
+          role: 'sample-trace' as const,
+          name: basename(p),
+          bytes: readBytes(p, basename(p), maxBytes),
+        })),
         ...job.referencePaths.map((p) => ({
           role: 'reference-trace' as const,
           name: basename(p),

@@ -6,7 +6,8 @@ export function canonicalJson(value: unknown): string {
     // Top-level undefined (or a function) has no JSON form; treat it as null rather than emit "undefined".
     return text === undefined ? 'null' : text;
   }
-  if (Array.isArray(value)) return `[${value.map((v) => (v === undefined ? 'null' : canonicalJson(v))).join(',')}]`;
+  if (Array.isArray(value))
+    return `[${value.map((v) => (v === undefined ? 'null' : canonicalJson(v))).join(',')}]`;
   const record = value as Record<string, unknown>;
   const keys = Object.keys(record)
     .filter((k) => record[k] !== undefined)

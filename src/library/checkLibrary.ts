@@ -46,17 +46,27 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
     // A damaged file can make every further read misleading; report what SQLite says and stop.
     return problems;
   }
-  for (const fk of db.prepare('PRAGMA foreign_key_check').all() as { table: string; rowid: number; parent: string }[]) {
+  for (const fk of db.prepare('PRAGMA foreign_key_check').all() as {
+    table: string;
+    rowid: number;
+    parent: string;
+  }[]) {
     add(`table ${fk.table}`, `row ${fk.rowid} points to a missing ${fk.parent} row`);
   }
-  const triggers = new Set(db.prepare("SELECT name FROM sqlite_schema WHERE type = 'trigger'").pluck().all() as string[]);
+  const triggers = new Set(
+    db.prepare("SELECT name FROM sqlite_schema WHERE type = 'trigger'").pluck().all() as string[],
+  );
   for (const name of IMMUTABILITY_TRIGGERS) {
     if (!triggers.has(name)) add('database', `the immutability trigger ${name} is missing`);
   }
 
-  for (const f of db.prepare('SELECT sha256, bytes FROM files').iterate() as Iterable<{ sha256: string; bytes: Buffer }>) {
+  for (const f of db.prepare('SELECT sha256, bytes FROM files').iterate() as Iterable<{
+    sha256: string;
+    bytes: Buffer;
+  }>) {
     const actual = sha256Hex(f.bytes);
-    if (actual !== f.sha256) add(`file ${f.sha256.slice(0, 12)}`, `stored bytes hash to ${actual.slice(0, 12)}…`);
+    if (actual !== f.sha256)
+      add(`file ${f.sha256.slice(0, 12)}`, `stored bytes hash to ${actual.slice(0, 12)}…`);
   }
 
   const cols = gridLength(library.grid);
@@ -69,13 +79,16 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
   let done = 0;
   let lastEntry = '';
   let expected = 1;
-  for (const row of db.prepare('SELECT * FROM revisions ORDER BY entry_id, revision').iterate() as Iterable<RevisionRow>) {
+  for (const row of db
+    .prepare('SELECT * FROM revisions ORDER BY entry_id, revision')
+    .iterate() as Iterable<RevisionRow>) {
     const where = `${row.entry_id} revision ${row.revision}`;
     if (row.entry_id !== lastEntry) {
       lastEntry = row.entry_id;
       expected = 1;
     }
-    if (row.revision !== expected) add(where, `revision numbers jump from ${expected - 1} to ${row.revision}`);
+    if (row.revision !== expected)
+      add(where, `revision numbers jump from ${expected - 1} to ${row.revision}`);
     expected = row.revision + 1;
     try {
       checkRevision(row, where);
@@ -94,7 +107,10 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
     .all() as { tag: string; entry_id: string; revision_entry: string }[]) {
     add(`release ${m.tag}`, `member ${m.entry_id} points to a revision of ${m.revision_entry}`);
   }
-  for (const a of db.prepare('SELECT key, row FROM band_assignments').all() as { key: number; row: string }[]) {
+  for (const a of db.prepare('SELECT key, row FROM band_assignments').all() as {
+    key: number;
+    row: string;
+  }[]) {
     try {
       const parsed = bandAssignmentSchema.safeParse(JSON.parse(a.row));
       if (!parsed.success) add(`band assignment ${a.key}`, parsed.error.issues[0]?.message ?? 'invalid row');
@@ -111,7 +127,8 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
     }
     const meta = entryMetaSchema.safeParse(JSON.parse(row.meta));
     if (!meta.success) add(where, `metadata no longer valid: ${meta.error.issues[0]?.path.join('.')}`);
-    else if (meta.data.id !== row.entry_id) add(where, `metadata id '${meta.data.id}' differs from the entry id`);
+    else if (meta.data.id !== row.entry_id)
+      add(where, `metadata id '${meta.data.id}' differs from the entry id`);
     const recipeParsed = recipeSchema.safeParse(JSON.parse(row.recipe));
     if (!recipeParsed.success) {
       add(where, `recipe no longer valid: ${recipeParsed.error.issues[0]?.path.join('.')}`);
@@ -125,13 +142,19 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
       return;
     }
     const hashes = contentHashes({ files, read, recipe: JSON.parse(row.recipe), meta: JSON.parse(row.meta) });
-    if (hashes.data !== row.data_hash) add(where, 'the data hash does not match the stored files and read options');
-    if (hashes.content !== row.content_hash) add(where, 'the content hash does not match data, recipe and metadata');
+    if (hashes.data !== row.data_hash)
+      add(where, 'the data hash does not match the stored files and read options');
+    if (hashes.content !== row.content_hash)
+      add(where, 'the content hash does not match data, recipe and metadata');
 
     const x = blobFloat64(row.original_x, { what: 'original_x' });
     const y = blobFloat64(row.original_y, { what: 'original_y' });
     if (x.length !== y.length) add(where, `original x and y differ in length (${x.length}, ${y.length})`);
-    const sources: SourceFile[] = files.map((f) => ({ role: f.role, name: f.name, bytes: new Uint8Array(f.bytes!) }));
+    const sources: SourceFile[] = files.map((f) => ({
+      role: f.role,
+      name: f.name,
+      bytes: new Uint8Array(f.bytes!),
+    }));
     const derived = readOriginals({ files: sources, read, recipe }, { label: files[0]?.name });
     const again = derived[0];
     if (derived.length !== 1 || again === undefined) {
@@ -190,7 +213,10 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
     for (let i = 0; i < peaks.length; i++) {
       const p = peaks[i]!;
       const q = sorted[i]!;
-      if (!(Math.abs(p.position - q.position) <= 1e-6) || !(Math.abs(p.height - q.height) <= tolerance * scale)) {
+      if (
+        !(Math.abs(p.position - q.position) <= 1e-6) ||
+        !(Math.abs(p.height - q.height) <= tolerance * scale)
+      ) {
         add(where, `stored peak at ${p.position} cm⁻¹ recomputes at ${q.position} cm⁻¹`);
         return;
       }

@@ -105,7 +105,8 @@ export function commitRevisions(
         created_at: createdAt,
       };
       insertEntry.run(p.id, createdAt);
-      for (const f of files) insertFile.run(f.sha256, Buffer.from(f.bytes.buffer, f.bytes.byteOffset, f.bytes.byteLength));
+      for (const f of files)
+        insertFile.run(f.sha256, Buffer.from(f.bytes.buffer, f.bytes.byteOffset, f.bytes.byteLength));
       const { lastInsertRowid } = insertRevision.run({ ...row, record_hash: recordHash(row, files) });
       for (const f of files) insertRevisionFile.run(lastInsertRowid, f.position, f.role, f.name, f.sha256);
       outcomes.push({ ...outcome, revision, status: 'added', qc: p.qc });

@@ -21,7 +21,11 @@ export interface ContentHashes {
 
 export function contentHashes(input: ContentHashesInput): ContentHashes {
   const data = sha256Hex(
-    canonicalJson({ v: 1, files: input.files.map((f) => ({ role: f.role, sha256: f.sha256 })), read: input.read }),
+    canonicalJson({
+      v: 1,
+      files: input.files.map((f) => ({ role: f.role, sha256: f.sha256 })),
+      read: input.read,
+    }),
   );
   const content = sha256Hex(canonicalJson({ v: 1, data, recipe: input.recipe, meta: input.meta }));
   return { data, content };

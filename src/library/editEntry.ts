@@ -25,7 +25,8 @@ export interface EditEntryOptions {
 
 export function editEntry(library: Library, id: string, options: EditEntryOptions = {}): CommitOutcome {
   const head = headRevision(library, id);
-  if (head === undefined) throw new BandshelfError('NOT_FOUND', `no entry '${id}' in the library`, { field: 'id' });
+  if (head === undefined)
+    throw new BandshelfError('NOT_FOUND', `no entry '${id}' in the library`, { field: 'id' });
   if (head.kind === 'retire') {
     throw new BandshelfError('NOT_FOUND', `entry '${id}' is retired; add its data again to bring it back`, {
       field: 'id',

@@ -26,7 +26,8 @@ export function entryHistory(library: Library, id: string): RevisionSummary[] {
     reviewer: string | null;
     releases: string | null;
   }[];
-  if (rows.length === 0) throw new BandshelfError('NOT_FOUND', `no entry '${id}' in the library`, { field: 'id' });
+  if (rows.length === 0)
+    throw new BandshelfError('NOT_FOUND', `no entry '${id}' in the library`, { field: 'id' });
   return rows.map((r, i) => {
     const previous = rows[i - 1];
     const changed: ChangeKind[] = [];

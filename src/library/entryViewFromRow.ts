@@ -7,7 +7,17 @@ import { blobPeaks } from './blobPeaks.js';
 import type { RevisionFileRow, RevisionRow } from './rowTypes.js';
 import type { EntryView, Library, ReadOptions, ReviewRecord, RevisionExtras } from './types.js';
 
-export function entryViewFromRow(library: Library, row: RevisionRow, options: { retired?: boolean } = {}): EntryView {
+export interface EntryViewFromRowOptions {
+  /** Whether the entry's newest revision retires it.
+   * @default row.kind === 'retire' */
+  retired?: boolean;
+}
+
+export function entryViewFromRow(
+  library: Library,
+  row: RevisionRow,
+  options: EntryViewFromRowOptions = {},
+): EntryView {
   const db = library.db;
   const files = db
     .prepare(
@@ -52,7 +62,12 @@ export function entryViewFromRow(library: Library, row: RevisionRow, options: { 
     message: row.message,
     createdAt: row.created_at,
     reviewState: last?.state ?? 'draft',
-    reviews: reviews.map((r) => ({ state: r.state, reviewer: r.reviewer, note: r.note, createdAt: r.created_at })),
+    reviews: reviews.map((r) => ({
+      state: r.state,
+      reviewer: r.reviewer,
+      note: r.note,
+      createdAt: r.created_at,
+    })),
     releases,
   };
 }

@@ -52,20 +52,27 @@ export function exportAll(library: Library, dir: string, options: ExportAllOptio
   try {
     mkdirSync(dir, { recursive: true });
   } catch (error) {
-    throw new BandshelfError('IO_ERROR', `cannot create the folder: ${(error as Error).message}`, { file: dir });
+    throw new BandshelfError('IO_ERROR', `cannot create the folder: ${(error as Error).message}`, {
+      file: dir,
+    });
   }
   const written: string[] = [];
   const write = (name: string, data: Uint8Array | string) => {
     try {
       writeFileSync(join(dir, name), data, { flag: 'wx' });
     } catch (error) {
-      throw new BandshelfError('IO_ERROR', `cannot write: ${(error as Error).message}`, { file: join(dir, name) });
+      throw new BandshelfError('IO_ERROR', `cannot write: ${(error as Error).message}`, {
+        file: join(dir, name),
+      });
     }
     written.push(name);
   };
   rows.forEach((row, index) => {
     const files = filesOf.all(row.key) as { role: string; name: string; bytes: Buffer }[];
-    const sidecar: Record<string, unknown> = { ...(JSON.parse(row.meta) as object), recipe: JSON.parse(row.recipe) };
+    const sidecar: Record<string, unknown> = {
+      ...(JSON.parse(row.meta) as object),
+      recipe: JSON.parse(row.recipe),
+    };
     const read = JSON.parse(row.read_options) as Record<string, unknown>;
     if (Object.keys(read).length > 0) sidecar.read = read;
     const id = row.entry_id;
@@ -77,7 +84,9 @@ export function exportAll(library: Library, dir: string, options: ExportAllOptio
       let r = 0;
       for (const f of files) {
         const name =
-          f.role === 'sample-trace' ? `${id}.sample-${++s}${extensionOf(f.name)}` : `${id}.reference-${++r}${extensionOf(f.name)}`;
+          f.role === 'sample-trace'
+            ? `${id}.sample-${++s}${extensionOf(f.name)}`
+            : `${id}.reference-${++r}${extensionOf(f.name)}`;
         write(name, f.bytes);
         (f.role === 'sample-trace' ? timeDomain.sample : timeDomain.reference).push(name);
       }

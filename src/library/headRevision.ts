@@ -3,7 +3,7 @@ import type { RevisionRow } from './rowTypes.js';
 import type { Library } from './types.js';
 
 export function headRevision(library: Library, id: string): RevisionRow | undefined {
-  return library.db.prepare('SELECT * FROM revisions WHERE entry_id = ? ORDER BY revision DESC LIMIT 1').get(id) as
-    | RevisionRow
-    | undefined;
+  return library.db
+    .prepare('SELECT * FROM revisions WHERE entry_id = ? ORDER BY revision DESC LIMIT 1')
+    .get(id) as RevisionRow | undefined;
 }

@@ -24,9 +24,13 @@ export interface InitLibraryOptions {
 
 export function initLibrary(path: string, options: InitLibraryOptions = {}): Library {
   if (existsSync(path)) {
-    throw new BandshelfError('ALREADY_EXISTS', 'a file is already there; bandshelf never overwrites a library', {
-      file: path,
-    });
+    throw new BandshelfError(
+      'ALREADY_EXISTS',
+      'a file is already there; bandshelf never overwrites a library',
+      {
+        file: path,
+      },
+    );
   }
   const grid = gridSchema.safeParse(options.grid ?? { start: 4000, stop: 600, step: 2 });
   if (!grid.success) {

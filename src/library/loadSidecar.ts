@@ -2,10 +2,10 @@
 // reading options (units, JCAMP-DX block) that `export --all` records so a re-add parses the bytes the same way.
 import { z } from 'zod';
 import { metaErrorFromIssues } from '../formats/metaErrorFromIssues.js';
-import { type SidecarSections, readSidecarSections } from '../formats/readSidecarSections.js';
+import { readSidecarSections, type SidecarSections } from '../formats/readSidecarSections.js';
 import type { ReadOptions } from './types.js';
 
-export const readOptionsSchema = z
+const readOptionsSchema = z
   .object({
     xUnit: z.enum(['cm-1', 'um', 'nm']).optional(),
     yUnit: z.enum(['absorbance', 'transmittance', 'percent-transmittance']).optional(),
@@ -18,7 +18,13 @@ export interface LoadedSidecar extends SidecarSections {
   read?: ReadOptions;
 }
 
-export function loadSidecar(text: string, options: { file?: string } = {}): LoadedSidecar {
+export interface LoadSidecarOptions {
+  /** The sidecar as the user named it, for errors.
+   * @default undefined */
+  file?: string;
+}
+
+export function loadSidecar(text: string, options: LoadSidecarOptions = {}): LoadedSidecar {
   let parsed: unknown;
   try {
     parsed = JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);

@@ -3,7 +3,15 @@ import type Database from 'better-sqlite3';
 import { BandshelfError } from '../error.js';
 
 /** Immutable tables: rows are only ever inserted; triggers refuse UPDATE and DELETE so history stays honest. */
-const IMMUTABLE = ['entries', 'revisions', 'files', 'revision_files', 'reviews', 'releases', 'release_members'];
+const IMMUTABLE = [
+  'entries',
+  'revisions',
+  'files',
+  'revision_files',
+  'reviews',
+  'releases',
+  'release_members',
+];
 
 const V1 = `
 CREATE TABLE settings (
@@ -113,7 +121,13 @@ export const LIBRARY_VERSION = STEPS.length;
 /** Names of the triggers that keep history immutable (checked by `check`). */
 export const IMMUTABILITY_TRIGGERS = IMMUTABLE.flatMap((t) => [`${t}_no_update`, `${t}_no_delete`]);
 
-export function migrateLibrary(db: Database.Database, options: { file?: string } = {}): void {
+export interface MigrateLibraryOptions {
+  /** The library file, named in errors.
+   * @default undefined */
+  file?: string;
+}
+
+export function migrateLibrary(db: Database.Database, options: MigrateLibraryOptions = {}): void {
   const version = db.pragma('user_version', { simple: true }) as number;
   if (version > LIBRARY_VERSION) {
     throw new BandshelfError(

@@ -17,7 +17,9 @@ export interface OpenLibraryOptions {
 
 export function openLibrary(path: string, options: OpenLibraryOptions = {}): Library {
   if (!existsSync(path)) {
-    throw new BandshelfError('NO_LIBRARY', 'no library here (create one with `bandshelf init`)', { file: path });
+    throw new BandshelfError('NO_LIBRARY', 'no library here (create one with `bandshelf init`)', {
+      file: path,
+    });
   }
   const readonly = options.readonly ?? false;
   const db = connectLibrary(path, { readonly, busyTimeoutMs: options.busyTimeoutMs });
@@ -30,7 +32,7 @@ export function openLibrary(path: string, options: OpenLibraryOptions = {}): Lib
       if (readonly) {
         throw new BandshelfError(
           'NO_LIBRARY',
-          `the library needs an upgrade of its tables (layout ${version} → ${LIBRARY_VERSION}); run a writing command such as \`bandshelf check\` first`,
+          `the library needs an upgrade of its tables (layout ${version} → ${LIBRARY_VERSION}); open it once with a writing command (add, edit, release)`,
           { file: path },
         );
       }

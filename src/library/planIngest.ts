@@ -50,7 +50,19 @@ export interface IngestPlan {
 }
 
 /** File name extensions `add DIR` takes as spectrum files; a file named explicitly is always taken. */
-const SPECTRUM_EXTENSIONS = new Set(['jdx', 'dx', 'jcamp', 'jcm', 'csv', 'tsv', 'txt', 'dat', 'asc', 'prn', 'xy']);
+const SPECTRUM_EXTENSIONS = new Set([
+  'jdx',
+  'dx',
+  'jcamp',
+  'jcm',
+  'csv',
+  'tsv',
+  'txt',
+  'dat',
+  'asc',
+  'prn',
+  'xy',
+]);
 const MANIFEST_NAME = 'manifest.csv';
 
 function extensionOf(name: string): string {
@@ -101,11 +113,18 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
   if (paths.length === 0) throw new BandshelfError('BAD_OPTION', 'name at least one file or folder to add');
 
   // Manifests: the one given, and any folder's own manifest.csv; each maps files relative to its folder.
-  const manifests: { dir: string; rows: Map<string, EntryMetaPatch>; used: Set<string>; label: string }[] = [];
+  const manifests: { dir: string; rows: Map<string, EntryMetaPatch>; used: Set<string>; label: string }[] =
+    [];
   const loadManifest = (abs: string) => {
     const label = labelOf(abs);
-    if (!existsSync(abs)) throw new BandshelfError('IO_ERROR', 'the manifest does not exist', { file: label });
-    manifests.push({ dir: dirname(abs), rows: readManifest(readText(abs, label), { file: label }), used: new Set(), label });
+    if (!existsSync(abs))
+      throw new BandshelfError('IO_ERROR', 'the manifest does not exist', { file: label });
+    manifests.push({
+      dir: dirname(abs),
+      rows: readManifest(readText(abs, label), { file: label }),
+      used: new Set(),
+      label,
+    });
   };
   const manifestPath = options.manifest === undefined ? undefined : resolve(cwd, options.manifest);
   if (manifestPath !== undefined) loadManifest(manifestPath);
@@ -167,7 +186,8 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
     }
     const skipped: string[] = [];
     const files = walk(abs, skipped);
-    for (const folder of skipped) warnings.push(`${labelOf(folder)}: skipped (a folder of unknowns to match, not references)`);
+    for (const folder of skipped)
+      warnings.push(`${labelOf(folder)}: skipped (a folder of unknowns to match, not references)`);
     if (manifestPath === undefined) {
       for (const f of files) {
         if (basename(f).toLowerCase() === MANIFEST_NAME && dirname(f) === abs) loadManifest(f);
@@ -222,10 +242,14 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
     const job: IngestJob = { label, samplePaths, referencePaths, sidecarPath: c.abs, sidecar };
     const missing = [...samplePaths, ...referencePaths].find((t) => !existsSync(t));
     if (missing !== undefined) {
-      job.error = new BandshelfError('IO_ERROR', `the trace file ${labelOf(missing)} it names does not exist`, {
-        file: label,
-        field: 'timeDomain',
-      });
+      job.error = new BandshelfError(
+        'IO_ERROR',
+        `the trace file ${labelOf(missing)} it names does not exist`,
+        {
+          file: label,
+          field: 'timeDomain',
+        },
+      );
     }
     const meta = manifestMetaFor(c.abs);
     if (meta) job.manifestMeta = meta;

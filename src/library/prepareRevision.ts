@@ -47,7 +47,9 @@ export function prepareRevision(
     baselineCorrected,
     maxGap: recipe.resample.maxGap,
     exclude: recipe.exclude,
-    ...(input.extras.dynamicRangeOrders !== undefined ? { dynamicRangeOrders: input.extras.dynamicRangeOrders } : {}),
+    ...(input.extras.dynamicRangeOrders !== undefined
+      ? { dynamicRangeOrders: input.extras.dynamicRangeOrders }
+      : {}),
   });
   if (options.pool) {
     const duplicate = nearDuplicateFlag(processed, options.pool, { exclude: id });
@@ -63,7 +65,9 @@ export function prepareRevision(
         )
       : undefined;
   const head = library.db
-    .prepare('SELECT revision, kind, content_hash FROM revisions WHERE entry_id = ? ORDER BY revision DESC LIMIT 1')
+    .prepare(
+      'SELECT revision, kind, content_hash FROM revisions WHERE entry_id = ? ORDER BY revision DESC LIMIT 1',
+    )
     .get(id) as { revision: number; kind: string; content_hash: string } | undefined;
   const unchanged = head !== undefined && head.kind !== 'retire' && head.content_hash === hashes.content;
   // Identical content re-added is a no-op even when QC would block it (it was forced the first time).

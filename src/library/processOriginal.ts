@@ -38,10 +38,16 @@ export function processOriginal(
         { file: options.file, field: 'recipe' },
       );
     }
-    references.set(step.id, { wavenumber: blobFloat64(row.original_x), absorbance: blobFloat64(row.original_y) });
+    references.set(step.id, {
+      wavenumber: blobFloat64(row.original_x),
+      absorbance: blobFloat64(row.original_y),
+    });
   }
   const result = processSpectrum(original, recipe, library.grid, { references, file: options.file });
-  const out: ProcessedOriginal = { processed: result.processed, peaks: processedPeaks(result.processed, library.grid) };
+  const out: ProcessedOriginal = {
+    processed: result.processed,
+    peaks: processedPeaks(result.processed, library.grid),
+  };
   if (result.referenceScale !== undefined) out.referenceScale = result.referenceScale;
   return out;
 }

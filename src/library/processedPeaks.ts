@@ -12,7 +12,11 @@ export interface ProcessedPeaksOptions {
   relativeProminence?: number;
 }
 
-export function processedPeaks(processed: Float64Array, grid: Grid, options: ProcessedPeaksOptions = {}): Peak[] {
+export function processedPeaks(
+  processed: Float64Array,
+  grid: Grid,
+  options: ProcessedPeaksOptions = {},
+): Peak[] {
   return findPeaks(
     { wavenumber: gridAxis(grid), absorbance: processed },
     { relativeProminence: options.relativeProminence ?? 0.01 },

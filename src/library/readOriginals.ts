@@ -47,12 +47,19 @@ export function readOriginals(input: ReadOriginalsInput, options: ReadOriginalsO
       });
     }
     // An explicit unit (add --time-unit) overrides the headers; the recipe's unit only fills in for headers without one.
-    const traceOptions = { timeUnit: read.timeUnit ?? recipe.timeDomain.timeUnit, overrideHeader: read.timeUnit !== undefined };
-    const traces = (list: SourceFile[]) => list.map((f) => readTimeTrace(f.bytes, { ...traceOptions, file: f.name }));
+    const traceOptions = {
+      timeUnit: read.timeUnit ?? recipe.timeDomain.timeUnit,
+      overrideHeader: read.timeUnit !== undefined,
+    };
+    const traces = (list: SourceFile[]) =>
+      list.map((f) => readTimeTrace(f.bytes, { ...traceOptions, file: f.name }));
     const sampleTraces = traces(samples);
     const referenceTraces = traces(references);
     const traceWarnings = [...samples, ...references].flatMap((f, i) =>
-      [...sampleTraces, ...referenceTraces][i]!.warnings.map((w) => ({ ...w, message: `${f.name}: ${w.message}` })),
+      [...sampleTraces, ...referenceTraces][i]!.warnings.map((w) => ({
+        ...w,
+        message: `${f.name}: ${w.message}`,
+      })),
     );
     const result = traceToSpectrum(sampleTraces, referenceTraces, recipe.timeDomain, {
       files: [...samples, ...references].map((f) => f.name),

@@ -6,7 +6,8 @@ export function readRelease(library: Library, tag: string): Release {
   const head = library.db
     .prepare('SELECT tag, created_at, message, reviewed_only FROM releases WHERE tag = ?')
     .get(tag) as { tag: string; created_at: string; message: string; reviewed_only: number } | undefined;
-  if (head === undefined) throw new BandshelfError('UNKNOWN_RELEASE', `no release is tagged '${tag}'`, { field: 'tag' });
+  if (head === undefined)
+    throw new BandshelfError('UNKNOWN_RELEASE', `no release is tagged '${tag}'`, { field: 'tag' });
   const members = library.db
     .prepare(
       `SELECT m.entry_id AS id, r.revision, r.content_hash AS hash FROM release_members m

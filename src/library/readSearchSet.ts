@@ -3,6 +3,7 @@
 import { createHash } from 'node:crypto';
 import { gridLength } from '../spectrum/gridLength.js';
 import { canonicalJson } from './canonicalJson.js';
+import { peakOrder } from './peakOrder.js';
 import { stateSelect } from './stateSelect.js';
 import type { Library, SearchSet, SearchSetEntry } from './types.js';
 
@@ -17,7 +18,11 @@ export function readSearchSet(library: Library, options: ReadSearchSetOptions = 
   const rowBytes = cols * 4;
   // One read transaction so the count and the rows see the same snapshot even while another process writes.
   return library.db.transaction((): SearchSet => {
-    const counted = stateSelect(library, 'count(*) AS n, coalesce(sum(length(r.peaks)), 0) AS peakBytes', options);
+    const counted = stateSelect(
+      library,
+      'count(*) AS n, coalesce(sum(length(r.peaks)), 0) AS peakBytes',
+      options,
+    );
     const { n, peakBytes } = library.db.prepare(counted.sql).get(...counted.params) as {
       n: number;
       peakBytes: number;
@@ -63,9 +68,8 @@ export function readSearchSet(library: Library, options: ReadSearchSetOptions = 
       }
       row++;
     }
-    const order = new Uint32Array(k);
-    for (let i = 0; i < k; i++) order[i] = i;
-    order.sort((a, b) => peakPosition[a]! - peakPosition[b]! || peakEntry[a]! - peakEntry[b]!);
+    // Peaks were collected in row order, so ordering ties by index orders them by entry row too.
+    const order = peakOrder(peakPosition.subarray(0, k));
     const sorted = {
       entry: new Uint32Array(k),
       position: new Float64Array(k),

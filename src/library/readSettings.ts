@@ -10,7 +10,13 @@ export interface LibrarySettings {
   createdAt: string;
 }
 
-export function readSettings(db: Database.Database, options: { file?: string } = {}): LibrarySettings {
+export interface ReadSettingsOptions {
+  /** The library file, named in errors.
+   * @default undefined */
+  file?: string;
+}
+
+export function readSettings(db: Database.Database, options: ReadSettingsOptions = {}): LibrarySettings {
   const rows = db.prepare('SELECT key, value FROM settings').all() as { key: string; value: string }[];
   const map = new Map(rows.map((r) => [r.key, r.value]));
   const need = (key: string): string => {
@@ -28,9 +34,13 @@ export function readSettings(db: Database.Database, options: { file?: string } =
     };
   } catch (error) {
     if (error instanceof BandshelfError) throw error;
-    throw new BandshelfError('NO_LIBRARY', `the library settings are unreadable: ${(error as Error).message}`, {
-      file: options.file,
-      cause: error,
-    });
+    throw new BandshelfError(
+      'NO_LIBRARY',
+      `the library settings are unreadable: ${(error as Error).message}`,
+      {
+        file: options.file,
+        cause: error,
+      },
+    );
   }
 }

@@ -15,7 +15,8 @@ export interface RetireEntryOptions {
 
 export function retireEntry(library: Library, id: string, options: RetireEntryOptions = {}): CommitOutcome {
   const head = headRevision(library, id);
-  if (head === undefined) throw new BandshelfError('NOT_FOUND', `no entry '${id}' in the library`, { field: 'id' });
+  if (head === undefined)
+    throw new BandshelfError('NOT_FOUND', `no entry '${id}' in the library`, { field: 'id' });
   const [outcome] = commitRevisions(library, [{ ...revisionFromRow(library, head), kind: 'retire' }], {
     author: options.author,
     message: options.reason ?? 'retired',

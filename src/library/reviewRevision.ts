@@ -21,7 +21,11 @@ export interface ReviewOutcome extends ReviewRecord {
   revision: number;
 }
 
-export function reviewRevision(library: Library, id: string, options: ReviewRevisionOptions = {}): ReviewOutcome {
+export function reviewRevision(
+  library: Library,
+  id: string,
+  options: ReviewRevisionOptions = {},
+): ReviewOutcome {
   const state = options.state ?? 'reviewed';
   const reviewer = (options.reviewer ?? '').trim();
   if (reviewer === '') {
@@ -29,9 +33,12 @@ export function reviewRevision(library: Library, id: string, options: ReviewRevi
   }
   const write = library.db.transaction((): ReviewOutcome => {
     const head = headRevision(library, id);
-    if (head === undefined) throw new BandshelfError('NOT_FOUND', `no entry '${id}' in the library`, { field: 'id' });
+    if (head === undefined)
+      throw new BandshelfError('NOT_FOUND', `no entry '${id}' in the library`, { field: 'id' });
     if (head.kind === 'retire') {
-      throw new BandshelfError('NOT_FOUND', `entry '${id}' is retired; there is nothing to review`, { field: 'id' });
+      throw new BandshelfError('NOT_FOUND', `entry '${id}' is retired; there is nothing to review`, {
+        field: 'id',
+      });
     }
     if (reviewer === head.author && !options.force) {
       throw new BandshelfError(

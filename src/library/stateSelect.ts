@@ -22,12 +22,18 @@ function isCurrent(at: string | null | undefined): boolean {
   return at === undefined || at === null || at === '' || at === 'current';
 }
 
-export function stateSelect(library: Library, columns: string, options: StateSelectOptions = {}): StateSelect {
+export function stateSelect(
+  library: Library,
+  columns: string,
+  options: StateSelectOptions = {},
+): StateSelect {
   if (isCurrent(options.at)) {
+    // Driven by the entries table in id order, each newest revision found through the (entry_id, revision) index:
+    // rows stream out already sorted, with no temporary B-tree holding their blobs.
     return {
-      sql: `WITH head AS (SELECT entry_id, MAX(revision) AS revision FROM revisions GROUP BY entry_id)
-        SELECT ${columns} FROM head JOIN revisions r ON r.entry_id = head.entry_id AND r.revision = head.revision
-        WHERE r.kind != 'retire' ORDER BY r.entry_id`,
+      sql: `SELECT ${columns} FROM entries e JOIN revisions r ON r.entry_id = e.id
+        AND r.revision = (SELECT MAX(r2.revision) FROM revisions r2 WHERE r2.entry_id = e.id)
+        WHERE r.kind != 'retire' ORDER BY e.id`,
       params: [],
       at: null,
     };

@@ -52,7 +52,9 @@ export function buildSearchMatrix(set: ScoringSet, options: BuildSearchMatrixOpt
   }
   const mask = options.mask ?? defaultMask(set, cols);
   if (mask.length !== cols) {
-    throw new BandshelfError('BAD_FORMAT', `the mask has ${mask.length} points, the grid ${cols}`, { field: 'mask' });
+    throw new BandshelfError('BAD_FORMAT', `the mask has ${mask.length} points, the grid ${cols}`, {
+      field: 'mask',
+    });
   }
   const int8 = options.int8 ?? rows >= 4096;
   const layout = searchMatrixLayout({ rows, cols }, { int8 });
@@ -70,11 +72,14 @@ export function buildSearchMatrix(set: ScoringSet, options: BuildSearchMatrixOpt
   const index = Int32Array.from(maskIndices(mask));
   const m = index.length;
   const centred = preparation.centring === 'centred';
+  const scratch = new Float64Array(cols);
   for (let r = 0; r < rows; r++) {
     const source = set.processed.subarray(r * cols, (r + 1) * cols);
-    const v: ArrayLike<number> = preparation.derivative
-      ? derivativeVector(source, { ...preparation.derivative, step: set.grid.step })
-      : source;
+    // One element type in the loops below keeps them monomorphic (and fast) for both preparations.
+    let v: Float64Array = scratch;
+    if (preparation.derivative)
+      v = derivativeVector(source, { ...preparation.derivative, step: set.grid.step });
+    else scratch.set(source);
     let covered = 0;
     let sum = 0;
     for (let j = 0; j < m; j++) {
@@ -90,11 +95,14 @@ export function buildSearchMatrix(set: ScoringSet, options: BuildSearchMatrixOpt
     }
     const mean = centred ? sum / m : 0;
     let ss = 0;
+    let power = 0;
     for (let j = 0; j < m; j++) {
-      const d = v[index[j]!]! - mean;
-      ss += d * d;
+      const x = v[index[j]!]!;
+      ss += (x - mean) ** 2;
+      power += x * x;
     }
-    if (!(ss > 0) || m < 3) {
+    // Flat relative to its power: a constant row leaves only rounding after centring.
+    if (!(ss > 1e-20 * power) || m < 3) {
       status[r] = rowStatus.empty;
       continue;
     }
@@ -122,7 +130,8 @@ function defaultMask(set: ScoringSet, cols: number): Uint8Array {
   const lo = Math.min(set.grid.start, set.grid.stop);
   for (let i = 0; i < cols; i++) {
     const w = lo + i * set.grid.step;
-    if (set.recipe.exclude.some((x) => w >= Math.min(x.min, x.max) && w <= Math.max(x.min, x.max))) mask[i] = 0;
+    if (set.recipe.exclude.some((x) => w >= Math.min(x.min, x.max) && w <= Math.max(x.min, x.max)))
+      mask[i] = 0;
   }
   return mask;
 }
@@ -148,17 +157,22 @@ function quantiseRow(
   norm: Float32Array,
 ): void {
   let peak = 0;
-  for (let j = 0; j < index.length; j++) peak = Math.max(peak, Math.abs(matrix[base + index[j]!]!));
+  for (let j = 0; j < index.length; j++) {
+    const a = Math.abs(matrix[base + index[j]!]!);
+    if (a > peak) peak = a;
+  }
   const s = Math.fround(peak / 127);
+  const inv = 1 / s;
   let e2 = 0;
   let n2 = 0;
   for (let j = 0; j < index.length; j++) {
     const i = index[j]!;
     const x = matrix[base + i]!;
-    const q = Math.max(-127, Math.min(127, Math.round(x / s)));
+    // |x| ≤ peak, so |x/s| ≤ 127 up to rounding; the clamp only guards that last ulp.
+    const q = Math.min(127, Math.max(-127, Math.round(x * inv)));
     quantised[base + i] = q;
     const back = q * s;
-    e2 += (x - back) ** 2;
+    e2 += (x - back) * (x - back);
     n2 += back * back;
   }
   scale[r] = s;

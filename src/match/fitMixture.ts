@@ -66,6 +66,12 @@ export interface FitMixtureOptions {
    * @default 7
    */
   smoothWindow?: number;
+  /**
+   * A candidate takes part only if it covers at least this fraction of the query's fit points; the fit then runs
+   * over the points every taking part candidate covers.
+   * @default 0.95
+   */
+  minCoverage?: number;
 }
 
 const DEFAULT_GRID: Grid = { start: 4000, stop: 600, step: 2 };
@@ -124,7 +130,8 @@ function dot(a: Float64Array, b: Float64Array): number {
  * fewer unknowns for NNLS.
  *
  * Candidate vectors must be finite wherever the fit runs: the fit points are those where the query and every
- * forced candidate are covered (inside `ranges`); other candidates not covering them all are skipped and listed.
+ * forced candidate are covered (inside `ranges`), less the few points some candidate covering at least
+ * `minCoverage` of them lacks; candidates covering less are skipped and listed.
  * Unexplained bands: maxima of the lightly smoothed residual (`smoothWindow`) whose height and prominence exceed
  * k × noise and whose FWHM is at least `minBandWidth`. Noise: RMS after linear detrend of the residual inside `noiseWindow` (H1's noiseLevel); when the fit does not
  * reach that window, the robust σ of the residual's second differences (median |Δ²r| / (0.6745 √6)) instead.
@@ -144,6 +151,7 @@ export function fitMixture(
   const k = options.k ?? 3;
   const minBandWidth = options.minBandWidth ?? 2 * grid.step;
   const smoothWindow = options.smoothWindow ?? 7;
+  const minCoverage = options.minCoverage ?? 0.95;
   const cols = gridLength(grid);
   if (query.length !== cols) {
     throw new BandshelfError('BAD_OPTION', `the query has ${query.length} points; the grid has ${cols}`, {
@@ -151,9 +159,13 @@ export function fitMixture(
     });
   }
   if (!(Number.isInteger(maxComponents) && maxComponents >= 1)) {
-    throw new BandshelfError('BAD_OPTION', `max components must be a whole number ≥ 1, not ${maxComponents}`, {
-      field: 'maxComponents',
-    });
+    throw new BandshelfError(
+      'BAD_OPTION',
+      `max components must be a whole number ≥ 1, not ${maxComponents}`,
+      {
+        field: 'maxComponents',
+      },
+    );
   }
   if (degree !== null && !(Number.isInteger(degree) && degree >= 0 && degree <= 6)) {
     throw new BandshelfError('BAD_OPTION', `the baseline degree must be 0–6 or none, not ${degree}`, {
@@ -165,9 +177,13 @@ export function fitMixture(
   const seen = new Set<string>();
   for (const c of candidates) {
     if (c.vector.length !== cols) {
-      throw new BandshelfError('BAD_OPTION', `candidate '${c.id}' has ${c.vector.length} points; the grid has ${cols}`, {
-        field: 'candidates',
-      });
+      throw new BandshelfError(
+        'BAD_OPTION',
+        `candidate '${c.id}' has ${c.vector.length} points; the grid has ${cols}`,
+        {
+          field: 'candidates',
+        },
+      );
     }
     if (!seen.has(c.id)) {
       seen.add(c.id);
@@ -176,20 +192,33 @@ export function fitMixture(
   }
   for (const id of forcedIds) {
     if (!seen.has(id)) {
-      throw new BandshelfError('NOT_FOUND', `no library entry '${id}' to force into the mixture`, { field: 'with' });
+      throw new BandshelfError('NOT_FOUND', `no library entry '${id}' to force into the mixture`, {
+        field: 'with',
+      });
     }
   }
   const forced = pool.filter((c) => forcedIds.includes(c.id));
 
-  // The fit points.
+  // The fit points: covered by the query (inside the ranges) and by every forced candidate; then narrowed to
+  // what every candidate that covers nearly all of them covers too, so a reference missing a few edge points
+  // still takes part while one covering only part of the range (a tunable-laser entry) is left out.
   const axis = gridAxis(grid);
   const inRanges = (x: number): boolean => ranges === null || ranges.some((w) => x >= w.min && x <= w.max);
-  const at: number[] = [];
+  let at: number[] = [];
   for (let i = 0; i < cols; i++) {
     if (!Number.isFinite(query[i]!) || !inRanges(axis[i]!)) continue;
     if (forced.some((c) => !Number.isFinite(c.vector[i]!))) continue;
     at.push(i);
   }
+  const skipped: string[] = [];
+  const taking: MixtureCandidate[] = [];
+  for (const c of pool) {
+    let covered = 0;
+    for (const i of at) if (Number.isFinite(c.vector[i]!)) covered++;
+    if (forcedIds.includes(c.id) || covered >= minCoverage * at.length) taking.push(c);
+    else skipped.push(c.id);
+  }
+  at = at.filter((i) => taking.every((c) => Number.isFinite(c.vector[i]!)));
   const n = at.length;
   const columnsNeeded = Math.min(maxComponents, pool.length) + (degree === null ? 0 : degree + 1) + 2;
   if (n < columnsNeeded) {
@@ -200,23 +229,23 @@ export function fitMixture(
     );
   }
   const b = Float64Array.from(at, (i) => query[i]!);
-  const skipped: string[] = [];
-  const usable: { candidate: MixtureCandidate; raw: Float64Array; forced: boolean }[] = [];
-  for (const c of pool) {
-    const raw = Float64Array.from(at, (i) => c.vector[i]!);
-    if (raw.some((v) => !Number.isFinite(v))) {
-      skipped.push(c.id);
-      continue;
-    }
-    usable.push({ candidate: c, raw, forced: forcedIds.includes(c.id) });
-  }
+  const usable = taking.map((c) => ({
+    candidate: c,
+    raw: Float64Array.from(at, (i) => c.vector[i]!),
+    forced: forcedIds.includes(c.id),
+  }));
 
   const lo = axis[at[0]!]!;
   const hi = axis[at[n - 1]!]!;
   const centre = (lo + hi) / 2;
   const halfWidth = Math.max((hi - lo) / 2, grid.step);
   const basis =
-    degree === null ? null : polynomialBasis(Float64Array.from(at, (i) => (axis[i]! - centre) / halfWidth), degree);
+    degree === null
+      ? null
+      : polynomialBasis(
+          Float64Array.from(at, (i) => (axis[i]! - centre) / halfWidth),
+          degree,
+        );
   const q = basis?.q ?? [];
   const bp = project(b, q);
   const projected = usable.map((u) => project(u.raw, q));
@@ -279,9 +308,7 @@ export function fitMixture(
     }
     if (bestFit === null) {
       stopReason =
-        c === selected.length
-          ? 'no candidates left'
-          : 'no further candidate gets a positive weight';
+        c === selected.length ? 'no candidates left' : 'no further candidate gets a positive weight';
       break;
     }
     const improvement = (current.rss - bestFit.rss) / current.rss;

@@ -25,8 +25,13 @@ function moduleFor(variant: 'plain' | 'shared'): WebAssembly.Module | null {
     let compiled: WebAssembly.Module | null = null;
     if (typeof WebAssembly === 'object') {
       const bytes = decodeBase64(scoreKernelsWasm[variant]);
-      // validate() answers false instead of throwing on engines without SIMD.
-      if (WebAssembly.validate(bytes)) compiled = new WebAssembly.Module(bytes);
+      // validate() answers false instead of throwing on engines without SIMD. Compiling can still throw: a page
+      // whose Content-Security-Policy lacks 'wasm-unsafe-eval' forbids it, and the JavaScript kernels then serve.
+      try {
+        if (WebAssembly.validate(bytes)) compiled = new WebAssembly.Module(bytes);
+      } catch {
+        compiled = null;
+      }
     }
     modules.set(variant, compiled);
   }

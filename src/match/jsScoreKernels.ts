@@ -2,9 +2,12 @@
 // reference the SIMD kernels are tested against.
 import type { ScoreKernels } from './searchTypes.js';
 
-export interface JsScoreKernelsOptions {}
+export type JsScoreKernelsOptions = Record<string, never>;
 
-export function jsScoreKernels(memory: WebAssembly.Memory, _options: JsScoreKernelsOptions = {}): ScoreKernels {
+export function jsScoreKernels(
+  memory: WebAssembly.Memory,
+  _options: JsScoreKernelsOptions = {},
+): ScoreKernels {
   // Views are taken per call: a memory that grows replaces its buffer.
   const f32 = () => new Float32Array(memory.buffer);
   const dotRow = (m: Float32Array, base: number, vec: number, stride: number): number => {
@@ -16,7 +19,8 @@ export function jsScoreKernels(memory: WebAssembly.Memory, _options: JsScoreKern
   return {
     dotF32(r0, r1, mat, stride, vec, out) {
       const m = f32();
-      for (let r = r0; r < r1; r++) m[(out >>> 2) + r] = dotRow(m, (mat >>> 2) + r * stride, vec >>> 2, stride);
+      for (let r = r0; r < r1; r++)
+        m[(out >>> 2) + r] = dotRow(m, (mat >>> 2) + r * stride, vec >>> 2, stride);
     },
     dotF32Rows(j0, j1, mat, stride, vec, idx, out) {
       const m = f32();

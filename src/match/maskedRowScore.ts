@@ -66,6 +66,8 @@ export function maskedRowScore(
   let sxx = 0;
   let syy = 0;
   let sxy = 0;
+  let px = 0;
+  let py = 0;
   for (let i = 0; i < n; i++) {
     if (mask[i] === 0) continue;
     const x = row[offset + i]!;
@@ -76,8 +78,11 @@ export function maskedRowScore(
     sxx += dx * dx;
     syy += dy * dy;
     sxy += dx * dy;
+    px += x * x;
+    py += y * y;
   }
-  if (sxx <= 0 || syy <= 0) return { score: Number.NaN, points, overlap };
+  // Flat relative to its power: a constant vector leaves only rounding after centring.
+  if (!(sxx > 1e-20 * px) || !(syy > 1e-20 * py)) return { score: Number.NaN, points, overlap };
   const score = Math.max(-1, Math.min(1, sxy / Math.sqrt(sxx * syy)));
   return { score, points, overlap };
 }

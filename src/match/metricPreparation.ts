@@ -11,6 +11,7 @@ export interface MetricPreparationOptions {
 
 /** Cosine and euclidean share one matrix: for unit vectors ‖a − b‖² = 2 − 2 cos(a, b). */
 export function metricPreparation(metric: Metric, options: MetricPreparationOptions = {}): MatrixPreparation {
-  if (metric === 'derivative') return { centring: 'centred', derivative: options.derivative ?? { window: 9, order: 2 } };
+  if (metric === 'derivative')
+    return { centring: 'centred', derivative: options.derivative ?? { window: 9, order: 2 } };
   return { centring: metric === 'pearson' ? 'centred' : 'unit', derivative: null };
 }

@@ -57,7 +57,8 @@ export function nnls(a: NnlsMatrix, b: ArrayLike<number>, options: NnlsOptions =
   const rows = b.length;
   if (rows === 0) throw new BandshelfError('BAD_OPTION', 'b is empty', { field: 'b' });
   for (let i = 0; i < rows; i++) {
-    if (!Number.isFinite(b[i]!)) throw new BandshelfError('BAD_OPTION', `b[${i}] is not finite`, { field: 'b' });
+    if (!Number.isFinite(b[i]!))
+      throw new BandshelfError('BAD_OPTION', `b[${i}] is not finite`, { field: 'b' });
   }
   const columns = columnsOf(a, rows);
   const n = columns.length;
@@ -90,5 +91,10 @@ export function nnls(a: NnlsMatrix, b: ArrayLike<number>, options: NnlsOptions =
     for (let j = 0; j < n; j++) r += columns[j]![i]! * solved.x[j]!;
     rss += r * r;
   }
-  return { x: solved.x, residualNorm: Math.sqrt(rss), iterations: solved.iterations, converged: solved.converged };
+  return {
+    x: solved.x,
+    residualNorm: Math.sqrt(rss),
+    iterations: solved.iterations,
+    converged: solved.converged,
+  };
 }

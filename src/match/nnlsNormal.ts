@@ -90,7 +90,8 @@ export function nnlsNormal(problem: NnlsNormalProblem, options: NnlsNormalOption
   let scale = 0;
   for (let j = 0; j < n; j++) {
     const v = atb[j]!;
-    if (!Number.isFinite(v)) throw new BandshelfError('BAD_OPTION', 'Aᵀb holds a non-finite value', { field: 'atb' });
+    if (!Number.isFinite(v))
+      throw new BandshelfError('BAD_OPTION', 'Aᵀb holds a non-finite value', { field: 'atb' });
     scale = Math.max(scale, Math.abs(v));
   }
   const tolerance = options.tolerance ?? (scale > 0 ? 1e-10 * scale : 1e-300);

@@ -33,7 +33,9 @@ export function scoringMask(
   }
   const axis = gridAxis(grid);
   const ranges = (options.ranges ?? []).map((w) => [Math.min(w.min, w.max), Math.max(w.min, w.max)] as const);
-  const exclude = (options.exclude ?? []).map((w) => [Math.min(w.min, w.max), Math.max(w.min, w.max)] as const);
+  const exclude = (options.exclude ?? []).map(
+    (w) => [Math.min(w.min, w.max), Math.max(w.min, w.max)] as const,
+  );
   const mask = new Uint8Array(n);
   for (let i = 0; i < n; i++) {
     if (!Number.isFinite(query[i]!)) continue;

@@ -111,14 +111,21 @@ export function searchBands(
   const requireAll = options.requireAll ?? false;
   const top = options.top ?? 20;
   if (!(Number.isFinite(tolerance) && tolerance > 0)) {
-    throw new BandshelfError('BAD_OPTION', `the tolerance must be a positive number of cm⁻¹, not ${tolerance}`, {
-      field: 'tolerance',
-    });
+    throw new BandshelfError(
+      'BAD_OPTION',
+      `the tolerance must be a positive number of cm⁻¹, not ${tolerance}`,
+      {
+        field: 'tolerance',
+      },
+    );
   }
   if (!(Number.isInteger(top) && top > 0)) {
-    throw new BandshelfError('BAD_OPTION', `top must be a positive whole number, not ${top}`, { field: 'top' });
+    throw new BandshelfError('BAD_OPTION', `top must be a positive whole number, not ${top}`, {
+      field: 'top',
+    });
   }
-  if (bands.length === 0) throw new BandshelfError('BAD_OPTION', 'give at least one band position', { field: 'bands' });
+  if (bands.length === 0)
+    throw new BandshelfError('BAD_OPTION', 'give at least one band position', { field: 'bands' });
   for (const band of bands) {
     if (!Number.isFinite(band.position)) {
       throw new BandshelfError('BAD_OPTION', `a band position must be a number, not ${band.position}`, {

@@ -1,7 +1,7 @@
 // Where a search matrix is cached on disk: a folder beside the library file, one file per matrix key.
 import { createHash } from 'node:crypto';
 
-export interface SearchMatrixCachePathOptions {}
+export type SearchMatrixCachePathOptions = Record<string, never>;
 
 /** `<library>.cache/search-<hash of key>.bin`: the key itself is long (it holds the mask), so it is hashed. */
 export function searchMatrixCachePath(

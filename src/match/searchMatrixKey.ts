@@ -1,7 +1,7 @@
 // The identity of a search matrix: library state, row preparation and scoring mask.
 import type { MatrixPreparation } from './searchTypes.js';
 
-export interface SearchMatrixKeyOptions {}
+export type SearchMatrixKeyOptions = Record<string, never>;
 
 /** Bump when the matrix contents or layout change meaning, so old disk caches are never read as current. */
 const MATRIX_FORMAT = 1;

@@ -6,8 +6,8 @@ import { buildSearchMatrix } from './buildSearchMatrix.js';
 import { coveredSpan } from './coveredSpan.js';
 import { derivativeVector } from './derivativeVector.js';
 import { maskedRowScore } from './maskedRowScore.js';
-import { metricPreparation } from './metricPreparation.js';
 import { matrixScores } from './matrixScores.js';
+import { metricPreparation } from './metricPreparation.js';
 import { rowStatus } from './rowStatus.js';
 import { scoringMask } from './scoringMask.js';
 import { searchMatrixKey } from './searchMatrixKey.js';
@@ -75,6 +75,9 @@ export interface SearchSpectraOptions {
   onQuery?: (index: number, summary: QuerySummary) => void;
 }
 
+/** Below this fraction of its power left after centring, a vector counts as flat. */
+const FLAT = 1e-20;
+
 const METRICS: readonly Metric[] = ['pearson', 'derivative', 'cosine', 'euclidean'];
 
 const memo = new WeakMap<ScoringSet, Map<string, SearchMatrix>>();
@@ -120,7 +123,9 @@ export function searchSpectra(
   }
   const k = options.k ?? 10;
   if (!Number.isInteger(k) || k < 1) {
-    throw new BandshelfError('BAD_OPTION', `the number of hits must be a whole number ≥ 1, not ${k}`, { field: 'k' });
+    throw new BandshelfError('BAD_OPTION', `the number of hits must be a whole number ≥ 1, not ${k}`, {
+      field: 'k',
+    });
   }
   const minOverlap = options.minOverlap ?? 200;
   if (!Number.isFinite(minOverlap) || minOverlap < 0) {
@@ -131,6 +136,13 @@ export function searchSpectra(
   const rows = set.entries.length;
   if (rows === 0) throw new BandshelfError('EMPTY_LIBRARY', 'the library has no entries to search');
   const cols = gridLength(set.grid);
+  if (set.processed.length !== rows * cols) {
+    throw new BandshelfError(
+      'BAD_FORMAT',
+      `the search set holds ${set.processed.length} values, not ${rows} rows × ${cols} grid points`,
+      { field: 'processed' },
+    );
+  }
   const step = set.grid.step;
   const ranges = checkRanges(options.ranges ?? [], set);
   const derivative = options.derivative ?? { window: 9, order: 2 };
@@ -157,7 +169,6 @@ export function searchSpectra(
         'SMALL_OVERLAP',
         `${where} covers only ${overlap} cm⁻¹ inside the scoring ranges${describeRanges(ranges)}; at least ` +
           `${minOverlap} cm⁻¹ are needed: widen the ranges or lower the minimum overlap`,
-        { field: 'minOverlap' },
       );
     }
     const key = searchMatrixKey({ stateKey: set.stateKey, preparation, mask });
@@ -174,6 +185,9 @@ export function searchSpectra(
   for (const members of groups.values()) {
     const first = prepared[members[0]!]!;
     const matrix = source(set, preparation, first.mask, first.key);
+    if (matrix.key !== first.key || matrix.layout.rows !== rows || matrix.layout.cols !== cols) {
+      throw new Error(`the matrix source returned a matrix for another key or shape (${matrix.key})`);
+    }
     const vectors = members.map((q) => prepareQuery(prepared[q]!, matrix, preparation.centring));
     const precision = options.precision ?? 'auto';
     const scored = matrixScores(matrix, vectors, {
@@ -235,9 +249,13 @@ function checkRanges(ranges: readonly WavenumberWindow[], set: ScoringSet): Wave
     const min = Math.min(range.min, range.max);
     const max = Math.max(range.min, range.max);
     if (!Number.isFinite(min) || !Number.isFinite(max) || max <= min) {
-      throw new BandshelfError('BAD_OPTION', `a scoring range needs two different wavenumbers, not ${min}:${max}`, {
-        field: 'ranges',
-      });
+      throw new BandshelfError(
+        'BAD_OPTION',
+        `a scoring range needs two different wavenumbers, not ${min}:${max}`,
+        {
+          field: 'ranges',
+        },
+      );
     }
     if (max < lo || min > hi) {
       throw new BandshelfError(
@@ -272,8 +290,14 @@ function prepareQuery(
   }
   const mean = centring === 'centred' ? sum / count : 0;
   let ss = 0;
-  for (let i = 0; i < mask.length; i++) if (mask[i] !== 0) ss += (vector[i]! - mean) ** 2;
-  if (!(ss > 0)) {
+  let power = 0;
+  for (let i = 0; i < mask.length; i++) {
+    if (mask[i] === 0) continue;
+    ss += (vector[i]! - mean) ** 2;
+    power += vector[i]! ** 2;
+  }
+  // Relative to the signal's power: a constant vector leaves only rounding (≈ 1e-32 of it) after centring.
+  if (!(ss > FLAT * power)) {
     throw new BandshelfError(
       'NOT_A_SPECTRUM',
       `${p.where} is flat over the scoring ranges: there is nothing to correlate`,
@@ -296,17 +320,20 @@ function rankHits(
   const euclidean = metric === 'euclidean';
   // For euclidean the row value is the cosine of the unit vectors; the distance follows from ‖a − b‖² = 2 − 2cos.
   const reported = (r: number) => (euclidean ? Math.sqrt(Math.max(0, 2 - 2 * raw[r]!)) : raw[r]!);
+  // One pass in double precision: scores lie in [−1, 2], so sum and sum of squares lose nothing that matters.
   let n = 0;
   let sum = 0;
+  let sum2 = 0;
   for (let r = 0; r < raw.length; r++) {
-    if (Number.isNaN(raw[r]!)) continue;
+    const c = raw[r]!;
+    if (Number.isNaN(c)) continue;
+    const v = euclidean ? Math.sqrt(Math.max(0, 2 - 2 * c)) : c;
     n++;
-    sum += reported(r);
+    sum += v;
+    sum2 += v * v;
   }
   const mean = n > 0 ? sum / n : Number.NaN;
-  let ss = 0;
-  for (let r = 0; r < raw.length; r++) if (!Number.isNaN(raw[r]!)) ss += (reported(r) - mean) ** 2;
-  const sd = n > 1 ? Math.sqrt(ss / (n - 1)) : Number.NaN;
+  const sd = n > 1 ? Math.sqrt(Math.max(0, (sum2 - sum * mean) / (n - 1))) : Number.NaN;
   const order = topK(raw, { k: k + 1 });
   const hits: Hit[] = [];
   for (let j = 0; j < Math.min(k, order.length); j++) {

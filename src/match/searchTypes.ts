@@ -52,7 +52,8 @@ export interface Hit {
   gapToNext: number | null;
   /**
    * Standing among all library scores of this query: (rawScore − mean) / sd, sign-flipped for euclidean so that
-   * larger always means better; null when fewer than two rows were scored or all scored alike.
+   * larger always means better; null when fewer than two rows were scored or all scored alike. After an int8 scan
+   * the rows not rescored enter the mean and sd with their int8 estimates (within about 1e-3 of the exact value).
    */
   z: number | null;
 }
@@ -90,7 +91,15 @@ export interface ScoreKernels {
   /** out[r] = Σ mat[r, i] · vec[i] (float32). */
   dotF32(r0: number, r1: number, mat: number, stride: number, vec: number, out: number): void;
   /** out[j] = Σ mat[idx[j], i] · vec[i]; idx uint32. */
-  dotF32Rows(j0: number, j1: number, mat: number, stride: number, vec: number, idx: number, out: number): void;
+  dotF32Rows(
+    j0: number,
+    j1: number,
+    mat: number,
+    stride: number,
+    vec: number,
+    idx: number,
+    out: number,
+  ): void;
   /** out[q · outStride + r] = Σ mat[r, i] · queries[q, i]; nq a multiple of 4. */
   dotF32Batch(
     r0: number,

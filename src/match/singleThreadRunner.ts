@@ -1,9 +1,12 @@
 // Runs score kernels on the calling thread: the browser path and the fallback where workers are unavailable.
 import type { KernelRunner, ScoreKernels } from './searchTypes.js';
 
-export interface SingleThreadRunnerOptions {}
+export type SingleThreadRunnerOptions = Record<string, never>;
 
-export function singleThreadRunner(kernels: ScoreKernels, _options: SingleThreadRunnerOptions = {}): KernelRunner {
+export function singleThreadRunner(
+  kernels: ScoreKernels,
+  _options: SingleThreadRunnerOptions = {},
+): KernelRunner {
   return {
     threads: 1,
     run(kernel, count, args) {

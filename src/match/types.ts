@@ -145,7 +145,14 @@ export interface IdentifiedBand {
     max: number;
   }[];
   /** Library entries with a stored peak within tolerance, closest first. */
-  candidates: { id: string; revision: number; name: string; class: string; position: number; error: number }[];
+  candidates: {
+    id: string;
+    revision: number;
+    name: string;
+    class: string;
+    position: number;
+    error: number;
+  }[];
   /** Whether the mixture fit explains the band (no unexplained residual band within tolerance); null without a fit. */
   explained: boolean | null;
 }

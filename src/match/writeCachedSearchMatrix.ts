@@ -1,5 +1,14 @@
 // Writes a search matrix to its disk cache file (atomically: a temporary file renamed into place).
-import { closeSync, mkdirSync, openSync, readdirSync, renameSync, rmSync, statSync, writeSync } from 'node:fs';
+import {
+  closeSync,
+  mkdirSync,
+  openSync,
+  readdirSync,
+  renameSync,
+  rmSync,
+  statSync,
+  writeSync,
+} from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { searchMatrixCacheFormat as F, type SearchMatrixCacheHeader } from './searchMatrixCacheFormat.js';
 import type { SearchMatrix } from './searchTypes.js';
@@ -57,8 +66,12 @@ export function writeCachedSearchMatrix(
     fd = null;
     renameSync(temporary, path);
   } catch {
-    if (fd !== null) closeSync(fd);
-    rmSync(temporary, { force: true });
+    try {
+      if (fd !== null) closeSync(fd);
+      rmSync(temporary, { force: true });
+    } catch {
+      // Nothing was created where the folder cannot be made.
+    }
     return false;
   }
   prune(path, options.keep ?? 6);

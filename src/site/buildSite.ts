@@ -1,11 +1,9 @@
 // Builds the static site: entry downloads, the search index, the matcher's binary matrix, the Eleventy pages and
 // the copied scripts and styles, then records what it wrote so a later build knows its own files.
 import { createHash } from 'node:crypto';
-import { mkdirSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, readFileSync, rmdirSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, join, relative, resolve, sep } from 'node:path';
 import { BandshelfError } from '../error.js';
-import { writeCsv } from '../formats/writeCsv.js';
-import { writeJcampDx } from '../formats/writeJcampDx.js';
 import { buildSearchIndex, type SearchIndexEntry } from './buildSearchIndex.js';
 import { copySiteAssets } from './copySiteAssets.js';
 import { encodeSearchMatrix } from './encodeSearchMatrix.js';
@@ -45,9 +43,6 @@ export interface BuildSiteOptions {
   version?: string;
   /** The caution every page and download carries. */
   caution: string;
-  /** Largest number of points per plotted trace.
-   * @default 1200 */
-  maxPlotPoints?: number;
 }
 
 export interface BuiltSite {
@@ -84,14 +79,17 @@ function slugFor(id: string, taken: Set<string>): string {
   return unique;
 }
 
+/** Every file under `dir` (relative, `/`-separated, sorted); folders left empty (an entry that left) are removed. */
 function listFiles(dir: string): string[] {
   const out: string[] = [];
   const walk = (d: string): void => {
-    for (const name of readdirSync(d).sort()) {
+    const names = readdirSync(d).sort();
+    for (const name of names) {
       const full = join(d, name);
       if (statSync(full).isDirectory()) walk(full);
       else out.push(relative(dir, full).split(sep).join('/'));
     }
+    if (d !== dir && readdirSync(d).length === 0) rmdirSync(d);
   };
   walk(dir);
   return out;
@@ -121,13 +119,49 @@ export async function buildSite(source: SiteSource, options: BuildSiteOptions): 
   copySiteAssets(root, out, { checkOnly: true });
   prepareOutDir(out, { clean: options.clean, protect: [...(options.protect ?? []), templates, root], cwd });
 
+  try {
+    return await writeSite(source, options, { out, root, templates, pathPrefix });
+  } catch (error) {
+    // Everything in the folder now is this build's (prepareOutDir left nothing else): list it, so the next build
+    // may replace it instead of refusing a folder of "unknown" files.
+    writeManifest(out);
+    throw error;
+  }
+}
+
+function writeManifest(out: string): { files: number; bytes: number } {
+  const files = listFiles(out).filter((f) => f !== BUILD_MANIFEST);
+  const hashes: Record<string, string> = {};
+  let bytes = 0;
+  for (const f of files) {
+    const content = readFileSync(join(out, f));
+    bytes += content.byteLength;
+    hashes[f] = createHash('sha256').update(content).digest('hex');
+  }
+  writeFileSync(join(out, BUILD_MANIFEST), `${JSON.stringify({ generator: 'bandshelf site', files: hashes }, null, 1)}\n`);
+  return { files: files.length, bytes };
+}
+
+async function writeSite(
+  source: SiteSource,
+  options: BuildSiteOptions,
+  where: { out: string; root: string; templates: string; pathPrefix: string },
+): Promise<BuiltSite> {
+  const { out, root, templates, pathPrefix } = where;
+  const T0 = performance.now(); const tick = (l: string) => process.stderr.write(`${l} ${(performance.now() - T0).toFixed(0)}\n`);
+  const made = new Set<string>();
   const write = (path: string, content: string | Uint8Array): number => {
     const full = join(out, path);
-    mkdirSync(dirname(full), { recursive: true });
+    const folder = dirname(full);
+    if (!made.has(folder)) {
+      mkdirSync(folder, { recursive: true });
+      made.add(folder);
+    }
     writeFileSync(full, content);
     return typeof content === 'string' ? Buffer.byteLength(content) : content.byteLength;
   };
 
+  tick('prepared');
   const taken = new Set<string>();
   const slugs = new Map(source.entries.map((e) => [e.id, slugFor(e.id, taken)]));
   const entryPages: EntryPage[] = [];
@@ -137,35 +171,8 @@ export async function buildSite(source: SiteSource, options: BuildSiteOptions): 
     const slug = slugs.get(summary.id)!;
     const detail = source.loadEntry(summary.id);
     const folder = `entries/${slug}/`;
-    const title = summary.name;
-    const downloads = [
-      {
-        label: 'CSV (original data)',
-        file: `${slug}.csv`,
-        bytes: write(`${folder}${slug}.csv`, writeCsv(detail.original, {})),
-      },
-      {
-        label: 'JCAMP-DX (original data, DIFDUP)',
-        file: `${slug}.jdx`,
-        bytes: write(
-          `${folder}${slug}.jdx`,
-          writeJcampDx(detail.original, { form: 'difdup', title, meta: detail.summary.meta }),
-        ),
-      },
-      {
-        label: 'JSON (metadata, original and processed data, peaks, QC)',
-        file: `${slug}.json`,
-        bytes: write(`${folder}${slug}.json`, entryJson(detail, { caution: options.caution })),
-      },
-    ];
-    entryPages.push(
-      entryPage(detail, {
-        assignments: source.assignments,
-        downloads,
-        slug,
-        maxPlotPoints: options.maxPlotPoints,
-      }),
-    );
+    const dataBytes = write(`${folder}${slug}.json`, entryJson(detail, { caution: options.caution }));
+    entryPages.push(entryPage(detail, { assignments: source.assignments, dataBytes, slug }));
     searchEntries.push({
       summary: detail.summary,
       path: folder,
@@ -174,6 +181,7 @@ export async function buildSite(source: SiteSource, options: BuildSiteOptions): 
     options.progress?.(i + 1, total, summary.id);
   }
 
+  tick('entries');
   const summaries = new Map(source.entries.map((e) => [e.id, e]));
   write('assets/search-index.json', buildSearchIndex(searchEntries, { assignments: source.assignments }));
   write('assets/search-matrix.bin', encodeSearchMatrix(source.matrix));
@@ -207,9 +215,16 @@ export async function buildSite(source: SiteSource, options: BuildSiteOptions): 
     })}\n`,
   );
 
+  tick('index+matrix');
+  const rowOf = new Map(source.matrix.ids.map((id, i) => [id, i]));
+  const vector = (id: string, revision: number): Float32Array | undefined => {
+    const row = rowOf.get(id);
+    if (row === undefined || source.matrix.revisions[row] !== revision) return undefined;
+    return source.matrix.processed.subarray(row * source.matrix.cols, (row + 1) * source.matrix.cols);
+  };
   const reportTaken = new Set<string>();
   const reportPages = (options.reports ?? []).map((r) =>
-    reportPage(r, { slugs, slug: slugFor(r.slug, reportTaken), caution: options.caution }),
+    reportPage(r, { slugs, slug: slugFor(r.slug, reportTaken), vector }),
   );
   const view = siteView(source, {
     entryPages,
@@ -219,6 +234,7 @@ export async function buildSite(source: SiteSource, options: BuildSiteOptions): 
     caution: options.caution,
   });
 
+  tick('view');
   const { Eleventy } = await import('@11ty/eleventy');
   const eleventy = new Eleventy(templates, out, {
     quietMode: true,
@@ -234,16 +250,10 @@ export async function buildSite(source: SiteSource, options: BuildSiteOptions): 
   } catch (error) {
     throw unwrapError(error);
   }
+  tick('eleventy');
   copySiteAssets(root, out);
 
-  const files = listFiles(out).filter((f) => f !== BUILD_MANIFEST);
-  const hashes: Record<string, string> = {};
-  let bytes = 0;
-  for (const f of files) {
-    const content = readFileSync(join(out, f));
-    bytes += content.byteLength;
-    hashes[f] = createHash('sha256').update(content).digest('hex');
-  }
-  write(BUILD_MANIFEST, `${JSON.stringify({ generator: 'bandshelf site', files: hashes }, null, 1)}\n`);
-  return { out, files: files.length, bytes, entries: total, reports: reportPages.length, pathPrefix };
+  const { files, bytes } = writeManifest(out);
+  tick('hash');
+  return { out, files, bytes, entries: total, reports: reportPages.length, pathPrefix };
 }

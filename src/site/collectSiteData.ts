@@ -2,6 +2,7 @@
 // table and the processed vectors of one state. Entry vectors are read later, one entry at a time.
 import { BandshelfError } from '../error.js';
 import { entryHistory } from '../library/entryHistory.js';
+import { listAssignments } from '../library/listAssignments.js';
 import { listEntries } from '../library/listEntries.js';
 import { listReleases } from '../library/listReleases.js';
 import { readEntry } from '../library/readEntry.js';
@@ -17,9 +18,9 @@ export interface CollectSiteDataOptions {
   /** A release tag, or undefined / 'current' for the working state.
    * @default undefined */
   at?: string | null;
-  /** Band-assignment rows the lab keeps in its library, shown after the shipped table.
-   * @default [] */
-  labAssignments?: SiteAssignment[];
+  /** Show the band-assignment rows the lab added to its library after the shipped table.
+   * @default true */
+  labAssignments?: boolean;
 }
 
 function text(meta: Record<string, unknown>, key: string): string {
@@ -82,7 +83,9 @@ export function collectSiteData(library: Library, options: CollectSiteDataOption
 
   const assignments: SiteAssignment[] = [
     ...shippedAssignments().map((a) => ({ ...a, class: [...a.class], origin: a.origin ?? 'shipped' })),
-    ...(options.labAssignments ?? []),
+    ...(options.labAssignments === false
+      ? []
+      : listAssignments(library).map((a) => ({ ...a, class: [...a.class], origin: a.origin ?? 'lab' }))),
   ];
 
   // The in-browser matcher processes an unknown with the library recipe, which may need library spectra.

@@ -1,14 +1,10 @@
-// Builds the page model of one entry: display strings, tables and the decimated plot data.
-import { recipeSchema } from '../schema/recipe.js';
-import { gridAxis } from '../spectrum/gridAxis.js';
+// Builds the page model of one entry: display strings for its facts, tables, history and downloads.
 import { assignmentsAt } from './assignmentsAt.js';
 import { formatNumber } from './formatNumber.js';
-import { jsonForScript } from './jsonForScript.js';
 import { metaRows } from './metaRows.js';
-import { plotTrace } from './plotTrace.js';
 import { releaseAnchor } from './releaseAnchor.js';
 import { techniqueLabel } from './techniqueLabel.js';
-import type { EntryPage, EntryPlotData, SiteAssignment, SiteEntryDetail, SiteRow } from './types.js';
+import type { EntryPage, SiteAssignment, SiteEntryDetail, SiteRow } from './types.js';
 
 export interface EntryPageOptions {
   /** Band-assignment rows used to name the peaks.
@@ -17,12 +13,9 @@ export interface EntryPageOptions {
   /** Tolerance for naming a peak from the table, cm⁻¹.
    * @default 4 */
   assignmentTolerance?: number;
-  /** The download files already written for this entry, in the order the page lists them.
-   * @default [] */
-  downloads?: { label: string; file: string; bytes: number }[];
-  /** Passed to plotTrace for each trace.
-   * @default 1200 */
-  maxPlotPoints?: number;
+  /** Size of the JSON download already written, bytes.
+   * @default 0 */
+  dataBytes?: number;
   /** The site path segment of the entry's folder.
    * @default the entry id */
   slug?: string;
@@ -32,14 +25,6 @@ function byteSize(bytes: number): string {
   if (bytes < 1024) return `${bytes} B`;
   if (bytes < 1024 * 1024) return `${formatNumber(bytes / 1024, { significant: 3 })} KB`;
   return `${formatNumber(bytes / (1024 * 1024), { significant: 3 })} MB`;
-}
-
-function normaliseLabel(method: string): string {
-  if (method === 'vector') return 'processed (unit vector)';
-  if (method === 'minmax') return 'processed (min–max scaled)';
-  if (method === 'area') return 'processed (unit area)';
-  if (method === 'band') return 'processed (band maximum = 1)';
-  return 'processed';
 }
 
 function extraRows(extras: Record<string, unknown>): SiteRow[] {
@@ -82,16 +67,7 @@ export function entryPage(detail: SiteEntryDetail, options: EntryPageOptions = {
   const s = detail.summary;
   const assignments = options.assignments ?? [];
   const tolerance = options.assignmentTolerance ?? 4;
-  const maxPoints = options.maxPlotPoints ?? 1200;
-  const axis = gridAxis(detail.grid);
-  const plot: EntryPlotData = {
-    original: plotTrace(detail.original.wavenumber, detail.original.absorbance, { maxPoints }),
-    processed: plotTrace(axis, detail.processed, { maxPoints }),
-    originalLabel: 'absorbance (original)',
-    processedLabel: normaliseLabel(detail.recipe.normalise.method),
-    originalPoints: detail.original.wavenumber.length,
-    processedPoints: detail.processed.length,
-  };
+  const slug = options.slug ?? s.id;
   const x = detail.original.wavenumber;
   const coverage =
     x.length > 0
@@ -101,7 +77,8 @@ export function entryPage(detail: SiteEntryDetail, options: EntryPageOptions = {
   for (const h of detail.history) for (const tag of h.releases) releasesOf.set(tag, h.revision);
   return {
     id: s.id,
-    path: `entries/${options.slug ?? s.id}/`,
+    slug,
+    path: `entries/${slug}/`,
     name: s.name,
     class: s.class,
     technique: techniqueLabel(s.technique),
@@ -145,8 +122,11 @@ export function entryPage(detail: SiteEntryDetail, options: EntryPageOptions = {
     releases: [...releasesOf.entries()]
       .map(([tag, revision]) => ({ tag, revision, anchor: releaseAnchor(tag) }))
       .sort((a, b) => a.revision - b.revision || a.tag.localeCompare(b.tag, 'en')),
-    downloads: (options.downloads ?? []).map((d) => ({ ...d, size: byteSize(d.bytes) })),
-    recipe: JSON.stringify(recipeSchema.parse(detail.recipe), null, 2),
-    plotJson: jsonForScript(plot),
+    dataFile: { file: `${slug}.json`, bytes: options.dataBytes ?? 0, size: byteSize(options.dataBytes ?? 0) },
+    derived: [
+      { format: 'csv', label: 'CSV', file: `${slug}.csv` },
+      { format: 'jcamp-dx', label: 'JCAMP-DX', file: `${slug}.jdx` },
+    ],
+    recipe: JSON.stringify(detail.recipe, null, 2),
   };
 }

@@ -48,14 +48,6 @@ function readManifest(dir: string): BuildManifest | undefined {
   }
 }
 
-function removeEmptyDirs(dir: string, keep: string): void {
-  for (const name of readdirSync(dir)) {
-    const full = join(dir, name);
-    if (statSync(full).isDirectory()) removeEmptyDirs(full, keep);
-  }
-  if (dir !== keep && readdirSync(dir).length === 0) rmSync(dir, { recursive: false, force: true });
-}
-
 function isInside(child: string, parent: string): boolean {
   const rel = relative(parent, child);
   return rel === '' || (!rel.startsWith('..') && !parse(rel).root);
@@ -117,6 +109,6 @@ export function prepareOutDir(out: string, options: PrepareOutDirOptions = {}): 
     for (const name of readdirSync(dir)) rmSync(join(dir, name), { recursive: true, force: true });
     return;
   }
+  // Folders stay: the build writes into the same ones, and removing then re-creating thousands costs seconds.
   for (const f of files) rmSync(join(dir, f), { force: true });
-  removeEmptyDirs(dir, dir);
 }

@@ -1,7 +1,9 @@
 // Builds the page model of one match report: the unknown, the library state, hits, mixture, bands and plot data.
+import { gridAxis } from '../spectrum/gridAxis.js';
 import { formatNumber } from './formatNumber.js';
 import { jsonForScript } from './jsonForScript.js';
-import type { ReportPage, SiteReport, SiteRow } from './types.js';
+import { plotTrace } from './plotTrace.js';
+import type { ReportPage, ReportPlotData, ReportPlotSeries, SiteReport, SiteRow } from './types.js';
 
 export interface ReportPageOptions {
   /** Entry id → site path segment, to link hits to entry pages.
@@ -10,136 +12,151 @@ export interface ReportPageOptions {
   /** The report's URL segment.
    * @default report.slug */
   slug?: string;
-  /** Shown when the report carries no caution of its own.
-   * @default '' */
-  caution?: string;
-  /** Entry id → processed vector on the grid, to overlay hits on the unknown.
-   * @default none (no overlay of hits) */
-  vectors?: (id: string) => ArrayLike<number> | undefined;
-  /** The grid axis (ascending), for the plots.
-   * @default undefined (no plots) */
-  axis?: Float64Array;
+  /** Processed vector of an entry at a revision, from the state the site shows; undefined when that revision is
+   * not in it (the hit is then not overlaid, rather than overlaid with other data).
+   * @default () => undefined */
+  vector?: (id: string, revision: number) => ArrayLike<number> | undefined;
   /** How many hits the overlay draws.
    * @default 3 */
   overlayHits?: number;
+  /** Largest number of points per plotted line.
+   * @default 900 */
+  maxPlotPoints?: number;
 }
 
-type Json = Record<string, unknown>;
+function toFloat64(values: ArrayLike<number | null>): Float64Array {
+  const out = new Float64Array(values.length);
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i];
+    out[i] = typeof v === 'number' && Number.isFinite(v) ? v : Number.NaN;
+  }
+  return out;
+}
 
-const obj = (v: unknown): Json => (v !== null && typeof v === 'object' && !Array.isArray(v) ? (v as Json) : {});
-const arr = (v: unknown): unknown[] => (Array.isArray(v) ? v : []);
-const str = (v: unknown): string => (typeof v === 'string' ? v : typeof v === 'number' ? String(v) : '');
-const num = (v: unknown): number | undefined => (typeof v === 'number' && Number.isFinite(v) ? v : undefined);
+function rangeText(min: number, max: number): string {
+  return `${formatNumber(max, { decimals: 0 })}–${formatNumber(min, { decimals: 0 })} cm⁻¹`;
+}
 
-export function reportPage(report: SiteReport, options: ReportPageOptions = {}): ReportPage {
-  const r = report.report;
+export function reportPage(site: SiteReport, options: ReportPageOptions = {}): ReportPage {
+  const r = site.report;
   const slugs = options.slugs ?? new Map<string, string>();
   const pathOf = (id: string): string | null => {
     const s = slugs.get(id);
     return s === undefined ? null : `entries/${s}/`;
   };
-  const slug = options.slug ?? report.slug;
-  const query = obj(r.query);
-  const library = obj(r.library);
-  const file = str(query.file) || report.file;
+  const slug = options.slug ?? site.slug;
+  const q = r.query;
 
-  const rows: SiteRow[] = [];
-  if (file) rows.push({ label: 'File', value: file });
-  if (str(query.hash)) rows.push({ label: 'SHA-256', value: str(query.hash) });
-  const overlap = num(query.overlap) ?? num(obj(query.coverage).overlap);
-  if (overlap !== undefined) rows.push({ label: 'Overlap used', value: `${formatNumber(overlap, { decimals: 0 })} cm⁻¹` });
-  if (str(r.createdAt)) rows.push({ label: 'Report made', value: str(r.createdAt) });
-  if (num(r.version) !== undefined) rows.push({ label: 'Report format', value: `version ${str(r.version)}` });
+  const rows: SiteRow[] = [{ label: 'File', value: q.file }];
+  if (q.title) rows.push({ label: 'Title', value: q.title });
+  if (q.block !== undefined) rows.push({ label: 'Block', value: String(q.block) });
+  rows.push({ label: 'SHA-256', value: q.hash });
+  rows.push({ label: 'Recipe', value: q.recipeSource === 'library' ? "the library's default" : 'from a file' });
+  rows.push({
+    label: 'Scoring ranges',
+    value: q.ranges.length === 0 ? 'the whole grid' : q.ranges.map((w) => rangeText(w.min, w.max)).join(', '),
+  });
+  if (q.coverage) {
+    rows.push({
+      label: 'Coverage',
+      value: `${rangeText(q.coverage.min, q.coverage.max)}, ${formatNumber(q.coverage.overlap, { decimals: 0 })} cm⁻¹ used`,
+    });
+  }
+  for (const w of q.warnings) rows.push({ label: 'Warning', value: w });
+  rows.push({ label: 'Standing of the best hit', value: r.standing.text });
 
-  const state: SiteRow[] = [];
-  const release = str(library.release) || str(library.at);
-  state.push({ label: 'Release', value: release || 'working state (not a release)' });
-  if (str(library.stateKey)) state.push({ label: 'State key', value: str(library.stateKey) });
-  if (str(library.name)) state.push({ label: 'Library', value: str(library.name) });
-  const revisions = arr(library.revisions);
-  if (revisions.length > 0) state.push({ label: 'Revisions', value: `${revisions.length} entries` });
-  const entriesCount = num(library.entries);
-  if (entriesCount !== undefined) state.push({ label: 'Entries', value: String(entriesCount) });
-
-  // Hits come per metric, as a map metric → list or as a list carrying its metric.
-  const hitGroups: ReportPage['hits'] = [];
-  const hitsValue = r.hits;
-  const groups: [string, unknown[]][] = Array.isArray(hitsValue)
-    ? [[str(r.metric) || 'pearson', hitsValue]]
-    : Object.entries(obj(hitsValue)).map(([metric, list]) => [metric, arr(list)]);
-  for (const [metric, list] of groups) {
-    hitGroups.push({
-      metric,
-      rows: list.map((h, i) => {
-        const hit = obj(h);
-        const id = str(hit.id);
-        const extras: string[] = [];
-        const z = num(hit.z) ?? num(hit.zScore);
-        if (z !== undefined) extras.push(`z = ${formatNumber(z, { significant: 3 })}`);
-        const gap = num(hit.gap);
-        if (gap !== undefined) extras.push(`gap to next ${formatNumber(gap, { significant: 3 })}`);
-        const ov = num(hit.overlap);
-        if (ov !== undefined) extras.push(`overlap ${formatNumber(ov, { decimals: 0 })} cm⁻¹`);
-        return {
-          rank: num(hit.rank) ?? i + 1,
-          id,
-          path: pathOf(id),
-          name: str(hit.name),
-          score: formatNumber(num(hit.score), { decimals: 4 }),
-          extra: extras.join(', '),
-        };
-      }),
+  const state: SiteRow[] = [
+    { label: 'Library', value: r.library.name },
+    { label: 'Release', value: r.library.release ?? 'working state (not a release)' },
+    { label: 'State key', value: r.library.stateKey },
+    { label: 'Entries searched', value: String(r.library.entries) },
+  ];
+  if (r.library.revisions) {
+    state.push({
+      label: 'Revision set',
+      value: r.library.revisions.map((v) => `${v.id}@${v.revision}`).join(', '),
     });
   }
 
-  let mixture: ReportPage['mixture'] = null;
-  const m = obj(r.mixture);
-  if (Object.keys(m).length > 0) {
-    mixture = {
-      r2: formatNumber(num(m.r2), { decimals: 4 }),
-      components: arr(m.components).map((c) => {
-        const comp = obj(c);
-        const id = str(comp.id);
-        const share = num(comp.share);
+  const metrics = r.metrics.length > 0 ? r.metrics : ['pearson' as const];
+  const hits: ReportPage['hits'] = metrics.map((metric, i) => {
+    const list = r.hitsByMetric[metric] ?? (i === 0 ? r.hits : []);
+    return {
+      metric,
+      rows: list.map((h) => {
+        const extras: string[] = [];
+        if (h.z !== null) extras.push(`z = ${formatNumber(h.z, { significant: 3 })}`);
+        if (h.gapToNext !== null) extras.push(`lead over next ${formatNumber(h.gapToNext, { significant: 3 })}`);
+        extras.push(`overlap ${formatNumber(h.overlap, { decimals: 0 })} cm⁻¹`);
         return {
-          id,
-          path: pathOf(id),
-          name: str(comp.name),
-          weight: formatNumber(num(comp.weight)),
-          share: share === undefined ? '–' : `${formatNumber(share * 100, { decimals: 1 })} %`,
+          rank: h.rank,
+          id: h.id,
+          path: pathOf(h.id),
+          name: h.name,
+          score: formatNumber(h.score, { decimals: 4 }),
+          extra: extras.join(', '),
         };
       }),
-      unexplained: arr(m.residualBands).map((b) => {
-        const band = obj(b);
-        return { position: formatNumber(num(band.position), { decimals: 1 }), height: formatNumber(num(band.height)) };
-      }),
-    };
-  }
-
-  const bands: ReportPage['bands'] = arr(r.bands).map((b) => {
-    const band = obj(b);
-    const explained = band.explained;
-    return {
-      position: formatNumber(num(band.position), { decimals: 1 }),
-      height: formatNumber(num(band.height)),
-      width: formatNumber(num(band.fwhm) ?? num(band.width), { decimals: 1 }),
-      kind: str(band.kind) || (band.shoulder === true ? 'shoulder' : 'peak'),
-      assignments: arr(band.assignments).map((a) => {
-        const as = obj(a);
-        return { label: str(as.label), class: arr(as.class).map(str).join(', ') || str(as.class), source: str(as.source) };
-      }),
-      candidates: arr(band.candidates).map((c) => {
-        const id = str(obj(c).id);
-        return { id, path: pathOf(id) };
-      }),
-      explained: explained === true ? 'yes' : explained === false ? 'no' : '–',
     };
   });
 
-  const plotJson = options.axis ? plotDataJson(r, options) : '';
-  const top = hitGroups[0]?.rows[0];
+  const m = r.mixture;
+  const mixture: ReportPage['mixture'] = m
+    ? {
+        r2: formatNumber(m.r2, { decimals: 4 }),
+        components: m.components.map((c) => ({
+          id: c.id,
+          path: pathOf(c.id),
+          name: `${c.name ?? ''}${c.forced ? ' (forced in)' : ''}`,
+          weight: formatNumber(c.weight),
+          share: `${formatNumber(c.share * 100, { decimals: 1 })} %`,
+        })),
+        unexplained: m.residualBands.map((b) => ({
+          position: formatNumber(b.position, { decimals: 1 }),
+          height: formatNumber(b.height),
+        })),
+      }
+    : null;
+
+  const bands: ReportPage['bands'] = r.bands.map((b) => ({
+    position: formatNumber(b.position, { decimals: 1 }),
+    height: formatNumber(b.height),
+    width: formatNumber(b.fwhm, { decimals: 1 }),
+    kind: b.kind,
+    assignments: b.assignments.map((a) => ({ label: a.label, class: a.class.join(', '), source: a.source })),
+    candidates: b.candidates.map((c) => ({ id: c.id, path: pathOf(c.id) })),
+    explained: b.explained === null ? 'no fit made' : b.explained ? 'yes' : 'no',
+  }));
+
+  const axis = gridAxis(q.grid);
+  const maxPoints = options.maxPlotPoints ?? 900;
+  const series = (name: string, role: string, values: ArrayLike<number | null>): ReportPlotSeries | null => {
+    if (values.length !== axis.length) return null;
+    const trace = plotTrace(axis, toFloat64(values), { maxPoints });
+    return trace ? { name, role, ...trace } : null;
+  };
+  const unknown = series(`unknown: ${q.title ?? q.file}`, 'unknown', q.processed);
+  let plotJson = '';
+  if (unknown) {
+    const overlay: ReportPlotSeries[] = [unknown];
+    for (const h of r.hits.slice(0, options.overlayHits ?? 3)) {
+      const v = options.vector?.(h.id, h.revision);
+      const s = v ? series(`${h.rank}. ${h.name || h.id}`, 'hit', v) : null;
+      if (s) overlay.push(s);
+    }
+    const fitted = m ? series('mixture fit', 'fit', m.fitted) : null;
+    const residual = m ? series('residual', 'residual', m.residual) : null;
+    const data: ReportPlotData = {
+      overlay,
+      mixture: fitted && residual ? [unknown, fitted, residual] : [],
+      unexplained: m ? m.residualBands.map((b) => b.position) : [],
+    };
+    plotJson = jsonForScript(data);
+  }
+
+  const top = r.hits[0];
   const summary = [
-    top ? `top hit ${top.id} (${top.score})` : 'no hits',
+    top ? `top hit ${top.name || top.id} (${formatNumber(top.score, { decimals: 3 })}, ${r.standing.verdict})` : 'no hits',
     mixture ? `mixture R² ${mixture.r2}, ${mixture.unexplained.length} unexplained bands` : '',
     bands.length > 0 ? `${bands.length} bands identified` : '',
   ]
@@ -148,54 +165,15 @@ export function reportPage(report: SiteReport, options: ReportPageOptions = {}):
   return {
     slug,
     path: `reports/${slug}/`,
-    file: report.file,
-    title: `Match report: ${file || slug}`,
+    file: site.file,
+    title: `Match report: ${q.title ?? q.file}`,
     summary,
     rows,
     state,
-    hits: hitGroups,
+    hits,
     mixture,
     bands,
-    caution: str(r.caution) || options.caution || '',
+    caution: r.caution,
     plotJson,
   };
-}
-
-function plotDataJson(r: Json, options: ReportPageOptions): string {
-  const axis = options.axis!;
-  const query = obj(r.query);
-  const unknown = arr(query.processed);
-  if (unknown.length !== axis.length) return '';
-  const series: { name: string; role: string; y: (number | null)[] }[] = [];
-  const clean = (values: ArrayLike<unknown>): (number | null)[] => {
-    const out = new Array<number | null>(values.length);
-    for (let i = 0; i < values.length; i++) {
-      const v = values[i];
-      out[i] = typeof v === 'number' && Number.isFinite(v) ? Number(v.toPrecision(5)) : null;
-    }
-    return out;
-  };
-  series.push({ name: `unknown (${str(query.file) || 'query'})`, role: 'unknown', y: clean(unknown) });
-  const hitsValue = r.hits;
-  const firstList = Array.isArray(hitsValue) ? hitsValue : arr(Object.values(obj(hitsValue))[0]);
-  for (const h of firstList.slice(0, options.overlayHits ?? 3)) {
-    const id = str(obj(h).id);
-    const v = options.vectors?.(id);
-    if (v && v.length === axis.length) series.push({ name: id, role: 'hit', y: clean(v as ArrayLike<unknown>) });
-  }
-  const m = obj(r.mixture);
-  const fitted = arr(m.fitted);
-  const residual = arr(m.residual);
-  const mixtureSeries: { name: string; role: string; y: (number | null)[] }[] = [];
-  if (fitted.length === axis.length) mixtureSeries.push({ name: 'mixture fit', role: 'fit', y: clean(fitted) });
-  if (residual.length === axis.length) mixtureSeries.push({ name: 'residual', role: 'residual', y: clean(residual) });
-  const marks = arr(m.residualBands)
-    .map((b) => num(obj(b).position))
-    .filter((p): p is number => p !== undefined);
-  return jsonForScript({
-    x: Array.from(axis),
-    overlay: series,
-    mixture: mixtureSeries.length > 0 ? [series[0]!, ...mixtureSeries] : [],
-    unexplained: marks,
-  });
 }

@@ -21,7 +21,9 @@ const optionsSchema = z.object({
       caution: z.string().min(1, { message: 'every page carries the caution; it must not be empty' }),
       empty: z.boolean(),
       state: z.object({ label: z.string(), stateKey: z.string(), shortKey: z.string() }).loose(),
-      entries: z.array(z.object({ path: pagePath('entries'), plotJson: z.string() }).loose()),
+      entries: z.array(
+        z.object({ path: pagePath('entries'), dataFile: z.object({ file: z.string().regex(/^[A-Za-z0-9._~-]+\.json$/) }).loose() }).loose(),
+      ),
       reports: z.array(z.object({ path: pagePath('reports') }).loose()),
       releases: z.array(z.object({ tag: z.string(), anchor: z.string().regex(/^[A-Za-z0-9._-]+$/) }).loose()),
       assignments: z.array(z.object({}).loose()),

@@ -1,6 +1,7 @@
 // Shapes of the site's data layer: what is gathered from the library and the reports, and the page models the
 // templates print. Page models hold display-ready strings only, so templates stay free of logic and every string
 // reaches the page through the template engine's escaping.
+import type { MatchReport } from '../schema/matchReport.js';
 import type { Grid, Recipe } from '../schema/recipe.js';
 import type { Peak, QcFlag, Spectrum } from '../spectrum/types.js';
 
@@ -99,7 +100,7 @@ export interface SiteReport {
   /** The file name as found in the reports folder. */
   file: string;
   /** The report as `matchReportSchema` parsed it. */
-  report: Record<string, unknown>;
+  report: MatchReport;
 }
 
 /** Everything one site build reads, gathered once; entry vectors are loaded one entry at a time. */
@@ -152,6 +153,8 @@ export interface EntryPlotData {
 
 export interface EntryPage {
   id: string;
+  /** The entry's folder name in the site (the id, made safe); also the base of its download file names. */
+  slug: string;
   /** Site path of the page without the prefix, e.g. `entries/serum-07/`. */
   path: string;
   name: string;
@@ -179,10 +182,32 @@ export interface EntryPage {
     shown: boolean;
   }[];
   releases: { tag: string; revision: number; anchor: string }[];
-  downloads: { label: string; file: string; bytes: number; size: string }[];
+  /** The JSON download (static, full data). */
+  dataFile: { file: string; bytes: number; size: string };
+  /** Formats the page derives from the JSON in the browser with the project's writers, on request. */
+  derived: { format: 'csv' | 'jcamp-dx'; label: string; file: string }[];
   recipe: string;
-  /** JSON of `EntryPlotData`, escaped for a `<script type="application/json">` block. */
-  plotJson: string;
+}
+
+/** The JSON download of an entry (`entries/<id>/<id>.json`): the shape of `bandshelf show ID --json`. */
+export interface EntryDocument {
+  id: string;
+  revision: number;
+  hash: string;
+  reviewState: string;
+  createdAt: string;
+  meta: Record<string, unknown>;
+  grid: Grid;
+  recipe: Recipe;
+  /** The parsed original spectrum: cm⁻¹ ascending, absorbance; every point. */
+  original: { x: number[]; y: number[] };
+  /** gridLength(grid) values, ascending wavenumber, null where not covered. */
+  processed: (number | null)[];
+  peaks: Peak[];
+  qc: QcFlag[];
+  extras: Record<string, unknown>;
+  files: { role: string; name: string; sha256: string; size: number }[];
+  caution?: string;
 }
 
 export interface BrowseRow {
@@ -282,4 +307,21 @@ export interface SiteView {
   reports: ReportPage[];
   releases: ReleasePage[];
   assignments: AssignmentRow[];
+}
+
+/** One line of a report plot. */
+export interface ReportPlotSeries extends PlotTrace {
+  name: string;
+  /** unknown | hit | fit | residual */
+  role: string;
+}
+
+/** What a report page's plots draw. */
+export interface ReportPlotData {
+  /** The unknown and its top hits, on the processed scale. */
+  overlay: ReportPlotSeries[];
+  /** The unknown, the mixture fit and its residual; empty without a mixture. */
+  mixture: ReportPlotSeries[];
+  /** Positions of the unexplained bands, cm⁻¹. */
+  unexplained: number[];
 }

@@ -1,4 +1,4 @@
-// The airPLS baseline (Zhang, Chen & Liang 2010): penalised least squares reweighted adaptively from the residuals.
+// The airPLS baseline (Zhang, Chen & Liang 2010): penalised least squares, adaptively reweighted.
 import { BandshelfError } from '../error.js';
 import type { Spectrum } from './types.js';
 import { whittakerSmooth } from './whittakerSmooth.js';
@@ -15,7 +15,8 @@ export interface AirplsBaselineOptions {
    */
   iterations?: number;
   /**
-   * Order of the differences penalised; 1 follows the published algorithm, 2 gives a stiffer, curved baseline.
+   * Order of the differences penalised; 1 follows the published algorithm, 2 gives a stiffer, curved
+   * baseline.
    * @default 1
    */
   differences?: 1 | 2;
@@ -24,16 +25,20 @@ export interface AirplsBaselineOptions {
    * @default 0.001
    */
   tolerance?: number;
-  /** The file the spectrum came from, for error messages. */
+  /**
+   * The file the spectrum came from, for error messages.
+   * @default undefined
+   */
   file?: string;
 }
 
 /**
- * Zhang, Chen & Liang, Analyst 135 (2010): start with all weights 1; in pass t fit z = (W + λ DᵀD)⁻¹ W y, take the
- * residuals d = y − z, stop when Σ|d⁻| < tolerance·Σ|y|; otherwise give points above the fit weight 0 (they are
- * bands), points below weight exp(t·|dᵢ|/Σ|d⁻|), and both end points exp(t·max|d⁻|/Σ|d⁻|) so the baseline stays
- * anchored. Implemented here rather than through the ml-airpls package, whose weighting departs from the paper
- * (Gaussian weights on a noise estimate), so that the recipe's λ and passes mean what the paper says.
+ * Zhang, Chen & Liang, Analyst 135 (2010): start with all weights 1; in pass t fit z = (W + λ DᵀD)⁻¹ W y,
+ * take the residuals d = y − z, stop when Σ|d⁻| < tolerance·Σ|y|; otherwise give points above the fit weight
+ * 0 (they are bands), points below weight exp(t·|dᵢ|/Σ|d⁻|), and both end points exp(t·max|d⁻|/Σ|d⁻|) so the
+ * baseline stays anchored. Implemented here rather than through the ml-airpls package, whose weighting
+ * departs from the paper (Gaussian weights on a noise estimate), so that the recipe's λ and passes mean what
+ * the paper says.
  */
 export function airplsBaseline(spectrum: Spectrum, options: AirplsBaselineOptions = {}): Float64Array {
   const y = spectrum.absorbance;

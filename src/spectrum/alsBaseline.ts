@@ -1,4 +1,4 @@
-// The asymmetric least squares baseline (Eilers & Boelens 2005): a smooth curve that hugs the spectrum from below.
+// The asymmetric least squares baseline (Eilers & Boelens 2005): a smooth curve hugging the spectrum below.
 import { BandshelfError } from '../error.js';
 import type { Spectrum } from './types.js';
 import { whittakerSmooth } from './whittakerSmooth.js';
@@ -19,13 +19,16 @@ export interface AlsBaselineOptions {
    * @default 10
    */
   iterations?: number;
-  /** The file the spectrum came from, for error messages. */
+  /**
+   * The file the spectrum came from, for error messages.
+   * @default undefined
+   */
   file?: string;
 }
 
 /**
- * Eilers & Boelens (2005): repeat z = (W + λ DᵀD)⁻¹ W y with D the second-difference operator, then w = p where
- * y > z and 1 − p elsewhere. Stops early once no weight changes. Returns the baseline z on every point.
+ * Eilers & Boelens (2005): repeat z = (W + λ DᵀD)⁻¹ W y with D the second-difference operator, then w = p
+ * where y > z and 1 − p elsewhere. Stops early once no weight changes. Returns the baseline z on every point.
  */
 export function alsBaseline(spectrum: Spectrum, options: AlsBaselineOptions = {}): Float64Array {
   const y = spectrum.absorbance;

@@ -1,5 +1,4 @@
-// Extended multiplicative scatter correction: removes multiplicative scaling, offset and smooth polynomial
-// scatter relative to a reference spectrum (Martens & Stark 1991; Kohler et al. 2005).
+// Extended multiplicative scatter correction against a reference (Martens & Stark 1991; Kohler et al. 2005).
 import { BandshelfError } from '../error.js';
 import { interpolateAtWavenumbers } from './interpolateAtWavenumbers.js';
 import { solveLeastSquares } from './solveLeastSquares.js';
@@ -12,8 +11,8 @@ export interface EmscCorrectOptions {
    */
   degree?: number;
   /**
-   * A multiplicative term b below this is refused: dividing by it would amplify noise without bound, and b ≤ 0
-   * would flip the spectrum.
+   * A multiplicative term b below this is refused: dividing by it would amplify noise without bound, and b ≤
+   * 0 would flip the spectrum.
    * @default 1e-3
    */
   minMultiplicative?: number;
@@ -22,7 +21,10 @@ export interface EmscCorrectOptions {
    * @default 16
    */
   maxGap?: number;
-  /** The file the spectrum came from, for error messages. */
+  /**
+   * The file the spectrum came from, for error messages.
+   * @default undefined
+   */
   file?: string;
 }
 
@@ -34,10 +36,10 @@ export interface EmscCorrectResult {
 }
 
 /**
- * Fits s = a + b·ref + Σₖ dₖ·Pₖ(x̃) by least squares, where Pₖ are Legendre polynomials of the wavenumber scaled
- * to x̃ ∈ [−1, 1] over the fitted points, and returns (s − a − Σ dₖ Pₖ) / b. Points outside the reference's
- * coverage are dropped. A rank-deficient model (the reference itself a low polynomial) or b < minMultiplicative
- * → BAD_RECIPE.
+ * Fits s = a + b·ref + Σₖ dₖ·Pₖ(x̃) by least squares, where Pₖ are Legendre polynomials of the wavenumber
+ * scaled to x̃ ∈ [−1, 1] over the fitted points, and returns (s − a − Σ dₖ Pₖ) / b. Points outside the
+ * reference's coverage are dropped. A rank-deficient model (the reference itself a low polynomial) or b <
+ * minMultiplicative → BAD_RECIPE.
  */
 export function emscCorrect(
   spectrum: Spectrum,
@@ -76,7 +78,8 @@ export function emscCorrect(
   }
   const lo = x[0]!;
   const span = x[m - 1]! - lo;
-  // Columns: 1, ref, P₁(x̃) … P_degree(x̃), by the three-term recurrence (k+1)P_{k+1} = (2k+1)x̃P_k − kP_{k−1}.
+  // Columns: 1, ref, P₁(x̃) … P_degree(x̃), by the three-term recurrence (k+1)P_{k+1} = (2k+1)x̃P_k −
+  // kP_{k−1}.
   const design = new Float64Array(m * k);
   const poly = new Float64Array(m * (degree + 1));
   for (let i = 0; i < m; i++) {

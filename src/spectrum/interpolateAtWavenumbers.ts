@@ -1,4 +1,4 @@
-// Reads a spectrum at other wavenumbers by linear interpolation, never outside its coverage or across its gaps.
+// Reads a spectrum at other wavenumbers by linear interpolation, never beyond its coverage or across gaps.
 import type { Spectrum } from './types.js';
 
 export interface InterpolateAtWavenumbersOptions {

@@ -28,7 +28,10 @@ export interface QcFlagsOptions {
    * @default 1e-4
    */
   flatTolerance?: number;
-  /** The spectrum after the baseline step, for the negative-absorbance check (skipped without it). */
+  /**
+   * The spectrum after the baseline step, for the negative-absorbance check (skipped without it).
+   * @default undefined
+   */
   baselineCorrected?: Spectrum;
   /**
    * Negative absorbance is flagged below −negativeTolerance × the corrected spectrum's maximum.
@@ -67,12 +70,15 @@ export interface QcFlagsOptions {
    */
   minCoverage?: number;
   /**
-   * The recipe's exclusion windows: gaps inside them are expected, and grid points inside them are not counted
-   * against coverage.
+   * The recipe's exclusion windows: gaps inside them are expected, and grid points inside them are not
+   * counted against coverage.
    * @default []
    */
   exclude?: WavenumberWindow[];
-  /** The reference's spectral dynamic range in orders of magnitude (field-resolved entries). */
+  /**
+   * The reference's spectral dynamic range in orders of magnitude (field-resolved entries).
+   * @default undefined
+   */
   dynamicRangeOrders?: number;
   /**
    * A dynamic range below this many orders is a warning.
@@ -85,12 +91,14 @@ export interface QcFlagsOptions {
 export type QcOptions = QcFlagsOptions;
 
 /**
- * Checks, in this order: saturation (error above the limit; warning for a flat top), negative absorbance after
- * the baseline, low SNR in the noise window (no flag when the window is not covered), single-point spikes
- * (narrower than any band: points with y(i±1) close to the background while y(i) is far from it; two adjacent
- * bad points, or bands under 1.6 points wide, are beyond this test), gaps in the source coverage, coarse point
- * spacing, narrow coverage of the grid, and low dynamic range. `original` is the parsed spectrum (any order;
- * sorted here), `processed` the grid vector (NaN not covered). Near-duplicates are the library's check.
+ * Checks, in this order: saturation (error above the limit; warning for a flat top), negative absorbance
+ * after the baseline, low SNR in the noise window (no flag when the window is not covered), single-point
+ * spikes (narrower than any band: y(i) far from the line through its neighbours two and three points away
+ * while y(i±1) stay within a third of that excursion; two adjacent bad points are missed, and bands narrower
+ * than about 3 points, which are undersampled, can look like spikes), gaps in the source coverage, coarse
+ * point spacing, narrow coverage of the grid, and low dynamic range. `original` is the parsed spectrum (any
+ * order; sorted here), `processed` the grid vector (NaN not covered). Near-duplicates are the library's
+ * check.
  */
 export function qcFlags(
   original: Spectrum,
@@ -98,6 +106,14 @@ export function qcFlags(
   grid: Grid,
   options: QcFlagsOptions = {},
 ): QcFlag[] {
+  const length = gridLength(grid);
+  if (processed.length !== length) {
+    throw new BandshelfError(
+      'BAD_OPTION',
+      `the processed vector has ${processed.length} values but the grid has ${length} points`,
+      { field: 'processed' },
+    );
+  }
   const flags: QcFlag[] = [];
   const { wavenumber: x, absorbance: y } = ascending(original);
   const n = x.length;
@@ -225,14 +241,6 @@ export function qcFlags(
   }
 
   // Narrow coverage of the grid.
-  const length = gridLength(grid);
-  if (processed.length !== length) {
-    throw new BandshelfError(
-      'BAD_OPTION',
-      `the processed vector has ${processed.length} values but the grid has ${length} points`,
-      { field: 'processed' },
-    );
-  }
   const axis = gridAxis(grid);
   let counted = 0;
   let covered = 0;
@@ -318,7 +326,8 @@ function longestFlatTop(
   return best;
 }
 
-// Excursion of point i above its background, the median of the points two and three away on each side.
+// Excursion of point i above its local background: the least-squares line through the points two and three
+// away on each side, so a steep band flank does not count as an excursion of the neighbours.
 function findSpikes(
   x: Float64Array,
   y: Float64Array,
@@ -328,16 +337,15 @@ function findSpikes(
   const result = { count: 0, largest: 0, at: 0 };
   if (n < 7) return result;
   const height = new Float64Array(n);
-  const background = new Float64Array(n);
-  const four = new Float64Array(4);
+  const left = new Float64Array(n);
+  const right = new Float64Array(n);
   for (let i = 3; i < n - 3; i++) {
-    four[0] = y[i - 3]!;
-    four[1] = y[i - 2]!;
-    four[2] = y[i + 2]!;
-    four[3] = y[i + 3]!;
-    four.sort();
-    background[i] = (four[1]! + four[2]!) / 2;
-    height[i] = y[i]! - background[i]!;
+    const mean = (y[i - 3]! + y[i - 2]! + y[i + 2]! + y[i + 3]!) / 4;
+    // Offsets −3, −2, 2, 3 have zero mean and Σo² = 26.
+    const slope = (3 * (y[i + 3]! - y[i - 3]!) + 2 * (y[i + 2]! - y[i - 2]!)) / 26;
+    height[i] = y[i]! - mean;
+    left[i] = y[i - 1]! - (mean - slope);
+    right[i] = y[i + 1]! - (mean + slope);
   }
   const inner = height.slice(3, n - 3);
   const centre = medianOf(inner);
@@ -353,9 +361,9 @@ function findSpikes(
   for (let i = 3; i < n - 3; i++) {
     const h = height[i]! - centre;
     if (!(Math.abs(h) > threshold * sigma)) continue;
-    const left = y[i - 1]! - background[i]! - centre;
-    const right = y[i + 1]! - background[i]! - centre;
-    if (Math.abs(left) >= Math.abs(h) / 3 || Math.abs(right) >= Math.abs(h) / 3) continue;
+    // A band lifts its neighbours with it; a spike stands alone.
+    if (Math.abs(left[i]! - centre) >= Math.abs(h) / 3 || Math.abs(right[i]! - centre) >= Math.abs(h) / 3)
+      continue;
     result.count++;
     if (Math.abs(h) > Math.abs(result.largest)) {
       result.largest = h;

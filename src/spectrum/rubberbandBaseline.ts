@@ -1,15 +1,18 @@
-// The rubberband baseline: the lower convex hull of the spectrum, stretched under it like a band, on every point.
+// The rubberband baseline: the lower convex hull of the spectrum, stretched under it like a band.
 import { BandshelfError } from '../error.js';
 import type { Spectrum } from './types.js';
 
 export interface RubberbandBaselineOptions {
-  /** The file the spectrum came from, for error messages. */
+  /**
+   * The file the spectrum came from, for error messages.
+   * @default undefined
+   */
   file?: string;
 }
 
 /**
- * The lower convex hull of (wavenumber, absorbance) by Andrew's monotone chain, linearly interpolated onto every
- * wavenumber. The hull always passes through both end points and never rises above the spectrum, so the
+ * The lower convex hull of (wavenumber, absorbance) by Andrew's monotone chain, linearly interpolated onto
+ * every wavenumber. The hull always passes through both end points and never rises above the spectrum, so the
  * corrected spectrum is ≥ 0 everywhere. Needs ≥ 2 points with strictly ascending wavenumbers (sortAndMerge).
  */
 export function rubberbandBaseline(

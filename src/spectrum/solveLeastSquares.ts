@@ -1,4 +1,4 @@
-// Small dense least squares by Householder QR, for fits with a handful of model terms (EMSC) over many points.
+// Small dense least squares by Householder QR, for fits of a few model terms (EMSC) over many points.
 
 /** A column-major `rows × cols` design matrix and the observations. */
 export interface LeastSquaresProblem {
@@ -11,16 +11,17 @@ export interface LeastSquaresProblem {
 
 export interface SolveLeastSquaresOptions {
   /**
-   * A column whose remaining norm after orthogonalisation falls below this fraction of its own norm is taken as
-   * linearly dependent on the others.
+   * A column whose remaining norm after orthogonalisation falls below this fraction of its own norm is taken
+   * as linearly dependent on the others.
    * @default 1e-10
    */
   rankTolerance?: number;
 }
 
 /**
- * The coefficients minimising ‖A c − b‖₂, or undefined when A is rank deficient. Householder QR rather than the
- * normal equations, whose squared condition number loses digits with polynomial terms. Inputs are not modified.
+ * The coefficients minimising ‖A c − b‖₂, or undefined when A is rank deficient. Householder QR rather than
+ * the normal equations, whose squared condition number loses digits with polynomial terms. Inputs are not
+ * modified.
  */
 export function solveLeastSquares(
   problem: LeastSquaresProblem,

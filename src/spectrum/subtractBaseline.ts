@@ -6,7 +6,10 @@ import { rubberbandBaseline } from './rubberbandBaseline.js';
 import type { Spectrum } from './types.js';
 
 export interface SubtractBaselineOptions {
-  /** The file the spectrum came from, for error messages. */
+  /**
+   * The file the spectrum came from, for error messages.
+   * @default undefined
+   */
   file?: string;
 }
 

@@ -1,5 +1,4 @@
-// Subtracts a scaled reference spectrum (water, buffer), its scale fitted in a window: the usual way to flatten
-// liquid biofluid spectra.
+// Subtracts a water or buffer spectrum scaled to fit a window: the usual flattening of biofluid spectra.
 import { BandshelfError } from '../error.js';
 import type { WavenumberWindow } from '../schema/recipe.js';
 import { interpolateAtWavenumbers } from './interpolateAtWavenumbers.js';
@@ -7,9 +6,9 @@ import type { Spectrum } from './types.js';
 
 export interface SubtractReferenceOptions {
   /**
-   * Fit `spectrum ≈ scale·reference + offset` rather than `scale·reference`, so a residual baseline offset in the
-   * window does not bias the scale. The offset is only part of the fit; it is not subtracted (baselines are the
-   * baseline step's job).
+   * Fit `spectrum ≈ scale·reference + offset` rather than `scale·reference`, so a residual baseline offset in
+   * the window does not bias the scale. The offset is only part of the fit; it is not subtracted (baselines
+   * are the baseline step's job).
    * @default true
    */
   fitOffset?: boolean;
@@ -23,7 +22,10 @@ export interface SubtractReferenceOptions {
    * @default 16
    */
   maxGap?: number;
-  /** The file the spectrum came from, for error messages. */
+  /**
+   * The file the spectrum came from, for error messages.
+   * @default undefined
+   */
   file?: string;
 }
 

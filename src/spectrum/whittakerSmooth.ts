@@ -1,5 +1,4 @@
-// The weighted Whittaker smoother (W + λ DᵀD) z = W y, solved as a banded system in O(n): the core of the ALS and
-// airPLS baselines.
+// The weighted Whittaker smoother, solved as a banded system in O(n): the core of the ALS and airPLS fits.
 import { BandshelfError } from '../error.js';
 
 /** The values to smooth and the weight of each (≥ 0; enough must be positive to fix the solution). */
@@ -10,20 +9,22 @@ export interface WhittakerInput {
 
 export interface WhittakerSmoothOptions {
   /**
-   * Smoothness penalty λ on the squared differences, in index units (as published: not scaled by point spacing).
+   * Smoothness penalty λ on the squared differences, in index units (as published: not scaled by point
+   * spacing).
    * @default 1e5
    */
   lambda?: number;
   /**
-   * Order of the differences penalised: 1 (first differences, tridiagonal) or 2 (second differences, pentadiagonal).
+   * Order of the differences penalised: 1 (first differences, tridiagonal) or 2 (second differences,
+   * pentadiagonal).
    * @default 2
    */
   differences?: 1 | 2;
 }
 
 /**
- * Solves (W + λ DᵀD) z = W y with a banded LDLᵀ factorisation on typed arrays (no dense matrix): the matrix is
- * symmetric positive definite whenever λ > 0 and enough points carry weight.
+ * Solves (W + λ DᵀD) z = W y with a banded LDLᵀ factorisation on typed arrays (no dense matrix): the matrix
+ * is symmetric positive definite whenever λ > 0 and enough points carry weight.
  */
 export function whittakerSmooth(input: WhittakerInput, options: WhittakerSmoothOptions = {}): Float64Array {
   const { y, weights: w } = input;

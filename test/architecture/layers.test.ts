@@ -56,7 +56,7 @@ describe('layers', () => {
       expect(own, `unknown layer for ${name}`).toBeDefined();
       for (const spec of importsOf(file)) {
         if (!spec.startsWith('.')) continue;
-        const target = resolve(dirname(file), spec);
+        const target = resolve(dirname(file), spec).replace(/\.js$/, '.ts');
         const targetRank = RANK[layerOf(target)];
         expect(targetRank, `${name} imports ${spec}`).toBeDefined();
         expect(targetRank!, `${name} imports ${spec} from a higher layer`).toBeLessThanOrEqual(own!);

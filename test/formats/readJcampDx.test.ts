@@ -1,9 +1,14 @@
+// The JCAMP-DX reader against the standard's own examples, the quirks of real files, and bad input.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { readJcampDx } from '../../src/formats/readJcampDx.js';
 
 /** A one-block file around the given data lines; `labels` replace the defaults of the same name. */
-function jdx(data: string[], labels: Record<string, string> = {}, dataLabel = '##XYDATA=(X++(Y..Y))'): string {
+function jdx(
+  data: string[],
+  labels: Record<string, string> = {},
+  dataLabel = '##XYDATA=(X++(Y..Y))',
+): string {
   const defaults: Record<string, string> = {
     TITLE: 'test block',
     'JCAMP-DX': '4.24',
@@ -81,6 +86,14 @@ describe('readJcampDx: the standard’s own examples', () => {
     expect(warning?.message).toMatch(/starts with 127 but the previous line ended with 128/);
   });
 
+  it('keeps the first value of a DIF line whose X names a new point (a writer without Y checks)', () => {
+    const [parsed] = readJcampDx(jdx(['0 1JJ%j', '5 AjV']), { file: 'nocheck.jdx' });
+    expect(Array.from(parsed!.spectrum.absorbance)).toEqual(TEN);
+    expect(parsed!.warnings).toEqual([
+      { line: 13, message: '1 DIF line starts without the Y check (the X names a new point); read as data' },
+    ]);
+  });
+
   it('verifies and drops the Y check between two DIF lines', () => {
     // 1 2 3 3 2 1 | (1) 0 −1 −2 −3 | (−3): each later line starts with the previous line's last ordinate.
     const [parsed] = readJcampDx(jdx(['0 1JT%jj', '5AjV', '9c']), { file: 'two.jdx' });
@@ -106,18 +119,24 @@ describe('readJcampDx: abscissae, factors and units', () => {
   });
 
   it('returns descending files ascending', () => {
-    const [parsed] = readJcampDx(jdx(['9 1 2 3 3 2 1 0 -1 -2 -3'], { FIRSTX: '9', LASTX: '0', DELTAX: '-1' }));
+    const [parsed] = readJcampDx(
+      jdx(['9 1 2 3 3 2 1 0 -1 -2 -3'], { FIRSTX: '9', LASTX: '0', DELTAX: '-1' }),
+    );
     expect(Array.from(parsed!.spectrum.wavenumber)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8, 9]);
     expect(Array.from(parsed!.spectrum.absorbance)).toEqual([...TEN].reverse());
   });
 
   it('converts MICROMETERS and NANOMETERS to cm⁻¹', () => {
     // common practice: 10 µm = 1000 cm⁻¹, 2.5 µm = 4000 cm⁻¹, 10⁷/λ(nm).
-    const um = readJcampDx(jdx(['2.5 1 2 3 4'], { XUNITS: 'MICROMETERS', FIRSTX: '2.5', LASTX: '10', NPOINTS: '4' }))[0]!;
+    const um = readJcampDx(
+      jdx(['2.5 1 2 3 4'], { XUNITS: 'MICROMETERS', FIRSTX: '2.5', LASTX: '10', NPOINTS: '4' }),
+    )[0]!;
     expect(Array.from(um.spectrum.wavenumber)).toEqual([1000, 1e4 / 7.5, 2000, 4000]);
     expect(Array.from(um.spectrum.absorbance)).toEqual([4, 3, 2, 1]);
     expect(um.source.xUnit).toBe('um');
-    const nm = readJcampDx(jdx(['2500 1 2'], { XUNITS: 'NANOMETERS', FIRSTX: '2500', LASTX: '10000', NPOINTS: '2' }))[0]!;
+    const nm = readJcampDx(
+      jdx(['2500 1 2'], { XUNITS: 'NANOMETERS', FIRSTX: '2500', LASTX: '10000', NPOINTS: '2' }),
+    )[0]!;
     expect(Array.from(nm.spectrum.wavenumber)).toEqual([1000, 4000]);
   });
 
@@ -140,6 +159,12 @@ describe('readJcampDx: abscissae, factors and units', () => {
     expect(p!.warnings.map((w) => w.message).join()).toMatch(/read as percent transmittance/);
   });
 
+  it('refuses a unit option it does not know', () => {
+    const err = catchError(() => readJcampDx(jdx(['0 1 2']), { xUnit: 'inch' as 'nm' }));
+    expect(err.code).toBe('BAD_OPTION');
+    expect(err.field).toBe('xUnit');
+  });
+
   it('lets options override the units', () => {
     const [p] = readJcampDx(jdx(['0 100 10 1'], { YUNITS: 'ARBITRARY UNITS', LASTX: '2', NPOINTS: '3' }), {
       yUnit: 'percent-transmittance',
@@ -148,7 +173,11 @@ describe('readJcampDx: abscissae, factors and units', () => {
   });
 
   it('reads XYPOINTS in pairs, separated by commas, semicolons or spaces', () => {
-    const text = jdx(['1000, 0.5; 1010, 0.7', '1030,0.2 1031 0.1'], { NPOINTS: '4', FIRSTX: '1000', LASTX: '1031' }, '##XYPOINTS=(XY..XY)');
+    const text = jdx(
+      ['1000, 0.5; 1010, 0.7', '1030,0.2 1031 0.1'],
+      { NPOINTS: '4', FIRSTX: '1000', LASTX: '1031' },
+      '##XYPOINTS=(XY..XY)',
+    );
     const [p] = readJcampDx(text);
     expect(Array.from(p!.spectrum.wavenumber)).toEqual([1000, 1010, 1030, 1031]);
     expect(Array.from(p!.spectrum.absorbance)).toEqual([0.5, 0.7, 0.2, 0.1]);
@@ -186,14 +215,19 @@ describe('readJcampDx: metadata', () => {
   });
 
   it('compares label names without case, spaces, -, _ or /', () => {
-    const text = jdx(['0 1 2 3 3 2 1 0 -1 -2 -3'], { 'sampling_procedure': 'KBr pellet', 'Cas Registry-No': '64-17-5' });
+    const text = jdx(['0 1 2 3 3 2 1 0 -1 -2 -3'], {
+      sampling_procedure: 'KBr pellet',
+      'Cas Registry-No': '64-17-5',
+    });
     expect(readJcampDx(text)[0]!.meta).toMatchObject({ samplingProcedure: 'KBr pellet', cas: '64-17-5' });
   });
 });
 
 describe('readJcampDx: real files bend the rules (read and warn)', () => {
   it('ignores $$ comments after labels and after data', () => {
-    const text = jdx(['0 1 2 3 3 2 1 0 -1 -2 -3 $$ checked by hand'], { TITLE: 'commented $$ not part of it' }).replace(
+    const text = jdx(['0 1 2 3 3 2 1 0 -1 -2 -3 $$ checked by hand'], {
+      TITLE: 'commented $$ not part of it',
+    }).replace(
       '##YUNITS=ABSORBANCE',
       // A function, because a replacement string would read `$$` as an escaped `$`.
       () => '##YUNITS=ABSORBANCE $$ as recorded\n##$$ a whole comment line',
@@ -277,7 +311,9 @@ describe('readJcampDx: real files bend the rules (read and warn)', () => {
     expect(all.map((p) => p.meta.title)).toEqual(['first', 'second']);
     expect(all.map((p) => p.source.block)).toEqual([1, 2]);
     expect(all[1]!.meta.origin).toBe('Shared Lab');
-    expect(all[0]!.warnings.map((w) => w.message)).toContain('a peak table is not a spectrum; that block was skipped');
+    expect(all[0]!.warnings.map((w) => w.message)).toContain(
+      'a peak table is not a spectrum; that block was skipped',
+    );
     const only = readJcampDx(text, { block: 2 });
     expect(only).toHaveLength(1);
     expect(only[0]!.meta.title).toBe('second');
@@ -293,7 +329,12 @@ describe('readJcampDx: bad input is a typed error naming file and line', () => {
     ['a peak table alone', '##TITLE=p\n##PEAK TABLE=(XY..XY)\n1650, 0.9\n##END=', 'NOT_A_SPECTRUM', 2],
     ['no data at all', '##TITLE=p\n##XUNITS=1/CM\n##END=', 'NOT_A_SPECTRUM', undefined],
     ['an unknown XUNITS', jdx(['0 1 2'], { XUNITS: 'HZ', LASTX: '1', NPOINTS: '2' }), 'UNKNOWN_UNIT', 4],
-    ['an unknown YUNITS', jdx(['0 1 2'], { YUNITS: 'KUBELKA-MUNK', LASTX: '1', NPOINTS: '2' }), 'UNKNOWN_UNIT', 5],
+    [
+      'an unknown YUNITS',
+      jdx(['0 1 2'], { YUNITS: 'KUBELKA-MUNK', LASTX: '1', NPOINTS: '2' }),
+      'UNKNOWN_UNIT',
+      5,
+    ],
     ['a non-numeric FIRSTX', jdx(['0 1 2'], { FIRSTX: 'four', LASTX: '1', NPOINTS: '2' }), 'NOT_NUMERIC', 8],
     ['a stray character in the data', jdx(['0 1 2 3 3 2 1 0 -1 -2 #3']), 'NOT_NUMERIC', 12],
     ['a number beyond double range', jdx(['0 1 2 3 3 2 1 0 -1 -2 1e400']), 'NOT_FINITE', 12],
@@ -301,7 +342,12 @@ describe('readJcampDx: bad input is a typed error naming file and line', () => {
     ['a DIF before any value', jdx(['0 J']), 'BAD_FORMAT', 12],
     ['a single point', jdx(['0 5'], { LASTX: '0', NPOINTS: '1' }), 'TOO_FEW_POINTS', 12],
     ['an XYDATA without lines', jdx([]), 'EMPTY_FILE', 11],
-    ['a zero transmittance', jdx(['0 1 0.5 0'], { YUNITS: 'TRANSMITTANCE', LASTX: '2', NPOINTS: '3' }), 'BAD_TRANSMITTANCE', 12],
+    [
+      'a zero transmittance',
+      jdx(['0 1 0.5 0'], { YUNITS: 'TRANSMITTANCE', LASTX: '2', NPOINTS: '3' }),
+      'BAD_TRANSMITTANCE',
+      12,
+    ],
     [
       'XYPOINTS with one x twice, different y',
       jdx(['1000, 1', '1002, 2', '1002, 3'], { NPOINTS: '3' }, '##XYPOINTS=(XY..XY)'),

@@ -87,16 +87,30 @@ describe('readManifest', () => {
   it('refuses a header without a file column, repeated columns and repeated files', () => {
     expect(errorOf(() => readManifest('id,name\na,A\n', { file })).field).toBe('file');
     const repeated = errorOf(() => readManifest('file,name,Name\nx.csv,a,b\n', { file }));
-    expect([repeated.line, repeated.field, repeated.message]).toEqual([1, 'name', 'column 3 repeats column 2']);
+    expect([repeated.line, repeated.field, repeated.message]).toEqual([
+      1,
+      'name',
+      'column 3 repeats column 2',
+    ]);
     const twice = errorOf(() => readManifest('file,name\nx.csv,a\ny.csv,b\nx.csv,c\n', { file }));
-    expect([twice.line, twice.field, twice.message]).toEqual([4, 'file', 'x.csv is already described on line 2']);
-    expect(errorOf(() => readManifest('file,name\n,a\n', { file })).message).toBe('the row names no data file');
+    expect([twice.line, twice.field, twice.message]).toEqual([
+      4,
+      'file',
+      'x.csv is already described on line 2',
+    ]);
+    expect(errorOf(() => readManifest('file,name\n,a\n', { file })).message).toBe(
+      'the row names no data file',
+    );
   });
 
   it('refuses rows wider than the header, open quotes and stray text after a quote', () => {
     expect(errorOf(() => readManifest('file,name\nx.csv,a,b\n', { file })).line).toBe(2);
-    expect(errorOf(() => readManifest('file,name\nx.csv,"open\n\n', { file })).message).toContain('never closed');
-    expect(errorOf(() => readManifest('file,name\nx.csv,"a"b\n', { file })).message).toContain('closing quote');
+    expect(errorOf(() => readManifest('file,name\nx.csv,"open\n\n', { file })).message).toContain(
+      'never closed',
+    );
+    expect(errorOf(() => readManifest('file,name\nx.csv,"a"b\n', { file })).message).toContain(
+      'closing quote',
+    );
   });
 
   it('explains why a ";"-separated table cannot be read', () => {
@@ -110,6 +124,12 @@ describe('readManifest', () => {
     expect(errorOf(() => readManifest(both, { file })).field).toBe('concentration');
     expect(errorOf(() => readManifest('\n# nothing\n', { file })).code).toBe('EMPTY_FILE');
     expect(errorOf(() => readManifest('file\n', { file, maxChars: 2 })).code).toBe('FILE_TOO_LARGE');
+  });
+
+  it('ignores empty unnamed columns, as spreadsheets save them, but not a value under no name', () => {
+    expect(readManifest('file,name,,\nx.csv,X,,\n', { file }).get('x.csv')).toEqual({ name: 'X' });
+    const e = errorOf(() => readManifest('file,name,,\nx.csv,X,,oops\n', { file }));
+    expect([e.line, e.message]).toEqual([2, 'column 4 has a value but no name in the header']);
   });
 
   it('gives an empty map for a header alone and strips a byte-order mark', () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { BandshelfError } from '../../src/error.js';
 import { readSidecar } from '../../src/formats/readSidecar.js';
 import { readSidecarSections } from '../../src/formats/readSidecarSections.js';
-import { BandshelfError } from '../../src/error.js';
 
 const file = 'library/serum-07.meta.json';
 
@@ -71,7 +71,9 @@ describe('readSidecar', () => {
   it('lists the allowed values of an enumeration', () => {
     const e = errorOf(() => readSidecar('{"technique": "FTIR"}', { file }));
     expect(e.field).toBe('technique');
-    expect(e.message).toContain('atr, transmission, diffuse-reflectance, tunable-laser, field-resolved, other');
+    expect(e.message).toContain(
+      'atr, transmission, diffuse-reflectance, tunable-laser, field-resolved, other',
+    );
   });
 
   it('gives the line of a JSON syntax error', () => {
@@ -117,7 +119,9 @@ describe('readSidecarSections', () => {
   });
 
   it('reports a bad recipe as BAD_RECIPE with the path inside it', () => {
-    const e = errorOf(() => readSidecarSections('{"recipe": {"baseline": {"method": "als", "p": 2}}}', { file }));
+    const e = errorOf(() =>
+      readSidecarSections('{"recipe": {"baseline": {"method": "als", "p": 2}}}', { file }),
+    );
     expect(e.code).toBe('BAD_RECIPE');
     expect(e.field).toBe('recipe.baseline.p');
   });
@@ -130,12 +134,13 @@ describe('readSidecarSections', () => {
       expect(e.code).toBe('BAD_METADATA');
       expect(e.field?.startsWith('timeDomain.sample')).toBe(true);
     }
+    expect(errorOf(() => readSidecarSections('{"timeDomain": {"sample": "s.csv"}}', { file })).field).toBe(
+      'timeDomain.reference',
+    );
     expect(
-      errorOf(() => readSidecarSections('{"timeDomain": {"sample": "s.csv"}}', { file })).field,
-    ).toBe('timeDomain.reference');
-    expect(
-      errorOf(() => readSidecarSections('{"timeDomain": {"sample": "s.csv", "reference": "r", "x": 1}}', { file }))
-        .field,
+      errorOf(() =>
+        readSidecarSections('{"timeDomain": {"sample": "s.csv", "reference": "r", "x": 1}}', { file }),
+      ).field,
     ).toBe('timeDomain.x');
   });
 });

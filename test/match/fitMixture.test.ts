@@ -65,21 +65,26 @@ const area = (v: Float64Array): number => v.reduce((s, x) => s + Math.abs(x), 0)
 const shares: Record<string, number> = { protein: 0.5, lipid: 0.28, sugar: 0.17, spike: 0.05 };
 const weights = Object.fromEntries(Object.entries(shares).map(([id, s]) => [id, s / area(vectors.get(id)!)]));
 const noiseSigma = 2e-5;
-const mixture = new Float64Array(axis.length);
-const noise = seededRandom(99);
-for (let i = 0; i < axis.length; i++) {
-  let y = 0;
-  for (const [id, w] of Object.entries(weights)) y += w * vectors.get(id)![i]!;
-  // Sloped baseline: rising towards low wavenumber.
-  y += 0.002 + 0.004 * ((4000 - axis[i]!) / 3400);
-  mixture[i] = y + noiseSigma * noise.normal();
+
+function makeMixture(seed: number, sigma: number): Float64Array {
+  const out = new Float64Array(axis.length);
+  const noise = seededRandom(seed);
+  for (let i = 0; i < axis.length; i++) {
+    let y = 0;
+    for (const [id, w] of Object.entries(weights)) y += w * vectors.get(id)![i]!;
+    // Sloped baseline: rising towards low wavenumber.
+    y += 0.002 + 0.004 * ((4000 - axis[i]!) / 3400);
+    out[i] = y + sigma * noise.normal();
+  }
+  return out;
 }
+const mixture = makeMixture(99, noiseSigma);
 
 /** The pool the CLI would offer: candidates ranked by correlation with the unknown. */
-function rankedPool(exclude: string[] = []): MixtureCandidate[] {
+function rankedPool(exclude: string[] = [], unknown = mixture): MixtureCandidate[] {
   return [...vectors.entries()]
     .filter(([id]) => !exclude.includes(id))
-    .map(([id, vector]) => ({ id, revision: 1, vector, score: correlation(mixture, vector) }))
+    .map(([id, vector]) => ({ id, revision: 1, vector, score: correlation(unknown, vector) }))
     .sort((a, b) => b.score - a.score)
     .map(({ id, revision, vector }) => ({ id, revision, vector }));
 }
@@ -116,6 +121,17 @@ describe('fitMixture', () => {
     const near1402 = result.residualBands.filter((b) => Math.abs(b.position - 1402) <= 4);
     expect(near1402).toHaveLength(1);
     expect(near1402[0]!.height).toBeGreaterThan(3 * result.noise);
+  });
+
+  it('reports no unexplained bands from noise alone and still finds the spike (main band ≈ 14× the noise)', () => {
+    for (const seed of [1, 2, 3, 4, 5, 6]) {
+      const noisy = makeMixture(seed, 3e-4);
+      const full = fitMixture(noisy, rankedPool([], noisy), { grid });
+      expect(full.components.map((c) => c.id)).toContain('spike');
+      expect(full.residualBands).toEqual([]);
+      const without = fitMixture(noisy, rankedPool(['spike'], noisy), { grid });
+      expect(without.residualBands.some((b) => Math.abs(b.position - 1402) <= 4)).toBe(true);
+    }
   });
 
   it('reaches the same minimum as ml-fcnnls with the baseline split into ± columns', () => {

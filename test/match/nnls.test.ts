@@ -13,7 +13,8 @@ describe('nnls', () => {
     const result = nnls(columns, [2, 1, 1]);
     expect(result.x[0]).toBeCloseTo(1.5, 10);
     expect(result.x[1]).toBeCloseTo(1, 10);
-    expect(result.residualNorm).toBeCloseTo(0.70710678, 8);
+    // The published residual norm 0.70710678 is √(1/2).
+    expect(result.residualNorm).toBeCloseTo(Math.SQRT1_2, 8);
     const negative = nnls(columns, [-1, -1, -1]);
     expect(Array.from(negative.x)).toEqual([0, 0]);
     expect(negative.residualNorm).toBeCloseTo(Math.sqrt(3), 12);
@@ -24,6 +25,7 @@ describe('nnls', () => {
     // unconstrained least squares gives [-2.5627, 3.1108]; NNLS gives [0, 0.6929344], residual 0.9118421.
     const c = [
       [0.0372, 0.2869],
+      // biome-ignore lint/suspicious/noApproximativeNumericConstant: the published matrix entry, not 1/√2.
       [0.6861, 0.7071],
       [0.6233, 0.6245],
       [0.6344, 0.617],

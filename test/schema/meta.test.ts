@@ -107,14 +107,20 @@ describe('entryMetaSchema', () => {
   it('format-checks the InChIKey', () => {
     // Water's InChIKey (from memory): 14 + 10 + 1 capital letters.
     expect(issuesOf({ ...base, inchiKey: 'XLYOFNOQVPJJNP-UHFFFAOYSA-N' })).toEqual([]);
-    for (const bad of ['xlyofnoqvpjjnp-uhfffaoysa-n', 'XLYOFNOQVPJJN-UHFFFAOYSA-N', 'XLYOFNOQVPJJNPUHFFFAOYSAN']) {
+    for (const bad of [
+      'xlyofnoqvpjjnp-uhfffaoysa-n',
+      'XLYOFNOQVPJJN-UHFFFAOYSA-N',
+      'XLYOFNOQVPJJNPUHFFFAOYSAN',
+    ]) {
       expect(issuesOf({ ...base, inchiKey: bad })[0]?.path).toBe('inchiKey');
     }
   });
 
   it('verifies the CAS check digit', () => {
     expect(issuesOf({ ...base, cas: '7732-18-5' })).toEqual([]);
-    expect(issuesOf({ ...base, cas: '7732-18-4' })).toEqual([{ path: 'cas', message: 'has a wrong check digit' }]);
+    expect(issuesOf({ ...base, cas: '7732-18-4' })).toEqual([
+      { path: 'cas', message: 'has a wrong check digit' },
+    ]);
     expect(issuesOf({ ...base, cas: '773218-5' })[0]?.message).toContain('CAS Registry Number');
   });
 
@@ -132,16 +138,21 @@ describe('entryMetaSchema', () => {
     expect(issuesOf({ ...base, resolution: '4' })[0]?.path).toBe('resolution');
     expect(issuesOf({ ...base, temperature: -300 })[0]?.message).toContain('absolute zero');
     expect(issuesOf({ ...base, temperature: -273.15 })).toEqual([]);
-    expect(issuesOf({ ...base, concentration: { value: -1, unit: 'mM' } })[0]?.path).toBe('concentration.value');
+    expect(issuesOf({ ...base, concentration: { value: -1, unit: 'mM' } })[0]?.path).toBe(
+      'concentration.value',
+    );
     expect(issuesOf({ ...base, concentration: { value: 1 } })[0]?.path).toBe('concentration.unit');
-    expect(issuesOf({ ...base, concentration: { value: 1, unit: 'mM', x: 1 } })[0]?.path).toBe('concentration');
+    expect(issuesOf({ ...base, concentration: { value: 1, unit: 'mM', x: 1 } })[0]?.path).toBe(
+      'concentration',
+    );
   });
 
   it('checks licence identifiers by their SPDX shape', () => {
     for (const ok of ['CC-BY-4.0', 'CC0-1.0', 'MIT', 'MIT OR Apache-2.0', 'LicenseRef-lab-internal']) {
       expect(issuesOf({ ...base, licence: ok })).toEqual([]);
     }
-    for (const bad of ['CC BY 4.0', 'free!', '']) expect(issuesOf({ ...base, licence: bad })[0]?.path).toBe('licence');
+    for (const bad of ['CC BY 4.0', 'free!', ''])
+      expect(issuesOf({ ...base, licence: bad })[0]?.path).toBe('licence');
   });
 
   it('takes a source as a DOI or as a citation, and checks what looks like a DOI', () => {
@@ -158,7 +169,11 @@ describe('entryMetaSchema', () => {
   });
 
   it('keeps markup in names and notes as plain text (escaping is the site’s job)', () => {
-    const meta = entryMetaSchema.parse({ ...base, name: '<img src=x onerror=alert(1)>', notes: '"><script>x</script>' });
+    const meta = entryMetaSchema.parse({
+      ...base,
+      name: '<img src=x onerror=alert(1)>',
+      notes: '"><script>x</script>',
+    });
     expect(meta.name).toBe('<img src=x onerror=alert(1)>');
     expect(meta.notes).toBe('"><script>x</script>');
   });

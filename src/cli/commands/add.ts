@@ -37,9 +37,13 @@ function oneLine(error: unknown): string {
 function choice<T extends string>(value: unknown, allowed: readonly T[], field: string): T | undefined {
   if (value === undefined) return undefined;
   if (typeof value === 'string' && (allowed as readonly string[]).includes(value)) return value as T;
-  throw new BandshelfError('BAD_OPTION', `--${field} must be one of ${allowed.join(', ')} (not '${String(value)}')`, {
-    field,
-  });
+  throw new BandshelfError(
+    'BAD_OPTION',
+    `--${field} must be one of ${allowed.join(', ')} (not '${String(value)}')`,
+    {
+      field,
+    },
+  );
 }
 
 /** A NOT_FOUND on a recipe's reference or EMSC id may only mean that entry comes later in the same add. */
@@ -54,7 +58,10 @@ function waitsForAnotherEntry(error: unknown): boolean {
 function poolOf(library: Library): { pool: NearDuplicatePool; index: Map<string, number> } {
   const set = readSearchSet(library);
   const rows = set.entries.map((_, i) => set.processed.subarray(i * set.cols, (i + 1) * set.cols));
-  return { pool: { ids: set.entries.map((e) => e.id), rows }, index: new Map(set.entries.map((e, i) => [e.id, i])) };
+  return {
+    pool: { ids: set.entries.map((e) => e.id), rows },
+    index: new Map(set.entries.map((e, i) => [e.id, i])),
+  };
 }
 
 export const addCommand: CommandSpec = {
@@ -68,11 +75,14 @@ export const addCommand: CommandSpec = {
     '',
     'A folder is walked with its sub-folders (hidden ones and folders named "unknowns" are skipped); its own',
     'manifest.csv is used unless --manifest names one. Metadata precedence: flags > --meta > sidecar > manifest >',
-    'the file\'s labels (JCAMP-DX TITLE, CAS …). Re-adding identical content is reported as unchanged.',
+    "the file's labels (JCAMP-DX TITLE, CAS …). Re-adding identical content is reported as unchanged.",
   ].join('\n'),
   configure(command) {
     command
-      .argument('<paths...>', 'spectrum files or folders (with --time-domain: the repeated sample traces of one entry)')
+      .argument(
+        '<paths...>',
+        'spectrum files or folders (with --time-domain: the repeated sample traces of one entry)',
+      )
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
       .option('--meta <file>', 'metadata JSON (sidecar format, may hold a recipe) for every file of this add')
       .option('--manifest <csv>', 'metadata table with a "file" column naming each data file')
@@ -113,9 +123,13 @@ export const addCommand: CommandSpec = {
     if (options.block !== undefined) {
       const block = Number(options.block);
       if (!Number.isInteger(block) || block < 1) {
-        throw new BandshelfError('BAD_OPTION', `--block wants a block number from 1 (not '${options.block}')`, {
-          field: 'block',
-        });
+        throw new BandshelfError(
+          'BAD_OPTION',
+          `--block wants a block number from 1 (not '${options.block}')`,
+          {
+            field: 'block',
+          },
+        );
       }
       read.block = block;
     }
@@ -129,13 +143,18 @@ export const addCommand: CommandSpec = {
       try {
         text = readFileSync(resolve(context.cwd, options.meta), 'utf8');
       } catch (error) {
-        throw new BandshelfError('IO_ERROR', `cannot read: ${(error as NodeJS.ErrnoException).code ?? error}`, {
-          file: options.meta,
-        });
+        throw new BandshelfError(
+          'IO_ERROR',
+          `cannot read: ${(error as NodeJS.ErrnoException).code ?? error}`,
+          {
+            file: options.meta,
+          },
+        );
       }
       metaFile = { sections: loadSidecar(text, { file: options.meta }), label: options.meta };
     }
-    const author = typeof options.author === 'string' && options.author.trim() ? options.author.trim() : defaultAuthor();
+    const author =
+      typeof options.author === 'string' && options.author.trim() ? options.author.trim() : defaultAuthor();
     const message = typeof options.message === 'string' ? options.message : '';
 
     const library = openLibrary(libraryPath(options.library, context.cwd));
@@ -147,9 +166,13 @@ export const addCommand: CommandSpec = {
         references: (options.reference as string[] | undefined) ?? [],
       });
       if (flags.id !== undefined && plan.jobs.length > 1) {
-        throw new BandshelfError('BAD_OPTION', `--id names one entry but ${plan.jobs.length} files are being added`, {
-          field: 'id',
-        });
+        throw new BandshelfError(
+          'BAD_OPTION',
+          `--id names one entry but ${plan.jobs.length} files are being added`,
+          {
+            field: 'id',
+          },
+        );
       }
       const { pool, index } = poolOf(library);
       const owners = new Map<string, string>();
@@ -159,24 +182,36 @@ export const addCommand: CommandSpec = {
       const notes: string[] = [...plan.warnings];
 
       const prepare = (job: IngestJob): PreparedRevision[] => {
-        const inputs = buildRevisionInputs(library, job, { flags: checkedFlags.data, metaFile, recipe, read });
+        const inputs = buildRevisionInputs(library, job, {
+          flags: checkedFlags.data,
+          metaFile,
+          recipe,
+          read,
+        });
         for (const input of inputs) {
           const owner = owners.get(input.meta.id);
           if (owner !== undefined && owner !== job.label) {
-            throw new BandshelfError('ALREADY_EXISTS', `entry id '${input.meta.id}' is also given to ${owner} in this add`, {
-              file: job.label,
-              field: 'id',
-            });
+            throw new BandshelfError(
+              'ALREADY_EXISTS',
+              `entry id '${input.meta.id}' is also given to ${owner} in this add`,
+              {
+                file: job.label,
+                field: 'id',
+              },
+            );
           }
         }
-        const prepared = inputs.map((input) => prepareRevision(library, input, { force: Boolean(options.force), pool }));
+        const prepared = inputs.map((input) =>
+          prepareRevision(library, input, { force: Boolean(options.force), pool }),
+        );
         for (const p of prepared) owners.set(p.id, job.label);
         return prepared;
       };
       const record = (prepared: PreparedRevision[], outcomes: CommitOutcome[]) => {
         outcomes.forEach((o, i) => {
           (o.status === 'added' ? added : unchanged).push(o);
-          for (const flag of o.qc) notes.push(`${o.label}: ${o.id}: ${flag.level} ${flag.code}: ${flag.message}`);
+          for (const flag of o.qc)
+            notes.push(`${o.label}: ${o.id}: ${flag.level} ${flag.code}: ${flag.message}`);
           const p = prepared[i]!;
           if (o.status !== 'added') return;
           const at = index.get(o.id);

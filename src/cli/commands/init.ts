@@ -13,9 +13,13 @@ function parseGrid(text: string): Grid {
   const parts = text.split(':').map((p) => p.trim());
   const numbers = parts.map(Number);
   if (parts.length !== 3 || parts.some((p) => p === '') || numbers.some((n) => !Number.isFinite(n))) {
-    throw new BandshelfError('BAD_OPTION', `--grid wants START:STOP:STEP in cm⁻¹ (e.g. 4000:600:2), not '${text}'`, {
-      field: 'grid',
-    });
+    throw new BandshelfError(
+      'BAD_OPTION',
+      `--grid wants START:STOP:STEP in cm⁻¹ (e.g. 4000:600:2), not '${text}'`,
+      {
+        field: 'grid',
+      },
+    );
   }
   return { start: numbers[0]!, stop: numbers[1]!, step: numbers[2]! };
 }

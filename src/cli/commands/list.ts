@@ -9,9 +9,11 @@ import { textTable } from '../textTable.js';
 export const listCommand: CommandSpec = {
   name: 'list',
   summary: 'list the entries (current state, or a release with --at)',
-  example: ['bandshelf list', 'bandshelf list --at 2026.1 --class protein', 'bandshelf list --json | jq length'].join(
-    '\n',
-  ),
+  example: [
+    'bandshelf list',
+    'bandshelf list --at 2026.1 --class protein',
+    'bandshelf list --json | jq length',
+  ].join('\n'),
   configure(command) {
     command
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
@@ -40,7 +42,10 @@ export const listCommand: CommandSpec = {
         };
       }
       if (entries.length === 0) {
-        return { stdout: options.at ? `release ${options.at} holds no entries` : 'the library holds no entries', exitCode: 0 };
+        return {
+          stdout: options.at ? `release ${options.at} holds no entries` : 'the library holds no entries',
+          exitCode: 0,
+        };
       }
       const rows = [
         ['ID', 'REV', 'CLASS', 'REVIEW', 'COVERAGE cm⁻¹', 'PEAKS', 'NAME'],

@@ -27,7 +27,12 @@ function asJson(view: EntryView): unknown {
     grid: { start: view.grid.start, stop: view.grid.stop, step: view.grid.step },
     processed: nullable(view.processed),
     coverage: view.coverage,
-    peaks: view.peaks.map((p) => ({ position: p.position, height: p.height, prominence: p.prominence, fwhm: p.fwhm })),
+    peaks: view.peaks.map((p) => ({
+      position: p.position,
+      height: p.height,
+      prominence: p.prominence,
+      fwhm: p.fwhm,
+    })),
     qc: view.qc,
     recipe: view.recipe,
     read: view.read,
@@ -49,12 +54,17 @@ function fmt(v: number, digits = 4): string {
 function asText(view: EntryView): string {
   const lines: string[] = [];
   const m = view.meta;
-  lines.push(`${view.id}  revision ${view.revision} (${view.kind}${view.retired ? ', retired' : ''})  ${view.reviewState}`);
+  lines.push(
+    `${view.id}  revision ${view.revision} (${view.kind}${view.retired ? ', retired' : ''})  ${view.reviewState}`,
+  );
   lines.push(`hash ${view.hash}`);
   lines.push('');
   const metaRows = Object.entries(m)
     .filter(([k]) => k !== 'id')
-    .map(([k, v]) => [k, Array.isArray(v) ? v.join('; ') : typeof v === 'object' ? JSON.stringify(v) : String(v)]);
+    .map(([k, v]) => [
+      k,
+      Array.isArray(v) ? v.join('; ') : typeof v === 'object' ? JSON.stringify(v) : String(v),
+    ]);
   lines.push(textTable(metaRows));
   lines.push('');
   const x = view.original.wavenumber;
@@ -75,14 +85,18 @@ function asText(view: EntryView): string {
       `${r.timeDomain ? `, time-domain (${r.timeDomain.apodisation}, zero-fill ×${r.timeDomain.zeroFill})` : ''}`,
   );
   const e = view.extras;
-  if (e.dynamicRangeOrders !== undefined) lines.push(`reference dynamic range: ${fmt(e.dynamicRangeOrders, 3)} orders`);
-  if (e.timingSpreadAs !== undefined) lines.push(`timing spread after alignment: ${fmt(e.timingSpreadAs, 3)} as`);
+  if (e.dynamicRangeOrders !== undefined)
+    lines.push(`reference dynamic range: ${fmt(e.dynamicRangeOrders, 3)} orders`);
+  if (e.timingSpreadAs !== undefined)
+    lines.push(`timing spread after alignment: ${fmt(e.timingSpreadAs, 3)} as`);
   if (e.referenceScale !== undefined) lines.push(`reference scale: ${fmt(e.referenceScale, 5)}`);
   lines.push('');
   if (view.peaks.length > 0) {
     const top = [...view.peaks].sort((a, b) => b.prominence - a.prominence).slice(0, 20);
     top.sort((a, b) => b.position - a.position);
-    lines.push(`peaks (${view.peaks.length}${view.peaks.length > top.length ? `, the ${top.length} most prominent` : ''}):`);
+    lines.push(
+      `peaks (${view.peaks.length}${view.peaks.length > top.length ? `, the ${top.length} most prominent` : ''}):`,
+    );
     lines.push(
       textTable(
         [
@@ -105,7 +119,8 @@ function asText(view: EntryView): string {
   lines.push('');
   lines.push(`by ${view.author} at ${view.createdAt}${view.message ? `: ${view.message}` : ''}`);
   if (view.reviews.length > 0) {
-    for (const rv of view.reviews) lines.push(`${rv.state} by ${rv.reviewer} at ${rv.createdAt}${rv.note ? `: ${rv.note}` : ''}`);
+    for (const rv of view.reviews)
+      lines.push(`${rv.state} by ${rv.reviewer} at ${rv.createdAt}${rv.note ? `: ${rv.note}` : ''}`);
   }
   if (view.releases.length > 0) lines.push(`in releases: ${view.releases.join(', ')}`);
   return lines.join('\n');
@@ -114,9 +129,11 @@ function asText(view: EntryView): string {
 export const showCommand: CommandSpec = {
   name: 'show',
   summary: 'show one entry: metadata, data, peaks, QC, recipe',
-  example: ['bandshelf show serum-07', 'bandshelf show serum-07 --revision 1', 'bandshelf show serum-07 --at 2026.1 --json'].join(
-    '\n',
-  ),
+  example: [
+    'bandshelf show serum-07',
+    'bandshelf show serum-07 --revision 1',
+    'bandshelf show serum-07 --at 2026.1 --json',
+  ].join('\n'),
   configure(command) {
     command
       .argument('<id>', 'entry id')
@@ -132,9 +149,13 @@ export const showCommand: CommandSpec = {
     if (options.revision !== undefined) {
       revision = Number(options.revision);
       if (!Number.isInteger(revision) || revision < 1) {
-        throw new BandshelfError('BAD_OPTION', `--revision wants a revision number from 1 (not '${options.revision}')`, {
-          field: 'revision',
-        });
+        throw new BandshelfError(
+          'BAD_OPTION',
+          `--revision wants a revision number from 1 (not '${options.revision}')`,
+          {
+            field: 'revision',
+          },
+        );
       }
     }
     const library = openLibrary(libraryPath(options.library, context.cwd), { readonly: true });
@@ -147,7 +168,10 @@ export const showCommand: CommandSpec = {
       let text = asText(view);
       if (options.processed) {
         const axis = gridAxis(view.grid);
-        const rows = Array.from(view.processed, (v, i) => [String(axis[i]), Number.isFinite(v) ? String(v) : 'not covered']);
+        const rows = Array.from(view.processed, (v, i) => [
+          String(axis[i]),
+          Number.isFinite(v) ? String(v) : 'not covered',
+        ]);
         text += `\n\nprocessed vector:\n${textTable(rows, { right: [0] })}`;
       }
       return { stdout: text, exitCode: 0 };

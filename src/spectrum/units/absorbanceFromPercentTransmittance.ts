@@ -38,7 +38,11 @@ export function absorbanceFromPercentTransmittance(
   return out;
 }
 
-function badPercent(value: number, index: number, options: AbsorbanceFromPercentTransmittanceOptions): BandshelfError {
+function badPercent(
+  value: number,
+  index: number,
+  options: AbsorbanceFromPercentTransmittanceOptions,
+): BandshelfError {
   return new BandshelfError(
     'BAD_TRANSMITTANCE',
     `transmittance ${value} % is not > 0, so its absorbance would be infinite`,

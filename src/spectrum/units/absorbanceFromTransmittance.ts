@@ -26,7 +26,8 @@ export function absorbanceFromTransmittance(
   options: AbsorbanceFromTransmittanceOptions = {},
 ): number | Float64Array {
   if (typeof transmittance === 'number') {
-    if (!(transmittance > 0) || !Number.isFinite(transmittance)) throw badTransmittance(transmittance, 0, options);
+    if (!(transmittance > 0) || !Number.isFinite(transmittance))
+      throw badTransmittance(transmittance, 0, options);
     return -Math.log10(transmittance);
   }
   const out = new Float64Array(transmittance.length);
@@ -38,7 +39,11 @@ export function absorbanceFromTransmittance(
   return out;
 }
 
-function badTransmittance(value: number, index: number, options: AbsorbanceFromTransmittanceOptions): BandshelfError {
+function badTransmittance(
+  value: number,
+  index: number,
+  options: AbsorbanceFromTransmittanceOptions,
+): BandshelfError {
   return new BandshelfError(
     'BAD_TRANSMITTANCE',
     `transmittance ${value} is not > 0, so its absorbance would be infinite`,

@@ -12,7 +12,10 @@ export interface WavenumberFromMicrometresOptions {
  * ν̃ (cm⁻¹) = 10⁴ / λ (µm). Works elementwise on a Float64Array and returns a new array (the input is not
  * touched). A wavelength ≤ 0 or not finite has no wavenumber: BandshelfError NOT_FINITE rather than ±Infinity.
  */
-export function wavenumberFromMicrometres(micrometres: number, options?: WavenumberFromMicrometresOptions): number;
+export function wavenumberFromMicrometres(
+  micrometres: number,
+  options?: WavenumberFromMicrometresOptions,
+): number;
 export function wavenumberFromMicrometres(
   micrometres: Float64Array,
   options?: WavenumberFromMicrometresOptions,
@@ -34,7 +37,11 @@ export function wavenumberFromMicrometres(
   return out;
 }
 
-function badWavelength(value: number, index: number, options: WavenumberFromMicrometresOptions): BandshelfError {
+function badWavelength(
+  value: number,
+  index: number,
+  options: WavenumberFromMicrometresOptions,
+): BandshelfError {
   const line = options.lines?.[index];
   return new BandshelfError(
     'NOT_FINITE',

@@ -12,7 +12,10 @@ export interface WavenumberFromNanometresOptions {
  * ν̃ (cm⁻¹) = 10⁷ / λ (nm). Works elementwise on a Float64Array and returns a new array (the input is not
  * touched). A wavelength ≤ 0 or not finite has no wavenumber: BandshelfError NOT_FINITE rather than ±Infinity.
  */
-export function wavenumberFromNanometres(nanometres: number, options?: WavenumberFromNanometresOptions): number;
+export function wavenumberFromNanometres(
+  nanometres: number,
+  options?: WavenumberFromNanometresOptions,
+): number;
 export function wavenumberFromNanometres(
   nanometres: Float64Array,
   options?: WavenumberFromNanometresOptions,
@@ -34,7 +37,11 @@ export function wavenumberFromNanometres(
   return out;
 }
 
-function badWavelength(value: number, index: number, options: WavenumberFromNanometresOptions): BandshelfError {
+function badWavelength(
+  value: number,
+  index: number,
+  options: WavenumberFromNanometresOptions,
+): BandshelfError {
   const line = options.lines?.[index];
   return new BandshelfError(
     'NOT_FINITE',

@@ -18,7 +18,8 @@ function uniformTrace(n: number, step: number, start: number, f: (t: number) => 
 
 /** A few-cycle mid-infrared pulse: Gaussian envelope (intensity FWHM 14 fs) on a 50 THz (1668 cm⁻¹) carrier. */
 function pulse(t0: number) {
-  return (t: number) => Math.exp((-2 * Math.LN2 * (t - t0) ** 2) / 196) * Math.cos(2 * Math.PI * 0.05 * (t - t0) + 0.4);
+  return (t: number) =>
+    Math.exp((-2 * Math.LN2 * (t - t0) ** 2) / 196) * Math.cos(2 * Math.PI * 0.05 * (t - t0) + 0.4);
 }
 /** Its time derivative, written out by hand. */
 function pulseSlope(t0: number) {
@@ -53,7 +54,8 @@ describe('alignTraces', () => {
     expect(Math.abs(result.delays[1]! - 0.037)).toBeLessThan(0.005);
     // The shifted-back trace lies on the first one.
     let worst = 0;
-    for (let i = 100; i < 900; i++) worst = Math.max(worst, Math.abs(result.traces[1]!.field[i]! - first.field[i]!));
+    for (let i = 100; i < 900; i++)
+      worst = Math.max(worst, Math.abs(result.traces[1]!.field[i]! - first.field[i]!));
     expect(worst).toBeLessThan(1e-3);
     expect(result.timingJitterAs).toBeCloseTo(Math.SQRT1_2 * 37, 0);
   });

@@ -75,9 +75,15 @@ describe('fieldSpectrum', () => {
     // = 0.4413 (common practice; any optics text).
     const tau = 15; // fs, FWHM of the intensity envelope
     const carrier = 60; // THz
-    const pulse = uniformTrace(4096, 1, -2048, (t) => Math.exp((-2 * Math.LN2 * t * t) / (tau * tau)) * Math.cos(2 * Math.PI * carrier * 1e-3 * t));
+    const pulse = uniformTrace(
+      4096,
+      1,
+      -2048,
+      (t) => Math.exp((-2 * Math.LN2 * t * t) / (tau * tau)) * Math.cos(2 * Math.PI * carrier * 1e-3 * t),
+    );
     const envelope = new Float64Array(pulse.time.length);
-    for (let i = 0; i < envelope.length; i++) envelope[i] = Math.exp((-4 * Math.LN2 * pulse.time[i]! ** 2) / (tau * tau));
+    for (let i = 0; i < envelope.length; i++)
+      envelope[i] = Math.exp((-4 * Math.LN2 * pulse.time[i]! ** 2) / (tau * tau));
     const measuredTau = fwhm(pulse.time, envelope);
     const s = fieldSpectrum(zeroFill(pulse, { factor: 4 }));
     const bandwidth = fwhm(s.frequency, s.power) * 1e-3; // THz → fs⁻¹

@@ -22,14 +22,21 @@ describe('traceTimeStep', () => {
   it('names each defect with its own code', () => {
     const time = axis(20, 1);
     expect(codeOf(() => traceTimeStep({ time, field: new Float64Array(19) }))).toBe('BAD_FORMAT');
-    expect(codeOf(() => traceTimeStep({ time: axis(8, 1), field: new Float64Array(8) }))).toBe('TOO_FEW_POINTS');
+    expect(codeOf(() => traceTimeStep({ time: axis(8, 1), field: new Float64Array(8) }))).toBe(
+      'TOO_FEW_POINTS',
+    );
     const uneven = time.slice();
     uneven[7] = 7.2;
     expect(codeOf(() => traceTimeStep({ time: uneven, field: new Float64Array(20) }))).toBe('BAD_FORMAT');
-    expect(traceTimeStep({ time: uneven, field: new Float64Array(20) }, { tolerance: 0.25 })).toBeCloseTo(1, 12);
+    expect(traceTimeStep({ time: uneven, field: new Float64Array(20) }, { tolerance: 0.25 })).toBeCloseTo(
+      1,
+      12,
+    );
     const backwards = time.slice();
     backwards[5] = 3.5;
-    expect(codeOf(() => traceTimeStep({ time: backwards, field: new Float64Array(20) }))).toBe('NOT_MONOTONIC');
+    expect(codeOf(() => traceTimeStep({ time: backwards, field: new Float64Array(20) }))).toBe(
+      'NOT_MONOTONIC',
+    );
     const field = new Float64Array(20);
     field[3] = Number.NaN;
     expect(codeOf(() => traceTimeStep({ time, field }))).toBe('NOT_FINITE');

@@ -21,7 +21,9 @@ function uniformTrace(n: number, step: number, start: number, f: (t: number) => 
 /** A transform-limited Gaussian pulse: intensity FWHM `tau` fs, carrier `carrier` THz, peak at `t0` fs. */
 function gaussianPulse(t0: number, tau: number, carrier: number, amplitude = 1) {
   return (t: number) =>
-    amplitude * Math.exp((-2 * Math.LN2 * (t - t0) ** 2) / (tau * tau)) * Math.cos(2 * Math.PI * carrier * 1e-3 * (t - t0));
+    amplitude *
+    Math.exp((-2 * Math.LN2 * (t - t0) ** 2) / (tau * tau)) *
+    Math.cos(2 * Math.PI * carrier * 1e-3 * (t - t0));
 }
 
 /** Seeded standard normal numbers (a linear congruential source through Box–Muller), for reproducible noise. */
@@ -158,7 +160,12 @@ describe('traceToSpectrum: coverage and dynamic range', () => {
     const prePulse = traceToSpectrum(sample, reference, { apodisation: 'none' });
     expect(prePulse.noiseFrom).toBe('pre-pulse');
     expect(Math.abs(prePulse.dynamicRangeOrders - expected)).toBeLessThan(0.05);
-    const highFrequency = traceToSpectrum(sample, reference, { apodisation: 'none' }, { noiseFrom: 'high-frequency' });
+    const highFrequency = traceToSpectrum(
+      sample,
+      reference,
+      { apodisation: 'none' },
+      { noiseFrom: 'high-frequency' },
+    );
     expect(highFrequency.noiseFrom).toBe('high-frequency');
     expect(Math.abs(highFrequency.dynamicRangeOrders - expected)).toBeLessThan(0.1);
     // A Hann window ½(1 + cos πx) centred on the pulse (x = (t − 2000 fs) / 2095 fs, reaching the far end of the
@@ -203,7 +210,9 @@ describe('traceToSpectrum: bad input', () => {
 
   it('refuses traces sampled at different steps', () => {
     const coarse = uniformTrace(256, 2, 0, gaussianPulse(100, 12, 55));
-    expect(() => traceToSpectrum(coarse, reference, {}, { files: ['s.csv', 'r.csv'] })).toThrow(BandshelfError);
+    expect(() => traceToSpectrum(coarse, reference, {}, { files: ['s.csv', 'r.csv'] })).toThrow(
+      BandshelfError,
+    );
     try {
       traceToSpectrum(reference, coarse, {}, { files: ['s.csv', 'r.csv'] });
     } catch (error) {
@@ -222,9 +231,9 @@ describe('traceToSpectrum: bad input', () => {
       return 'no error';
     };
     expect(code(() => traceToSpectrum(reference, reference, { powerThreshold: 2 }))).toBe('BAD_RECIPE');
-    expect(code(() => traceToSpectrum(reference, reference, { gate: { start: 5000, end: 6000, edge: 0 } }))).toBe(
-      'BAD_RECIPE',
-    );
+    expect(
+      code(() => traceToSpectrum(reference, reference, { gate: { start: 5000, end: 6000, edge: 0 } })),
+    ).toBe('BAD_RECIPE');
     expect(code(() => traceToSpectrum([], reference))).toBe('TOO_FEW_POINTS');
     const flat = uniformTrace(256, 1, 0, () => 1);
     expect(code(() => traceToSpectrum(reference, flat))).toBe('NOT_A_SPECTRUM');
@@ -232,7 +241,10 @@ describe('traceToSpectrum: bad input', () => {
 
   it('applies a gate given in ps like one given in fs', () => {
     const fs = traceToSpectrum(reference, reference, { gate: { start: 20, end: 200, edge: 10 } });
-    const ps = traceToSpectrum(reference, reference, { timeUnit: 'ps', gate: { start: 0.02, end: 0.2, edge: 0.01 } });
+    const ps = traceToSpectrum(reference, reference, {
+      timeUnit: 'ps',
+      gate: { start: 0.02, end: 0.2, edge: 0.01 },
+    });
     expect(Array.from(ps.spectrum.wavenumber)).toEqual(Array.from(fs.spectrum.wavenumber));
   });
 });

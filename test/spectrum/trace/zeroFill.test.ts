@@ -4,7 +4,10 @@ import { removeMean } from '../../../src/spectrum/trace/removeMean.js';
 import type { Trace } from '../../../src/spectrum/trace/types.js';
 import { zeroFill } from '../../../src/spectrum/trace/zeroFill.js';
 
-const trace: Trace = { time: Float64Array.from([10, 12, 14, 16, 18]), field: Float64Array.from([1, 2, 3, 4, 5]) };
+const trace: Trace = {
+  time: Float64Array.from([10, 12, 14, 16, 18]),
+  field: Float64Array.from([1, 2, 3, 4, 5]),
+};
 
 describe('zeroFill', () => {
   it('pads to the next power of two at or above factor × length and continues the delay axis', () => {
@@ -27,7 +30,9 @@ describe('zeroFill', () => {
 describe('removeMean', () => {
   it('subtracts the mean of the whole trace or of a window', () => {
     expect(Array.from(removeMean(trace).field)).toEqual([-2, -1, 0, 1, 2]);
-    expect(Array.from(removeMean(trace, { window: { start: 10, end: 12 } }).field)).toEqual([-0.5, 0.5, 1.5, 2.5, 3.5]);
+    expect(Array.from(removeMean(trace, { window: { start: 10, end: 12 } }).field)).toEqual([
+      -0.5, 0.5, 1.5, 2.5, 3.5,
+    ]);
     expect(Array.from(trace.field)).toEqual([1, 2, 3, 4, 5]);
   });
 });

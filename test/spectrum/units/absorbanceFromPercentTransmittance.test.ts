@@ -1,3 +1,4 @@
+// Percent transmittance to absorbance, checked on values of common practice.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../../src/error.js';
 import { absorbanceFromPercentTransmittance } from '../../../src/spectrum/units/absorbanceFromPercentTransmittance.js';

@@ -1,3 +1,4 @@
+// Transmittance to absorbance, checked on values of common practice.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../../src/error.js';
 import { absorbanceFromTransmittance } from '../../../src/spectrum/units/absorbanceFromTransmittance.js';
@@ -32,7 +33,9 @@ describe('absorbanceFromTransmittance', () => {
       const err = e as BandshelfError;
       expect(err.code).toBe('BAD_TRANSMITTANCE');
       expect(err.line).toBe(11);
-      expect(err.oneLine()).toBe('t.csv:11: y: transmittance 0 is not > 0, so its absorbance would be infinite [BAD_TRANSMITTANCE]');
+      expect(err.oneLine()).toBe(
+        't.csv:11: y: transmittance 0 is not > 0, so its absorbance would be infinite [BAD_TRANSMITTANCE]',
+      );
     }
   });
 });

@@ -1,3 +1,4 @@
+// Nanometres to wavenumber, checked on values of common practice.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../../src/error.js';
 import { wavenumberFromMicrometres } from '../../../src/spectrum/units/wavenumberFromMicrometres.js';

@@ -1,0 +1,119 @@
+// `bandshelf match`: ranks library entries against unknown spectra, optionally fits a mixture, writes reports.
+import { writeFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { BandshelfError } from '../../error.js';
+import { MATCH_CAUTION } from '../../schema/matchReport.js';
+import type { CommandSpec } from '../command.js';
+import { formatMatchTable } from '../formatMatchTable.js';
+import { matchCsv } from '../matchCsv.js';
+import { matchUnknowns } from '../matchUnknowns.js';
+import { parseMatchOptions } from '../parseMatchOptions.js';
+import { textTable } from '../textTable.js';
+import { writeMatchReports } from '../writeMatchReports.js';
+
+function collect(value: string, previous: string[] = []): string[] {
+  return [...previous, value];
+}
+
+export const matchCommand: CommandSpec = {
+  name: 'match',
+  summary: 'rank library entries against unknown spectra; fit a mixture and find unexplained bands',
+  example: [
+    'bandshelf match unknown-serum.csv                         # top 10 by Pearson correlation',
+    'bandshelf match unknown-serum.csv --range 1800:900 --metric all --at v1',
+    'bandshelf match unknown-serum.csv --mixture --with albumin,water --report reports/',
+    'bandshelf match unknowns/ --csv results.csv              # batch: one CSV row per unknown',
+    '',
+    'The unknown is read and processed exactly like the library (its recipe, or --recipe). Scores are 0–1 for',
+    'pearson, derivative and cosine (a negative correlation shows as 0) and a distance for euclidean. The mixture',
+    'fit keeps a component only if it lowers the residual sum of squares by ≥ 1 % and gets a positive weight;',
+    'residual peaks above 3 × noise (band-free window 2000–1900 cm⁻¹) are the unexplained bands.',
+  ].join('\n'),
+  configure(command) {
+    command
+      .argument('<files...>', 'unknown spectrum files or folders')
+      .option('--library <path>', 'library file', 'bandshelf.sqlite')
+      .option('--at <tag>', 'match against a release instead of the working state')
+      .option('--recipe <file>', 'process the unknown with this recipe instead of the library’s')
+      .option('--range <high:low>', 'score only inside this window (repeatable)', collect, [])
+      .option('--metric <name>', 'pearson, derivative, cosine, euclidean or all', 'pearson')
+      .option('--top <n>', 'hits per metric', '10')
+      .option('--min-overlap <cm-1>', 'least wavenumber range unknown and reference must share', '200')
+      .option('--mixture', 'fit the unknown as a non-negative mixture of library spectra')
+      .option('--with <ids>', 'entries forced into the mixture (comma-separated, repeatable)', collect, [])
+      .option('--max-components <n>', 'most components in the mixture', '6')
+      .option('--candidates <n>', 'top Pearson hits offered to the mixture fit', '30')
+      .option('--baseline-degree <n>', 'mixture baseline polynomial: auto, none or 0–6', 'auto')
+      .option('--tolerance <cm-1>', 'band tolerance for the band identification', '4')
+      .option('--report <dir>', 'write one JSON report per unknown into this folder')
+      .option('--csv <file>', 'write one CSV row per unknown into this file')
+      .option('--json', 'print the report (batch: {reports, failed}) as JSON');
+  },
+  async run(args, options, context) {
+    const targets = (args[0] as string[] | undefined) ?? [];
+    const parsed = parseMatchOptions(options);
+    const run = matchUnknowns(targets, parsed, context);
+    const notes: string[] = [...run.warnings];
+    if (typeof options.report === 'string') {
+      const written = writeMatchReports(run.outcomes, options.report, { cwd: context.cwd });
+      notes.push(`${written.length} report${written.length === 1 ? '' : 's'} written to ${options.report}`);
+    }
+    if (typeof options.csv === 'string') {
+      try {
+        writeFileSync(resolve(context.cwd, options.csv), matchCsv(run.outcomes));
+      } catch (error) {
+        throw new BandshelfError('IO_ERROR', `cannot write (${(error as NodeJS.ErrnoException).code})`, {
+          file: options.csv,
+        });
+      }
+    }
+    const failed = run.outcomes.filter((o) => o.report === undefined);
+    for (const f of failed)
+      notes.push(`${f.file}${f.block === undefined ? '' : ` block ${f.block}`}: ${f.error}`);
+    const exitCode = failed.length > 0 ? 1 : 0;
+    const stderr = notes.join('\n');
+    if (options.json) {
+      const stdout = run.batch
+        ? JSON.stringify({
+            reports: run.outcomes.flatMap((o) => (o.report ? [o.report] : [])),
+            failed: failed.map((f) => ({
+              file: f.file,
+              ...(f.block === undefined ? {} : { block: f.block }),
+              error: f.error,
+            })),
+          })
+        : JSON.stringify(run.outcomes[0]!.report);
+      return { stdout, stderr, exitCode };
+    }
+    if (!run.batch) return { stdout: formatMatchTable(run.outcomes[0]!.report!), stderr, exitCode };
+    if (typeof options.csv !== 'string') {
+      // Batch without a CSV file: the CSV is the output.
+      return {
+        stdout: matchCsv(run.outcomes),
+        stderr: [stderr, MATCH_CAUTION].filter(Boolean).join('\n'),
+        exitCode,
+      };
+    }
+    const summary = textTable([
+      ['FILE', 'TOP HIT', 'SCORE', 'STANDING', 'MIXTURE', 'UNEXPLAINED'],
+      ...run.outcomes.map((o) => {
+        const r = o.report;
+        const name = `${o.file}${o.block === undefined ? '' : ` #${o.block}`}`;
+        if (r === undefined) return [name, 'failed', '', '', '', ''];
+        return [
+          name,
+          r.hits[0]?.id ?? '–',
+          r.hits[0]?.score.toFixed(4) ?? '',
+          r.standing.verdict,
+          r.mixture === null ? '' : r.mixture.components.map((c) => c.id).join('+'),
+          r.mixture === null ? '' : r.mixture.residualBands.map((b) => b.position.toFixed(0)).join(' '),
+        ];
+      }),
+    ]);
+    return {
+      stdout: `${summary}\n\nCSV written to ${options.csv}\n${MATCH_CAUTION}`,
+      stderr,
+      exitCode,
+    };
+  },
+};

@@ -1,0 +1,125 @@
+// Turns the shared options of `match` and `identify` into checked values, one clear BAD_OPTION per mistake.
+import { BandshelfError } from '../error.js';
+import type { Metric } from '../match/searchTypes.js';
+import type { WavenumberWindow } from '../schema/recipe.js';
+import type { MatchUnknownsOptions } from './matchUnknowns.js';
+
+export interface ParseMatchOptionsOptions {
+  /**
+   * Whether the mixture fit runs when neither --mixture nor --no-mixture is given.
+   * @default false
+   */
+  mixtureByDefault?: boolean;
+}
+
+const METRICS: readonly Metric[] = ['pearson', 'derivative', 'cosine', 'euclidean'];
+
+function number(
+  value: unknown,
+  flag: string,
+  check: (n: number) => boolean,
+  what: string,
+): number | undefined {
+  if (value === undefined) return undefined;
+  const n = typeof value === 'number' ? value : Number(String(value).trim());
+  if (String(value).trim() === '' || !Number.isFinite(n) || !check(n)) {
+    throw new BandshelfError('BAD_OPTION', `--${flag} must be ${what}, not '${String(value)}'`, {
+      field: flag,
+    });
+  }
+  return n;
+}
+
+function list(value: unknown): string[] {
+  if (value === undefined) return [];
+  const items = Array.isArray(value) ? value : [value];
+  return items.flatMap((v) =>
+    String(v)
+      .split(',')
+      .map((s) => s.trim())
+      .filter((s) => s !== ''),
+  );
+}
+
+/** `--range 1800:900` (either order, repeatable) → windows. */
+function ranges(value: unknown): WavenumberWindow[] {
+  return list(value).map((text) => {
+    const m = /^\s*([-+]?\d+(?:\.\d+)?)\s*:\s*([-+]?\d+(?:\.\d+)?)\s*$/.exec(text);
+    const a = m ? Number(m[1]) : Number.NaN;
+    const b = m ? Number(m[2]) : Number.NaN;
+    if (!m || a === b) {
+      throw new BandshelfError(
+        'BAD_OPTION',
+        `--range takes two different wavenumbers as HIGH:LOW (e.g. 1800:900), not '${text}'`,
+        { field: 'range' },
+      );
+    }
+    return { min: Math.min(a, b), max: Math.max(a, b) };
+  });
+}
+
+export function parseMatchOptions(
+  options: Record<string, unknown>,
+  settings: ParseMatchOptionsOptions = {},
+): MatchUnknownsOptions {
+  const metricText = String(options.metric ?? 'pearson');
+  let metrics: Metric[];
+  if (metricText === 'all') metrics = [...METRICS];
+  else {
+    metrics = list(metricText).map((m) => {
+      if (!(METRICS as readonly string[]).includes(m)) {
+        throw new BandshelfError(
+          'BAD_OPTION',
+          `--metric must be one of ${METRICS.join(', ')} or all, not '${m}'`,
+          {
+            field: 'metric',
+          },
+        );
+      }
+      return m as Metric;
+    });
+  }
+  const degreeText = options.baselineDegree;
+  let baselineDegree: MatchUnknownsOptions['baselineDegree'] = 'auto';
+  if (degreeText === 'none') baselineDegree = null;
+  else if (degreeText !== undefined && degreeText !== 'auto') {
+    baselineDegree = number(
+      degreeText,
+      'baseline-degree',
+      (n) => Number.isInteger(n) && n >= 0 && n <= 6,
+      'auto, none or 0–6',
+    );
+  }
+  // commander sets `mixture` false for --no-mixture, true for --mixture, and leaves it out (or true by default).
+  const mixture =
+    options.mixture === undefined ? (settings.mixtureByDefault ?? false) : options.mixture !== false;
+  const parsed: MatchUnknownsOptions = {
+    library: options.library,
+    ranges: ranges(options.range),
+    metrics,
+    top: number(options.top, 'top', (n) => Number.isInteger(n) && n >= 1, 'a whole number ≥ 1') ?? 10,
+    minOverlap: number(options.minOverlap, 'min-overlap', (n) => n >= 0, 'a number of cm⁻¹ ≥ 0') ?? 200,
+    mixture,
+    with: list(options.with),
+    maxComponents:
+      number(
+        options.maxComponents,
+        'max-components',
+        (n) => Number.isInteger(n) && n >= 1,
+        'a whole number ≥ 1',
+      ) ?? 6,
+    candidates:
+      number(options.candidates, 'candidates', (n) => Number.isInteger(n) && n >= 1, 'a whole number ≥ 1') ??
+      30,
+    baselineDegree,
+    tolerance: number(options.tolerance, 'tolerance', (n) => n > 0, 'a positive number of cm⁻¹') ?? 4,
+  };
+  if (typeof options.at === 'string') parsed.at = options.at;
+  if (typeof options.recipe === 'string') parsed.recipe = options.recipe;
+  if (parsed.with!.length > 0 && !mixture) {
+    throw new BandshelfError('BAD_OPTION', '--with forces entries into the mixture fit: add --mixture', {
+      field: 'with',
+    });
+  }
+  return parsed;
+}

@@ -1,0 +1,50 @@
+// Writes match reports as JSON files for the site: one `<unknown>[-b<block>].match.json` per report.
+import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
+import { basename, extname, join, resolve } from 'node:path';
+import { BandshelfError } from '../error.js';
+import type { MatchOutcome } from './matchUnknowns.js';
+
+export interface WriteMatchReportsOptions {
+  /** The working directory `dir` is read against. @default process.cwd() */
+  cwd?: string;
+}
+
+/** Each file is written to a temporary name and renamed, so a reader never sees half a report. */
+export function writeMatchReports(
+  outcomes: readonly MatchOutcome[],
+  dir: string,
+  options: WriteMatchReportsOptions = {},
+): string[] {
+  const target = resolve(options.cwd ?? process.cwd(), dir);
+  try {
+    mkdirSync(target, { recursive: true });
+  } catch (error) {
+    throw new BandshelfError(
+      'IO_ERROR',
+      `cannot create the report folder (${(error as NodeJS.ErrnoException).code})`,
+      {
+        file: dir,
+      },
+    );
+  }
+  const used = new Set<string>();
+  const written: string[] = [];
+  for (const o of outcomes) {
+    if (o.report === undefined) continue;
+    const stem = basename(o.file, extname(o.file)).replace(/[^A-Za-z0-9._-]+/g, '-') || 'unknown';
+    let name = `${stem}${o.block === undefined ? '' : `-b${o.block}`}`;
+    for (let i = 2; used.has(name); i++) name = `${stem}${o.block === undefined ? '' : `-b${o.block}`}-${i}`;
+    used.add(name);
+    const path = join(target, `${name}.match.json`);
+    try {
+      writeFileSync(`${path}.tmp`, `${JSON.stringify(o.report, null, 1)}\n`);
+      renameSync(`${path}.tmp`, path);
+    } catch (error) {
+      throw new BandshelfError('IO_ERROR', `cannot write (${(error as NodeJS.ErrnoException).code})`, {
+        file: join(dir, `${name}.match.json`),
+      });
+    }
+    written.push(join(dir, `${name}.match.json`));
+  }
+  return written;
+}

@@ -1,0 +1,226 @@
+// The match report: one versioned JSON document per unknown, printed by `match --json` and read by the site.
+import { z } from 'zod';
+import { gridSchema, recipeSchema, windowSchema } from './recipe.js';
+
+/** Bump on any change a reader must know about; readers refuse versions they do not know. */
+export const MATCH_REPORT_VERSION = 1;
+
+/** The caution every match report and every match table carries. */
+export const MATCH_CAUTION =
+  'Research use only: candidates, not identifications; confirm by orthogonal methods; defer to local regulations ' +
+  'and licensed clinical practice.';
+
+export const metricSchema = z.enum(['pearson', 'derivative', 'cosine', 'euclidean']);
+
+/** A vector on the library grid, ascending wavenumber; null where not covered (JSON has no NaN). */
+const gridVectorSchema = z.array(z.number().finite().nullable());
+
+export const matchHitSchema = z
+  .object({
+    rank: z.number().int().positive(),
+    id: z.string().min(1),
+    revision: z.number().int().positive(),
+    name: z.string(),
+    class: z.string(),
+    /**
+     * pearson, derivative, cosine: the correlation clamped to 0–1 (a negative correlation shows as 0, its value
+     * stays in rawScore); euclidean: the distance of the unit-normalised vectors, 0–2, lower is closer.
+     */
+    score: z.number().finite(),
+    rawScore: z.number().finite(),
+    /** Wavenumber range both spectra cover inside the scoring ranges, cm⁻¹. */
+    overlap: z.number().finite().nonnegative(),
+    /** Lead over the next hit in rawScore units; null for the last scored row. */
+    gapToNext: z.number().finite().nullable(),
+    /** (rawScore − mean) / sd over every library score of this query (sign-flipped for euclidean). */
+    z: z.number().finite().nullable(),
+  })
+  .strict();
+export type MatchHit = z.output<typeof matchHitSchema>;
+
+/** How far the best hit stands out, so a weak best match reads as weak. */
+export const standingSchema = z
+  .object({
+    metric: metricSchema,
+    verdict: z.enum(['distinct', 'ambiguous', 'weak', 'none']),
+    text: z.string().min(1),
+  })
+  .strict();
+
+export const mixtureComponentSchema = z
+  .object({
+    id: z.string().min(1),
+    revision: z.number().int().positive(),
+    name: z.string().optional(),
+    class: z.string().optional(),
+    weight: z.number().finite().nonnegative(),
+    /** Share of the fitted signal (component area over the summed component area), 0–1. */
+    share: z.number().finite().min(0).max(1),
+    forced: z.boolean(),
+    /** Fractional drop of the residual sum of squares when forward selection added it; null when forced. */
+    improvement: z.number().finite().nullable(),
+  })
+  .strict();
+
+export const residualBandSchema = z
+  .object({
+    position: z.number().finite(),
+    height: z.number().finite(),
+    prominence: z.number().finite(),
+    fwhm: z.number().finite().nullable(),
+  })
+  .strict();
+
+export const mixtureReportSchema = z
+  .object({
+    components: z.array(mixtureComponentSchema),
+    r2: z.number().finite().nullable(),
+    rss: z.number().finite().nonnegative(),
+    /** Free-sign polynomial in u = (wavenumber − centre) / halfWidth; null when the fit had none. */
+    baseline: z
+      .object({
+        degree: z.number().int().nonnegative(),
+        coefficients: z.array(z.number().finite()),
+        centre: z.number().finite(),
+        halfWidth: z.number().finite().positive(),
+      })
+      .strict()
+      .nullable(),
+    fitted: gridVectorSchema,
+    residual: gridVectorSchema,
+    noise: z.number().finite().nonnegative(),
+    noiseSource: z.enum(['band-free-window', 'residual-differences']),
+    k: z.number().finite().positive(),
+    /** Peaks of the residual above k × noise: the bands the fitted components do not explain. */
+    residualBands: z.array(residualBandSchema),
+    points: z.number().int().nonnegative(),
+    span: z.object({ min: z.number().finite(), max: z.number().finite() }).strict().nullable(),
+    /** How many candidates forward selection chose from. */
+    candidates: z.number().int().nonnegative(),
+    criterion: z.string().min(1),
+    stopReason: z.string(),
+    skipped: z.array(z.string()),
+  })
+  .strict();
+export type MixtureReport = z.output<typeof mixtureReportSchema>;
+
+export const identifiedBandSchema = z
+  .object({
+    position: z.number().finite(),
+    height: z.number().finite(),
+    fwhm: z.number().finite().nullable(),
+    kind: z.enum(['peak', 'shoulder']),
+    assignments: z.array(
+      z
+        .object({
+          label: z.string().min(1),
+          vibration: z.string(),
+          group: z.string(),
+          class: z.array(z.string().min(1)).min(1),
+          source: z.string().min(1),
+          basis: z.string(),
+          origin: z.string(),
+          min: z.number().finite(),
+          max: z.number().finite(),
+        })
+        .strict(),
+    ),
+    candidates: z.array(
+      z
+        .object({
+          id: z.string().min(1),
+          revision: z.number().int().positive(),
+          name: z.string(),
+          class: z.string(),
+          position: z.number().finite(),
+          error: z.number().finite(),
+        })
+        .strict(),
+    ),
+    /** Whether the mixture fit explains the band; null when no fit was made. */
+    explained: z.boolean().nullable(),
+  })
+  .strict();
+export type IdentifiedBandReport = z.output<typeof identifiedBandSchema>;
+
+const hitListSchema = z.array(matchHitSchema);
+
+export const matchReportSchema = z
+  .object({
+    kind: z.literal('bandshelf-match-report'),
+    version: z.literal(MATCH_REPORT_VERSION),
+    /** Printed with every report: research use only. */
+    caution: z.string().min(1),
+    query: z
+      .object({
+        /** The file as the user named it. */
+        file: z.string().min(1),
+        /** 1-based spectrum of a multi-block file, when the file held several. */
+        block: z.number().int().positive().optional(),
+        /** SHA-256 of the file's bytes, lowercase hex. */
+        hash: z.string().regex(/^[0-9a-f]{64}$/),
+        /** The file's own title, where it had one. */
+        title: z.string().optional(),
+        /** The recipe the unknown was processed with, and where it came from. */
+        recipe: recipeSchema,
+        recipeSource: z.enum(['library', 'file']),
+        grid: gridSchema,
+        /** Scoring windows (cm⁻¹); empty means the whole grid. Recipe exclusion windows always apply. */
+        ranges: z.array(windowSchema),
+        /** The grid span the unknown covers inside the ranges. */
+        coverage: z
+          .object({
+            min: z.number().finite(),
+            max: z.number().finite(),
+            points: z.number().int().nonnegative(),
+            /** Covered wavenumber range summed over covered stretches, cm⁻¹. */
+            overlap: z.number().finite().nonnegative(),
+          })
+          .strict()
+          .nullable(),
+        /** The processed unknown on the grid. */
+        processed: gridVectorSchema,
+        warnings: z.array(z.string()),
+      })
+      .strict(),
+    library: z
+      .object({
+        name: z.string(),
+        /** The release tag the search read, or null for the working state. */
+        release: z.string().nullable(),
+        /** Hash of the revision set (and grid): equal keys mean the same library contents. */
+        stateKey: z.string().min(1),
+        entries: z.number().int().nonnegative(),
+        /** The revision set itself, for libraries of up to 5,000 entries (the state key pins larger ones). */
+        revisions: z
+          .array(z.object({ id: z.string().min(1), revision: z.number().int().positive() }).strict())
+          .optional(),
+      })
+      .strict(),
+    settings: z
+      .object({
+        top: z.number().int().positive(),
+        minOverlap: z.number().finite().nonnegative(),
+        tolerance: z.number().finite().positive(),
+        maxComponents: z.number().int().positive(),
+        with: z.array(z.string()),
+      })
+      .strict(),
+    metrics: z.array(metricSchema).min(1),
+    /** The hits of the first metric in `metrics`. */
+    hits: hitListSchema,
+    hitsByMetric: z
+      .object({
+        pearson: hitListSchema.optional(),
+        derivative: hitListSchema.optional(),
+        cosine: hitListSchema.optional(),
+        euclidean: hitListSchema.optional(),
+      })
+      .strict(),
+    standing: standingSchema,
+    mixture: mixtureReportSchema.nullable(),
+    bands: z.array(identifiedBandSchema),
+  })
+  .strict();
+
+export type MatchReport = z.output<typeof matchReportSchema>;

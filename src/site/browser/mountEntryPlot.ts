@@ -1,0 +1,90 @@
+// Wires an entry page: fetches the entry's JSON download once, draws the thinned plot, redraws when a trace is
+// toggled or the zoom reset, and makes the CSV and JCAMP-DX downloads from the same data on request.
+import type { Result } from 'vega-embed';
+import { entryPlotData } from '../entryPlotData.js';
+import type { EntryDocument } from '../types.js';
+import { embedSpec } from './embedSpec.js';
+import { entryDownload } from './entryDownload.js';
+import { entryPlotSpec } from './entryPlotSpec.js';
+
+export interface MountEntryPlotOptions {
+  /** Id of the plot container (its `data-json` attribute names the JSON download).
+   * @default 'entry-plot' */
+  plotId?: string;
+}
+
+function offerDownload(doc: Document, file: string, type: string, text: string): void {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const link = doc.createElement('a');
+  link.href = url;
+  link.download = file;
+  link.hidden = true;
+  doc.body.append(link);
+  link.click();
+  link.remove();
+  // The download has started from the object URL; release it once the click has been handled.
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+}
+
+export function mountEntryPlot(doc: Document, options: MountEntryPlotOptions = {}): void {
+  const target = doc.getElementById(options.plotId ?? 'entry-plot');
+  const url = target?.dataset.json;
+  if (!target || !url) return;
+  const boxes = Array.from(doc.querySelectorAll<HTMLInputElement>('#plot-controls input[name="trace"]'));
+  const buttons = Array.from(doc.querySelectorAll<HTMLButtonElement>('button[data-derive]'));
+  const entry: Promise<EntryDocument> = fetch(url).then((r) => {
+    if (!r.ok) throw new Error(`${url}: HTTP ${r.status}`);
+    return r.json() as Promise<EntryDocument>;
+  });
+
+  for (const button of buttons) {
+    button.disabled = false;
+    button.addEventListener('click', () => {
+      const format = button.dataset.derive === 'csv' ? 'csv' : 'jcamp-dx';
+      entry
+        .then((document) => {
+          const made = entryDownload(document, format, { name: button.dataset.name });
+          offerDownload(doc, made.file, made.type, made.text);
+        })
+        .catch((error: unknown) => {
+          button.textContent = `failed: ${error instanceof Error ? error.message : String(error)}`;
+        });
+    });
+  }
+
+  entry
+    .then((document) => {
+      const data = entryPlotData(document);
+      // A trace with no data cannot be toggled on.
+      for (const box of boxes) {
+        if ((box.value === 'original' && !data.original) || (box.value === 'processed' && !data.processed)) {
+          box.checked = false;
+          box.disabled = true;
+        }
+      }
+      let current: Result | undefined;
+      const draw = (): void => {
+        const show = {
+          original: boxes.some((b) => b.value === 'original' && b.checked),
+          processed: boxes.some((b) => b.value === 'processed' && b.checked),
+        };
+        current?.finalize();
+        current = undefined;
+        target.replaceChildren();
+        embedSpec(target, entryPlotSpec(data, { show }))
+          .then((result) => {
+            current = result;
+            target.dataset.rendered = 'true';
+          })
+          .catch((error: unknown) => {
+            target.textContent = `The plot could not be drawn: ${error instanceof Error ? error.message : String(error)}`;
+          });
+      };
+      for (const box of boxes) box.addEventListener('change', draw);
+      doc.getElementById('plot-reset')?.addEventListener('click', draw);
+      draw();
+    })
+    .catch((error: unknown) => {
+      target.textContent = `The spectrum could not be loaded: ${error instanceof Error ? error.message : String(error)}`;
+    });
+}

@@ -1,0 +1,236 @@
+// Every bad input to `add` gives one line naming the file and the problem, never a stack trace, and writes nothing:
+// every table's row count stays the same and `check` still passes.
+import { closeSync, ftruncateSync, openSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import Database from 'better-sqlite3';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { bandsFor, bandshelf, parseJson, tempDir, writeSpectrumCsv } from './bandshelfCli.js';
+
+const TABLES = ['entries', 'revisions', 'files', 'revision_files', 'reviews', 'releases', 'release_members'];
+
+describe('bad input to add', () => {
+  const dir = tempDir();
+  const path = join(dir, 'lib.sqlite');
+  const lib = ['--library', path];
+  const counts = () => {
+    const db = new Database(path, { readonly: true });
+    const out = TABLES.map((t) => db.prepare(`SELECT count(*) FROM ${t}`).pluck().get() as number);
+    db.close();
+    return out;
+  };
+  let baseline: number[];
+
+  beforeAll(() => {
+    expect(bandshelf(['init', ...lib]).code).toBe(0);
+    writeSpectrumCsv(join(dir, 'good.csv'), bandsFor(1));
+    expect(bandshelf(['add', join(dir, 'good.csv'), ...lib]).code).toBe(0);
+    baseline = counts();
+  });
+
+  const csv = (name: string, text: string) => {
+    const file = join(dir, name);
+    writeFileSync(file, text);
+    return file;
+  };
+  const rows = (n: number, f: (i: number) => string) => Array.from({ length: n }, (_, i) => f(i)).join('\n');
+
+  const cases: [string, () => { file: string; extra?: string[] }, RegExp][] = [
+    ['an empty file', () => ({ file: csv('empty.csv', '') }), /EMPTY_FILE/],
+    [
+      'a single point',
+      () => ({ file: csv('single.csv', 'wavenumber_cm-1,absorbance\n1650,0.5\n') }),
+      /TOO_FEW_POINTS/,
+    ],
+    [
+      'non-numeric values',
+      () => ({
+        file: csv(
+          'words.csv',
+          `wavenumber_cm-1,absorbance\n${rows(20, (i) => `${1000 + i},${i === 7 ? 'abc' : 0.1}`)}\n`,
+        ),
+      }),
+      /NOT_NUMERIC/,
+    ],
+    [
+      'NaN and Infinity',
+      () => ({
+        file: csv(
+          'nan.csv',
+          `wavenumber_cm-1,absorbance\n${rows(20, (i) => `${1000 + i},${i === 3 ? 'NaN' : 0.1}`)}\n`,
+        ),
+      }),
+      /NOT_FINITE|NOT_NUMERIC/,
+    ],
+    [
+      'duplicate x with different y',
+      () => ({
+        file: csv('dup.csv', `wavenumber_cm-1,absorbance\n${rows(20, (i) => `${1000 + i},0.1`)}\n1005,0.7\n`),
+      }),
+      /DUPLICATE_X/,
+    ],
+    [
+      'transmittance at or below zero',
+      () => ({
+        file: csv(
+          'zero-t.csv',
+          `wavenumber_cm-1,%T\n${rows(20, (i) => `${1000 + i},${i === 4 ? 0 : 50}`)}\n`,
+        ),
+      }),
+      /BAD_TRANSMITTANCE/,
+    ],
+    [
+      'an unknown unit',
+      () => ({
+        file: csv(
+          'unit.jdx',
+          `##TITLE=unit\n##JCAMP-DX=4.24\n##DATA TYPE=INFRARED SPECTRUM\n##XUNITS=HZ\n##YUNITS=ABSORBANCE\n##NPOINTS=20\n##XYPOINTS=(XY..XY)\n${rows(20, (i) => `${1000 + i},0.1`)}\n##END=\n`,
+        ),
+      }),
+      /UNKNOWN_UNIT/,
+    ],
+    [
+      'binary garbage',
+      () => {
+        const file = join(dir, 'garbage.csv');
+        writeFileSync(file, Buffer.from(Array.from({ length: 512 }, (_, i) => (i * 73 + 11) % 256)));
+        return { file };
+      },
+      /BINARY_DATA/,
+    ],
+    [
+      'a file over the size limit',
+      () => {
+        const file = join(dir, 'huge.csv');
+        const fd = openSync(file, 'w');
+        ftruncateSync(fd, 65 * 1024 * 1024); // sparse: no disk is spent
+        closeSync(fd);
+        return { file };
+      },
+      /FILE_TOO_LARGE/,
+    ],
+    [
+      'a JCAMP-DX peak table',
+      () => ({
+        file: csv(
+          'peaks.jdx',
+          '##TITLE=peaks\n##JCAMP-DX=4.24\n##DATA TYPE=INFRARED PEAK TABLE\n##XUNITS=1/CM\n##YUNITS=ABSORBANCE\n##NPOINTS=2\n##PEAK TABLE=(XY..XY)\n1650,0.5 1550,0.3\n##END=\n',
+        ),
+      }),
+      /NOT_A_SPECTRUM/,
+    ],
+    [
+      'a sidecar that is not JSON',
+      () => {
+        const file = writeSpectrumCsv(join(dir, 'side1.csv'), bandsFor(2));
+        writeFileSync(join(dir, 'side1.meta.json'), '{"name": "x",\n "class": }\n');
+        return { file };
+      },
+      /side1\.meta\.json:2: .*BAD_METADATA/,
+    ],
+    [
+      'a sidecar CAS number with a wrong check digit',
+      () => {
+        const file = writeSpectrumCsv(join(dir, 'side2.csv'), bandsFor(3));
+        writeFileSync(join(dir, 'side2.meta.json'), JSON.stringify({ cas: '7732-18-4' }));
+        return { file };
+      },
+      /side2\.meta\.json: cas: .*check digit.*BAD_METADATA/,
+    ],
+    [
+      'a sidecar with an unknown field',
+      () => {
+        const file = writeSpectrumCsv(join(dir, 'side3.csv'), bandsFor(4));
+        writeFileSync(join(dir, 'side3.meta.json'), JSON.stringify({ clas: 'protein' }));
+        return { file };
+      },
+      /side3\.meta\.json: clas: unknown field \(did you mean "class"\?\)/,
+    ],
+    [
+      'an id with a path separator',
+      () => ({ file: writeSpectrumCsv(join(dir, 'slash.csv'), bandsFor(5)), extra: ['--id', '../etc'] }),
+      /--id: .*BAD_OPTION/,
+    ],
+    [
+      'an unknown class',
+      () => ({ file: writeSpectrumCsv(join(dir, 'cls.csv'), bandsFor(6)), extra: ['--class', 'mineral'] }),
+      /--class: must be one of/,
+    ],
+    [
+      'an invalid recipe file',
+      () => {
+        writeFileSync(join(dir, 'recipe.json'), JSON.stringify({ smooth: { window: 4, order: 2 } }));
+        return {
+          file: writeSpectrumCsv(join(dir, 'rec.csv'), bandsFor(7)),
+          extra: ['--recipe', join(dir, 'recipe.json')],
+        };
+      },
+      /recipe\.json: smooth\.window: .*odd.*BAD_RECIPE/,
+    ],
+    [
+      'a file that does not exist',
+      () => ({ file: join(dir, 'missing.csv') }),
+      /missing\.csv: no such file.*IO_ERROR/,
+    ],
+  ];
+
+  for (const [what, make, expected] of cases) {
+    it(`${what}: one line naming the file, nothing written`, () => {
+      const { file, extra = [] } = make();
+      const r = bandshelf(['add', file, ...lib, ...extra]);
+      expect(r.code, r.stdout).toBeGreaterThan(0);
+      const lines = r.stderr.trim().split('\n');
+      expect(lines, r.stderr).toHaveLength(1);
+      expect(lines[0]).toMatch(/^bandshelf: /);
+      expect(lines[0]).toMatch(expected);
+      if (!extra.includes('--id') && !extra.includes('--class'))
+        expect(lines[0]).toContain(
+          file
+            .split('/')
+            .pop()!
+            .replace(/\.(csv|jdx)$/, ''),
+        );
+      expect(r.stderr).not.toMatch(/\n\s+at |internal error/);
+      expect(counts()).toEqual(baseline);
+    });
+  }
+
+  it('with several files, the good ones are added, the bad one is reported in failed, and the exit code is 1', () => {
+    const good = writeSpectrumCsv(join(dir, 'good-two.csv'), bandsFor(8));
+    const r = bandshelf(['add', good, join(dir, 'dup.csv'), ...lib, '--json']);
+    expect(r.code).toBe(1);
+    const out = parseJson<{ added: { id: string }[]; failed: { file: string; error: string }[] }>(r.stdout);
+    expect(out.added.map((a) => a.id)).toEqual(['good-two']);
+    expect(out.failed).toHaveLength(1);
+    expect(out.failed[0]!.file).toMatch(/dup\.csv$/);
+    expect(out.failed[0]!.error).toMatch(/dup\.csv.*DUPLICATE_X/);
+  });
+
+  it('--atomic stores nothing when one file of the batch is bad', () => {
+    const before = counts();
+    const good = writeSpectrumCsv(join(dir, 'good-three.csv'), bandsFor(9));
+    const r = bandshelf(['add', good, join(dir, 'nan.csv'), ...lib, '--atomic']);
+    expect(r.code).toBe(1);
+    expect(r.stdout).toContain('nothing was stored');
+    expect(counts()).toEqual(before);
+  });
+
+  it('a missing library and an unknown release are one line each', () => {
+    const r = bandshelf(['list', '--library', join(dir, 'nope.sqlite')]);
+    expect(r.code).toBe(1);
+    expect(r.stderr.trim()).toMatch(/^bandshelf: .*nope\.sqlite: no library here .*\[NO_LIBRARY\]$/);
+    const notDb = csv('not-a-db.sqlite', 'hello, I am text and not SQLite at all; '.repeat(40));
+    const n = bandshelf(['list', '--library', notDb]);
+    expect(n.code).toBe(1);
+    expect(n.stderr.trim().split('\n')).toHaveLength(1);
+    expect(n.stderr).toContain('NO_LIBRARY');
+    const again = bandshelf(['init', ...lib]);
+    expect(again.code).toBe(1);
+    expect(again.stderr).toContain('ALREADY_EXISTS');
+    expect(bandshelf(['list', ...lib, '--at', 'never']).stderr).toContain('UNKNOWN_RELEASE');
+  });
+
+  it('the library still passes check after all of it', () => {
+    const r = bandshelf(['check', ...lib]);
+    expect(r.code, r.stdout + r.stderr).toBe(0);
+  });
+});

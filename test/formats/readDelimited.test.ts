@@ -1,0 +1,158 @@
+// The delimited-text reader: delimiters, decimal commas, unit headers and ranges, and one typed error per defect.
+import { describe, expect, it } from 'vitest';
+import { BandshelfError } from '../../src/error.js';
+import { readDelimited } from '../../src/formats/readDelimited.js';
+
+function catchError(fn: () => unknown): BandshelfError {
+  try {
+    fn();
+  } catch (e) {
+    if (e instanceof BandshelfError) return e;
+    throw e;
+  }
+  throw new Error('expected a BandshelfError');
+}
+
+const xs = (text: string, options = {}): number[] =>
+  Array.from(readDelimited(text, options).spectrum.wavenumber);
+const ys = (text: string, options = {}): number[] =>
+  Array.from(readDelimited(text, options).spectrum.absorbance);
+
+describe('readDelimited: delimiters and number forms', () => {
+  it('reads comma-separated text with a unit header and no warnings', () => {
+    const p = readDelimited('wavenumber_cm-1,absorbance\n1000,0.5\n1002,0.25\n1004,-0.125\n');
+    expect(Array.from(p.spectrum.wavenumber)).toEqual([1000, 1002, 1004]);
+    expect(Array.from(p.spectrum.absorbance)).toEqual([0.5, 0.25, -0.125]);
+    expect(p.source).toEqual({ format: 'delimited', xUnit: 'cm-1', yUnit: 'absorbance' });
+    expect(p.warnings).toEqual([]);
+  });
+
+  it('reads semicolons and tabs with decimal commas, and whitespace with either', () => {
+    const header = 'wavenumber (cm-1)\tabsorbance\n';
+    expect(ys('cm-1;absorbance\n1000,5;0,25\n1001,5;0,5')).toEqual([0.25, 0.5]);
+    expect(xs('cm-1;absorbance\n1000,5;0,25\n1001,5;0,5')).toEqual([1000.5, 1001.5]);
+    expect(ys(`${header}1000\t0,25\n1001\t0,5`)).toEqual([0.25, 0.5]);
+    expect(ys('cm-1 absorbance\n1000   0.25\n1001 \t 0.5')).toEqual([0.25, 0.5]);
+    expect(ys('cm-1 absorbance\n1000,5 0,25\n1001,5 0,5')).toEqual([0.25, 0.5]);
+    expect(ys('cm-1,absorbance\n"1000","2.5e-3"\n"1001","1E-2"')).toEqual([0.0025, 0.01]);
+  });
+
+  it('skips # comment lines and blank lines, and accepts CRLF and a trailing delimiter', () => {
+    const text =
+      '# synthetic example\r\n\r\nwavenumber_cm-1,absorbance\r\n# a note in the middle\r\n1000,1,\r\n1001,2,\r\n';
+    expect(ys(text)).toEqual([1, 2]);
+  });
+
+  it('returns descending x ascending', () => {
+    expect(xs('cm-1,A\n4000,1\n3998,2\n3996,3')).toEqual([3996, 3998, 4000]);
+    expect(ys('cm-1,A\n4000,1\n3998,2\n3996,3')).toEqual([3, 2, 1]);
+  });
+
+  it('reads the first two of several columns with a warning', () => {
+    const p = readDelimited('cm-1,A,sd\n1000,1,0.1\n1001,2,0.1');
+    expect(Array.from(p.spectrum.absorbance)).toEqual([1, 2]);
+    expect(p.warnings[0]?.message).toMatch(/up to 3 columns/);
+  });
+});
+
+describe('readDelimited: units', () => {
+  it('converts a header wavelength_um,%T to cm⁻¹ and absorbance', () => {
+    // common practice: 10 µm = 1000 cm⁻¹, 2.5 µm = 4000 cm⁻¹; A = 2 − log10(%T), so 1 %T is 2 and 100 %T is 0.
+    const p = readDelimited('wavelength_um,%T\n2.5,100\n10,1\n');
+    expect(Array.from(p.spectrum.wavenumber)).toEqual([1000, 4000]);
+    expect(Array.from(p.spectrum.absorbance)).toEqual([2, 0]);
+    expect(p.source).toMatchObject({ xUnit: 'um', yUnit: 'percent-transmittance' });
+    expect(p.warnings).toEqual([]);
+  });
+
+  it('reads a header naming nm, and transmittance fractions', () => {
+    const p = readDelimited('nm,transmittance\n2500,0.1\n10000,0.0001\n');
+    expect(Array.from(p.spectrum.wavenumber)).toEqual([1000, 4000]);
+    // common practice: a 10,000-fold attenuation is 4 absorbance units.
+    expect(p.spectrum.absorbance[0]).toBeCloseTo(4, 12);
+    expect(p.spectrum.absorbance[1]).toBeCloseTo(1, 12);
+  });
+
+  it('does not take `wavenumber` for µm: the unit must stand as a word', () => {
+    expect(readDelimited('wavenumber,absorbance\n5,1\n20,2').source.xUnit).toBe('cm-1');
+  });
+
+  it('reads a headerless x in 2–25 as µm, with a warning', () => {
+    const p = readDelimited('2.5,0.1\n5,0.2\n10,0.3\n');
+    expect(p.source.xUnit).toBe('um');
+    expect(Array.from(p.spectrum.wavenumber)).toEqual([1000, 2000, 4000]);
+    expect(p.warnings.map((w) => w.message).join('\n')).toMatch(/read as wavelength in µm/);
+  });
+
+  it('assumes absorbance without a y unit, and says when the values look like %T', () => {
+    const p = readDelimited('1000,80\n1002,45\n1004,92\n');
+    expect(p.source.yUnit).toBe('absorbance');
+    expect(Array.from(p.spectrum.absorbance)).toEqual([80, 45, 92]);
+    expect(p.warnings.map((w) => w.message).join('\n')).toMatch(/look like %T/);
+  });
+
+  it('reads a transmittance header on a 0–100 scale as percent, with a warning', () => {
+    const p = readDelimited('cm-1,transmittance\n1000,100\n1002,10\n');
+    expect(Array.from(p.spectrum.absorbance)).toEqual([0, 1]);
+    expect(p.warnings[0]?.message).toMatch(/read as percent transmittance/);
+  });
+
+  it('lets xUnit and yUnit override header and range', () => {
+    const p = readDelimited('x,y\n2500,50\n5000,10\n', { xUnit: 'nm', yUnit: 'percent-transmittance' });
+    expect(Array.from(p.spectrum.wavenumber)).toEqual([2000, 4000]);
+    expect(p.spectrum.absorbance[0]).toBeCloseTo(1, 12);
+    expect(p.spectrum.absorbance[1]).toBeCloseTo(2 - Math.log10(50), 12);
+    expect(p.warnings).toEqual([]);
+  });
+});
+
+describe('readDelimited: points', () => {
+  it('merges repeated identical points with a warning', () => {
+    const p = readDelimited('cm-1,A\n1000,1\n1001,2\n1001,2\n1002,3');
+    expect(Array.from(p.spectrum.wavenumber)).toEqual([1000, 1001, 1002]);
+    expect(p.warnings[0]).toEqual({ line: 4, message: '1 repeated point (same x, same y) merged' });
+  });
+
+  it('sorts two sweeps joined in one file, with a warning', () => {
+    const p = readDelimited('cm-1,A\n1000,1\n1002,2\n1004,3\n1003,4\n1001,5');
+    expect(Array.from(p.spectrum.wavenumber)).toEqual([1000, 1001, 1002, 1003, 1004]);
+    expect(Array.from(p.spectrum.absorbance)).toEqual([1, 5, 2, 4, 3]);
+    expect(p.warnings[0]?.message).toMatch(/changes direction once/);
+  });
+});
+
+describe('readDelimited: bad input is a typed error naming file and line', () => {
+  const cases: [string, string, string, number | undefined][] = [
+    ['an empty text', '', 'EMPTY_FILE', undefined],
+    ['a header alone', 'wavenumber,absorbance\n', 'EMPTY_FILE', 1],
+    ['only words', 'hello there\nnothing to see\n', 'NOT_NUMERIC', 2],
+    ['a single point', 'cm-1,A\n1000,1\n', 'TOO_FEW_POINTS', 2],
+    ['a non-numeric cell', 'cm-1,A\n1000,1\n1001,abc\n1002,3', 'NOT_NUMERIC', 3],
+    ['a row with one value', 'cm-1,A\n1000,1\n1001\n1002,3', 'NOT_NUMERIC', 3],
+    ['NaN', 'cm-1,A\n1000,1\n1001,NaN\n1002,3', 'NOT_FINITE', 3],
+    ['Infinity', 'cm-1,A\n1000,1\n1001,-Infinity\n', 'NOT_FINITE', 3],
+    ['an overflowing number', 'cm-1,A\n1000,1\n1001,1e400\n', 'NOT_FINITE', 3],
+    ['one x twice with different y', 'cm-1,A\n1000,1\n1001,2\n1001,3\n', 'DUPLICATE_X', 4],
+    ['a zig-zag x', 'cm-1,A\n1000,1\n1002,2\n1001,3\n1003,4\n1000.5,5\n', 'NOT_MONOTONIC', 4],
+    ['a zero transmittance', 'cm-1,%T\n1000,50\n1001,0\n', 'BAD_TRANSMITTANCE', 3],
+    ['a negative wavelength', 'um,A\n-3,1\n5,2\n', 'NOT_FINITE', 2],
+  ];
+  for (const [what, text, code, line] of cases) {
+    it(`${what} → ${code}`, () => {
+      const err = catchError(() => readDelimited(text, { file: 'bad.csv' }));
+      expect(err.code).toBe(code);
+      expect(err.file).toBe('bad.csv');
+      expect(err.line).toBe(line);
+    });
+  }
+
+  it('words the error as one line with file, line and the cell', () => {
+    const err = catchError(() => readDelimited('cm-1,A\n1000,1\n1001,1.2.3\n', { file: 's.csv' }));
+    expect(err.oneLine()).toBe('s.csv:3: y: y = "1.2.3" is not a number [NOT_NUMERIC]');
+  });
+
+  it('refuses a unit option it does not know', () => {
+    const err = catchError(() => readDelimited('1000,1\n1001,2', { xUnit: 'furlong' as 'nm' }));
+    expect(err.code).toBe('BAD_OPTION');
+  });
+});

@@ -1,0 +1,43 @@
+// An in-process library for the store's own tests: entries made from small Gaussian spectra, no CLI involved.
+import { join } from 'node:path';
+import { commitRevisions } from '../../src/library/commitRevisions.js';
+import type { RevisionInput } from '../../src/library/ingestTypes.js';
+import { initLibrary } from '../../src/library/initLibrary.js';
+import { prepareRevision } from '../../src/library/prepareRevision.js';
+import type { Library } from '../../src/library/types.js';
+import { type Band, syntheticSpectrum, tempDir } from '../cli/bandshelfCli.js';
+
+export function newLibrary(): { library: Library; dir: string } {
+  const dir = tempDir('bandshelf-lib-');
+  return {
+    library: initLibrary(join(dir, 'lib.sqlite'), { name: 'fixture', now: new Date('2026-01-02T03:04:05Z') }),
+    dir,
+  };
+}
+
+/** A revision input as `add` would build it from a CSV of these bands. */
+export function inputFor(library: Library, id: string, bands: Band[], seed = 1): RevisionInput {
+  const s = syntheticSpectrum(bands, { seed });
+  const text = `wavenumber_cm-1,absorbance\n${s.x.map((x, i) => `${x},${s.y[i]!.toFixed(6)}`).join('\n')}\n`;
+  const order = s.x.map((_, i) => s.x.length - 1 - i);
+  return {
+    label: `${id}.csv`,
+    files: [{ role: 'data', name: `${id}.csv`, bytes: new TextEncoder().encode(text) }],
+    read: {},
+    original: {
+      wavenumber: Float64Array.from(order, (i) => s.x[i]!),
+      absorbance: Float64Array.from(order, (i) => Number(s.y[i]!.toFixed(6))),
+    },
+    meta: { id, name: id.toUpperCase(), class: 'other' },
+    recipe: library.recipe,
+    extras: {},
+  };
+}
+
+export function addEntry(library: Library, id: string, bands: Band[], seed = 1) {
+  const prepared = prepareRevision(library, inputFor(library, id, bands, seed), { force: true });
+  return commitRevisions(library, [prepared], {
+    author: 'fixture',
+    now: new Date('2026-01-02T03:04:05Z'),
+  })[0]!;
+}
