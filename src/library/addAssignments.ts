@@ -4,6 +4,7 @@ import { metaErrorFromIssues } from '../formats/metaErrorFromIssues.js';
 import { type BandAssignment, bandAssignmentSchema } from '../schema/bandAssignment.js';
 import { canonicalJson } from './canonicalJson.js';
 import type { Library } from './types.js';
+import { writeTransaction } from './writeTransaction.js';
 
 export interface AddAssignmentsOptions {
   /** The file the rows came from, named in errors. */
@@ -39,10 +40,12 @@ export function addAssignments(
   const insert = library.db.prepare(
     'INSERT INTO band_assignments (row, author, created_at) VALUES (?, ?, ?)',
   );
-  library.db
-    .transaction(() => {
+  writeTransaction(
+    library,
+    () => {
       for (const row of checked) insert.run(canonicalJson(row), options.author ?? 'unknown', createdAt);
-    })
-    .immediate();
+    },
+    { what: 'the band-assignment rows' },
+  );
   return checked;
 }

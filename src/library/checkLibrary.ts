@@ -40,7 +40,13 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
   const problems: CheckProblem[] = [];
   const add = (where: string, problem: string) => problems.push({ where, problem });
 
-  const integrity = db.prepare('PRAGMA integrity_check').pluck().all() as string[];
+  let integrity: string[];
+  try {
+    integrity = db.prepare('PRAGMA integrity_check').pluck().all() as string[];
+  } catch (error) {
+    add('database', `integrity check could not run: ${message(error)}`);
+    return problems;
+  }
   if (!(integrity.length === 1 && integrity[0] === 'ok')) {
     for (const line of integrity.slice(0, 20)) add('database', `integrity check: ${line}`);
     // A damaged file can make every further read misleading; report what SQLite says and stop.

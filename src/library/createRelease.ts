@@ -3,6 +3,7 @@ import { BandshelfError } from '../error.js';
 import { readRelease } from './readRelease.js';
 import { stateSelect } from './stateSelect.js';
 import type { Library, Release } from './types.js';
+import { writeTransaction } from './writeTransaction.js';
 
 export interface CreateReleaseOptions {
   /** @default '' */
@@ -29,34 +30,37 @@ export function createRelease(library: Library, tag: string, options: CreateRele
     );
   }
   const db = library.db;
-  const write = db.transaction(() => {
-    if (db.prepare('SELECT 1 FROM releases WHERE tag = ?').get(tag) !== undefined) {
-      throw new BandshelfError('ALREADY_EXISTS', `release '${tag}' already exists; releases never change`, {
-        field: 'tag',
-      });
-    }
-    const current = stateSelect(library, 'r.entry_id, r.key', {});
-    let members = db.prepare(current.sql).all() as { entry_id: string; key: number }[];
-    if (options.reviewedOnly) {
-      const newestReviewed = db.prepare(
-        `SELECT r.key FROM revisions r WHERE r.entry_id = ? AND r.kind != 'retire' AND
+  writeTransaction(
+    library,
+    () => {
+      if (db.prepare('SELECT 1 FROM releases WHERE tag = ?').get(tag) !== undefined) {
+        throw new BandshelfError('ALREADY_EXISTS', `release '${tag}' already exists; releases never change`, {
+          field: 'tag',
+        });
+      }
+      const current = stateSelect(library, 'r.entry_id, r.key', {});
+      let members = db.prepare(current.sql).all() as { entry_id: string; key: number }[];
+      if (options.reviewedOnly) {
+        const newestReviewed = db.prepare(
+          `SELECT r.key FROM revisions r WHERE r.entry_id = ? AND r.kind != 'retire' AND
           (SELECT v.state FROM reviews v WHERE v.revision_key = r.key ORDER BY v.key DESC LIMIT 1) = 'reviewed'
          ORDER BY r.revision DESC LIMIT 1`,
+        );
+        members = members.flatMap((m) => {
+          const key = newestReviewed.pluck().get(m.entry_id) as number | undefined;
+          return key === undefined ? [] : [{ entry_id: m.entry_id, key }];
+        });
+      }
+      db.prepare('INSERT INTO releases (tag, created_at, message, reviewed_only) VALUES (?, ?, ?, ?)').run(
+        tag,
+        (options.now ?? new Date()).toISOString(),
+        options.message ?? '',
+        options.reviewedOnly ? 1 : 0,
       );
-      members = members.flatMap((m) => {
-        const key = newestReviewed.pluck().get(m.entry_id) as number | undefined;
-        return key === undefined ? [] : [{ entry_id: m.entry_id, key }];
-      });
-    }
-    db.prepare('INSERT INTO releases (tag, created_at, message, reviewed_only) VALUES (?, ?, ?, ?)').run(
-      tag,
-      (options.now ?? new Date()).toISOString(),
-      options.message ?? '',
-      options.reviewedOnly ? 1 : 0,
-    );
-    const insert = db.prepare('INSERT INTO release_members (tag, entry_id, revision_key) VALUES (?, ?, ?)');
-    for (const m of members) insert.run(tag, m.entry_id, m.key);
-  });
-  write.immediate();
+      const insert = db.prepare('INSERT INTO release_members (tag, entry_id, revision_key) VALUES (?, ?, ?)');
+      for (const m of members) insert.run(tag, m.entry_id, m.key);
+    },
+    { what: `release '${tag}'` },
+  );
   return readRelease(library, tag);
 }

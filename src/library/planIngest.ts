@@ -223,6 +223,9 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
       continue;
     }
     if (sidecar.timeDomain === undefined) {
+      const twinExists = candidates.some((d) => !isSidecarName(d.abs) && sidecarNameFor(d.abs) === c.abs);
+      if (!twinExists && !c.explicit)
+        warnings.push(`${label}: no spectrum file bandshelf reads sits beside this sidecar; skipped`);
       if (c.explicit) {
         jobs.push({
           label,

@@ -2,6 +2,7 @@
 import { BandshelfError } from '../error.js';
 import { headRevision } from './headRevision.js';
 import type { Library, ReviewRecord } from './types.js';
+import { writeTransaction } from './writeTransaction.js';
 
 export interface ReviewRevisionOptions {
   /** @default 'reviewed' */
@@ -31,28 +32,33 @@ export function reviewRevision(
   if (reviewer === '') {
     throw new BandshelfError('BAD_OPTION', 'a review needs a reviewer name', { field: 'reviewer' });
   }
-  const write = library.db.transaction((): ReviewOutcome => {
-    const head = headRevision(library, id);
-    if (head === undefined)
-      throw new BandshelfError('NOT_FOUND', `no entry '${id}' in the library`, { field: 'id' });
-    if (head.kind === 'retire') {
-      throw new BandshelfError('NOT_FOUND', `entry '${id}' is retired; there is nothing to review`, {
-        field: 'id',
-      });
-    }
-    if (reviewer === head.author && !options.force) {
-      throw new BandshelfError(
-        'BAD_OPTION',
-        `'${reviewer}' made revision ${head.revision} of '${id}'; a second person must review it (or add --force)`,
-        { field: 'reviewer' },
-      );
-    }
-    const createdAt = (options.now ?? new Date()).toISOString();
-    const note = options.note ?? '';
-    library.db
-      .prepare('INSERT INTO reviews (revision_key, state, reviewer, note, created_at) VALUES (?, ?, ?, ?, ?)')
-      .run(head.key, state, reviewer, note, createdAt);
-    return { id, revision: head.revision, state, reviewer, note, createdAt };
-  });
-  return write.immediate();
+  return writeTransaction(
+    library,
+    (): ReviewOutcome => {
+      const head = headRevision(library, id);
+      if (head === undefined)
+        throw new BandshelfError('NOT_FOUND', `no entry '${id}' in the library`, { field: 'id' });
+      if (head.kind === 'retire') {
+        throw new BandshelfError('NOT_FOUND', `entry '${id}' is retired; there is nothing to review`, {
+          field: 'id',
+        });
+      }
+      if (reviewer === head.author && !options.force) {
+        throw new BandshelfError(
+          'BAD_OPTION',
+          `'${reviewer}' made revision ${head.revision} of '${id}'; a second person must review it (or add --force)`,
+          { field: 'reviewer' },
+        );
+      }
+      const createdAt = (options.now ?? new Date()).toISOString();
+      const note = options.note ?? '';
+      library.db
+        .prepare(
+          'INSERT INTO reviews (revision_key, state, reviewer, note, created_at) VALUES (?, ?, ?, ?, ?)',
+        )
+        .run(head.key, state, reviewer, note, createdAt);
+      return { id, revision: head.revision, state, reviewer, note, createdAt };
+    },
+    { what: 'the review' },
+  );
 }

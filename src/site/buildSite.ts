@@ -10,6 +10,7 @@ import { encodeSearchMatrix } from './encodeSearchMatrix.js';
 import { entryJson } from './entryJson.js';
 import { entryPage } from './entryPage.js';
 import { findPackageRoot } from './findPackageRoot.js';
+import { float32Bytes } from './float32Bytes.js';
 import { jsonForScript } from './jsonForScript.js';
 import { BUILD_MANIFEST, prepareOutDir } from './prepareOutDir.js';
 import { reportPage } from './reportPage.js';
@@ -148,7 +149,6 @@ async function writeSite(
   where: { out: string; root: string; templates: string; pathPrefix: string },
 ): Promise<BuiltSite> {
   const { out, root, templates, pathPrefix } = where;
-  const T0 = performance.now(); const tick = (l: string) => process.stderr.write(`${l} ${(performance.now() - T0).toFixed(0)}\n`);
   const made = new Set<string>();
   const write = (path: string, content: string | Uint8Array): number => {
     const full = join(out, path);
@@ -161,7 +161,6 @@ async function writeSite(
     return typeof content === 'string' ? Buffer.byteLength(content) : content.byteLength;
   };
 
-  tick('prepared');
   const taken = new Set<string>();
   const slugs = new Map(source.entries.map((e) => [e.id, slugFor(e.id, taken)]));
   const entryPages: EntryPage[] = [];
@@ -171,8 +170,9 @@ async function writeSite(
     const slug = slugs.get(summary.id)!;
     const detail = source.loadEntry(summary.id);
     const folder = `entries/${slug}/`;
-    const dataBytes = write(`${folder}${slug}.json`, entryJson(detail, { caution: options.caution }));
-    entryPages.push(entryPage(detail, { assignments: source.assignments, dataBytes, slug }));
+    const processedBytes = write(`${folder}${slug}.processed.f32`, float32Bytes(detail.processed));
+    const dataBytes = write(`${folder}${slug}.json`, entryJson(detail, { processedFile: `${slug}.processed.f32` }));
+    entryPages.push(entryPage(detail, { assignments: source.assignments, dataBytes, processedBytes, slug }));
     searchEntries.push({
       summary: detail.summary,
       path: folder,
@@ -181,7 +181,6 @@ async function writeSite(
     options.progress?.(i + 1, total, summary.id);
   }
 
-  tick('entries');
   const summaries = new Map(source.entries.map((e) => [e.id, e]));
   write('assets/search-index.json', buildSearchIndex(searchEntries, { assignments: source.assignments }));
   write('assets/search-matrix.bin', encodeSearchMatrix(source.matrix));
@@ -215,7 +214,6 @@ async function writeSite(
     })}\n`,
   );
 
-  tick('index+matrix');
   const rowOf = new Map(source.matrix.ids.map((id, i) => [id, i]));
   const vector = (id: string, revision: number): Float32Array | undefined => {
     const row = rowOf.get(id);
@@ -234,7 +232,6 @@ async function writeSite(
     caution: options.caution,
   });
 
-  tick('view');
   const { Eleventy } = await import('@11ty/eleventy');
   const eleventy = new Eleventy(templates, out, {
     quietMode: true,
@@ -250,10 +247,8 @@ async function writeSite(
   } catch (error) {
     throw unwrapError(error);
   }
-  tick('eleventy');
   copySiteAssets(root, out);
 
   const { files, bytes } = writeManifest(out);
-  tick('hash');
   return { out, files, bytes, entries: total, reports: reportPages.length, pathPrefix };
 }

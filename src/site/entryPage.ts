@@ -2,6 +2,7 @@
 import { assignmentsAt } from './assignmentsAt.js';
 import { formatNumber } from './formatNumber.js';
 import { metaRows } from './metaRows.js';
+import { recipeRows } from './recipeRows.js';
 import { releaseAnchor } from './releaseAnchor.js';
 import { techniqueLabel } from './techniqueLabel.js';
 import type { EntryPage, SiteAssignment, SiteEntryDetail, SiteRow } from './types.js';
@@ -16,6 +17,9 @@ export interface EntryPageOptions {
   /** Size of the JSON download already written, bytes.
    * @default 0 */
   dataBytes?: number;
+  /** Size of the processed-vector file already written, bytes.
+   * @default 0 */
+  processedBytes?: number;
   /** The site path segment of the entry's folder.
    * @default the entry id */
   slug?: string;
@@ -123,10 +127,15 @@ export function entryPage(detail: SiteEntryDetail, options: EntryPageOptions = {
       .map(([tag, revision]) => ({ tag, revision, anchor: releaseAnchor(tag) }))
       .sort((a, b) => a.revision - b.revision || a.tag.localeCompare(b.tag, 'en')),
     dataFile: { file: `${slug}.json`, bytes: options.dataBytes ?? 0, size: byteSize(options.dataBytes ?? 0) },
+    processedFile: {
+      file: `${slug}.processed.f32`,
+      bytes: options.processedBytes ?? 0,
+      size: byteSize(options.processedBytes ?? 0),
+    },
     derived: [
       { format: 'csv', label: 'CSV', file: `${slug}.csv` },
       { format: 'jcamp-dx', label: 'JCAMP-DX', file: `${slug}.jdx` },
     ],
-    recipe: JSON.stringify(detail.recipe, null, 2),
+    recipe: recipeRows(detail.recipe),
   };
 }

@@ -1,5 +1,6 @@
 // What an entry page's plot draws, made from the entry's JSON download in the browser (browser-safe).
 import { gridAxis } from '../spectrum/gridAxis.js';
+import { gridLength } from '../spectrum/gridLength.js';
 import { plotTrace } from './plotTrace.js';
 import type { EntryDocument, EntryPlotData } from './types.js';
 
@@ -17,15 +18,23 @@ function normaliseLabel(method: string): string {
   return 'processed';
 }
 
-/** The page fetches the full data once (the JSON download) and thins it here, so the plot stays light. */
-export function entryPlotData(document: EntryDocument, options: EntryPlotDataOptions = {}): EntryPlotData {
+/**
+ * The page fetches the full data once (the JSON download and the processed float32 file) and thins it here, so
+ * the plot stays light.
+ */
+export function entryPlotData(
+  document: EntryDocument,
+  processedVector: Float32Array | Float64Array | null,
+  options: EntryPlotDataOptions = {},
+): EntryPlotData {
   const maxPoints = options.maxPoints ?? 1200;
   const x = Float64Array.from(document.original.x);
   const y = Float64Array.from(document.original.y);
-  const processed = Float64Array.from(document.processed, (v) => (v === null ? Number.NaN : v));
+  const processed = processedVector ? Float64Array.from(processedVector) : new Float64Array(0);
   return {
     original: plotTrace(x, y, { maxPoints }),
-    processed: plotTrace(gridAxis(document.grid), processed, { maxPoints }),
+    processed:
+      processed.length === gridLength(document.grid) ? plotTrace(gridAxis(document.grid), processed, { maxPoints }) : null,
     originalLabel: 'absorbance (original)',
     processedLabel: normaliseLabel(document.recipe.normalise.method),
     originalPoints: x.length,

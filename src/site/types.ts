@@ -182,11 +182,14 @@ export interface EntryPage {
     shown: boolean;
   }[];
   releases: { tag: string; revision: number; anchor: string }[];
-  /** The JSON download (static, full data). */
+  /** The JSON download (static: metadata, the original data, peaks, QC, recipe). */
   dataFile: { file: string; bytes: number; size: string };
+  /** The processed vector as little-endian float32 (static), exactly as stored. */
+  processedFile: { file: string; bytes: number; size: string };
   /** Formats the page derives from the JSON in the browser with the project's writers, on request. */
   derived: { format: 'csv' | 'jcamp-dx'; label: string; file: string }[];
-  recipe: string;
+  /** The processing recipe, step by step. */
+  recipe: SiteRow[];
 }
 
 /** The JSON download of an entry (`entries/<id>/<id>.json`): the shape of `bandshelf show ID --json`. */
@@ -201,13 +204,15 @@ export interface EntryDocument {
   recipe: Recipe;
   /** The parsed original spectrum: cm⁻¹ ascending, absorbance; every point. */
   original: { x: number[]; y: number[] };
-  /** gridLength(grid) values, ascending wavenumber, null where not covered. */
-  processed: (number | null)[];
+  /**
+   * The processed vector lives beside the JSON as raw little-endian float32 (gridLength(grid) values, ascending
+   * wavenumber, NaN where not covered): exactly the stored values in a quarter of the bytes of JSON text.
+   */
+  processed: { file: string; format: 'float32le'; length: number };
   peaks: Peak[];
   qc: QcFlag[];
   extras: Record<string, unknown>;
   files: { role: string; name: string; sha256: string; size: number }[];
-  caution?: string;
 }
 
 export interface BrowseRow {

@@ -63,7 +63,27 @@ describe('openLibrary / initLibrary', () => {
     const path = join(tempDir(), 'lib.sqlite');
     closeLibrary(initLibrary(path));
     const ro = openLibrary(path, { readonly: true });
-    expect(() => addEntry(ro, 'x', [{ position: 1650, height: 0.5, fwhm: 20 }])).toThrow(/readonly/i);
+    expect(codeOf(() => addEntry(ro, 'x', [{ position: 1650, height: 0.5, fwhm: 20 }]))).toBe('IO_ERROR');
     closeLibrary(ro);
+  });
+
+  it('a writer that cannot get the lock within the busy timeout fails with one clear error, writing nothing', () => {
+    const path = join(tempDir(), 'lib.sqlite');
+    closeLibrary(initLibrary(path));
+    const holder = new Database(path);
+    holder.exec('BEGIN IMMEDIATE');
+    const library = openLibrary(path, { busyTimeoutMs: 50 });
+    try {
+      addEntry(library, 'x', [{ position: 1650, height: 0.5, fwhm: 20 }]);
+      expect.unreachable();
+    } catch (error) {
+      expect(error).toBeInstanceOf(BandshelfError);
+      expect((error as BandshelfError).code).toBe('IO_ERROR');
+      expect((error as BandshelfError).message).toContain('SQLITE_BUSY');
+    }
+    holder.exec('ROLLBACK');
+    holder.close();
+    expect(library.db.prepare('SELECT count(*) FROM revisions').pluck().get()).toBe(0);
+    closeLibrary(library);
   });
 });

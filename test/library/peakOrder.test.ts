@@ -15,7 +15,8 @@ describe('peakOrder', () => {
     for (let i = 0; i < n; i++) {
       const r = rng.uniform();
       // A third exact repeats of a few values, a third within 1e-7 cm⁻¹ of them, a third anywhere on the grid.
-      position[i] = r < 0.33 ? 1652 : r < 0.66 ? 1652 + (rng.uniform() - 0.5) * 1e-7 : 600 + 3400 * rng.uniform();
+      position[i] =
+        r < 0.33 ? 1652 : r < 0.66 ? 1652 + (rng.uniform() - 0.5) * 1e-7 : 600 + 3400 * rng.uniform();
     }
     expect(Array.from(peakOrder(position))).toEqual(reference(position));
   });

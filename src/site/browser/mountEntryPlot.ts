@@ -1,5 +1,5 @@
-// Wires an entry page: fetches the entry's JSON download once, draws the thinned plot, redraws when a trace is
-// toggled or the zoom reset, and makes the CSV and JCAMP-DX downloads from the same data on request.
+// Wires an entry page: fetches the entry's JSON download and processed vector once, draws the thinned plot, redraws
+// when a trace is toggled or the zoom reset, and makes the CSV and JCAMP-DX downloads from the same data on request.
 import type { Result } from 'vega-embed';
 import { entryPlotData } from '../entryPlotData.js';
 import type { EntryDocument } from '../types.js';
@@ -36,6 +36,19 @@ export function mountEntryPlot(doc: Document, options: MountEntryPlotOptions = {
     if (!r.ok) throw new Error(`${url}: HTTP ${r.status}`);
     return r.json() as Promise<EntryDocument>;
   });
+  // The processed vector sits beside the JSON as little-endian float32; a missing one only hides that trace.
+  const processed: Promise<Float32Array | null> = entry.then((document) =>
+    fetch(new URL(document.processed.file, new URL(url, doc.baseURI)).href)
+      .then((r) => (r.ok ? r.arrayBuffer() : null))
+      .then((buffer) => {
+        if (!buffer || buffer.byteLength !== document.processed.length * 4) return null;
+        const view = new DataView(buffer);
+        const values = new Float32Array(document.processed.length);
+        for (let i = 0; i < values.length; i++) values[i] = view.getFloat32(i * 4, true);
+        return values;
+      })
+      .catch(() => null),
+  );
 
   for (const button of buttons) {
     button.disabled = false;
@@ -52,9 +65,9 @@ export function mountEntryPlot(doc: Document, options: MountEntryPlotOptions = {
     });
   }
 
-  entry
-    .then((document) => {
-      const data = entryPlotData(document);
+  Promise.all([entry, processed])
+    .then(([document, vector]) => {
+      const data = entryPlotData(document, vector);
       // A trace with no data cannot be toggled on.
       for (const box of boxes) {
         if ((box.value === 'original' && !data.original) || (box.value === 'processed' && !data.processed)) {

@@ -33,14 +33,24 @@ describe('bandshelf assignments', () => {
     writeFileSync(
       bad,
       JSON.stringify([
-        { min: 1000, max: 1010, label: 'x', vibration: 'y', group: 'z', class: ['other'], source: 'Lab notes 2026' },
+        {
+          min: 1000,
+          max: 1010,
+          label: 'x',
+          vibration: 'y',
+          group: 'z',
+          class: ['other'],
+          source: 'Lab notes 2026',
+        },
         { min: 1650, max: 1660, label: 'no source', vibration: 'v', group: 'g', class: ['protein'] },
       ]),
     );
     const refused = bandshelf(['assignments', '--add', bad, ...lib]);
     expect(refused.code).toBe(1);
     expect(refused.stderr.trim()).toMatch(/^bandshelf: .*bad\.json: row 2\.source: .*\[BAD_METADATA\]$/);
-    const rows = parseJson<{ label: string; origin: string; basis: string }[]>(bandshelf(['assignments', ...lib, '--json']).stdout);
+    const rows = parseJson<{ label: string; origin: string; basis: string }[]>(
+      bandshelf(['assignments', ...lib, '--json']).stdout,
+    );
     expect(rows.map((a) => [a.label, a.origin, a.basis])).toEqual([['ester C=O', 'lab', 'lab']]);
     expect(bandshelf(['check', ...lib]).code).toBe(0);
   });
