@@ -10,6 +10,7 @@ const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 /** Node entry points: name in dist/ → source. Missing sources are skipped so a partial tree still builds. */
 const nodeEntries = {
   bandshelf: 'src/cli/main.ts',
+  index: 'src/index.ts',
   demo: 'src/cli/demo.ts',
   'demo-data': 'src/cli/writeDemoData.ts',
   schema: 'src/cli/writeSchemas.ts',

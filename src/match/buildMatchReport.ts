@@ -66,9 +66,11 @@ function gridVector(values: ArrayLike<number>): (number | null)[] {
 
 /**
  * Our own reading of how far the best hit stands out (correlation metrics; euclidean distances are read through
- * cos = 1 − d²/2): weak when the best score is below 0.90 or less than 2 SD above the library's mean; distinct when
- * it leads the next hit by at least 0.02 and stands 3 SD or more above the mean; ambiguous otherwise. The SD tests
- * apply from 20 entries on: in a smaller library even a perfect hit cannot stand 3 SD out.
+ * cos = 1 − d²/2): weak when the best score is below 0.90, or when it is neither 1.5 SD above the library's mean nor
+ * 0.02 ahead of the next hit; distinct when it leads the next hit by at least 0.02 and either stands 3 SD or more above
+ * the mean or scores 0.98 or more with a lead of 0.05 (a library full of one family, such as proteins, keeps the SD of
+ * the scores small and the z of a near-perfect hit low); ambiguous otherwise. The SD tests apply from 20 entries on: in
+ * a smaller library even a perfect hit cannot stand 3 SD out.
  */
 function standingOf(metric: Metric, hits: readonly Hit[], entries: number): MatchReport['standing'] {
   const best = hits[0];
@@ -83,11 +85,11 @@ function standingOf(metric: Metric, hits: readonly Hit[], entries: number): Matc
     best.z === null ? 'no spread to compare with' : `${best.z.toFixed(1)} SD above the library mean`;
   const gapText = Number.isFinite(gap) ? `leads the next by ${gap.toFixed(3)}` : 'has no runner-up';
   const head = `best hit '${best.id}' (${metric} ${best.score.toFixed(3)}) ${gapText}, ${zText}`;
-  if (s < 0.9 || (z !== null && z < 2)) {
+  const clearGap = !Number.isFinite(gap) || gap >= 0.02;
+  if (s < 0.9 || (z !== null && z < 1.5 && !clearGap)) {
     return { metric, verdict: 'weak', text: `${head}: a weak match; treat every hit as a guess` };
   }
-  const clearGap = !Number.isFinite(gap) || gap >= 0.02;
-  if (clearGap && (z === null || z >= 3)) {
+  if (clearGap && (z === null || z >= 3 || (s >= 0.98 && gap >= 0.05))) {
     return { metric, verdict: 'distinct', text: `${head}: stands out from the rest` };
   }
   return {

@@ -50,6 +50,20 @@ export function jsScoreKernels(
         m[(out >>> 2) + r] = acc * m[(scale >>> 2) + r]! * queryScale;
       }
     },
+    dotI8Batch(r0, r1, mat, stride, queries, nq, scale, queryScale, out, outStride) {
+      const m = f32();
+      const i8 = new Int8Array(memory.buffer);
+      const i16 = new Int16Array(memory.buffer);
+      for (let r = r0; r < r1; r++) {
+        const base = mat + r * stride;
+        for (let q = 0; q < nq; q++) {
+          const vec = (queries >>> 1) + q * stride;
+          let acc = 0;
+          for (let i = 0; i < stride; i++) acc += i8[base + i]! * i16[vec + i]!;
+          m[(out >>> 2) + q * outStride + r] = acc * m[(scale >>> 2) + r]! * m[(queryScale >>> 2) + q]!;
+        }
+      }
+    },
     sumF32(r0, r1, mat, stride, out) {
       const m = f32();
       for (let r = r0; r < r1; r++) {

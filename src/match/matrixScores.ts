@@ -14,8 +14,8 @@ export interface MatrixScoresOptions {
    */
   runner?: KernelRunner;
   /**
-   * `int8` scans the int8 copy for a single query (when the matrix has one) and rescores exactly; `exact` scans
-   * the float32 rows. Query blocks always take the exact blocked kernel.
+   * `int8` scans the int8 copy (when the matrix has one; single queries and blocks alike) and rescores exactly;
+   * `exact` scans the float32 rows.
    * @default 'exact'
    */
   precision?: 'exact' | 'int8';
@@ -34,7 +34,7 @@ export interface MatrixScoresOptions {
 export interface MatrixScores {
   /** One float32 score per row (the dot product of prepared vectors); meaningful for `full` rows only. */
   scores: Float32Array;
-  path: 'exact' | 'exact-batch' | 'int8+exact';
+  path: 'exact' | 'exact-batch' | 'int8+exact' | 'int8+exact-batch';
   /** Rows rescored in float32 after the int8 scan. */
   rescored: number;
 }
@@ -72,25 +72,52 @@ export function matrixScores(
   const runner = options.runner ?? defaultRunner(matrix.memory);
   const { layout } = matrix;
   const { rows, stride } = layout;
+  const int8 = options.precision === 'int8' && layout.i8 >= 0;
   const results: MatrixScores[] = [];
-  if (queries.length === 1 && options.precision === 'int8' && layout.i8 >= 0) {
-    results.push(int8Scores(matrix, queries[0]!, runner, options));
-    return results;
-  }
-  if (queries.length === 1) {
-    writeQuery(matrix, 0, queries[0]!);
-    runner.run('dotF32', rows, [layout.f32, stride, layout.queries, layout.scores]);
-    results.push({ scores: readPlane(matrix, 0), path: 'exact', rescored: 0 });
-    return results;
-  }
   for (let first = 0; first < queries.length; first += layout.batch) {
     const block = queries.slice(first, first + layout.batch);
-    // The batch kernel takes queries four at a time; pad the block with zero queries.
+    if (block.length === 1) {
+      writeQuery(matrix, 0, block[0]!);
+      if (int8) {
+        const { norm, error, scale } = quantiseQuery(matrix, 0, block[0]!);
+        runner.run('dotI8', rows, [layout.i8, stride, layout.query16, layout.int8Scale, scale, layout.scores]);
+        results.push(rescore(matrix, runner, readPlane(matrix, 0), 0, norm, error, options, 'int8+exact'));
+      } else {
+        runner.run('dotF32', rows, [layout.f32, stride, layout.queries, layout.scores]);
+        results.push({ scores: readPlane(matrix, 0), path: 'exact', rescored: 0 });
+      }
+      continue;
+    }
+    // The batch kernels take queries four at a time; pad the block with zero queries.
     const padded = Math.ceil(block.length / 4) * 4;
     for (let q = 0; q < padded; q++) writeQuery(matrix, q, block[q] ?? null);
-    runner.run('dotF32Batch', rows, [layout.f32, stride, layout.queries, padded, layout.scores, rows]);
-    for (let q = 0; q < block.length; q++) {
-      results.push({ scores: readPlane(matrix, q), path: 'exact-batch', rescored: 0 });
+    if (int8) {
+      const quantised = Array.from({ length: padded }, (_, q) => quantiseQuery(matrix, q, block[q] ?? null));
+      const scales = new Float32Array(matrix.memory.buffer, layout.queryScales, padded);
+      quantised.forEach((x, q) => {
+        scales[q] = x.scale;
+      });
+      runner.run('dotI8Batch', rows, [
+        layout.i8,
+        stride,
+        layout.query16,
+        padded,
+        layout.int8Scale,
+        layout.queryScales,
+        layout.scores,
+        rows,
+      ]);
+      // Copy every plane out before rescoring, which reuses the scratch.
+      const planes = block.map((_, q) => readPlane(matrix, q));
+      for (let q = 0; q < block.length; q++) {
+        const x = quantised[q]!;
+        results.push(rescore(matrix, runner, planes[q]!, q, x.norm, x.error, options, 'int8+exact-batch'));
+      }
+    } else {
+      runner.run('dotF32Batch', rows, [layout.f32, stride, layout.queries, padded, layout.scores, rows]);
+      for (let q = 0; q < block.length; q++) {
+        results.push({ scores: readPlane(matrix, q), path: 'exact-batch', rescored: 0 });
+      }
     }
   }
   return results;
@@ -108,36 +135,56 @@ function readPlane(matrix: SearchMatrix, plane: number): Float32Array {
   return new Float32Array(matrix.memory.buffer, scores + plane * rows * 4, rows).slice();
 }
 
-function int8Scores(
+/**
+ * Writes the int16 copy of a query into its slot and returns its scale, its norm and the norm of its rounding
+ * error. An int32 lane of the batch kernel sums stride/4 products of |int8| ≤ 127 and |int16| ≤ qmax (the
+ * single-query kernel fewer), which bounds qmax.
+ */
+function quantiseQuery(
   matrix: SearchMatrix,
-  query: Float32Array,
+  slot: number,
+  query: Float32Array | null,
+): { scale: number; norm: number; error: number } {
+  const { stride } = matrix.layout;
+  const q16 = new Int16Array(matrix.memory.buffer, matrix.layout.query16 + slot * stride * 2, stride);
+  if (query === null) {
+    q16.fill(0);
+    return { scale: 0, norm: 0, error: 0 };
+  }
+  const qmax = Math.min(32767, Math.floor((2 ** 31 - 1) / ((127 * stride) / 4)));
+  let peak = 0;
+  for (let i = 0; i < stride; i++) peak = Math.max(peak, Math.abs(query[i] ?? 0));
+  const scale = Math.fround(peak > 0 ? peak / qmax : 1);
+  let norm2 = 0;
+  let error2 = 0;
+  for (let i = 0; i < stride; i++) {
+    const x = query[i] ?? 0;
+    const q = Math.max(-qmax, Math.min(qmax, Math.round(x / scale)));
+    q16[i] = q;
+    norm2 += x * x;
+    error2 += (x - q * scale) ** 2;
+  }
+  return { scale, norm: Math.sqrt(norm2), error: Math.sqrt(error2) };
+}
+
+/**
+ * Turns int8 estimates into scores whose top `exactTop` are exact: every full row whose upper bound reaches the
+ * exactTop-th best lower bound is rescored in float32 against the query in float32 slot `slot`.
+ */
+function rescore(
+  matrix: SearchMatrix,
   runner: KernelRunner,
+  scores: Float32Array,
+  slot: number,
+  xNorm: number,
+  xErr: number,
   options: MatrixScoresOptions,
+  path: 'int8+exact' | 'int8+exact-batch',
 ): MatrixScores {
   const { layout } = matrix;
   const { rows, stride } = layout;
   const buffer = matrix.memory.buffer;
-  writeQuery(matrix, 0, query);
-  // Each int32 lane of the kernel sums stride/16 products of |int8| ≤ 127 and |int16| ≤ qmax; keep it in range
-  // with a factor 2 to spare.
-  const qmax = Math.min(32767, Math.floor((2 ** 31 - 1) / ((127 * stride) / 8)));
-  let peak = 0;
-  for (let i = 0; i < stride; i++) peak = Math.max(peak, Math.abs(query[i] ?? 0));
-  const queryScale = Math.fround(peak > 0 ? peak / qmax : 1);
-  const q16 = new Int16Array(buffer, layout.query16, stride);
-  let xNorm2 = 0;
-  let xErr2 = 0;
-  for (let i = 0; i < stride; i++) {
-    const x = query[i] ?? 0;
-    const q = Math.max(-qmax, Math.min(qmax, Math.round(x / queryScale)));
-    q16[i] = q;
-    xNorm2 += x * x;
-    xErr2 += (x - q * queryScale) ** 2;
-  }
-  const xNorm = Math.sqrt(xNorm2);
-  const xErr = Math.sqrt(xErr2);
-  runner.run('dotI8', rows, [layout.i8, stride, layout.query16, layout.int8Scale, queryScale, layout.scores]);
-  const scores = readPlane(matrix, 0);
+  const vector = layout.queries + slot * stride * 4;
   const status = new Uint8Array(buffer, layout.status, rows);
   const rowError = new Float32Array(buffer, layout.int8Error, rows);
   const rowNorm = new Float32Array(buffer, layout.int8Norm, rows);
@@ -159,11 +206,11 @@ function int8Scores(
     if (status[r] === rowStatus.full && scores[r]! + bound[r]! >= threshold) list[count++] = r;
   }
   if (count > (options.maxRescoreFraction ?? 0.25) * rows) {
-    runner.run('dotF32', rows, [layout.f32, stride, layout.queries, layout.scores]);
+    runner.run('dotF32', rows, [layout.f32, stride, vector, layout.scores]);
     return { scores: readPlane(matrix, 0), path: 'exact', rescored: 0 };
   }
-  runner.run('dotF32Rows', count, [layout.f32, stride, layout.queries, layout.rowList, layout.rowScores]);
+  runner.run('dotF32Rows', count, [layout.f32, stride, vector, layout.rowList, layout.rowScores]);
   const exact = new Float32Array(buffer, layout.rowScores, count);
   for (let j = 0; j < count; j++) scores[list[j]!] = exact[j]!;
-  return { scores, path: 'int8+exact', rescored: count };
+  return { scores, path, rescored: count };
 }

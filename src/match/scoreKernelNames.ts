@@ -6,5 +6,6 @@ export const scoreKernelNames: readonly KernelName[] = [
   'dotF32Rows',
   'dotF32Batch',
   'dotI8',
+  'dotI8Batch',
   'sumF32',
 ];

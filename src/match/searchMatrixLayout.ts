@@ -31,7 +31,8 @@ export function searchMatrixLayout(
   // Offset 0 stays unused so a zero pointer never aliases real data.
   const queries = 64;
   const query16 = align(queries + batch * stride * 4);
-  const scores = align(query16 + stride * 2);
+  const queryScales = align(query16 + batch * stride * 2);
+  const scores = align(queryScales + batch * 4);
   const rowList = align(scores + batch * rows * 4);
   const rowScores = align(rowList + rows * 4);
   // The cached region starts on a page boundary so a cache file maps onto it in whole pages.
@@ -51,6 +52,7 @@ export function searchMatrixLayout(
     batch,
     queries,
     query16,
+    queryScales,
     scores,
     rowList,
     rowScores,

@@ -72,7 +72,7 @@ export interface QuerySummary {
   /** Rows left out: overlap below `minOverlap`, or flat / empty over the mask. */
   dropped: number;
   /** How the full rows were scored. */
-  path: 'exact' | 'exact-batch' | 'int8+exact';
+  path: 'exact' | 'exact-batch' | 'int8+exact' | 'int8+exact-batch';
   /** Full rows rescored exactly after a reduced-precision scan (0 on the exact paths). */
   rescored: number;
   /** Mean and standard deviation of rawScore over every scored row (the z-score basis). */
@@ -81,7 +81,7 @@ export interface QuerySummary {
 }
 
 /** Names of the score kernels; each takes a half-open range [r0, r1) as its first two arguments. */
-export type KernelName = 'dotF32' | 'dotF32Rows' | 'dotF32Batch' | 'dotI8' | 'sumF32';
+export type KernelName = 'dotF32' | 'dotF32Rows' | 'dotF32Batch' | 'dotI8' | 'dotI8Batch' | 'sumF32';
 
 /**
  * The score kernels over one memory. Pointers are byte offsets into that memory; rows are `stride` elements,
@@ -122,6 +122,19 @@ export interface ScoreKernels {
     queryScale: number,
     out: number,
   ): void;
+  /** out[q · outStride + r] = scale[r] · queryScale[q] · Σ mat8[r, i] · q16[q, i]; nq a multiple of 4. */
+  dotI8Batch(
+    r0: number,
+    r1: number,
+    mat: number,
+    stride: number,
+    queries: number,
+    nq: number,
+    scale: number,
+    queryScale: number,
+    out: number,
+    outStride: number,
+  ): void;
   /** out[r] = Σ mat[r, i]: a plain read of the rows (the memory-bandwidth floor). */
   sumF32(r0: number, r1: number, mat: number, stride: number, out: number): void;
 }
@@ -149,9 +162,10 @@ export interface SearchMatrixLayout {
   stride: number;
   /** Largest query block the scratch area holds. */
   batch: number;
-  /** Scratch (never cached): the query block (float32), the int16 query, the score planes, row lists. */
+  /** Scratch (never cached): the query block (float32), its int16 copy and scales, the score planes, row lists. */
   queries: number;
   query16: number;
+  queryScales: number;
   scores: number;
   rowList: number;
   rowScores: number;

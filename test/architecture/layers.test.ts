@@ -18,6 +18,7 @@ const RANK: Record<string, number> = {
   site: 5,
   cli: 6,
   demo: 6,
+  'index.ts': 7,
 };
 
 function walk(dir: string): string[] {

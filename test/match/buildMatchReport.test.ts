@@ -71,7 +71,14 @@ describe('buildMatchReport', () => {
       buildMatchReport(input([hit('a', 0.93, 4.9, 0.55), hit('b', 0.38, 2, 0.1)])).standing.verdict,
     ).toBe('distinct');
     expect(buildMatchReport(input([hit('a', 0.85, 4, 0.3)])).standing.verdict).toBe('weak');
-    expect(buildMatchReport(input([hit('a', 0.97, 1.5, 0.3)])).standing.verdict).toBe('weak');
+    // Neither 1.5 SD out nor 0.02 ahead: weak even at a high score.
+    expect(
+      buildMatchReport(input([hit('a', 0.95, 1.2, 0.005), hit('b', 0.945, 1.1, 0.1)])).standing.verdict,
+    ).toBe('weak');
+    // A near-perfect hit in a library of one family (low z) with a clear lead is still distinct.
+    expect(
+      buildMatchReport(input([hit('a', 0.9996, 1.98, 0.072), hit('b', 0.9277, 1.7, 0.1)])).standing.verdict,
+    ).toBe('distinct');
     // Under 20 entries the z-score cannot reach 3, so it is not used.
     expect(
       buildMatchReport(input([hit('a', 0.99, 1.9, 0.5), hit('b', 0.49, 0, null)], 6)).standing.verdict,

@@ -239,14 +239,18 @@ describe('matrix paths', () => {
     }
   });
 
-  it('a batch of queries equals the queries one by one', () => {
-    const batch = searchSpectra(set, queries, { precision: 'exact' });
-    const summaries: QuerySummary[] = [];
-    searchSpectra(set, queries.slice(0, 2), { onQuery: (_, s) => summaries.push(s) });
-    expect(summaries.map((s) => s.path)).toEqual(['exact-batch', 'exact-batch']);
+  it('a batch of queries equals the queries one by one (exact and int8 blocked kernels)', () => {
+    const exactPaths: string[] = [];
+    const batch = searchSpectra(set, queries, { precision: 'exact', onQuery: (_, s) => exactPaths.push(s.path) });
+    const fastPaths: string[] = [];
+    const fastBatch = searchSpectra(set, queries, { onQuery: (_, s) => fastPaths.push(s.path) });
+    expect(new Set(exactPaths)).toEqual(new Set(['exact-batch']));
+    expect(new Set(fastPaths)).toEqual(new Set(['int8+exact-batch']));
     for (const [q, query] of queries.entries()) {
       const single = searchSpectra(set, [query], { precision: 'exact' })[0]!;
       expect(batch[q]!.map((h) => h.id)).toEqual(single.map((h) => h.id));
+      // Rescored rows use the single-query kernel, so the int8 batch's hits are bit-identical to it.
+      expect(fastBatch[q]).toEqual(single.map((h) => ({ ...h, z: fastBatch[q]![single.indexOf(h)]!.z })));
       for (const [j, h] of batch[q]!.entries())
         expect(Math.abs(h.rawScore - single[j]!.rawScore)).toBeLessThan(1e-6);
     }

@@ -1,0 +1,231 @@
+// The `bandshelf site` build end to end with the real CLI: offline (nothing from another host), byte-identical
+// rebuilds, escaped metadata, the Content-Security-Policy, the path prefix, empty libraries, bad reports and
+// output folders holding other files.
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { bandshelf, parseJson, tempDir } from '../cli/bandshelfCli.js';
+import { buildTestLibrary, listFiles, type SiteFixture, TEST_ENTRIES, XSS_NAME } from './siteFixture.js';
+
+let fx: SiteFixture;
+let out: string;
+
+beforeAll(() => {
+  fx = buildTestLibrary();
+  out = join(fx.dir, 'site');
+  const r = bandshelf(['site', '--library', fx.library, '--reports', fx.reports, '--out', out]);
+  expect(r.code, r.stderr).toBe(0);
+});
+
+const html = () => listFiles(out).filter((f) => f.endsWith('.html'));
+const css = () => listFiles(out).filter((f) => f.endsWith('.css'));
+const read = (f: string) => readFileSync(join(out, f), 'utf8');
+
+describe('the built site', () => {
+  it('has every page the issue lists, entry pages under entries/<id>/', () => {
+    const files = listFiles(out);
+    for (const page of ['index.html', 'browse/index.html', 'search/index.html', 'match/index.html', 'bands/index.html', 'releases/index.html', 'reports/index.html']) {
+      expect(files).toContain(page);
+    }
+    for (const e of TEST_ENTRIES) {
+      expect(files).toContain(`entries/${e.id}/index.html`);
+      expect(files).toContain(`entries/${e.id}/${e.id}.json`);
+      expect(files).toContain(`entries/${e.id}/${e.id}.processed.f32`);
+    }
+    expect(files.filter((f) => /^reports\/[^/]+\/index\.html$/.test(f)).length).toBe(1);
+    for (const asset of ['assets/vendor/vega.min.js', 'assets/vendor/vega-lite.min.js', 'assets/vendor/vega-embed.min.js', 'assets/vendor/lunr.min.js', 'assets/bandshelf-browser.js', 'assets/site.css', 'assets/search-index.json', 'assets/search-matrix.bin']) {
+      expect(files).toContain(asset);
+    }
+  });
+
+  it('loads nothing from another host: every src, stylesheet href and CSS url() is local', () => {
+    const offenders: string[] = [];
+    const remote = (u: string) => /^(?:[a-z][a-z0-9+.-]*:)?\/\//i.test(u.trim()) || /^(?:data|javascript):/i.test(u.trim());
+    for (const f of html()) {
+      const text = read(f);
+      for (const m of text.matchAll(/\s(?:src|srcset|poster|data)\s*=\s*["']([^"']*)["']/gi)) if (remote(m[1]!)) offenders.push(`${f}: ${m[0]}`);
+      for (const tag of text.matchAll(/<link\b[^>]*>/gi)) {
+        const href = /href\s*=\s*["']([^"']*)["']/i.exec(tag[0]);
+        if (href && remote(href[1]!)) offenders.push(`${f}: ${tag[0]}`);
+      }
+      for (const m of text.matchAll(/<(?:iframe|frame|embed|object)\b/gi)) offenders.push(`${f}: ${m[0]}`);
+      for (const m of text.matchAll(/url\(\s*['"]?([^'")]*)/gi)) if (remote(m[1]!)) offenders.push(`${f}: ${m[0]}`);
+      for (const m of text.matchAll(/@import/gi)) offenders.push(`${f}: ${m[0]}`);
+    }
+    for (const f of css()) {
+      const text = read(f);
+      for (const m of text.matchAll(/url\(\s*['"]?([^'")]*)/gi)) if (remote(m[1]!)) offenders.push(`${f}: ${m[0]}`);
+      for (const m of text.matchAll(/@import[^;]*/gi)) offenders.push(`${f}: ${m[0]}`);
+    }
+    expect(offenders).toEqual([]);
+    // The checker itself catches what it looks for.
+    expect(remote('https://cdn.example/x.js')).toBe(true);
+    expect(remote('//cdn.example/x.js')).toBe(true);
+    expect(remote('/assets/x.js')).toBe(false);
+  });
+
+  it('every page carries a Content-Security-Policy with only its own scripts, no unsafe-eval, and the caution', () => {
+    for (const f of html()) {
+      const text = read(f);
+      const csp = /<meta http-equiv="Content-Security-Policy" content="([^"]+)"/.exec(text);
+      expect(csp, f).not.toBeNull();
+      expect(csp![1]).toContain("script-src 'self'");
+      expect(csp![1]).not.toMatch(/unsafe-eval|unsafe-inline/);
+      expect(text, f).toContain('candidates, not identifications');
+      expect(text, f).toContain('licensed clinical practice');
+      // No inline script that the policy would block: every script element either loads a file or holds data.
+      for (const s of text.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/gi)) {
+        const attrs = s[1]!;
+        expect(/\bsrc=/.test(attrs) || /type="application\/json"/.test(attrs), `${f}: ${s[0].slice(0, 80)}`).toBe(true);
+      }
+    }
+  });
+
+  it('shows metadata as text: the XSS entry is escaped everywhere', () => {
+    for (const f of html()) {
+      const text = read(f);
+      expect(text, f).not.toContain(XSS_NAME);
+      expect(text, f).not.toContain('<script>alert(2)</script>');
+      expect(text, f).not.toContain('<b>bold</b>');
+    }
+    const page = read('entries/xss-test/index.html');
+    expect(page).toContain('&lt;img src=x onerror=alert(1)&gt;');
+    expect(page).toContain('&quot;&gt;&lt;script&gt;alert(2)&lt;/script&gt;');
+    // The JSON files hold the text unchanged (they are data, not markup).
+    const json = parseJson<{ meta: { name: string } }>(read('entries/xss-test/xss-test.json'));
+    expect(json.meta.name).toBe(XSS_NAME);
+  });
+
+  it('writes downloads that keep every point: the JSON original equals the stored spectrum', () => {
+    const shown = parseJson<{ original: { x: number[]; y: number[] }; processed: (number | null)[] }>(
+      bandshelf(['show', 'albumin-test', '--library', fx.library, '--json']).stdout,
+    );
+    const json = parseJson<{ original: { x: number[]; y: number[] }; processed: { file: string; length: number } }>(
+      read('entries/albumin-test/albumin-test.json'),
+    );
+    expect(json.original.x).toEqual(shown.original.x);
+    expect(json.original.y).toEqual(shown.original.y);
+    const bytes = readFileSync(join(out, 'entries/albumin-test', json.processed.file));
+    expect(bytes.byteLength).toBe(4 * shown.processed.length);
+    const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+    for (let i = 0; i < shown.processed.length; i++) {
+      const stored = shown.processed[i];
+      const v = view.getFloat32(i * 4, true);
+      if (stored === null) expect(Number.isNaN(v)).toBe(true);
+      else expect(v).toBe(Math.fround(stored));
+    }
+  });
+
+  it('lists the releases with their diffs and shows the library state in the footer', () => {
+    const releases = read('releases/index.html');
+    expect(releases).toContain('id="release-r1"');
+    for (const e of TEST_ENTRIES) expect(releases).toContain(`>${e.id}</a>`);
+    expect(read('index.html')).toMatch(/working state/);
+  });
+
+  it('renders the match report with its unexplained bands and the library state', () => {
+    const page = read(listFiles(out).find((f) => /^reports\/[^/]+\/index\.html$/.test(f))!);
+    expect(page).toContain('Unexplained bands');
+    expect(page).toMatch(/<table class="data unexplained"[\s\S]*?<td class="num">17[6-9]\d\.\d<\/td>/);
+    expect(page).toContain('State key');
+  });
+});
+
+describe('rebuilds', () => {
+  it('are byte-identical, into the same folder and into a fresh one', () => {
+    const snapshot = (dir: string) => new Map(listFiles(dir).map((f) => [f, readFileSync(join(dir, f)).toString('base64')]));
+    const first = snapshot(out);
+    const again = bandshelf(['site', '--library', fx.library, '--reports', fx.reports, '--out', out]);
+    expect(again.code, again.stderr).toBe(0);
+    const fresh = join(fx.dir, 'site-2');
+    expect(bandshelf(['site', '--library', fx.library, '--reports', fx.reports, '--out', fresh]).code).toBe(0);
+    for (const next of [snapshot(out), snapshot(fresh)]) {
+      expect([...next.keys()]).toEqual([...first.keys()]);
+      for (const [f, bytes] of first) expect(next.get(f), f).toBe(bytes);
+    }
+  });
+});
+
+describe('the output folder', () => {
+  it('is refused when it holds files the build did not make, unless --clean', () => {
+    const dir = join(fx.dir, 'busy');
+    mkdirSync(dir);
+    writeFileSync(join(dir, 'notes.txt'), 'mine');
+    const refused = bandshelf(['site', '--library', fx.library, '--out', dir]);
+    expect(refused.code).toBe(1);
+    expect(refused.stderr.trim().split('\n')).toHaveLength(1);
+    expect(refused.stderr).toMatch(/OUT_NOT_EMPTY/);
+    expect(refused.stderr).toContain('notes.txt');
+    expect(readFileSync(join(dir, 'notes.txt'), 'utf8')).toBe('mine');
+    expect(existsSync(join(dir, 'index.html'))).toBe(false);
+    const cleaned = bandshelf(['site', '--library', fx.library, '--out', dir, '--clean']);
+    expect(cleaned.code, cleaned.stderr).toBe(0);
+    expect(existsSync(join(dir, 'notes.txt'))).toBe(false);
+    expect(existsSync(join(dir, 'index.html'))).toBe(true);
+  });
+
+  it('is refused when a built file was changed afterwards', () => {
+    const dir = join(fx.dir, 'edited');
+    expect(bandshelf(['site', '--library', fx.library, '--out', dir]).code).toBe(0);
+    writeFileSync(join(dir, 'index.html'), 'edited by hand');
+    const refused = bandshelf(['site', '--library', fx.library, '--out', dir]);
+    expect(refused.code).toBe(1);
+    expect(refused.stderr).toMatch(/OUT_NOT_EMPTY/);
+    expect(refused.stderr).toContain('index.html');
+    expect(readFileSync(join(dir, 'index.html'), 'utf8')).toBe('edited by hand');
+  });
+});
+
+describe('--base', () => {
+  it('prefixes every link and asset', () => {
+    const dir = join(fx.dir, 'prefixed');
+    const r = bandshelf(['site', '--library', fx.library, '--out', dir, '--base', '/spectra/']);
+    expect(r.code, r.stderr).toBe(0);
+    const page = readFileSync(join(dir, 'entries/albumin-test/index.html'), 'utf8');
+    const urls = [...page.matchAll(/\s(?:href|src|data-json)="([^"#]*)"/g)].map((m) => m[1]!).filter((u) => u.startsWith('/'));
+    expect(urls.length).toBeGreaterThan(10);
+    for (const u of urls) expect(u.startsWith('/spectra/'), u).toBe(true);
+    expect(page).toContain('data-base="/spectra/"');
+  });
+
+  it('refuses a prefix that is not a plain path', () => {
+    const r = bandshelf(['site', '--library', fx.library, '--out', join(fx.dir, 'bad-base'), '--base', '/a/../b']);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/--base.*BAD_OPTION/);
+  });
+});
+
+describe('reports', () => {
+  it('a report that fails its schema stops the build with one line naming the file and the field', () => {
+    const dir = tempDir('bandshelf-site-badreport-');
+    const good = listFiles(fx.reports).find((f) => f.endsWith('.json'))!;
+    const report = parseJson<Record<string, unknown>>(readFileSync(join(fx.reports, good), 'utf8'));
+    writeFileSync(join(dir, 'good.json'), JSON.stringify(report));
+    const broken = { ...report, query: { ...(report.query as object), hash: 'not-a-hash' } };
+    writeFileSync(join(dir, 'broken.json'), JSON.stringify(broken));
+    const outDir = join(dir, 'site');
+    const r = bandshelf(['site', '--library', fx.library, '--reports', dir, '--out', outDir]);
+    expect(r.code).toBe(1);
+    const lines = r.stderr.trim().split('\n');
+    expect(lines).toHaveLength(1);
+    expect(lines[0]).toContain('broken.json');
+    expect(lines[0]).toContain('query.hash');
+    expect(lines[0]).toContain('BAD_REPORT');
+    expect(existsSync(outDir)).toBe(false);
+  });
+});
+
+describe('an empty library', () => {
+  it('builds a site that says so', () => {
+    const dir = tempDir('bandshelf-site-empty-');
+    const library = join(dir, 'empty.sqlite');
+    expect(bandshelf(['init', '--library', library]).code).toBe(0);
+    const r = bandshelf(['site', '--library', library, '--out', join(dir, 'site'), '--json']);
+    expect(r.code, r.stderr).toBe(0);
+    expect(parseJson<{ entries: number }>(r.stdout).entries).toBe(0);
+    const home = readFileSync(join(dir, 'site', 'index.html'), 'utf8');
+    expect(home).toContain('This library has no entries yet');
+    expect(readFileSync(join(dir, 'site', 'browse', 'index.html'), 'utf8')).toContain('no entries yet');
+    expect(readFileSync(join(dir, 'site', 'search', 'index.html'), 'utf8')).toContain('no entries yet');
+  });
+});
