@@ -5,6 +5,7 @@ import { existsSync, mkdirSync, readdirSync, rmSync, statSync, writeFileSync } f
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
+import { seededRandom } from '../demo/seededRandom.js';
 import { findPackageRoot } from '../site/findPackageRoot.js';
 
 interface SiteFigures {
@@ -51,7 +52,9 @@ function run(args: string[], what: string): { ms: number; rssMb: number | null; 
   const result = spawnSync(command, argv, { encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
   const ms = performance.now() - start;
   if (result.status !== 0) {
-    process.stderr.write(`bench:site: ${what} failed (exit ${result.status}):\n${result.stderr.slice(-2000)}\n`);
+    process.stderr.write(
+      `bench:site: ${what} failed (exit ${result.status}):\n${result.stderr.slice(-2000)}\n`,
+    );
     process.exit(1);
   }
   const rss = /BENCH_RSS_KB=(\d+)/.exec(result.stderr ?? '');
@@ -76,18 +79,6 @@ function sizeOf(dir: string): { files: number; bytes: number } {
   return { files, bytes };
 }
 
-/** mulberry32: a small seeded generator, so the synthetic library is the same on every machine. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 /**
  * Band centres (cm⁻¹) per class, from the band-assignment table of the project's outside references (Barth 2007;
  * Movasaghi, Rehman & Rehman 2008): proteins amide A/I/II/III, lipids CH₂ stretches and ester C=O, carbohydrates
@@ -105,7 +96,7 @@ const CLASSES = Object.keys(CLASS_BANDS);
 
 /** One synthetic entry: a CSV file (1701 points, 4000–600 cm⁻¹ at 2 cm⁻¹, absorbance to 5 decimals) and a sidecar. */
 function writeSyntheticEntry(dir: string, k: number): void {
-  const rnd = random(0x5eed + k * 7919);
+  const rnd = seededRandom(0x5eed + k * 7919).uniform;
   const cls = CLASSES[k % CLASSES.length]!;
   const bands = CLASS_BANDS[cls]!.map((c) => ({
     centre: c + (rnd() - 0.5) * 16,
@@ -151,7 +142,9 @@ function syntheticLibrary(entries: number): string {
   rmSync(dir, { recursive: true, force: true });
   const files = join(dir, 'files');
   mkdirSync(files, { recursive: true });
-  process.stderr.write(`bench:site: generating ${entries} synthetic spectra in ${dir} (kept for later runs) …\n`);
+  process.stderr.write(
+    `bench:site: generating ${entries} synthetic spectra in ${dir} (kept for later runs) …\n`,
+  );
   for (let k = 0; k < entries; k++) writeSyntheticEntry(files, k);
   run(['init', '--library', library], 'init');
   const start = performance.now();
@@ -170,7 +163,10 @@ function demoLibrary(work: string): string {
 }
 
 function measure(label: string, library: string, out: string): SiteFigures {
-  const { ms, rssMb, stdout } = run(['site', '--library', library, '--out', out, '--clean', '--json'], `site (${label})`);
+  const { ms, rssMb, stdout } = run(
+    ['site', '--library', library, '--out', out, '--clean', '--json'],
+    `site (${label})`,
+  );
   const built = JSON.parse(stdout) as { entries: number };
   const { files, bytes } = sizeOf(out);
   const entriesDir = join(out, 'entries');
@@ -193,7 +189,11 @@ function main(): void {
   mkdirSync(work, { recursive: true });
   try {
     const demo = measure('demo', demoLibrary(work), join(work, 'demo-site'));
-    const synthetic = measure(`synthetic-${args.entries}`, syntheticLibrary(args.entries), join(work, 'synthetic-site'));
+    const synthetic = measure(
+      `synthetic-${args.entries}`,
+      syntheticLibrary(args.entries),
+      join(work, 'synthetic-site'),
+    );
     const targets = { build_s: 60, mb: 500 };
     const result = { demo, synthetic, targets, cores: availableParallelism() };
     if (args.json) {

@@ -19,6 +19,8 @@ function buildProgram(
     .configureOutput({
       writeOut: (s) => process.stdout.write(s),
       writeErr: (s) => process.stderr.write(s),
+      // Usage errors (unknown option, missing argument) get the same one-line shape as every other failure.
+      outputError: (s, write) => write(`bandshelf: ${s.replace(/^error: /, '')}`),
     })
     .showHelpAfterError(false);
   for (const spec of specs) {

@@ -9,10 +9,9 @@ import { closeLibrary } from '../library/closeLibrary.js';
 import { libraryPath } from '../library/libraryPath.js';
 import { listAssignments } from '../library/listAssignments.js';
 import { openLibrary } from '../library/openLibrary.js';
-import { readEntry } from '../library/readEntry.js';
 import { readRecipeFile } from '../library/readRecipeFile.js';
 import { readSearchSet } from '../library/readSearchSet.js';
-import type { Library, SearchSet } from '../library/types.js';
+import type { EntryView, SearchSet } from '../library/types.js';
 import { buildBandIndex } from '../match/buildBandIndex.js';
 import { buildMatchReport } from '../match/buildMatchReport.js';
 import { coveredSpan } from '../match/coveredSpan.js';
@@ -24,11 +23,13 @@ import type { Hit, Metric } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MixtureResult } from '../match/types.js';
 import type { MatchReport } from '../schema/matchReport.js';
-import type { Recipe, WavenumberWindow } from '../schema/recipe.js';
+import type { WavenumberWindow } from '../schema/recipe.js';
 import { gridAxis } from '../spectrum/gridAxis.js';
 import { processSpectrum } from '../spectrum/processSpectrum.js';
 import type { Spectrum } from '../spectrum/types.js';
 import type { CommandContext } from './command.js';
+import { mixtureCandidates } from './mixtureCandidates.js';
+import { recipeReferences } from './recipeReferences.js';
 
 export interface MatchUnknownsOptions {
   /** --library as given. @default './bandshelf.sqlite' */
@@ -132,20 +133,6 @@ function readUnknowns(file: string, cwd: string): Unknown[] {
   });
 }
 
-/** The original spectra a recipe's reference subtraction or EMSC step needs, from the library. */
-function recipeReferences(library: Library, recipe: Recipe, at: string | undefined): Map<string, Spectrum> {
-  const map = new Map<string, Spectrum>();
-  for (const step of [recipe.reference, recipe.emsc]) {
-    if (step === null || map.has(step.id)) continue;
-    const view = readEntry(library, step.id, {
-      ...(at === undefined ? {} : { at }),
-      ...(step.revision === undefined ? {} : { revision: step.revision }),
-    });
-    map.set(step.id, view.original);
-  }
-  return map;
-}
-
 function oneLine(error: unknown): string {
   if (error instanceof BandshelfError) return error.oneLine();
   return `internal error: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`;
@@ -197,7 +184,7 @@ export function matchUnknowns(
       options.recipe === undefined
         ? set.recipe
         : readRecipeFile(resolve(context.cwd, options.recipe), { label: options.recipe });
-    const references = recipeReferences(library, recipe, options.at);
+    const references = recipeReferences(library, recipe, options.at === undefined ? {} : { at: options.at });
     const assignments = [...shippedAssignments(), ...listAssignments(library)];
     const index = buildBandIndex(set);
     const axis = gridAxis(set.grid);
@@ -263,7 +250,8 @@ export function matchUnknowns(
           ? 2
           : 0
         : options.baselineDegree;
-    const cols = set.cols;
+    // Entries read to process them again over a partial unknown's span, kept for the rest of the batch.
+    const views = new Map<number, EntryView>();
 
     unknowns.forEach(({ outcome, unknown, processed }, q) => {
       try {
@@ -271,24 +259,22 @@ export function matchUnknowns(
         if (needPool) {
           const poolHits = hitsByMetric.get('pearson')![q]!.slice(0, poolSize);
           const rows = [...forced.map((id) => rowOf.get(id)!), ...poolHits.map((h) => h.row)];
-          const candidates = rows.map((row) => {
-            const e = set.entries[row]!;
-            return {
-              id: e.id,
-              revision: e.revision,
-              name: e.name,
-              class: e.class,
-              vector: set.processed.subarray(row * cols, (row + 1) * cols),
-            };
-          });
-          const fit = fitMixture(processed, candidates, {
+          const offered = mixtureCandidates(library, set, rows, unknown.spectrum, recipe, { views });
+          const fit = fitMixture(processed, offered.candidates, {
             grid: set.grid,
             with: forced,
             maxComponents,
             baselineDegree: degree,
             ranges: ranges.length === 0 ? null : ranges,
           });
-          mixture = { ...fit, candidates: new Set(candidates.map((c) => c.id)).size };
+          const window = offered.window;
+          const criterion =
+            window === null || offered.reprocessed.length === 0
+              ? fit.criterion
+              : `${fit.criterion}; the unknown covers only ${window.max.toFixed(0)}–${window.min.toFixed(0)} cm⁻¹, so ` +
+                `${offered.reprocessed.length} reference(s) reaching beyond it were processed again over that span ` +
+                `with their own recipes (baseline and normalisation over the same span as the unknown's)`;
+          mixture = { ...fit, criterion, candidates: new Set(offered.candidates.map((c) => c.id)).size };
         }
         const bands = identifyBands(
           { wavenumber: axis, absorbance: processed },

@@ -116,8 +116,8 @@ export function readDelimited(text: string, options: ReadDelimitedOptions = {}):
     });
   }
   const headerLine = header[header.length - 1]?.line;
-  const xUnit = options.xUnit ?? detectXUnit(columns[0] ?? '', x, warnings, headerLine);
-  const yUnit = options.yUnit ?? detectYUnit(columns[1] ?? '', y, warnings, headerLine);
+  const xUnit = options.xUnit ?? detectXUnit(columns[0] ?? '', x, warnings, { file, line: headerLine });
+  const yUnit = options.yUnit ?? detectYUnit(columns[1] ?? '', y, warnings, { file, line: headerLine });
   const converted = toWavenumberAbsorbance({ x, y }, { xUnit, yUnit, file, lines: pointLine });
   const { spectrum, warnings: pointWarnings } = spectrumFromPoints(converted, { file, lines: pointLine });
   warnings.push(...pointWarnings);
@@ -234,11 +234,52 @@ function word(cell: string, pattern: string): boolean {
   return new RegExp(`(^|[^a-zµμ])(${pattern})([^a-zµμ]|$)`, 'i').test(cell);
 }
 
-function detectXUnit(cell: string, x: Float64Array, warnings: ParseWarning[], line?: number): XUnit {
+/** Header words naming an x quantity that is not a wavenumber or wavelength: refused, never guessed away. */
+const FOREIGN_X: readonly [string, string][] = [
+  ['[kmgtp]?hz|hertz', 'a frequency'],
+  ['[mk]?ev|electron ?volts?', 'an energy'],
+  ['fs|ps|ns|ms|µs|μs|us|s|secs?|seconds?|time|delay', 'a time (a time-domain trace is read as a trace)'],
+  ['ppm', 'a chemical shift'],
+  ['raman', 'a Raman shift'],
+  ['pixels?|channels?', 'a detector channel'],
+];
+
+/** Header words naming a y quantity bandshelf cannot turn into absorbance. */
+const FOREIGN_Y: readonly [string, string][] = [
+  ['reflectance|reflection|%\\s*r|r|kubelka(?:[- ]munk)?|k-m|log\\s*\\(?1\\s*/\\s*r\\)?', 'reflectance'],
+  ['counts?|cts|single[ -]?beam|interferogram|emission|photons?', 'a raw detector signal'],
+];
+
+interface UnitWhere {
+  file?: string;
+  line?: number;
+}
+
+function refuseForeign(
+  cell: string,
+  foreign: readonly [string, string][],
+  axis: 'x' | 'y',
+  allowed: string,
+  where: UnitWhere,
+): void {
+  for (const [pattern, what] of foreign) {
+    if (word(cell, pattern)) {
+      throw new BandshelfError(
+        'UNKNOWN_UNIT',
+        `the ${axis} column ${show(cell)} is ${what}, not ${allowed}; give the ${axis} unit if the header is wrong`,
+        { file: where.file, line: where.line, field: axis },
+      );
+    }
+  }
+}
+
+function detectXUnit(cell: string, x: Float64Array, warnings: ParseWarning[], where: UnitWhere): XUnit {
+  const { line } = where;
   const c = cell.toLowerCase();
   if (/cm-1|cm\^-1|cm\^\(-1\)|cm−1|cm⁻¹|1\/cm|cm\*\*-1|wave ?numbers?/.test(c)) return 'cm-1';
   if (word(c, 'um|µm|μm|microns?|micromet(?:er|re)s?')) return 'um';
   if (word(c, 'nm|nanomet(?:er|re)s?')) return 'nm';
+  refuseForeign(c, FOREIGN_X, 'x', 'a wavenumber (cm-1) or wavelength (µm, nm)', where);
   const { min, max } = range(x);
   if (min >= 2 && max <= 25) {
     warnings.push({
@@ -263,8 +304,10 @@ function detectXUnit(cell: string, x: Float64Array, warnings: ParseWarning[], li
   return 'cm-1';
 }
 
-function detectYUnit(cell: string, y: Float64Array, warnings: ParseWarning[], line?: number): YUnit {
+function detectYUnit(cell: string, y: Float64Array, warnings: ParseWarning[], where: UnitWhere): YUnit {
+  const { line } = where;
   const c = cell.toLowerCase();
+  refuseForeign(c, FOREIGN_Y, 'y', 'absorbance or transmittance', where);
   const { min, max } = range(y);
   const looksPercent = min >= 0 && max <= 100.5 && max > 3;
   if (/%|percent/.test(c)) return 'percent-transmittance';

@@ -63,6 +63,11 @@ const NOT_FINITE = /^[+-]?(?:nan|inf|infinity)$/i;
 
 /** Units a delay header may name; only fs and ps are read, the rest are recognised so they can be refused clearly. */
 const UNIT_WORDS: [RegExp, string][] = [
+  // A spectrum's axis, so a spectrum file handed over as a trace is refused rather than transformed.
+  [
+    /cm-1|cm⁻¹|cm−1|1\/cm|wave ?numbers?|wavelength|(?:^|[^a-z])nm(?:$|[^a-z])|hz(?:$|[^a-z])/,
+    'a spectral axis',
+  ],
   [/femto|(?:^|[^a-zµ])fs(?:$|[^a-z])/, 'fs'],
   [/pico|(?:^|[^a-zµ])ps(?:$|[^a-z])/, 'ps'],
   [/atto|(?:^|[^a-z])as(?:$|[^a-z])/, 'as'],
@@ -246,7 +251,9 @@ export function readTimeTrace(input: Uint8Array | string, options: ReadTimeTrace
   } else if (headerUnit !== null) {
     throw new BandshelfError(
       'UNKNOWN_UNIT',
-      `the header gives the delay in ${headerUnit}; traces are read in fs or ps (give the unit with --time-unit)`,
+      headerUnit === 'a spectral axis'
+        ? `the header names ${headerUnit}, not a delay: this is a spectrum, not a time-domain trace`
+        : `the header gives the delay in ${headerUnit}; traces are read in fs or ps (give the unit with --time-unit)`,
       { file, line: headerLine, field: 'delay' },
     );
   } else {

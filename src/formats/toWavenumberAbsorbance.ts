@@ -17,7 +17,12 @@ export interface ToWavenumberAbsorbanceOptions {
   lines?: ArrayLike<number>;
 }
 
-/** Returns new arrays (inputs untouched); NaN/Infinity → NOT_FINITE, T ≤ 0 → BAD_TRANSMITTANCE and λ ≤ 0 → NOT_FINITE, each with its line. */
+/**
+ * Returns new arrays (inputs untouched); NaN/Infinity → NOT_FINITE, T ≤ 0 → BAD_TRANSMITTANCE, λ ≤ 0 → NOT_FINITE
+ * and a negative wavenumber → NOT_A_SPECTRUM (such an x is some other quantity), each with its line. Zero is let
+ * through: the standard's own examples number their points from X = 0, and the library's QC refuses a spectrum
+ * that covers none of its grid.
+ */
 export function toWavenumberAbsorbance(
   points: { x: Float64Array; y: Float64Array },
   options: ToWavenumberAbsorbanceOptions = {},
@@ -42,7 +47,7 @@ export function toWavenumberAbsorbance(
       ? wavenumberFromMicrometres(points.x, where)
       : xUnit === 'nm'
         ? wavenumberFromNanometres(points.x, where)
-        : points.x.slice();
+        : positiveWavenumbers(points.x, file, lines);
   const y =
     yUnit === 'transmittance'
       ? absorbanceFromTransmittance(points.y, where)
@@ -50,4 +55,18 @@ export function toWavenumberAbsorbance(
         ? absorbanceFromPercentTransmittance(points.y, where)
         : points.y.slice();
   return { x, y };
+}
+
+/** A copy of x in cm⁻¹; an infrared spectrum has no negative wavenumber. */
+function positiveWavenumbers(x: Float64Array, file?: string, lines?: ArrayLike<number>): Float64Array {
+  for (let i = 0; i < x.length; i++) {
+    if (x[i]! < 0) {
+      throw new BandshelfError(
+        'NOT_A_SPECTRUM',
+        `x = ${x[i]} cm⁻¹ is not a wavenumber (a wavenumber cannot be negative; give the x unit if x is something else)`,
+        { file, line: lines?.[i], field: 'x' },
+      );
+    }
+  }
+  return x.slice();
 }

@@ -1,7 +1,7 @@
 // Writes a library state as a folder `add` can read back: every entry's files in their original bytes, renamed
 // after the entry id, beside a sidecar carrying its metadata, recipe and reading options. Adding the folder to an
 // empty library reproduces every content hash (see the note on pinned references below).
-import { existsSync, mkdirSync, readdirSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { BandshelfError } from '../error.js';
 import { canonicalJson } from './canonicalJson.js';
@@ -32,6 +32,11 @@ function extensionOf(name: string): string {
  * entry gets that same revision number on re-import (revision 1 in an empty library).
  */
 export function exportAll(library: Library, dir: string, options: ExportAllOptions = {}): ExportAllResult {
+  if (existsSync(dir) && !statSync(dir).isDirectory()) {
+    throw new BandshelfError('IO_ERROR', 'a file is there, not a folder; name a new or empty folder', {
+      file: dir,
+    });
+  }
   if (existsSync(dir) && readdirSync(dir).length > 0) {
     throw new BandshelfError('OUT_NOT_EMPTY', 'the export folder is not empty; name a new or empty folder', {
       file: dir,

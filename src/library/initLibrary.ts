@@ -34,7 +34,11 @@ export function initLibrary(path: string, options: InitLibraryOptions = {}): Lib
   }
   const grid = gridSchema.safeParse(options.grid ?? { start: 4000, stop: 600, step: 2 });
   if (!grid.success) {
-    throw new BandshelfError('BAD_OPTION', `bad grid: ${grid.error.issues[0]?.message}`, { field: 'grid' });
+    const issue = grid.error.issues[0];
+    const part = issue?.path.length ? `${issue.path.join('.')}: ` : '';
+    throw new BandshelfError('BAD_OPTION', `bad grid: ${part}${issue?.message ?? 'invalid'}`, {
+      field: 'grid',
+    });
   }
   const recipe = recipeSchema.safeParse(options.recipe ?? {});
   if (!recipe.success) {

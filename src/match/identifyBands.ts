@@ -3,7 +3,7 @@ import { BandshelfError } from '../error.js';
 import type { BandAssignment } from '../schema/bandAssignment.js';
 import { findPeaks } from '../spectrum/findPeaks.js';
 import { findShoulders } from '../spectrum/findShoulders.js';
-import type { Peak, Spectrum } from '../spectrum/types.js';
+import type { Spectrum } from '../spectrum/types.js';
 import { buildBandIndex } from './buildBandIndex.js';
 import { searchBands } from './searchBands.js';
 import { shippedAssignments } from './shippedAssignments.js';
@@ -55,27 +55,11 @@ export interface IdentifyBandsOptions {
 }
 
 /**
- * Inside a broad band (the 3300 cm⁻¹ N–H/O–H envelope) noise puts many local minima into the one deep trough of
- * the second derivative, and each is measured with that trough's width. A shoulder is a band of its own, so:
- * one whose half width would reach a peak is that peak's own curvature and is dropped, and of shoulders closer
- * together than half the wider one's width only the most prominent is kept.
- */
-function distinctShoulders(shoulders: readonly Peak[], peaks: readonly Peak[]): Peak[] {
-  const kept: Peak[] = [];
-  for (const s of [...shoulders].sort((a, b) => b.prominence - a.prominence)) {
-    const half = Number.isFinite(s.fwhm) ? s.fwhm / 2 : 0;
-    if (peaks.some((p) => Math.abs(p.position - s.position) < half)) continue;
-    if (kept.some((k) => Math.abs(k.position - s.position) < Math.max(half, k.fwhm / 2))) continue;
-    kept.push(s);
-  }
-  return kept;
-}
-
-/**
- * Bands come from findPeaks and findShoulders (filtered as above) on the spectrum as given (the CLI passes the unknown's processed grid
- * vector, the same basis the library's stored peaks were found on). A table row applies when its range holds the
- * band position; rows are listed nearest centre first. Bands are returned from high to low wavenumber, the way
- * spectroscopists read a spectrum.
+ * Bands come from findPeaks and findShoulders on the spectrum as given (the CLI passes the unknown's processed
+ * grid vector, the same basis the library's stored peaks were found on); findShoulders itself drops the noise
+ * minima inside broad bands and the minima that are a peak's own curvature. A table row applies when its range
+ * holds the band position; rows are listed nearest centre first. Bands are returned from high to low
+ * wavenumber, the way spectroscopists read a spectrum.
  */
 export function identifyBands(unknown: Spectrum, options: IdentifyBandsOptions = {}): IdentifiedBand[] {
   const tolerance = options.tolerance ?? 4;
@@ -93,8 +77,7 @@ export function identifyBands(unknown: Spectrum, options: IdentifyBandsOptions =
   const index = options.index ?? (options.searchSet ? buildBandIndex(options.searchSet) : null);
   const mixture = options.mixture ?? null;
   const peaks = findPeaks(unknown, { relativeProminence: options.relativeProminence ?? 0.01 });
-  const shoulders =
-    options.shoulders === false ? [] : distinctShoulders(findShoulders(unknown, { peaks, tolerance }), peaks);
+  const shoulders = options.shoulders === false ? [] : findShoulders(unknown, { peaks, tolerance });
   const found = [
     ...peaks.map((p) => ({ ...p, kind: 'peak' as const })),
     ...shoulders.map((p) => ({ ...p, kind: 'shoulder' as const })),

@@ -9,11 +9,25 @@ export const windowSchema = z
   .refine((w) => w.max > w.min, { message: 'a window needs max > min' });
 export type WavenumberWindow = z.output<typeof windowSchema>;
 
-/** The library grid: `start` and `stop` in cm⁻¹ (either order), `step` > 0. Vectors on it run ascending. */
+/** The most points a library grid may have: 0.01 cm⁻¹ over 4000–600 cm⁻¹ is 340,001; this is a guard, not a target. */
+const MAX_GRID_POINTS = 1_000_001;
+
+/**
+ * The library grid: `start` and `stop` in cm⁻¹ (either order, both > 0), `step` > 0, at most 1,000,001 points.
+ * Vectors on it run ascending.
+ */
 export const gridSchema = z
-  .object({ start: z.number().finite(), stop: z.number().finite(), step: z.number().finite().positive() })
+  .object({
+    start: z.number().finite(),
+    stop: z.number().finite(),
+    step: z.number().finite().positive({ message: 'the step must be > 0' }),
+  })
   .strict()
+  .refine((g) => g.start > 0 && g.stop > 0, { message: 'start and stop must be wavenumbers > 0 cm⁻¹' })
   .refine((g) => Math.abs(g.start - g.stop) >= g.step, { message: 'the grid must span at least one step' })
+  .refine((g) => Math.abs(g.start - g.stop) / g.step < MAX_GRID_POINTS, {
+    message: `the grid would have more than ${MAX_GRID_POINTS.toLocaleString('en')} points; take a coarser step`,
+  })
   .refine(
     (g) =>
       Math.abs(Math.round((g.start - g.stop) / g.step) * g.step - (g.start - g.stop)) < 1e-9 * g.step * 1e3,

@@ -35,7 +35,10 @@ export interface SearchIndexFile {
  * a whole wavenumber finds bands within 1 cm⁻¹ of it. CAS numbers, InChIKeys, formulas and ids are indexed as
  * whole tokens (lunr would otherwise split them at hyphens), so `7732-18-5` matches as typed.
  */
-export function buildSearchIndex(entries: readonly SearchIndexEntry[], options: BuildSearchIndexOptions = {}): string {
+export function buildSearchIndex(
+  entries: readonly SearchIndexEntry[],
+  options: BuildSearchIndexOptions = {},
+): string {
   const assignments = options.assignments ?? [];
   const tolerance = options.assignmentTolerance ?? 4;
   const docs: SearchIndexFile['docs'] = {};

@@ -1,8 +1,7 @@
 // Builds the static site: entry downloads, the search index, the matcher's binary matrix, the Eleventy pages and
 // the copied scripts and styles, then records what it wrote so a later build knows its own files.
-import { createHash } from 'node:crypto';
-import { mkdirSync, readdirSync, readFileSync, rmdirSync, statSync, writeFileSync } from 'node:fs';
-import { dirname, join, relative, resolve, sep } from 'node:path';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
 import { buildSearchIndex, type SearchIndexEntry } from './buildSearchIndex.js';
 import { copySiteAssets } from './copySiteAssets.js';
@@ -12,11 +11,12 @@ import { entryPage } from './entryPage.js';
 import { findPackageRoot } from './findPackageRoot.js';
 import { float32Bytes } from './float32Bytes.js';
 import { jsonForScript } from './jsonForScript.js';
-import { BUILD_MANIFEST, prepareOutDir } from './prepareOutDir.js';
+import { prepareOutDir } from './prepareOutDir.js';
 import { reportPage } from './reportPage.js';
 import { siteEleventyPlugin } from './siteEleventyPlugin.js';
 import { siteView } from './siteView.js';
 import type { EntryPage, SiteReport, SiteSource } from './types.js';
+import { writeBuildManifest } from './writeBuildManifest.js';
 
 export interface BuildSiteOptions {
   /** The output folder. */
@@ -42,7 +42,7 @@ export interface BuildSiteOptions {
   /** Printed in the footer and the generator meta tag.
    * @default 'bandshelf' */
   version?: string;
-  /** The caution every page and download carries. */
+  /** The caution every page carries. */
   caution: string;
 }
 
@@ -72,28 +72,13 @@ function pathPrefixOf(base: string | undefined): string {
 
 /** Entry ids are slugs already; anything outside the safe set still becomes a safe, unique path segment. */
 function slugFor(id: string, taken: Set<string>): string {
-  let slug = /^[A-Za-z0-9][A-Za-z0-9._~-]*$/.test(id) && !id.includes('..') ? id : id.replace(/[^A-Za-z0-9_-]/g, '_');
+  let slug =
+    /^[A-Za-z0-9][A-Za-z0-9._~-]*$/.test(id) && !id.includes('..') ? id : id.replace(/[^A-Za-z0-9_-]/g, '_');
   if (slug === '' || slug.startsWith('.')) slug = `_${slug}`;
   let unique = slug;
   for (let n = 2; taken.has(unique); n++) unique = `${slug}-${n}`;
   taken.add(unique);
   return unique;
-}
-
-/** Every file under `dir` (relative, `/`-separated, sorted); folders left empty (an entry that left) are removed. */
-function listFiles(dir: string): string[] {
-  const out: string[] = [];
-  const walk = (d: string): void => {
-    const names = readdirSync(d).sort();
-    for (const name of names) {
-      const full = join(d, name);
-      if (statSync(full).isDirectory()) walk(full);
-      else out.push(relative(dir, full).split(sep).join('/'));
-    }
-    if (d !== dir && readdirSync(d).length === 0) rmdirSync(d);
-  };
-  walk(dir);
-  return out;
 }
 
 /** Eleventy wraps errors thrown inside plugins and templates; find ours, or the first message that says something. */
@@ -125,22 +110,9 @@ export async function buildSite(source: SiteSource, options: BuildSiteOptions): 
   } catch (error) {
     // Everything in the folder now is this build's (prepareOutDir left nothing else): list it, so the next build
     // may replace it instead of refusing a folder of "unknown" files.
-    writeManifest(out);
+    writeBuildManifest(out);
     throw error;
   }
-}
-
-function writeManifest(out: string): { files: number; bytes: number } {
-  const files = listFiles(out).filter((f) => f !== BUILD_MANIFEST);
-  const hashes: Record<string, string> = {};
-  let bytes = 0;
-  for (const f of files) {
-    const content = readFileSync(join(out, f));
-    bytes += content.byteLength;
-    hashes[f] = createHash('sha256').update(content).digest('hex');
-  }
-  writeFileSync(join(out, BUILD_MANIFEST), `${JSON.stringify({ generator: 'bandshelf site', files: hashes }, null, 1)}\n`);
-  return { files: files.length, bytes };
 }
 
 async function writeSite(
@@ -171,7 +143,10 @@ async function writeSite(
     const detail = source.loadEntry(summary.id);
     const folder = `entries/${slug}/`;
     const processedBytes = write(`${folder}${slug}.processed.f32`, float32Bytes(detail.processed));
-    const dataBytes = write(`${folder}${slug}.json`, entryJson(detail, { processedFile: `${slug}.processed.f32` }));
+    const dataBytes = write(
+      `${folder}${slug}.json`,
+      entryJson(detail, { processedFile: `${slug}.processed.f32` }),
+    );
     entryPages.push(entryPage(detail, { assignments: source.assignments, dataBytes, processedBytes, slug }));
     searchEntries.push({
       summary: detail.summary,
@@ -249,6 +224,6 @@ async function writeSite(
   }
   copySiteAssets(root, out);
 
-  const { files, bytes } = writeManifest(out);
+  const { files, bytes } = writeBuildManifest(out);
   return { out, files, bytes, entries: total, reports: reportPages.length, pathPrefix };
 }

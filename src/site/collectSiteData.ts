@@ -1,6 +1,7 @@
 // Gathers what a site build shows from an open library: entries, releases with their diffs, the band-assignment
 // table and the processed vectors of one state. Entry vectors are read later, one entry at a time.
 import { BandshelfError } from '../error.js';
+import { diffStates } from '../library/diffStates.js';
 import { entryHistory } from '../library/entryHistory.js';
 import { listAssignments } from '../library/listAssignments.js';
 import { listEntries } from '../library/listEntries.js';
@@ -8,7 +9,6 @@ import { listReleases } from '../library/listReleases.js';
 import { readEntry } from '../library/readEntry.js';
 import { readRelease } from '../library/readRelease.js';
 import { readSearchSet } from '../library/readSearchSet.js';
-import { diffStates } from '../library/diffStates.js';
 import type { EntrySummary, Library } from '../library/types.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { Spectrum } from '../spectrum/types.js';
@@ -68,7 +68,11 @@ export function collectSiteData(library: Library, options: CollectSiteDataOption
   for (const r of listReleases(library)) {
     let diff: SiteRelease['diff'];
     if (previous === null) {
-      diff = { added: readRelease(library, r.tag).members.map((m) => ({ id: m.id })), changed: [], removed: [] };
+      diff = {
+        added: readRelease(library, r.tag).members.map((m) => ({ id: m.id })),
+        changed: [],
+        removed: [],
+      };
     } else {
       const d = diffStates(library, previous, r.tag);
       diff = {
@@ -92,7 +96,11 @@ export function collectSiteData(library: Library, options: CollectSiteDataOption
   const references: Record<string, Spectrum> = {};
   for (const step of [set.recipe.reference, set.recipe.emsc]) {
     if (step && !(step.id in references)) {
-      const view = readEntry(library, step.id, step.revision === undefined ? {} : { revision: step.revision });
+      const view = readEntry(
+        library,
+        step.id,
+        step.revision === undefined ? {} : { revision: step.revision },
+      );
       references[step.id] = view.original;
     }
   }
@@ -117,7 +125,9 @@ export function collectSiteData(library: Library, options: CollectSiteDataOption
     loadEntry(id) {
       const summary = summaries.get(id);
       if (summary === undefined) {
-        throw new BandshelfError('NOT_FOUND', `entry '${id}' is not in the state the site shows`, { field: 'id' });
+        throw new BandshelfError('NOT_FOUND', `entry '${id}' is not in the state the site shows`, {
+          field: 'id',
+        });
       }
       const view = readEntry(library, id, { at });
       return {

@@ -22,7 +22,11 @@ export interface DecimatedTrace {
  * is therefore kept exactly (position and height), unlike plain striding, which can skip the top of a narrow band.
  * The first and last point of each run are always kept so the covered range is drawn in full.
  */
-export function decimateTrace(x: Float64Array, y: Float64Array, options: DecimateTraceOptions = {}): DecimatedTrace {
+export function decimateTrace(
+  x: Float64Array,
+  y: Float64Array,
+  options: DecimateTraceOptions = {},
+): DecimatedTrace {
   const maxPoints = Math.max(4, Math.floor(options.maxPoints ?? 1200));
   const n = Math.min(x.length, y.length);
   // Runs of finite points; a NaN (not covered) separates runs.

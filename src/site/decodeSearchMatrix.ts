@@ -15,7 +15,10 @@ export interface DecodedSearchMatrix {
 }
 
 /** Reads the layout `encodeSearchMatrix` writes; a wrong magic, a short file or a bad size is a BAD_FORMAT error. */
-export function decodeSearchMatrix(bytes: Uint8Array, options: DecodeSearchMatrixOptions = {}): DecodedSearchMatrix {
+export function decodeSearchMatrix(
+  bytes: Uint8Array,
+  options: DecodeSearchMatrixOptions = {},
+): DecodedSearchMatrix {
   const file = options.file ?? 'search-matrix.bin';
   if (bytes.byteLength < 16 || String.fromCharCode(bytes[0]!, bytes[1]!, bytes[2]!, bytes[3]!) !== 'BSM1') {
     throw new BandshelfError('BAD_FORMAT', 'not a bandshelf search matrix', { file });
@@ -25,9 +28,13 @@ export function decodeSearchMatrix(bytes: Uint8Array, options: DecodeSearchMatri
   const cols = view.getUint32(8, true);
   const expected = 16 + rows * 4 + rows * cols * 2;
   if (bytes.byteLength !== expected) {
-    throw new BandshelfError('BAD_FORMAT', `expected ${expected} bytes for ${rows} × ${cols}, got ${bytes.byteLength}`, {
-      file,
-    });
+    throw new BandshelfError(
+      'BAD_FORMAT',
+      `expected ${expected} bytes for ${rows} × ${cols}, got ${bytes.byteLength}`,
+      {
+        file,
+      },
+    );
   }
   const matrix = new Float32Array(rows * cols);
   let offset = 16 + rows * 4;

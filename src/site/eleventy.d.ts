@@ -11,6 +11,8 @@ declare module '@11ty/eleventy' {
     setNunjucksEnvironmentOptions(options: Record<string, unknown>): void;
     setDataDeepMerge(enabled: boolean): void;
     ignores: Set<string>;
+    /** Eleventy's own timing groups (not a documented API; used only to keep its slow-filter notes quiet). */
+    benchmarks?: { config?: { setIsVerbose?: (verbose: boolean) => void } };
   }
 
   export interface EleventyOptions {

@@ -25,7 +25,12 @@ export function entryJson(detail: SiteEntryDetail, options: EntryJsonOptions = {
       format: 'float32le',
       length: detail.processed.length,
     },
-    peaks: detail.peaks.map((p) => ({ position: p.position, height: p.height, prominence: p.prominence, fwhm: p.fwhm })),
+    peaks: detail.peaks.map((p) => ({
+      position: p.position,
+      height: p.height,
+      prominence: p.prominence,
+      fwhm: p.fwhm,
+    })),
     qc: detail.qc,
     extras: detail.extras,
     files: detail.files,

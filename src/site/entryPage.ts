@@ -33,7 +33,8 @@ function byteSize(bytes: number): string {
 
 function extraRows(extras: Record<string, unknown>): SiteRow[] {
   const rows: SiteRow[] = [];
-  const num = (v: unknown): number | undefined => (typeof v === 'number' && Number.isFinite(v) ? v : undefined);
+  const num = (v: unknown): number | undefined =>
+    typeof v === 'number' && Number.isFinite(v) ? v : undefined;
   const scale = num(extras.referenceScale);
   if (scale !== undefined) rows.push({ label: 'Reference scale', value: formatNumber(scale) });
   const range = num(extras.dynamicRangeOrders);
@@ -41,10 +42,14 @@ function extraRows(extras: Record<string, unknown>): SiteRow[] {
     rows.push({ label: 'Reference dynamic range', value: `${formatNumber(range, { decimals: 1 })} orders` });
   }
   const spread = num(extras.timingSpreadAs);
-  if (spread !== undefined) rows.push({ label: 'Timing spread', value: `${formatNumber(spread, { significant: 3 })} as` });
+  if (spread !== undefined)
+    rows.push({ label: 'Timing spread', value: `${formatNumber(spread, { significant: 3 })} as` });
   const traces = extras.traces as { sample?: unknown; reference?: unknown } | undefined;
   if (traces && typeof traces === 'object') {
-    rows.push({ label: 'Traces averaged', value: `${String(traces.sample)} sample, ${String(traces.reference)} reference` });
+    rows.push({
+      label: 'Traces averaged',
+      value: `${String(traces.sample)} sample, ${String(traces.reference)} reference`,
+    });
   }
   const source = extras.source as { format?: unknown; xUnit?: unknown; yUnit?: unknown } | undefined;
   if (source && typeof source === 'object') {

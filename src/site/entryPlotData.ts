@@ -34,7 +34,9 @@ export function entryPlotData(
   return {
     original: plotTrace(x, y, { maxPoints }),
     processed:
-      processed.length === gridLength(document.grid) ? plotTrace(gridAxis(document.grid), processed, { maxPoints }) : null,
+      processed.length === gridLength(document.grid)
+        ? plotTrace(gridAxis(document.grid), processed, { maxPoints })
+        : null,
     originalLabel: 'absorbance (original)',
     processedLabel: normaliseLabel(document.recipe.normalise.method),
     originalPoints: x.length,

@@ -27,7 +27,8 @@ export function findPackageRoot(from: string, options: FindPackageRootOptions = 
       }
     }
     const parent = dirname(dir);
-    if (parent === dir) throw new BandshelfError('IO_ERROR', `cannot find the ${name} package folder`, { file: from });
+    if (parent === dir)
+      throw new BandshelfError('IO_ERROR', `cannot find the ${name} package folder`, { file: from });
     dir = parent;
   }
 }

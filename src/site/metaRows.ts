@@ -36,7 +36,6 @@ const LABELS: Record<string, string> = {
   samplingProcedure: 'Sampling procedure',
 };
 
-
 /** The https://doi.org/ address of a DOI written bare, as `doi:…` or as a doi.org URL; undefined otherwise. */
 function doiHref(text: string): string | undefined {
   const m = /^(?:doi:\s*|https?:\/\/(?:dx\.)?doi\.org\/)?(10\.\d{4,9}\/\S+)$/i.exec(text.trim());

@@ -37,9 +37,13 @@ export function plotTrace(
   for (let i = 0; i < thin.x.length; i++) {
     const xi = thin.x[i]!;
     const yi = thin.y[i]!;
-    // Wavenumbers to 0.01 cm⁻¹ — far below any band width; a break keeps its neighbour's x so the axis stays sorted.
-    outX[i] = Number.isFinite(xi) ? Math.round(xi * 100) / 100 : (outX[i - 1] ?? 0);
-    outY[i] = Number.isFinite(yi) ? Number((Math.round(yi / yStep) * yStep).toFixed(Math.min(20, yDecimals))) : null;
+    // Wavenumbers to 0.01 cm⁻¹, far below any band width. A break sits halfway between its neighbours: plots sort
+    // points by x, and a break sharing its neighbour's x could sort to the wrong side and bridge the gap.
+    const between = ((thin.x[i - 1] ?? 0) + (thin.x[i + 1] ?? thin.x[i - 1] ?? 0)) / 2;
+    outX[i] = Math.round((Number.isFinite(xi) ? xi : between) * 100) / 100;
+    outY[i] = Number.isFinite(yi)
+      ? Number((Math.round(yi / yStep) * yStep).toFixed(Math.min(20, yDecimals)))
+      : null;
   }
   return { x: outX, y: outY };
 }

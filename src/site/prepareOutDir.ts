@@ -2,8 +2,9 @@
 import { createHash } from 'node:crypto';
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { homedir } from 'node:os';
-import { dirname, join, parse, relative, resolve, sep } from 'node:path';
+import { basename, join, parse, relative, resolve, sep } from 'node:path';
 import { BandshelfError } from '../error.js';
+import { buildManifestPath } from './buildManifestPath.js';
 
 export interface PrepareOutDirOptions {
   /** Empty the folder even when it holds files an earlier build did not make.
@@ -17,10 +18,7 @@ export interface PrepareOutDirOptions {
   cwd?: string;
 }
 
-/** Name of the list of built files the build leaves in the output folder. */
-export const BUILD_MANIFEST = '.bandshelf-site.json';
-
-export interface BuildManifest {
+interface BuildManifest {
   generator: 'bandshelf site';
   /** Relative path (with `/`) → SHA-256 of the bytes written. */
   files: Record<string, string>;
@@ -38,11 +36,13 @@ function listFiles(dir: string, base = dir): string[] {
 }
 
 function readManifest(dir: string): BuildManifest | undefined {
-  const path = join(dir, BUILD_MANIFEST);
+  const path = buildManifestPath(dir);
   if (!existsSync(path)) return undefined;
   try {
     const parsed = JSON.parse(readFileSync(path, 'utf8')) as BuildManifest;
-    return parsed && parsed.generator === 'bandshelf site' && typeof parsed.files === 'object' ? parsed : undefined;
+    return parsed && parsed.generator === 'bandshelf site' && typeof parsed.files === 'object'
+      ? parsed
+      : undefined;
   } catch {
     return undefined;
   }
@@ -65,32 +65,47 @@ export function prepareOutDir(out: string, options: PrepareOutDirOptions = {}): 
   const dir = resolve(out);
   const cwd = resolve(options.cwd ?? process.cwd());
   if (existsSync(dir) && !statSync(dir).isDirectory()) {
-    throw new BandshelfError('OUT_NOT_EMPTY', 'the output path exists and is not a folder', { file: out, field: '--out' });
+    throw new BandshelfError('OUT_NOT_EMPTY', 'the output path exists and is not a folder', {
+      file: out,
+      field: '--out',
+    });
   }
   for (const p of options.protect ?? []) {
     if (isInside(resolve(p), dir)) {
-      throw new BandshelfError('OUT_NOT_EMPTY', `the output folder would contain ${p}; choose another folder`, {
-        file: out,
-        field: '--out',
-      });
+      throw new BandshelfError(
+        'OUT_NOT_EMPTY',
+        `the output folder would contain ${p}; choose another folder`,
+        {
+          file: out,
+          field: '--out',
+        },
+      );
     }
   }
   if (!existsSync(dir)) {
     mkdirSync(dir, { recursive: true });
     return;
   }
-  const files = listFiles(dir);
-  if (files.length === 0) return;
+  const top = readdirSync(dir).sort();
+  if (top.length === 0) return;
   const manifest = readManifest(dir);
-  const foreign = files.filter((f) => {
-    if (f === BUILD_MANIFEST) return manifest === undefined;
-    const expected = manifest?.files[f];
-    if (expected === undefined) return true;
-    const actual = createHash('sha256').update(readFileSync(join(dir, f))).digest('hex');
-    return actual !== expected;
-  });
+  // Without a manifest every file is foreign: say so at once instead of walking what may be a large folder.
+  const foreign =
+    manifest === undefined
+      ? top
+      : listFiles(dir).filter((f) => {
+          if (f === basename(buildManifestPath(dir))) return false;
+          const expected = manifest.files[f];
+          if (expected === undefined) return true;
+          return (
+            createHash('sha256')
+              .update(readFileSync(join(dir, f)))
+              .digest('hex') !== expected
+          );
+        });
   if (foreign.length > 0 && !options.clean) {
-    const shown = foreign.slice(0, 3).join(', ') + (foreign.length > 3 ? ` and ${foreign.length - 3} more` : '');
+    const shown =
+      foreign.slice(0, 3).join(', ') + (foreign.length > 3 ? ` and ${foreign.length - 3} more` : '');
     throw new BandshelfError(
       'OUT_NOT_EMPTY',
       `the output folder holds files this build did not make (${shown}); choose an empty folder or pass --clean to empty it`,
@@ -99,16 +114,17 @@ export function prepareOutDir(out: string, options: PrepareOutDirOptions = {}): 
   }
   if (foreign.length > 0) {
     const home = resolve(homedir());
-    const refused = [parse(dir).root, home, cwd].some((p) => isInside(p, dir));
-    if (refused || dir === dirname(dir)) {
-      throw new BandshelfError('OUT_NOT_EMPTY', '--clean refuses to empty the root, home or working folder or one holding them', {
-        file: out,
-        field: '--out',
-      });
+    if ([parse(dir).root, home, cwd].some((p) => isInside(p, dir))) {
+      throw new BandshelfError(
+        'OUT_NOT_EMPTY',
+        '--clean refuses to empty the root, home or working folder or one holding them',
+        { file: out, field: '--out' },
+      );
     }
-    for (const name of readdirSync(dir)) rmSync(join(dir, name), { recursive: true, force: true });
+    for (const name of top) rmSync(join(dir, name), { recursive: true, force: true });
     return;
   }
+  const files = listFiles(dir);
   // Folders stay: the build writes into the same ones, and removing then re-creating thousands costs seconds.
   for (const f of files) rmSync(join(dir, f), { force: true });
 }

@@ -20,7 +20,9 @@ export function readReports(dir: string, options: ReadReportsOptions = {}): Site
   let names: string[];
   try {
     if (!statSync(dir).isDirectory()) throw new Error('not a folder');
-    names = readdirSync(dir).filter((n) => n.toLowerCase().endsWith('.json')).sort();
+    names = readdirSync(dir)
+      .filter((n) => n.toLowerCase().endsWith('.json'))
+      .sort();
   } catch {
     throw new BandshelfError('NOT_FOUND', 'the reports folder does not exist or is not a folder', {
       file: shown,
@@ -42,13 +44,20 @@ export function readReports(dir: string, options: ReadReportsOptions = {}): Site
     const parsed = matchReportSchema.safeParse(json);
     if (!parsed.success) {
       const issue = parsed.error.issues[0]!;
-      const field = issue.path.map((p) => (typeof p === 'number' ? `[${p}]` : String(p))).join('.').replace(/\.\[/g, '[');
+      const field = issue.path
+        .map((p) => (typeof p === 'number' ? `[${p}]` : String(p)))
+        .join('.')
+        .replace(/\.\[/g, '[');
       throw new BandshelfError('BAD_REPORT', `not a bandshelf match report: ${issue.message}`, {
         file,
         field: field || '(root)',
       });
     }
-    reports.push({ slug: basename(name, name.slice(name.lastIndexOf('.'))), file: name, report: parsed.data });
+    reports.push({
+      slug: basename(name, name.slice(name.lastIndexOf('.'))),
+      file: name,
+      report: parsed.data,
+    });
   }
   return reports;
 }

@@ -22,7 +22,9 @@ export function recipeRows(recipe: Recipe, options: RecipeRowsOptions = {}): Sit
   };
   const td = recipe.timeDomain;
   if (td) {
-    const gate = td.gate ? `, gate ${td.gate.start}–${td.gate.end} ${td.timeUnit} (edge ${td.gate.edge})` : '';
+    const gate = td.gate
+      ? `, gate ${td.gate.start}–${td.gate.end} ${td.timeUnit} (edge ${td.gate.edge})`
+      : '';
     add(
       'Time-domain traces',
       `${td.apodisation} window${gate}, zero-fill ×${td.zeroFill}, coverage where reference power > ${formatNumber(td.powerThreshold)} of its peak`,
@@ -53,8 +55,14 @@ export function recipeRows(recipe: Recipe, options: RecipeRowsOptions = {}): Sit
       ? `against ${recipe.emsc.id}${recipe.emsc.revision ? ` revision ${recipe.emsc.revision}` : ''}, polynomial degree ${recipe.emsc.degree}`
       : null,
   );
-  add('Smoothing', recipe.smooth ? `Savitzky–Golay, ${recipe.smooth.window} points, order ${recipe.smooth.order}` : null);
-  add('Resampling', `onto the library grid; gaps wider than ${formatNumber(recipe.resample.maxGap)} cm⁻¹ left not covered`);
+  add(
+    'Smoothing',
+    recipe.smooth ? `Savitzky–Golay, ${recipe.smooth.window} points, order ${recipe.smooth.order}` : null,
+  );
+  add(
+    'Resampling',
+    `onto the library grid; gaps wider than ${formatNumber(recipe.resample.maxGap)} cm⁻¹ left not covered`,
+  );
   const n = recipe.normalise;
   add(
     'Normalisation',

@@ -33,6 +33,11 @@ function toFloat64(values: ArrayLike<number | null>): Float64Array {
   return out;
 }
 
+/** The file name without its folders (reports keep the path as the user typed it). */
+function baseName(path: string): string {
+  return path.split(/[\\/]/).pop() || path;
+}
+
 function rangeText(min: number, max: number): string {
   return `${formatNumber(max, { decimals: 0 })}–${formatNumber(min, { decimals: 0 })} cm⁻¹`;
 }
@@ -51,7 +56,10 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
   if (q.title) rows.push({ label: 'Title', value: q.title });
   if (q.block !== undefined) rows.push({ label: 'Block', value: String(q.block) });
   rows.push({ label: 'SHA-256', value: q.hash });
-  rows.push({ label: 'Recipe', value: q.recipeSource === 'library' ? "the library's default" : 'from a file' });
+  rows.push({
+    label: 'Recipe',
+    value: q.recipeSource === 'library' ? "the library's default" : 'from a file',
+  });
   rows.push({
     label: 'Scoring ranges',
     value: q.ranges.length === 0 ? 'the whole grid' : q.ranges.map((w) => rangeText(w.min, w.max)).join(', '),
@@ -71,12 +79,9 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
     { label: 'State key', value: r.library.stateKey },
     { label: 'Entries searched', value: String(r.library.entries) },
   ];
-  if (r.library.revisions) {
-    state.push({
-      label: 'Revision set',
-      value: r.library.revisions.map((v) => `${v.id}@${v.revision}`).join(', '),
-    });
-  }
+  const revisions = r.library.revisions
+    ? r.library.revisions.map((v) => `${v.id}@${v.revision}`).join(', ')
+    : '';
 
   const metrics = r.metrics.length > 0 ? r.metrics : ['pearson' as const];
   const hits: ReportPage['hits'] = metrics.map((metric, i) => {
@@ -86,7 +91,8 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
       rows: list.map((h) => {
         const extras: string[] = [];
         if (h.z !== null) extras.push(`z = ${formatNumber(h.z, { significant: 3 })}`);
-        if (h.gapToNext !== null) extras.push(`lead over next ${formatNumber(h.gapToNext, { significant: 3 })}`);
+        if (h.gapToNext !== null)
+          extras.push(`lead over next ${formatNumber(h.gapToNext, { significant: 3 })}`);
         extras.push(`overlap ${formatNumber(h.overlap, { decimals: 0 })} cm⁻¹`);
         return {
           rank: h.rank,
@@ -135,7 +141,7 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
     const trace = plotTrace(axis, toFloat64(values), { maxPoints });
     return trace ? { name, role, ...trace } : null;
   };
-  const unknown = series(`unknown: ${q.title ?? q.file}`, 'unknown', q.processed);
+  const unknown = series(`unknown: ${q.title ?? baseName(q.file)}`, 'unknown', q.processed);
   let plotJson = '';
   if (unknown) {
     const overlay: ReportPlotSeries[] = [unknown];
@@ -156,7 +162,9 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
 
   const top = r.hits[0];
   const summary = [
-    top ? `top hit ${top.name || top.id} (${formatNumber(top.score, { decimals: 3 })}, ${r.standing.verdict})` : 'no hits',
+    top
+      ? `top hit ${top.name || top.id} (${formatNumber(top.score, { decimals: 3 })}, ${r.standing.verdict})`
+      : 'no hits',
     mixture ? `mixture R² ${mixture.r2}, ${mixture.unexplained.length} unexplained bands` : '',
     bands.length > 0 ? `${bands.length} bands identified` : '',
   ]
@@ -166,7 +174,8 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
     slug,
     path: `reports/${slug}/`,
     file: site.file,
-    title: `Match report: ${q.title ?? q.file}`,
+    title: `Match report: ${q.title ?? baseName(q.file)}`,
+    revisions,
     summary,
     rows,
     state,

@@ -11,7 +11,9 @@ export interface SiteEleventyPluginOptions {
 
 // Page paths become output folders: only safe path segments, always ending in `/`.
 const pagePath = (prefix: string) =>
-  z.string().regex(new RegExp(`^${prefix}/[A-Za-z0-9._~-]+/$`), { message: `must be ${prefix}/<safe segment>/` });
+  z
+    .string()
+    .regex(new RegExp(`^${prefix}/[A-Za-z0-9._~-]+/$`), { message: `must be ${prefix}/<safe segment>/` });
 
 const optionsSchema = z.object({
   view: z
@@ -22,7 +24,12 @@ const optionsSchema = z.object({
       empty: z.boolean(),
       state: z.object({ label: z.string(), stateKey: z.string(), shortKey: z.string() }).loose(),
       entries: z.array(
-        z.object({ path: pagePath('entries'), dataFile: z.object({ file: z.string().regex(/^[A-Za-z0-9._~-]+\.json$/) }).loose() }).loose(),
+        z
+          .object({
+            path: pagePath('entries'),
+            dataFile: z.object({ file: z.string().regex(/^[A-Za-z0-9._~-]+\.json$/) }).loose(),
+          })
+          .loose(),
       ),
       reports: z.array(z.object({ path: pagePath('reports') }).loose()),
       releases: z.array(z.object({ tag: z.string(), anchor: z.string().regex(/^[A-Za-z0-9._-]+$/) }).loose()),
@@ -41,7 +48,10 @@ function deepFreeze<T>(value: T): T {
   return value;
 }
 
-export function siteEleventyPlugin(eleventyConfig: EleventyUserConfig, options: SiteEleventyPluginOptions): void {
+export function siteEleventyPlugin(
+  eleventyConfig: EleventyUserConfig,
+  options: SiteEleventyPluginOptions,
+): void {
   const parsed = optionsSchema.safeParse(options);
   if (!parsed.success) {
     const issue = parsed.error.issues[0]!;
@@ -50,9 +60,16 @@ export function siteEleventyPlugin(eleventyConfig: EleventyUserConfig, options: 
   eleventyConfig.setTemplateFormats(['njk']);
   eleventyConfig.setUseGitIgnore(false);
   eleventyConfig.setQuietMode(true);
+  // Quiet mode does not reach the configuration timings, which print "Benchmark …" notes on stderr for big sites.
+  eleventyConfig.benchmarks?.config?.setIsVerbose?.(false);
   // Autoescape on: every value printed with {{ }} is HTML-escaped unless a template marks it `| safe`, and the only
   // values marked so are the site's own markup and JSON already escaped by jsonForScript.
-  eleventyConfig.setNunjucksEnvironmentOptions({ autoescape: true, throwOnUndefined: false, trimBlocks: true, lstripBlocks: true });
+  eleventyConfig.setNunjucksEnvironmentOptions({
+    autoescape: true,
+    throwOnUndefined: false,
+    trimBlocks: true,
+    lstripBlocks: true,
+  });
   eleventyConfig.ignores.add('assets/**');
   eleventyConfig.addGlobalData('bs', deepFreeze(options.view));
 }

@@ -27,7 +27,10 @@ export interface SiteViewOptions {
   newest?: number;
 }
 
-function counted(values: string[], label: (v: string) => string = (v) => v): { label: string; count: number }[] {
+function counted(
+  values: string[],
+  label: (v: string) => string = (v) => v,
+): { label: string; count: number }[] {
   const counts = new Map<string, number>();
   for (const v of values) counts.set(v, (counts.get(v) ?? 0) + 1);
   return [...counts.entries()]
@@ -115,7 +118,10 @@ export function siteView(source: SiteSource, options: SiteViewOptions = {}): Sit
         revision: e.revision,
       })),
       classes: sortedUnique(entries.map((e) => e.class)),
-      techniques: sortedUnique(entries.map((e) => e.technique)).map((v) => ({ value: v, label: techniqueLabel(v) })),
+      techniques: sortedUnique(entries.map((e) => e.technique)).map((v) => ({
+        value: v,
+        label: techniqueLabel(v),
+      })),
       tags: sortedUnique(entries.flatMap((e) => e.tags)),
       sampleForms: sortedUnique(entries.map((e) => e.sampleForm)),
     },

@@ -267,7 +267,12 @@ export interface ReportPage {
   summary: string;
   rows: SiteRow[];
   state: SiteRow[];
-  hits: { metric: string; rows: { rank: number; id: string; path: string | null; name: string; score: string; extra: string }[] }[];
+  /** The `id@revision` list the report was made against ('' when the report pins the state by its key only). */
+  revisions: string;
+  hits: {
+    metric: string;
+    rows: { rank: number; id: string; path: string | null; name: string; score: string; extra: string }[];
+  }[];
   mixture: {
     r2: string;
     components: { id: string; path: string | null; name: string; weight: string; share: string }[];
@@ -293,7 +298,13 @@ export interface SiteView {
   version: string;
   caution: string;
   empty: boolean;
-  state: { label: string; at: string | null; stateKey: string; shortKey: string; newestRelease: string | null };
+  state: {
+    label: string;
+    at: string | null;
+    stateKey: string;
+    shortKey: string;
+    newestRelease: string | null;
+  };
   grid: string;
   counts: {
     total: number;

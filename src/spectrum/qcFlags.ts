@@ -96,7 +96,7 @@ export type QcOptions = QcFlagsOptions;
  * spikes (narrower than any band: y(i) far from the line through its neighbours two and three points away
  * while y(i±1) stay within a third of that excursion; two adjacent bad points are missed, and bands narrower
  * than about 3 points, which are undersampled, can look like spikes), gaps in the source coverage, coarse
- * point spacing, narrow coverage of the grid, and low dynamic range. `original` is the parsed spectrum (any
+ * point spacing, narrow coverage of the grid (an error when nothing is covered), and low dynamic range. `original` is the parsed spectrum (any
  * order; sorted here), `processed` the grid vector (NaN not covered). Near-duplicates are the library's
  * check.
  */
@@ -258,7 +258,15 @@ export function qcFlags(
   }
   const fraction = counted > 0 ? covered / counted : 0;
   const minCoverage = options.minCoverage ?? 0.9;
-  if (fraction < minCoverage) {
+  if (covered === 0) {
+    // Nothing on the grid means nothing to match or plot: an error, so such a file is not stored by mistake.
+    flags.push({
+      code: 'narrow-coverage',
+      level: 'error',
+      message: `The spectrum covers none of the library grid ${wn(gridLo, false)}–${wn(gridHi)} outside the excluded windows; it cannot be matched.`,
+      value: 0,
+    });
+  } else if (fraction < minCoverage) {
     const span = first >= 0 ? ` (data over ${wn(axis[first]!, false)}–${wn(axis[last]!)})` : '';
     flags.push({
       code: 'narrow-coverage',

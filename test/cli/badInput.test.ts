@@ -1,6 +1,6 @@
 // Every bad input to `add` gives one line naming the file and the problem, never a stack trace, and writes nothing:
 // every table's row count stays the same and `check` still passes.
-import { closeSync, ftruncateSync, openSync, writeFileSync } from 'node:fs';
+import { closeSync, existsSync, ftruncateSync, openSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -60,6 +60,63 @@ describe('bad input to add', () => {
         ),
       }),
       /NOT_FINITE|NOT_NUMERIC/,
+    ],
+    [
+      'an Infinity',
+      () => ({
+        file: csv(
+          'inf.csv',
+          `wavenumber_cm-1,absorbance\n${rows(20, (i) => `${1000 + i},${i === 5 ? '-Infinity' : 0.1}`)}\n`,
+        ),
+      }),
+      /inf\.csv:7: y: .*NOT_FINITE/,
+    ],
+    [
+      'a zig-zag x that cannot be sorted into one spectrum',
+      () => ({
+        file: csv(
+          'zigzag.csv',
+          `wavenumber_cm-1,absorbance\n${[1000, 1010, 1002, 1012, 1004, 1014, 1006].map((x) => `${x},0.1`).join('\n')}\n`,
+        ),
+      }),
+      /zigzag\.csv:4: x: .*NOT_MONOTONIC/,
+    ],
+    [
+      'a negative wavenumber',
+      () => ({
+        file: csv('negative.csv', `wavenumber_cm-1,absorbance\n${rows(20, (i) => `${-1000 + i},0.1`)}\n`),
+      }),
+      /negative\.csv:2: x: .*NOT_A_SPECTRUM/,
+    ],
+    [
+      'a delimited header naming an x unit of another quantity',
+      () => ({ file: csv('hertz.csv', `frequency_hz,absorbance\n${rows(20, (i) => `${1000 + i},0.1`)}\n`) }),
+      /hertz\.csv:1: x: .*frequency.*UNKNOWN_UNIT/,
+    ],
+    [
+      'a delimited header naming reflectance',
+      () => ({
+        file: csv('reflect.csv', `wavenumber_cm-1,reflectance\n${rows(20, (i) => `${1000 + i},0.1`)}\n`),
+      }),
+      /reflect\.csv:1: y: .*UNKNOWN_UNIT/,
+    ],
+    [
+      'a spectrum that covers none of the library grid',
+      () => ({
+        file: writeSpectrumCsv(join(dir, 'far-infrared.csv'), [{ position: 300, height: 0.5, fwhm: 20 }], {
+          start: 500,
+          stop: 100,
+        }),
+      }),
+      /far-infrared\.csv: .*covers none of the library grid.*QC_FAILED/,
+    ],
+    [
+      'a spectrum file given as a time-domain trace',
+      () => {
+        const file = writeSpectrumCsv(join(dir, 'not-a-trace.csv'), bandsFor(10));
+        return { file, extra: ['--time-domain', '--reference', file] };
+      },
+      /not-a-trace\.csv:1: delay: .*not a time-domain trace.*UNKNOWN_UNIT/,
     ],
     [
       'duplicate x with different y',
@@ -146,6 +203,29 @@ describe('bad input to add', () => {
       /side3\.meta\.json: clas: unknown field \(did you mean "class"\?\)/,
     ],
     [
+      'a sidecar id with ".."',
+      () => {
+        const file = writeSpectrumCsv(join(dir, 'side4.csv'), bandsFor(11));
+        writeFileSync(join(dir, 'side4.meta.json'), JSON.stringify({ id: '..' }));
+        return { file };
+      },
+      /side4\.meta\.json: id: .*BAD_METADATA/,
+    ],
+    [
+      'a sidecar id with a path separator',
+      () => {
+        const file = writeSpectrumCsv(join(dir, 'side5.csv'), bandsFor(12));
+        writeFileSync(join(dir, 'side5.meta.json'), JSON.stringify({ id: 'a/b' }));
+        return { file };
+      },
+      /side5\.meta\.json: id: .*path separator.*BAD_METADATA/,
+    ],
+    [
+      'an id of ".."',
+      () => ({ file: writeSpectrumCsv(join(dir, 'dots.csv'), bandsFor(13)), extra: ['--id', '..'] }),
+      /--id: .*BAD_OPTION/,
+    ],
+    [
       'an id with a path separator',
       () => ({ file: writeSpectrumCsv(join(dir, 'slash.csv'), bandsFor(5)), extra: ['--id', '../etc'] }),
       /--id: .*BAD_OPTION/,
@@ -165,6 +245,17 @@ describe('bad input to add', () => {
         };
       },
       /recipe\.json: smooth\.window: .*odd.*BAD_RECIPE/,
+    ],
+    [
+      'a recipe file with an unknown field',
+      () => {
+        writeFileSync(join(dir, 'recipe2.json'), JSON.stringify({ smoth: { window: 5, order: 2 } }));
+        return {
+          file: writeSpectrumCsv(join(dir, 'recipe2.csv'), bandsFor(14)),
+          extra: ['--recipe', join(dir, 'recipe2.json')],
+        };
+      },
+      /recipe2\.json: smoth: unknown field \(did you mean "smooth"\?\).*BAD_RECIPE/,
     ],
     [
       'a file that does not exist',
@@ -233,4 +324,142 @@ describe('bad input to add', () => {
     const r = bandshelf(['check', ...lib]);
     expect(r.code, r.stdout + r.stderr).toBe(0);
   });
+});
+
+describe('bad input to the other store commands', () => {
+  const dir = tempDir();
+  const path = join(dir, 'lib.sqlite');
+  const lib = ['--library', path];
+  const missing = ['--library', join(dir, 'absent.sqlite')];
+  const plainFile = join(dir, 'plain.txt');
+  let before = '';
+  /** Every table's rows, so "nothing written" is checked on content, not only on counts. */
+  const snapshot = () => {
+    const db = new Database(path, { readonly: true });
+    const out = TABLES.map((t) => JSON.stringify(db.prepare(`SELECT * FROM ${t}`).raw().all())).join('\n');
+    db.close();
+    return out;
+  };
+
+  beforeAll(() => {
+    expect(bandshelf(['init', ...lib]).code).toBe(0);
+    writeSpectrumCsv(join(dir, 'good.csv'), bandsFor(1));
+    expect(bandshelf(['add', join(dir, 'good.csv'), ...lib]).code).toBe(0);
+    expect(bandshelf(['release', 'v1', ...lib]).code).toBe(0);
+    writeFileSync(plainFile, 'a file, not a folder\n');
+    writeFileSync(
+      join(dir, 'bad-recipe.json'),
+      JSON.stringify({ baseline: { method: 'rubberband', p: 0.1 } }),
+    );
+    before = snapshot();
+  });
+
+  // [what, args, the line must match, a path that must not exist afterwards]
+  const cases: [string, () => string[], RegExp, string?][] = [
+    ['show of an unknown id', () => ['show', 'nosuch', ...lib], /id: no entry 'nosuch' .*\[NOT_FOUND\]$/],
+    ['show of an id with ".."', () => ['show', '../good', ...lib], /id: no entry '\.\.\/good' .*NOT_FOUND/],
+    [
+      'show at an unknown release',
+      () => ['show', 'good', '--at', 'v9', ...lib],
+      /at: .*'v9'.*UNKNOWN_RELEASE/,
+    ],
+    ['list at an unknown release', () => ['list', '--at', 'v9', ...lib], /at: .*'v9'.*UNKNOWN_RELEASE/],
+    ['diff against an unknown release', () => ['diff', 'v1', 'v9', ...lib], /'v9'.*UNKNOWN_RELEASE/],
+    [
+      'export at an unknown release',
+      () => ['export', 'good', '--at', 'v9', '--out', join(dir, 'at.csv'), ...lib],
+      /at: .*'v9'.*UNKNOWN_RELEASE/,
+      join(dir, 'at.csv'),
+    ],
+    [
+      'export of an unknown id',
+      () => ['export', 'nosuch', '--out', join(dir, 'nosuch.csv'), ...lib],
+      /id: no entry 'nosuch'.*NOT_FOUND/,
+      join(dir, 'nosuch.csv'),
+    ],
+    [
+      'export to a path inside a regular file (unwritable)',
+      () => ['export', 'good', '--out', join(plainFile, 'x.csv'), ...lib],
+      /plain\.txt\/x\.csv: cannot write.*\[IO_ERROR\]$/,
+    ],
+    [
+      'export into a folder that does not exist',
+      () => ['export', 'good', '--out', join(dir, 'no-folder', 'x.csv'), ...lib],
+      /no-folder\/x\.csv: cannot write.*\[IO_ERROR\]$/,
+      join(dir, 'no-folder'),
+    ],
+    [
+      'export --all onto a regular file',
+      () => ['export', '--all', plainFile, ...lib],
+      /plain\.txt: .*not a folder.*\[IO_ERROR\]$/,
+    ],
+    [
+      'show with a missing library',
+      () => ['show', 'good', ...missing],
+      /absent\.sqlite: no library here.*NO_LIBRARY/,
+    ],
+    [
+      'add with a missing library',
+      () => ['add', join(dir, 'good.csv'), ...missing],
+      /absent\.sqlite: no library here.*NO_LIBRARY/,
+      join(dir, 'absent.sqlite'),
+    ],
+    [
+      'export with a missing library',
+      () => ['export', 'good', '--out', join(dir, 'm.csv'), ...missing],
+      /absent\.sqlite: no library here.*NO_LIBRARY/,
+      join(dir, 'm.csv'),
+    ],
+    [
+      'list of an unknown class',
+      () => ['list', '--class', 'mineral', ...lib],
+      /class: .*must be one of.*BAD_OPTION/,
+    ],
+    [
+      'edit of an unknown field',
+      () => ['edit', 'good', '--set', 'clas=protein', ...lib],
+      /clas: unknown field/,
+    ],
+    [
+      'release with a tag that is a path',
+      () => ['release', '../v2', ...lib],
+      /tag: bad release tag.*BAD_OPTION/,
+    ],
+    ['an unknown option', () => ['list', '--colour', ...lib], /^bandshelf: unknown option '--colour'$/],
+    ['a missing argument', () => ['show', ...lib], /^bandshelf: missing required argument 'id'$/],
+    ...([
+      'abc',
+      '4000:600',
+      '4000:600:0',
+      '4000:-600:2',
+      '4000:600:3',
+      '4000:600:0.0001',
+      'Infinity:600:2',
+    ].map((grid): [string, () => string[], RegExp, string] => [
+      `init --grid ${grid}`,
+      () => ['init', '--library', join(dir, 'grid.sqlite'), '--grid', grid],
+      /^bandshelf: grid: .*\[BAD_OPTION\]$/,
+      join(dir, 'grid.sqlite'),
+    ]) as [string, () => string[], RegExp, string][]),
+    [
+      'init --recipe with a bad field',
+      () => ['init', '--library', join(dir, 'recipe.sqlite'), '--recipe', join(dir, 'bad-recipe.json')],
+      /bad-recipe\.json: baseline(\.p)?: .*\[BAD_RECIPE\]$/,
+      join(dir, 'recipe.sqlite'),
+    ],
+  ];
+
+  for (const [what, args, expected, mustNotExist] of cases) {
+    it(`${what}: one line, a non-zero exit, nothing written`, () => {
+      const r = bandshelf(args());
+      expect(r.code, r.stdout).toBeGreaterThan(0);
+      const lines = r.stderr.trim().split('\n');
+      expect(lines, r.stderr).toHaveLength(1);
+      expect(lines[0]).toMatch(/^bandshelf: /);
+      expect(lines[0]).toMatch(expected);
+      expect(r.stderr).not.toMatch(/\n\s+at |internal error/);
+      if (mustNotExist) expect(existsSync(mustNotExist), mustNotExist).toBe(false);
+      expect(snapshot()).toBe(before);
+    });
+  }
 });

@@ -14,7 +14,14 @@ describe('npm run bench', () => {
     expect(run.status, run.stderr).toBe(0);
     const report = JSON.parse(run.stdout) as Record<string, unknown>;
     expect(report).toMatchObject({ entries: 1500, points: 1701, queries: 3 });
-    for (const key of ['single_query_ms', 'batch32_ms_per_query', 'bandwidth_floor_ms', 'rss_mb']) {
+    for (const key of [
+      'single_query_ms',
+      'single_query_exact_ms',
+      'batch32_ms_per_query',
+      'batch32_exact_ms_per_query',
+      'bandwidth_floor_ms',
+      'rss_mb',
+    ]) {
       expect(typeof report[key], key).toBe('number');
     }
     for (const key of ['band_search_ms', 'numpy_ms']) {
@@ -22,6 +29,7 @@ describe('npm run bench', () => {
     }
     // The reduced-precision path is on by default only because it agrees with the exact one.
     expect(report['fast_path_top10_agreement']).toBe(1);
+    expect(report['fast_batch_top10_agreement']).toBe(1);
   });
 
   it('refuses a bad option with one line and a non-zero exit', () => {

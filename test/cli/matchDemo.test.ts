@@ -93,6 +93,22 @@ describe('matching the demo unknowns', () => {
     for (const p of truth.unknowns[serum]!.unlistedBands ?? []) expect(near(p)?.explained).toBe(false);
   });
 
+  it('fits the tunable-laser unknown with its own compound alone and leaves none of its bands unexplained', () => {
+    const [name, t] = Object.entries(truth.unknowns).find(([, u]) => u.coverage !== undefined)!;
+    const id = t.components[0]!.id;
+    const r = report(['match', join(UNKNOWNS, name), '--mixture']);
+    const m = r.mixture!;
+    expect(m.components.map((c) => c.id)).toEqual([id]);
+    expect(m.r2).toBeGreaterThanOrEqual(0.98);
+    // The references were processed again over the unknown's short span, and the report says so.
+    expect(m.criterion).toMatch(/processed again over that span/);
+    const shown = bandshelf(['show', id, '--library', 'demo.sqlite', '--json'], { cwd: dir });
+    const peaks = parseJson<{ peaks: { position: number }[] }>(shown.stdout).peaks;
+    const own = m.residualBands.filter((b) => peaks.some((p) => Math.abs(p.position - b.position) <= 4));
+    expect(own.map((b) => b.position)).toEqual([]);
+    for (const band of r.bands) expect(band.explained, String(band.position)).toBe(true);
+  });
+
   it('ranks the true compound first for the single-compound and the tunable-laser unknowns', () => {
     for (const [name, t] of Object.entries(truth.unknowns)) {
       if (t.components.length !== 1) continue;

@@ -32,6 +32,7 @@ function expectTypedOutcome(read: () => ParsedSpectrum[] | ParsedSpectrum): void
     for (let i = 0; i < x.length; i++) {
       if (!Number.isFinite(x[i]!) || !Number.isFinite(y[i]!)) throw new Error(`non-finite point ${i}`);
       if (i > 0 && !(x[i]! > x[i - 1]!)) throw new Error(`x not strictly ascending at ${i}`);
+      if (x[i]! < 0) throw new Error(`negative wavenumber ${x[i]} at ${i}`);
     }
   }
 }

@@ -1,3 +1,4 @@
+// Fuzzing the sidecar and manifest readers: random and mutated input raises only BandshelfError.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';

@@ -1,3 +1,4 @@
+// Typed metadata values from text cells (numbers, lists, booleans, concentrations); errors name the field.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { metaValueFromText } from '../../src/formats/metaValueFromText.js';

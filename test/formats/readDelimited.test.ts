@@ -136,6 +136,13 @@ describe('readDelimited: bad input is a typed error naming file and line', () =>
     ['a zig-zag x', 'cm-1,A\n1000,1\n1002,2\n1001,3\n1003,4\n1000.5,5\n', 'NOT_MONOTONIC', 4],
     ['a zero transmittance', 'cm-1,%T\n1000,50\n1001,0\n', 'BAD_TRANSMITTANCE', 3],
     ['a negative wavelength', 'um,A\n-3,1\n5,2\n', 'NOT_FINITE', 2],
+    ['a negative wavenumber', 'cm-1,A\n1000,1\n-1000,2\n', 'NOT_A_SPECTRUM', 3],
+    ['an x header in Hz', 'frequency_hz,absorbance\n1000,1\n1002,2\n', 'UNKNOWN_UNIT', 1],
+    ['an x header naming a delay', 'delay (fs),absorbance\n1000,1\n1002,2\n', 'UNKNOWN_UNIT', 1],
+    ['an x header in eV', 'energy_eV;absorbance\n0,1;1\n0,2;2\n', 'UNKNOWN_UNIT', 1],
+    ['a y header of reflectance', 'wavenumber_cm-1,reflectance\n1000,0.1\n1002,0.2\n', 'UNKNOWN_UNIT', 1],
+    ['a y header of %R', 'cm-1,%R\n1000,50\n1002,60\n', 'UNKNOWN_UNIT', 1],
+    ['a y header of raw counts', 'cm-1\tcounts\n1000\t5123\n1002\t5230\n', 'UNKNOWN_UNIT', 1],
   ];
   for (const [what, text, code, line] of cases) {
     it(`${what} → ${code}`, () => {
@@ -149,6 +156,24 @@ describe('readDelimited: bad input is a typed error naming file and line', () =>
   it('words the error as one line with file, line and the cell', () => {
     const err = catchError(() => readDelimited('cm-1,A\n1000,1\n1001,1.2.3\n', { file: 's.csv' }));
     expect(err.oneLine()).toBe('s.csv:3: y: y = "1.2.3" is not a number [NOT_NUMERIC]');
+  });
+
+  it('names the column and what it holds when a header names a unit bandshelf cannot convert', () => {
+    const err = catchError(() => readDelimited('time_ps,absorbance\n1,0.1\n2,0.2\n', { file: 't.csv' }));
+    expect(err.oneLine()).toMatch(/^t\.csv:1: x: the x column "time_ps" is a time .*\[UNKNOWN_UNIT\]$/);
+    // Giving the unit overrides the header, as with every other unit question.
+    const forced = readDelimited('frequency_hz,counts\n1000,1\n1002,2\n', {
+      xUnit: 'cm-1',
+      yUnit: 'absorbance',
+    });
+    expect(Array.from(forced.spectrum.wavenumber)).toEqual([1000, 1002]);
+  });
+
+  it('does not take words that merely contain a unit letter for a unit', () => {
+    // "s" in "wavenumbers" and "r" in "absorbance" are not the units s and R.
+    const p = readDelimited('Wavenumbers,Absorbance units\n1000,1\n1002,2\n');
+    expect(p.source).toMatchObject({ xUnit: 'cm-1', yUnit: 'absorbance' });
+    expect(readDelimited('x,y\n1000,1\n1002,2\n').source.xUnit).toBe('cm-1');
   });
 
   it('refuses a unit option it does not know', () => {

@@ -1,3 +1,4 @@
+// The manifest reader: one metadata object per data file from a CSV or TSV table, quoting, bad cells.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { readManifest } from '../../src/formats/readManifest.js';

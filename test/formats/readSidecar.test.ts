@@ -1,3 +1,4 @@
+// The sidecar reader: validated metadata from a .meta.json file; errors name the file, line and field.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { readSidecar } from '../../src/formats/readSidecar.js';

@@ -126,6 +126,12 @@ describe('readTimeTrace', () => {
       readTimeTrace(`time_ns,E\n${rows(20, 1, (t) => `${t},1`).join('\n')}`, { file: 'x.csv' }),
     );
     expect([e.code, e.line]).toEqual(['UNKNOWN_UNIT', 1]);
+    // A spectrum file handed over as a trace names its axis, which is not a delay.
+    for (const header of ['wavenumber_cm-1,absorbance', 'wavelength_nm,%T', 'frequency_THz,power']) {
+      e = failure(() => readTimeTrace(`${header}\n${rows(20, 2, (t) => `${1000 + t},0.1`).join('\n')}`));
+      expect([e.code, e.line, e.field], header).toEqual(['UNKNOWN_UNIT', 1, 'delay']);
+      expect(e.message).toMatch(/not a time-domain trace/);
+    }
     expect(failure(() => readTimeTrace('  \n# only a comment\n')).code).toBe('EMPTY_FILE');
     expect(failure(() => readTimeTrace(Uint8Array.from([0x30, 0x2c, 0x00, 0x31]))).code).toBe('BINARY_DATA');
     expect(failure(() => readTimeTrace(fsCsv, { maxBytes: 100 })).code).toBe('FILE_TOO_LARGE');

@@ -1,3 +1,4 @@
+// Sidecar file names: the name beside a data file, and telling sidecars from data files.
 import { describe, expect, it } from 'vitest';
 import { isSidecarName } from '../../src/formats/isSidecarName.js';
 import { sidecarNameFor } from '../../src/formats/sidecarNameFor.js';

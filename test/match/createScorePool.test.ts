@@ -35,9 +35,11 @@ describe('createScorePool', () => {
         expect(split.path).toBe(single.path);
         expect(split.scores).toEqual(single.scores);
       }
-      const single = matrixScores(matrix, queries);
-      const split = matrixScores(matrix, queries, { runner: pool });
-      for (const [q, s] of split.entries()) expect(s.scores).toEqual(single[q]!.scores);
+      for (const precision of ['exact', 'int8'] as const) {
+        const single = matrixScores(matrix, queries, { precision });
+        const split = matrixScores(matrix, queries, { precision, runner: pool });
+        for (const [q, s] of split.entries()) expect(s.scores).toEqual(single[q]!.scores);
+      }
     } finally {
       pool.close();
     }

@@ -113,7 +113,8 @@ describe('identifyBands', () => {
     const random = seededRandom(5);
     const absorbance = broad.absorbance.map((v) => v + 0.0002 * random.normal());
     const bands = identifyBands({ wavenumber: axis, absorbance });
-    expect(bands.filter((b) => b.position > 3000).length).toBeLessThanOrEqual(2);
+    // findShoulders drops the noise minima of the broad trough itself; no filter after it is needed.
+    expect(bands.filter((b) => b.position > 3000).map((b) => b.kind)).toEqual(['peak']);
     expect(bands.some((b) => Math.abs(b.position - 3300) <= 10)).toBe(true);
   });
 

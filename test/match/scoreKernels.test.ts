@@ -110,7 +110,7 @@ describe('score kernels', () => {
     const queryScale = new Float32Array(memory.buffer, idx + 4096, 4);
     queryScale.set([1e-5, 2e-5, 3e-5, 4e-5]);
     // Four int16 queries from offset q16: the first is the one dotI8 uses below.
-    const q16s = 1 << 17;
+    const q16s = 1 << 19;
     const i16 = new Int16Array(memory.buffer, q16s, 4 * stride);
     const random = seeded(5);
     for (let i = 0; i < i16.length; i++) i16[i] = Math.floor(random() * 65535) - 32767;
@@ -119,7 +119,7 @@ describe('score kernels', () => {
     js.dotI8Batch(0, rows, mat8, stride, q16s, 4, scale, idx + 4096, out, rows);
     const jsBatch = plane(memory, 4 * rows);
     for (let q = 0; q < 4; q++) {
-      wasm.dotI8(0, rows, mat8, stride, q16s + q * stride * 2, scale, queryScale[q]!, out, rows);
+      wasm.dotI8(0, rows, mat8, stride, q16s + q * stride * 2, scale, queryScale[q]!, out);
       const single = plane(memory, rows);
       for (let r = 0; r < rows; r++) {
         const tolerance = 1e-6 * Math.abs(jsBatch[q * rows + r]!) + 1e-12;

@@ -1,3 +1,4 @@
+// The CAS Registry Number check digit on published numbers, wrong digits, transpositions, malformed text.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { casCheckDigitValid } from '../../src/schema/casCheckDigitValid.js';

@@ -1,3 +1,4 @@
+// The entry metadata schema: required fields, classes and techniques, field formats and the patch schema.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';

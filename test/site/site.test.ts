@@ -24,7 +24,15 @@ const read = (f: string) => readFileSync(join(out, f), 'utf8');
 describe('the built site', () => {
   it('has every page the issue lists, entry pages under entries/<id>/', () => {
     const files = listFiles(out);
-    for (const page of ['index.html', 'browse/index.html', 'search/index.html', 'match/index.html', 'bands/index.html', 'releases/index.html', 'reports/index.html']) {
+    for (const page of [
+      'index.html',
+      'browse/index.html',
+      'search/index.html',
+      'match/index.html',
+      'bands/index.html',
+      'releases/index.html',
+      'reports/index.html',
+    ]) {
       expect(files).toContain(page);
     }
     for (const e of TEST_ENTRIES) {
@@ -33,28 +41,41 @@ describe('the built site', () => {
       expect(files).toContain(`entries/${e.id}/${e.id}.processed.f32`);
     }
     expect(files.filter((f) => /^reports\/[^/]+\/index\.html$/.test(f)).length).toBe(1);
-    for (const asset of ['assets/vendor/vega.min.js', 'assets/vendor/vega-lite.min.js', 'assets/vendor/vega-embed.min.js', 'assets/vendor/lunr.min.js', 'assets/bandshelf-browser.js', 'assets/site.css', 'assets/search-index.json', 'assets/search-matrix.bin']) {
+    for (const asset of [
+      'assets/vendor/vega.min.js',
+      'assets/vendor/vega-lite.min.js',
+      'assets/vendor/vega-embed.min.js',
+      'assets/vendor/lunr.min.js',
+      'assets/bandshelf-browser.js',
+      'assets/site.css',
+      'assets/search-index.json',
+      'assets/search-matrix.bin',
+    ]) {
       expect(files).toContain(asset);
     }
   });
 
   it('loads nothing from another host: every src, stylesheet href and CSS url() is local', () => {
     const offenders: string[] = [];
-    const remote = (u: string) => /^(?:[a-z][a-z0-9+.-]*:)?\/\//i.test(u.trim()) || /^(?:data|javascript):/i.test(u.trim());
+    const remote = (u: string) =>
+      /^(?:[a-z][a-z0-9+.-]*:)?\/\//i.test(u.trim()) || /^(?:data|javascript):/i.test(u.trim());
     for (const f of html()) {
       const text = read(f);
-      for (const m of text.matchAll(/\s(?:src|srcset|poster|data)\s*=\s*["']([^"']*)["']/gi)) if (remote(m[1]!)) offenders.push(`${f}: ${m[0]}`);
+      for (const m of text.matchAll(/\s(?:src|srcset|poster|data)\s*=\s*["']([^"']*)["']/gi))
+        if (remote(m[1]!)) offenders.push(`${f}: ${m[0]}`);
       for (const tag of text.matchAll(/<link\b[^>]*>/gi)) {
         const href = /href\s*=\s*["']([^"']*)["']/i.exec(tag[0]);
         if (href && remote(href[1]!)) offenders.push(`${f}: ${tag[0]}`);
       }
       for (const m of text.matchAll(/<(?:iframe|frame|embed|object)\b/gi)) offenders.push(`${f}: ${m[0]}`);
-      for (const m of text.matchAll(/url\(\s*['"]?([^'")]*)/gi)) if (remote(m[1]!)) offenders.push(`${f}: ${m[0]}`);
+      for (const m of text.matchAll(/url\(\s*['"]?([^'")]*)/gi))
+        if (remote(m[1]!)) offenders.push(`${f}: ${m[0]}`);
       for (const m of text.matchAll(/@import/gi)) offenders.push(`${f}: ${m[0]}`);
     }
     for (const f of css()) {
       const text = read(f);
-      for (const m of text.matchAll(/url\(\s*['"]?([^'")]*)/gi)) if (remote(m[1]!)) offenders.push(`${f}: ${m[0]}`);
+      for (const m of text.matchAll(/url\(\s*['"]?([^'")]*)/gi))
+        if (remote(m[1]!)) offenders.push(`${f}: ${m[0]}`);
       for (const m of text.matchAll(/@import[^;]*/gi)) offenders.push(`${f}: ${m[0]}`);
     }
     expect(offenders).toEqual([]);
@@ -76,7 +97,10 @@ describe('the built site', () => {
       // No inline script that the policy would block: every script element either loads a file or holds data.
       for (const s of text.matchAll(/<script\b([^>]*)>([\s\S]*?)<\/script>/gi)) {
         const attrs = s[1]!;
-        expect(/\bsrc=/.test(attrs) || /type="application\/json"/.test(attrs), `${f}: ${s[0].slice(0, 80)}`).toBe(true);
+        expect(
+          /\bsrc=/.test(attrs) || /type="application\/json"/.test(attrs),
+          `${f}: ${s[0].slice(0, 80)}`,
+        ).toBe(true);
       }
     }
   });
@@ -100,9 +124,10 @@ describe('the built site', () => {
     const shown = parseJson<{ original: { x: number[]; y: number[] }; processed: (number | null)[] }>(
       bandshelf(['show', 'albumin-test', '--library', fx.library, '--json']).stdout,
     );
-    const json = parseJson<{ original: { x: number[]; y: number[] }; processed: { file: string; length: number } }>(
-      read('entries/albumin-test/albumin-test.json'),
-    );
+    const json = parseJson<{
+      original: { x: number[]; y: number[] };
+      processed: { file: string; length: number };
+    }>(read('entries/albumin-test/albumin-test.json'));
     expect(json.original.x).toEqual(shown.original.x);
     expect(json.original.y).toEqual(shown.original.y);
     const bytes = readFileSync(join(out, 'entries/albumin-test', json.processed.file));
@@ -111,7 +136,7 @@ describe('the built site', () => {
     for (let i = 0; i < shown.processed.length; i++) {
       const stored = shown.processed[i];
       const v = view.getFloat32(i * 4, true);
-      if (stored === null) expect(Number.isNaN(v)).toBe(true);
+      if (stored === null || stored === undefined) expect(Number.isNaN(v)).toBe(true);
       else expect(v).toBe(Math.fround(stored));
     }
   });
@@ -131,14 +156,54 @@ describe('the built site', () => {
   });
 });
 
+describe('--at', () => {
+  it('publishes the state a release froze, and says so', () => {
+    const edited = bandshelf([
+      'edit',
+      'glucose-test',
+      '--set',
+      'name=Glucose, renamed',
+      '--library',
+      fx.library,
+    ]);
+    expect(edited.code, edited.stderr).toBe(0);
+    const current = join(fx.dir, 'site-current');
+    const released = join(fx.dir, 'site-r1');
+    expect(bandshelf(['site', '--library', fx.library, '--out', current]).code).toBe(0);
+    expect(bandshelf(['site', '--library', fx.library, '--out', released, '--at', 'r1']).code).toBe(0);
+    const page = (dir: string) => readFileSync(join(dir, 'entries/glucose-test/index.html'), 'utf8');
+    expect(page(current)).toContain('<h1>Glucose, renamed</h1>');
+    expect(page(released)).toContain('<h1>D-Glucose (test)</h1>');
+    expect(page(current)).toMatch(/revision 2 of/);
+    expect(page(released)).toMatch(/revision 1 of/);
+    expect(readFileSync(join(released, 'index.html'), 'utf8')).toContain('release r1');
+    const unknown = bandshelf([
+      'site',
+      '--library',
+      fx.library,
+      '--out',
+      join(fx.dir, 'site-x'),
+      '--at',
+      'nope',
+    ]);
+    expect(unknown.code).toBe(1);
+    expect(unknown.stderr).toMatch(/UNKNOWN_RELEASE/);
+  });
+});
+
 describe('rebuilds', () => {
   it('are byte-identical, into the same folder and into a fresh one', () => {
-    const snapshot = (dir: string) => new Map(listFiles(dir).map((f) => [f, readFileSync(join(dir, f)).toString('base64')]));
+    const snapshot = (dir: string) =>
+      new Map(listFiles(dir).map((f) => [f, readFileSync(join(dir, f)).toString('base64')]));
+    const build = (dir: string) => {
+      const r = bandshelf(['site', '--library', fx.library, '--reports', fx.reports, '--out', dir]);
+      expect(r.code, r.stderr).toBe(0);
+    };
+    build(out);
     const first = snapshot(out);
-    const again = bandshelf(['site', '--library', fx.library, '--reports', fx.reports, '--out', out]);
-    expect(again.code, again.stderr).toBe(0);
+    build(out);
     const fresh = join(fx.dir, 'site-2');
-    expect(bandshelf(['site', '--library', fx.library, '--reports', fx.reports, '--out', fresh]).code).toBe(0);
+    build(fresh);
     for (const next of [snapshot(out), snapshot(fresh)]) {
       expect([...next.keys()]).toEqual([...first.keys()]);
       for (const [f, bytes] of first) expect(next.get(f), f).toBe(bytes);
@@ -182,14 +247,24 @@ describe('--base', () => {
     const r = bandshelf(['site', '--library', fx.library, '--out', dir, '--base', '/spectra/']);
     expect(r.code, r.stderr).toBe(0);
     const page = readFileSync(join(dir, 'entries/albumin-test/index.html'), 'utf8');
-    const urls = [...page.matchAll(/\s(?:href|src|data-json)="([^"#]*)"/g)].map((m) => m[1]!).filter((u) => u.startsWith('/'));
+    const urls = [...page.matchAll(/\s(?:href|src|data-json)="([^"#]*)"/g)]
+      .map((m) => m[1]!)
+      .filter((u) => u.startsWith('/'));
     expect(urls.length).toBeGreaterThan(10);
     for (const u of urls) expect(u.startsWith('/spectra/'), u).toBe(true);
     expect(page).toContain('data-base="/spectra/"');
   });
 
   it('refuses a prefix that is not a plain path', () => {
-    const r = bandshelf(['site', '--library', fx.library, '--out', join(fx.dir, 'bad-base'), '--base', '/a/../b']);
+    const r = bandshelf([
+      'site',
+      '--library',
+      fx.library,
+      '--out',
+      join(fx.dir, 'bad-base'),
+      '--base',
+      '/a/../b',
+    ]);
     expect(r.code).toBe(2);
     expect(r.stderr).toMatch(/--base.*BAD_OPTION/);
   });

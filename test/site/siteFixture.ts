@@ -160,13 +160,24 @@ export function buildTestLibrary(options: { withReports?: boolean; demo?: boolea
     noise: 0.002,
     offset: 0.05,
   });
-  const mixtureUnknown = writeSpectrumCsv(join(dir, 'unknown-mixture.csv'), UNKNOWN_BANDS, { seed: 7, noise: 0.0005 });
+  const mixtureUnknown = writeSpectrumCsv(join(dir, 'unknown-mixture.csv'), UNKNOWN_BANDS, {
+    seed: 7,
+    noise: 0.0005,
+  });
   if (options.withReports ?? true) {
     mkdirSync(reports);
     run(['match', mixtureUnknown, '--library', library, '--mixture', '--report', reports]);
     if (options.demo) {
       for (const name of demoUnknowns()) {
-        run(['match', join(DEMO_LIBRARY, 'unknowns', name), '--library', library, '--mixture', '--report', reports]);
+        run([
+          'match',
+          join(DEMO_LIBRARY, 'unknowns', name),
+          '--library',
+          library,
+          '--mixture',
+          '--report',
+          reports,
+        ]);
       }
     }
   }

@@ -1,3 +1,4 @@
+// Tests of the airPLS baseline (Zhang, Chen & Liang 2010) on synthetic protein-like bands with a known baseline.
 import { describe, expect, it } from 'vitest';
 import { airplsBaseline } from '../../src/spectrum/airplsBaseline.js';
 
@@ -61,7 +62,26 @@ describe('airplsBaseline', () => {
   it('stops at one pass when asked and then equals the plain first-difference smoother of the data', () => {
     const { spectrum } = synthetic(() => 0, 0);
     const one = airplsBaseline(spectrum, { iterations: 1 });
-    // All weights 1: the smoother keeps the mean (column sums of DᵀD are zero).
+    // All weights 1 in the first pass: z solves (I + λ DᵀD) z = y with λ = 100 and first differences, a
+    // tridiagonal system (diagonal 1 + λ at the ends and 1 + 2λ inside, −λ beside it) solved here
+    // independently by the Thomas algorithm.
+    const y = spectrum.absorbance;
+    const n = y.length;
+    const lambda = 100;
+    const c = new Float64Array(n);
+    const d = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const diag = 1 + (i === 0 || i === n - 1 ? lambda : 2 * lambda);
+      const lower = i === 0 ? 0 : -lambda;
+      const m = diag - lower * (i === 0 ? 0 : c[i - 1]!);
+      c[i] = -lambda / m;
+      d[i] = (y[i]! - lower * (i === 0 ? 0 : d[i - 1]!)) / m;
+    }
+    const expected = new Float64Array(n);
+    expected[n - 1] = d[n - 1]!;
+    for (let i = n - 2; i >= 0; i--) expected[i] = d[i]! - c[i]! * expected[i + 1]!;
+    expect(maxError(one, expected)).toBeLessThan(1e-10);
+    // And the smoother keeps the mean (column sums of DᵀD are zero).
     const mean = (a: Float64Array) => a.reduce((s, v) => s + v, 0) / a.length;
     expect(mean(one)).toBeCloseTo(mean(spectrum.absorbance), 10);
   });

@@ -1,3 +1,4 @@
+// Tests of the asymmetric least-squares baseline on synthetic protein-like bands with a known baseline.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { alsBaseline } from '../../src/spectrum/alsBaseline.js';

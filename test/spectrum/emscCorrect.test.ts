@@ -1,3 +1,4 @@
+// Tests of EMSC scatter correction: known offset, multiplicative and Legendre terms recovered exactly.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { emscCorrect } from '../../src/spectrum/emscCorrect.js';

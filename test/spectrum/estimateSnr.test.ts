@@ -1,3 +1,4 @@
+// Tests of the SNR estimate: noise as the RMS after a linear detrend in a band-free window.
 import { linearRegression, rootMeanSquare } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
 import { estimateSnr } from '../../src/spectrum/estimateSnr.js';

@@ -1,3 +1,4 @@
+// Tests of linear interpolation at given wavenumbers, NaN outside coverage and across wide gaps.
 import { describe, expect, it } from 'vitest';
 import { interpolateAtWavenumbers } from '../../src/spectrum/interpolateAtWavenumbers.js';
 

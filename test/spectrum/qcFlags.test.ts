@@ -1,3 +1,4 @@
+// Tests of the ingest QC flags on invented serum-like films: each flag's trigger, level, figure and wording.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import type { Grid } from '../../src/schema/recipe.js';
@@ -201,6 +202,22 @@ describe('qcFlags', () => {
       'The spectrum covers 22.9 % of the library grid 600.0–4000.0 cm⁻¹ (data over 1000.0–1750.0 cm⁻¹), below 90 %; matching uses the overlap only.',
     );
     expect(codes(tunable, { minCoverage: 0.2 })).toEqual([]);
+  });
+
+  it('raises an error, not a warning, for a spectrum that covers none of the grid', () => {
+    // 4100–4500 cm⁻¹ lies wholly above the 4000 cm⁻¹ end of the grid: nothing could ever be matched.
+    const outside = film({ from: 4100, to: 4500, bands: [[4300, 30, 0.5]] });
+    const flags = qcFlags(outside, new Float64Array(1701).fill(Number.NaN), grid, { exclude });
+    const coverage = flags.filter((f) => f.code === 'narrow-coverage');
+    expect(coverage).toEqual([
+      {
+        code: 'narrow-coverage',
+        level: 'error',
+        message:
+          'The spectrum covers none of the library grid 600.0–4000.0 cm⁻¹ outside the excluded windows; it cannot be matched.',
+        value: 0,
+      },
+    ]);
   });
 
   it('warns about a low dynamic range of a field-resolved reference', () => {

@@ -1,3 +1,4 @@
+// Tests of the rubberband (lower convex hull) baseline by hand and under synthetic bands.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { rubberbandBaseline } from '../../src/spectrum/rubberbandBaseline.js';

@@ -1,3 +1,4 @@
+// Tests of the small dense least-squares solver against a statistics library and hand-checked fits.
 import { linearRegression } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
 import { solveLeastSquares } from '../../src/spectrum/solveLeastSquares.js';

@@ -1,3 +1,4 @@
+// Tests of the baseline step: dispatch on the recipe's method with its parameters and defaults.
 import { describe, expect, it } from 'vitest';
 import { recipeSchema } from '../../src/schema/recipe.js';
 import { airplsBaseline } from '../../src/spectrum/airplsBaseline.js';

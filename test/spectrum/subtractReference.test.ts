@@ -1,3 +1,4 @@
+// Tests of reference (water) subtraction: the scale fitted in a window, interpolation, refused windows.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { subtractReference } from '../../src/spectrum/subtractReference.js';

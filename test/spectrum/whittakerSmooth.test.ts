@@ -1,3 +1,4 @@
+// Tests of the weighted Whittaker smoother against an independent dense solve of the same system.
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { whittakerSmooth } from '../../src/spectrum/whittakerSmooth.js';

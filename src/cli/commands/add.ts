@@ -214,6 +214,11 @@ export const addCommand: CommandSpec = {
             notes.push(`${o.label}: ${o.id}: ${flag.level} ${flag.code}: ${flag.message}`);
           const p = prepared[i]!;
           if (o.status !== 'added') return;
+          // What the reader bent to read the file (no unit in a header, NPOINTS off …) is said now, not only in show.
+          for (const w of p.extras.warnings ?? [])
+            notes.push(
+              `${o.label}${w.line === undefined ? '' : `:${w.line}`}: ${o.id}: warning: ${w.message}`,
+            );
           const at = index.get(o.id);
           if (at === undefined) {
             index.set(o.id, pool.ids.length);

@@ -3,7 +3,7 @@ import { BandshelfError } from '../../error.js';
 import { closeLibrary } from '../../library/closeLibrary.js';
 import { libraryPath } from '../../library/libraryPath.js';
 import { openLibrary } from '../../library/openLibrary.js';
-import { readSearchSet } from '../../library/readSearchSet.js';
+import { readPeakSet } from '../../library/readPeakSet.js';
 import { buildBandIndex } from '../../match/buildBandIndex.js';
 import { searchBands } from '../../match/searchBands.js';
 import type { BandQuery, BandStrength } from '../../match/types.js';
@@ -68,7 +68,8 @@ export const bandsCommand: CommandSpec = {
     const top = positiveNumber(options.top ?? '20', 'top', true);
     const library = openLibrary(libraryPath(options.library, context.cwd), { readonly: true });
     try {
-      const set = readSearchSet(library, typeof options.at === 'string' ? { at: options.at } : {});
+      // Peaks only: the band index never needs the processed vectors.
+      const set = readPeakSet(library, typeof options.at === 'string' ? { at: options.at } : {});
       const lo = Math.min(set.grid.start, set.grid.stop);
       const hi = Math.max(set.grid.start, set.grid.stop);
       for (const band of bands) {

@@ -1,8 +1,10 @@
 // `bandshelf list`: the entries of the current state or of a release.
+import { BandshelfError } from '../../error.js';
 import { closeLibrary } from '../../library/closeLibrary.js';
 import { libraryPath } from '../../library/libraryPath.js';
 import { listEntries } from '../../library/listEntries.js';
 import { openLibrary } from '../../library/openLibrary.js';
+import { entryClasses } from '../../schema/meta.js';
 import type { CommandSpec } from '../command.js';
 import { textTable } from '../textTable.js';
 
@@ -22,6 +24,17 @@ export const listCommand: CommandSpec = {
       .option('--json', 'print [{id, revision, name, class}] as JSON');
   },
   async run(_args, options, context) {
+    const wanted = options.class;
+    if (typeof wanted === 'string' && !(entryClasses as readonly string[]).includes(wanted)) {
+      // A misspelt class would otherwise list nothing and look like an empty library.
+      throw new BandshelfError(
+        'BAD_OPTION',
+        `--class must be one of ${entryClasses.join(', ')} (not '${wanted}')`,
+        {
+          field: 'class',
+        },
+      );
+    }
     const library = openLibrary(libraryPath(options.library, context.cwd), { readonly: true });
     try {
       let entries = listEntries(library, { at: options.at as string | undefined });
@@ -43,7 +56,9 @@ export const listCommand: CommandSpec = {
       }
       if (entries.length === 0) {
         return {
-          stdout: options.at ? `release ${options.at} holds no entries` : 'the library holds no entries',
+          stdout: `${options.at ? `release ${options.at}` : 'the library'} holds no entries${
+            typeof wanted === 'string' ? ` of class ${wanted}` : ''
+          }`,
           exitCode: 0,
         };
       }

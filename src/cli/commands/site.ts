@@ -1,5 +1,6 @@
 // `bandshelf site`: builds the static, offline website of the library and its match reports.
 import { resolve } from 'node:path';
+import { BandshelfError } from '../../error.js';
 import { closeLibrary } from '../../library/closeLibrary.js';
 import { libraryPath } from '../../library/libraryPath.js';
 import { openLibrary } from '../../library/openLibrary.js';
@@ -7,7 +8,6 @@ import { MATCH_CAUTION } from '../../schema/matchReport.js';
 import { buildSite } from '../../site/buildSite.js';
 import { collectSiteData } from '../../site/collectSiteData.js';
 import { readReports } from '../../site/readReports.js';
-import { BandshelfError } from '../../error.js';
 import type { CommandSpec } from '../command.js';
 
 /** The site's caution: the match reports' own, plus that bandshelf is not a diagnostic device. */
@@ -33,7 +33,10 @@ export const siteCommand: CommandSpec = {
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
       .option('--at <tag>', 'publish the state a release froze (default: the working state)')
       .option('--reports <dir>', 'a folder of match reports (JSON from `bandshelf match --report DIR`)')
-      .requiredOption('--out <dir>', 'the output folder (created; refused if it holds files the build did not make)')
+      .requiredOption(
+        '--out <dir>',
+        'the output folder (created; refused if it holds files the build did not make)',
+      )
       .option('--base <path>', 'path prefix the site is served under, e.g. /spectra/', '/')
       .option('--clean', 'empty the output folder first even if it holds other files')
       .option('--json', 'print {out, files, bytes, entries, reports, pathPrefix} as JSON');
@@ -50,7 +53,9 @@ export const siteCommand: CommandSpec = {
         : [];
     const library = openLibrary(path, { readonly: true });
     try {
-      const source = collectSiteData(library, { at: typeof options.at === 'string' ? options.at : undefined });
+      const source = collectSiteData(library, {
+        at: typeof options.at === 'string' ? options.at : undefined,
+      });
       const built = await buildSite(source, {
         out: options.out,
         base: typeof options.base === 'string' ? options.base : '/',

@@ -301,9 +301,8 @@
         (loop $tail
           (call $dotOneI8 (local.get $r) (local.get $mat) (local.get $stride)
             (i32.add (local.get $queries) (i32.mul (local.get $g) (local.get $qbytes)))
-            (f32.mul
-              (f32.load (i32.add (local.get $scale) (i32.shl (local.get $r) (i32.const 2))))
-              (f32.load (i32.add (local.get $queryScale) (i32.shl (local.get $g) (i32.const 2)))))
+            (f32.load (i32.add (local.get $scale) (i32.shl (local.get $r) (i32.const 2))))
+            (f32.load (i32.add (local.get $queryScale) (i32.shl (local.get $g) (i32.const 2))))
             (i32.add (local.get $out)
               (i32.add (i32.shl (local.get $r) (i32.const 2)) (i32.mul (local.get $g) (local.get $plane)))))
           (local.set $g (i32.add (local.get $g) (i32.const 1)))
@@ -313,9 +312,10 @@
   (func $hsumI (param $v v128) (result f32)
     (call $hsum (f32x4.convert_i32x4_s (local.get $v))))
 
-  ;; One int8 row against one int16 query, times `factor`, stored at the byte address `dst`.
-  (func $dotOneI8 (param $r i32) (param $mat i32) (param $stride i32) (param $vec i32) (param $factor f32)
-    (param $dst i32)
+  ;; One int8 row against one int16 query, times the row scale and then the query scale (the order the batch
+  ;; kernel multiplies in, so a row scores alike wherever a thread's row range happens to split the pairs).
+  (func $dotOneI8 (param $r i32) (param $mat i32) (param $stride i32) (param $vec i32) (param $rowScale f32)
+    (param $queryScale f32) (param $dst i32)
     (local $p i32) (local $q i32) (local $end i32) (local $a v128)
     (local.set $p (i32.add (local.get $mat) (i32.mul (local.get $r) (local.get $stride))))
     (local.set $end (i32.add (local.get $p) (local.get $stride)))
@@ -327,7 +327,8 @@
       (local.set $p (i32.add (local.get $p) (i32.const 8)))
       (local.set $q (i32.add (local.get $q) (i32.const 16)))
       (br_if $cols (i32.lt_u (local.get $p) (local.get $end))))
-    (f32.store (local.get $dst) (f32.mul (call $hsumI (local.get $a)) (local.get $factor))))
+    (f32.store (local.get $dst)
+      (f32.mul (f32.mul (call $hsumI (local.get $a)) (local.get $rowScale)) (local.get $queryScale))))
 
   ;; out[r] = Σ_i mat[r, i]: one plain read of every row, the memory-bandwidth floor any scan must pay.
   (func (export "sumF32")

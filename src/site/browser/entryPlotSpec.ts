@@ -42,12 +42,14 @@ export function entryPlotSpec(data: EntryPlotData, options: EntryPlotSpecOptions
   const show = options.show ?? { original: true, processed: false };
   const [blue, vermillion] = okabeIto({ withoutBlack: true });
   const layers: { trace: PlotTrace; title: string; colour: string }[] = [];
-  if (show.original && data.original) layers.push({ trace: data.original, title: data.originalLabel, colour: blue! });
+  if (show.original && data.original)
+    layers.push({ trace: data.original, title: data.originalLabel, colour: blue! });
   if (show.processed && data.processed) {
     layers.push({ trace: data.processed, title: data.processedLabel, colour: vermillion! });
   }
   // Nothing chosen: draw the original rather than an empty frame.
-  if (layers.length === 0 && data.original) layers.push({ trace: data.original, title: data.originalLabel, colour: blue! });
+  if (layers.length === 0 && data.original)
+    layers.push({ trace: data.original, title: data.originalLabel, colour: blue! });
   if (layers.length === 0 && data.processed) {
     layers.push({ trace: data.processed, title: data.processedLabel, colour: vermillion! });
   }
@@ -67,9 +69,22 @@ export function entryPlotSpec(data: EntryPlotData, options: EntryPlotSpecOptions
     layer: layers.map((l, i) => ({
       data: { values: rows(l.trace) },
       ...(i === 0
-        ? { params: [{ name: 'zoom', select: { type: 'interval' as const, encodings: ['x' as const] }, bind: 'scales' as const }] }
+        ? {
+            params: [
+              {
+                name: 'zoom',
+                select: { type: 'interval' as const, encodings: ['x' as const] },
+                bind: 'scales' as const,
+              },
+            ],
+          }
         : {}),
-      mark: { type: 'line' as const, color: l.colour, clip: true },
+      mark: {
+        type: 'line' as const,
+        color: l.colour,
+        clip: true,
+        invalid: 'break-paths-show-domains' as const,
+      },
       encoding: {
         x,
         y: {
@@ -77,7 +92,11 @@ export function entryPlotSpec(data: EntryPlotData, options: EntryPlotSpecOptions
           type: 'quantitative' as const,
           title: l.title,
           scale: { zero: false },
-          axis: { orient: i === 0 ? ('left' as const) : ('right' as const), titleColor: l.colour, tickCount: 6 },
+          axis: {
+            orient: i === 0 ? ('left' as const) : ('right' as const),
+            titleColor: l.colour,
+            tickCount: 6,
+          },
         },
       },
     })),

@@ -13,10 +13,16 @@ export function mountBrowse(doc: Document, options: MountBrowseOptions = {}): vo
   const body = table?.tBodies[0];
   if (!table || !form || !body) return;
   const rows = Array.from(body.rows);
-  const field = (name: string): string => (form.elements.namedItem(name) as HTMLSelectElement | null)?.value ?? '';
+  const field = (name: string): string =>
+    (form.elements.namedItem(name) as HTMLSelectElement | null)?.value ?? '';
   const collator = new Intl.Collator('en', { sensitivity: 'base', numeric: true });
   const apply = (): void => {
-    const want = { class: field('class'), technique: field('technique'), tag: field('tag'), sampleForm: field('sampleForm') };
+    const want = {
+      class: field('class'),
+      technique: field('technique'),
+      tag: field('tag'),
+      sampleForm: field('sampleForm'),
+    };
     const [key, direction] = (field('sort') || 'name-asc').split('-') as ['name' | 'date', 'asc' | 'desc'];
     const sign = direction === 'desc' ? -1 : 1;
     const sorted = [...rows].sort((a, b) => {

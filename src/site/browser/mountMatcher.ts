@@ -27,7 +27,9 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
   if (!zone || !input || !status || !table) return;
   let set: PublishedSearchSet | undefined;
   const ready = Promise.all([
-    fetchOk(zone.dataset.meta ?? `${base}assets/search-matrix.json`).then((r) => r.json() as Promise<MatrixMeta>),
+    fetchOk(zone.dataset.meta ?? `${base}assets/search-matrix.json`).then(
+      (r) => r.json() as Promise<MatrixMeta>,
+    ),
     fetchOk(zone.dataset.matrix ?? `${base}assets/search-matrix.bin`).then((r) => r.arrayBuffer()),
   ]).then(([meta, buffer]) => {
     const decoded = decodeSearchMatrix(new Uint8Array(buffer));
@@ -85,7 +87,9 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
     } catch (error) {
       status.textContent =
         error instanceof BandshelfError
-          ? `${file.name}: ${error.oneLine()}`
+          ? error.file === undefined
+            ? `${file.name}: ${error.oneLine()}`
+            : error.oneLine()
           : `${file.name} could not be matched: ${error instanceof Error ? error.message : String(error)}`;
     }
   };

@@ -1,6 +1,8 @@
 // Wires a match report page's two plots from the data embedded in the page.
+import type { TopLevelSpec } from 'vega-lite';
 import type { ReportPlotData } from '../types.js';
 import { embedSpec } from './embedSpec.js';
+import { mixturePlotSpec } from './mixturePlotSpec.js';
 import { reportPlotSpec } from './reportPlotSpec.js';
 
 export interface MountReportPlotsOptions {
@@ -14,7 +16,7 @@ export function mountReportPlots(doc: Document, options: MountReportPlotsOptions
   if (!node) return;
   const data = JSON.parse(node.textContent ?? 'null') as ReportPlotData | null;
   if (!data) return;
-  const draw = (id: string, spec: ReturnType<typeof reportPlotSpec> | null): void => {
+  const draw = (id: string, spec: TopLevelSpec | null): void => {
     const target = doc.getElementById(id);
     if (!target) return;
     if (!spec) {
@@ -30,8 +32,5 @@ export function mountReportPlots(doc: Document, options: MountReportPlotsOptions
       });
   };
   draw('report-plot', data.overlay.length > 0 ? reportPlotSpec(data.overlay) : null);
-  draw(
-    'report-residual',
-    data.mixture.length > 0 ? reportPlotSpec(data.mixture, { marks: data.unexplained, yTitle: 'fit and residual' }) : null,
-  );
+  draw('report-residual', data.mixture.length > 0 ? mixturePlotSpec(data.mixture, data.unexplained) : null);
 }

@@ -80,7 +80,8 @@ export function mountSearch(doc: Document, options: MountSearchOptions = {}): vo
       const why = doc.createElement('span');
       why.className = 'why';
       const fields = new Set<string>();
-      for (const term of Object.values(result.matchData.metadata)) for (const f of Object.keys(term)) fields.add(FIELD_NAMES[f] ?? f);
+      for (const term of Object.values(result.matchData.metadata))
+        for (const f of Object.keys(term)) fields.add(FIELD_NAMES[f] ?? f);
       why.textContent = `${cls} · ${result.ref} · matched in ${[...fields].join(', ')}`;
       item.append(link, why);
       list.append(item);

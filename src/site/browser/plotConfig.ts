@@ -9,7 +9,8 @@ export interface PlotConfigOptions {
 
 export function plotConfig(options: PlotConfigOptions = {}): Config {
   const size = options.fontSize ?? 13;
-  const font = 'system-ui, -apple-system, "Segoe UI", Roboto, "Noto Sans", "Liberation Sans", Arial, sans-serif';
+  const font =
+    'system-ui, -apple-system, "Segoe UI", Roboto, "Noto Sans", "Liberation Sans", Arial, sans-serif';
   return {
     font,
     view: { stroke: null },
@@ -23,7 +24,7 @@ export function plotConfig(options: PlotConfigOptions = {}): Config {
       domainColor: '#8f8a80',
       tickColor: '#8f8a80',
     },
-    legend: { labelFontSize: size - 1, titleFontSize: size, orient: 'top' },
+    legend: { labelFontSize: size - 1, titleFontSize: size, orient: 'top', labelLimit: 320, columns: 3 },
     line: { strokeWidth: 1.4 },
   };
 }

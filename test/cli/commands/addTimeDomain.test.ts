@@ -24,8 +24,11 @@ describe('bandshelf add --time-domain', () => {
 
   it('a reference attenuated 10,000-fold in power reads as 4 absorbance units (common practice)', () => {
     expect(bandshelf(['init', ...lib]).code).toBe(0);
+    // A 30 fs pulse has a power spectrum about 490 cm⁻¹ wide (time–bandwidth product 0.441, common practice), so
+    // its 10⁻⁴ coverage spans roughly 1500 ± 900 cm⁻¹: part of the grid only.
     const { sample, reference } = writeTracePair(join(dir, 'one'), 'flat', {
       attenuation: 1e4,
+      fwhm: 30,
       sidecar: false,
     });
     const r = bandshelf([
@@ -50,8 +53,12 @@ describe('bandshelf add --time-domain', () => {
     for (const a of show.original.y) expect(a).toBeCloseTo(4, 6);
     expect(show.extras.dynamicRangeOrders).toBeGreaterThan(4);
     expect(show.extras.traces).toEqual({ sample: 1, reference: 1 });
-    // The pulse covers only part of 4000–600 cm⁻¹, so QC warns about narrow coverage.
+    // The pulse covers only part of 4000–600 cm⁻¹, so QC warns about narrow coverage, but it does cover the
+    // grid around its 1500 cm⁻¹ carrier.
     expect(show.qc.map((f) => f.code)).toContain('narrow-coverage');
+    expect(show.coverage).not.toBeNull();
+    expect(show.coverage!.min).toBeLessThan(1500);
+    expect(show.coverage!.max).toBeGreaterThan(1500);
     expect(bandshelf(['check', ...lib]).code).toBe(0);
   });
 

@@ -1,0 +1,89 @@
+// The band search's view of a library state: the same entries, state key and peak index as the search set, no vectors.
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { closeLibrary } from '../../src/library/closeLibrary.js';
+import { createRelease } from '../../src/library/createRelease.js';
+import { editEntry } from '../../src/library/editEntry.js';
+import { readEntry } from '../../src/library/readEntry.js';
+import { readPeakSet } from '../../src/library/readPeakSet.js';
+import { readSearchSet } from '../../src/library/readSearchSet.js';
+import { retireEntry } from '../../src/library/retireEntry.js';
+import type { Library } from '../../src/library/types.js';
+import { addEntry, newLibrary } from './libraryFixture.js';
+
+function samePeaks(a: ReturnType<typeof readPeakSet>, b: ReturnType<typeof readSearchSet>): void {
+  expect(a.entries).toEqual(b.entries);
+  expect(a.stateKey).toBe(b.stateKey);
+  expect(a.at).toBe(b.at);
+  expect(a.grid).toEqual(b.grid);
+  expect(Array.from(a.peaks.entry)).toEqual(Array.from(b.peaks.entry));
+  expect(Array.from(a.peaks.position)).toEqual(Array.from(b.peaks.position));
+  expect(Array.from(a.peaks.height)).toEqual(Array.from(b.peaks.height));
+  expect(Array.from(a.peaks.prominence)).toEqual(Array.from(b.peaks.prominence));
+}
+
+describe('readPeakSet', () => {
+  let library: Library;
+  beforeAll(() => {
+    ({ library } = newLibrary());
+    addEntry(library, 'carbo', [
+      { position: 1035, height: 0.9, fwhm: 25 },
+      { position: 1150, height: 0.3, fwhm: 20 },
+    ]);
+    addEntry(library, 'amide', [
+      { position: 1652, height: 0.8, fwhm: 30 },
+      { position: 1545, height: 0.5, fwhm: 28 },
+    ]);
+    addEntry(library, 'lipid', [
+      { position: 2922, height: 0.7, fwhm: 18 },
+      { position: 2852, height: 0.5, fwhm: 14 },
+      { position: 1740, height: 0.4, fwhm: 20 },
+    ]);
+    createRelease(library, 'r1', { now: new Date('2026-01-03T00:00:00Z') });
+  });
+  afterAll(() => closeLibrary(library));
+
+  it('holds the search set’s entries, state key and position-sorted peaks, each pointing at its row', () => {
+    const set = readPeakSet(library);
+    samePeaks(set, readSearchSet(library));
+    expect(set.entries.map((e) => e.id)).toEqual(['amide', 'carbo', 'lipid']);
+    const total = set.entries.reduce((n, e) => n + readEntry(library, e.id).peaks.length, 0);
+    expect(set.peaks.position.length).toBe(total);
+    for (let k = 1; k < total; k++)
+      expect(set.peaks.position[k]!).toBeGreaterThanOrEqual(set.peaks.position[k - 1]!);
+    // Every peak of row r is one of entry r's stored peaks.
+    for (let k = 0; k < total; k++) {
+      const stored = readEntry(library, set.entries[set.peaks.entry[k]!]!.id).peaks;
+      expect(stored.some((p) => p.position === set.peaks.position[k])).toBe(true);
+    }
+  });
+
+  it('never reads the processed vectors or the originals', () => {
+    const prepare = vi.spyOn(library.db, 'prepare');
+    try {
+      readPeakSet(library);
+      const sql = prepare.mock.calls.map((call) => String(call[0]));
+      expect(sql.length).toBeGreaterThan(0);
+      for (const text of sql) expect(text).not.toMatch(/processed|original|\*/);
+    } finally {
+      prepare.mockRestore();
+    }
+  });
+
+  it('follows the working state and keeps a release frozen, like readSearchSet', () => {
+    const before = readPeakSet(library);
+    editEntry(library, 'carbo', { set: { notes: 'edited' }, author: 'fixture' });
+    retireEntry(library, 'lipid', { reason: 'test', author: 'fixture' });
+    const after = readPeakSet(library);
+    samePeaks(after, readSearchSet(library));
+    expect(after.stateKey).not.toBe(before.stateKey);
+    expect(after.entries.map((e) => [e.id, e.revision])).toEqual([
+      ['amide', 1],
+      ['carbo', 2],
+    ]);
+    const frozen = readPeakSet(library, { at: 'r1' });
+    samePeaks(frozen, readSearchSet(library, { at: 'r1' }));
+    expect(frozen.at).toBe('r1');
+    expect(frozen.stateKey).toBe(before.stateKey);
+    expect(() => readPeakSet(library, { at: 'nope' })).toThrow(/no release is tagged 'nope'/);
+  });
+});
