@@ -23,17 +23,42 @@ async function runDemo(): Promise<void> {
   mkdirSync(REPORTS, { recursive: true });
   const lib = ['--library', LIBRARY];
   await step('Create the library (grid 4000–600 cm⁻¹ at 2 cm⁻¹)', ['init', ...lib]);
-  await step('Ingest the synthetic demo collection', ['add', 'library', ...lib, '--message', 'demo collection']);
+  await step('Ingest the synthetic demo collection', [
+    'add',
+    'library',
+    ...lib,
+    '--message',
+    'demo collection',
+  ]);
   await step('Freeze a release', ['release', 'demo-2026.12', ...lib, '--message', 'first demo release']);
   await step('Check the library of record', ['check', ...lib]);
   const unknowns = readdirSync('library/unknowns')
     .filter((f) => /\.(csv|jdx)$/.test(f))
     .sort();
   for (const file of unknowns) {
-    await step(`Match ${file}`, ['match', join('library/unknowns', file), ...lib, '--mixture', '--report', REPORTS]);
+    await step(`Match ${file}`, [
+      'match',
+      join('library/unknowns', file),
+      ...lib,
+      '--mixture',
+      '--report',
+      REPORTS,
+    ]);
   }
-  await step('Identify the bands of the serum film', ['identify', 'library/unknowns/u03-serum-film.csv', ...lib, '--report', REPORTS]);
-  await step('Band-position search: amide I, amide II, PO₂⁻ asymmetric', ['bands', '1652', '1545', '1240', ...lib]);
+  await step('Identify the bands of the serum film', [
+    'identify',
+    'library/unknowns/u03-serum-film.csv',
+    ...lib,
+    '--report',
+    REPORTS,
+  ]);
+  await step('Band-position search: amide I, amide II, PO₂⁻ asymmetric', [
+    'bands',
+    '1652',
+    '1545',
+    '1240',
+    ...lib,
+  ]);
   await step('Build the static site', ['site', ...lib, '--reports', REPORTS, '--out', SITE, '--clean']);
   if (existsSync(SITE)) {
     process.stdout.write(

@@ -18,7 +18,11 @@ export interface BandProfileOptions {
   scale?: number;
 }
 
-export function bandProfile(wavenumber: Float64Array, bands: readonly Band[], options: BandProfileOptions = {}): Float64Array {
+export function bandProfile(
+  wavenumber: Float64Array,
+  bands: readonly Band[],
+  options: BandProfileOptions = {},
+): Float64Array {
   const eta = options.lorentzianFraction ?? 0.5;
   const scale = options.scale ?? 1;
   const out = new Float64Array(wavenumber.length);

@@ -1,6 +1,5 @@
 // Makes every file of the synthetic demo collection in library/ from the compound table, reproducibly from one seed.
 import { writeJcampDx } from '../formats/writeJcampDx.js';
-import type { Spectrum } from '../spectrum/types.js';
 import { type Band, bandProfile } from './bandProfile.js';
 import { type DemoCompound, demoCompounds } from './demoCompounds.js';
 import { type SeededRandom, seededRandom } from './seededRandom.js';
@@ -18,7 +17,16 @@ export interface GenerateDemoLibraryOptions {
 }
 
 /** The ways the demo's benches write their files, used in turn so every reader path gets exercised. */
-const FILE_STYLES = ['jcamp-difdup', 'csv-percent-t', 'jcamp-affn', 'csv-micrometres', 'jcamp-sqz', 'csv-decimal-comma', 'jcamp-dif', 'jcamp-pac'] as const;
+const FILE_STYLES = [
+  'jcamp-difdup',
+  'csv-percent-t',
+  'jcamp-affn',
+  'csv-micrometres',
+  'jcamp-sqz',
+  'csv-decimal-comma',
+  'jcamp-dif',
+  'jcamp-pac',
+] as const;
 type FileStyle = (typeof FILE_STYLES)[number];
 
 const CONTRIBUTOR = 'Alder Row biofluid group (fictitious)';
@@ -50,7 +58,10 @@ function fmt(v: number, digits: number): string {
 }
 
 function delimited(x: Float64Array, y: Float64Array, style: FileStyle, title: string): string {
-  const lines: string[] = [`# ${title}`, '# synthetic demo spectrum (bandshelf demo generator); not a measurement'];
+  const lines: string[] = [
+    `# ${title}`,
+    '# synthetic demo spectrum (bandshelf demo generator); not a measurement',
+  ];
   if (style === 'csv-percent-t') {
     lines.push('wavenumber_cm-1,%T');
     // High to low, as many benches export.
@@ -60,7 +71,8 @@ function delimited(x: Float64Array, y: Float64Array, style: FileStyle, title: st
     for (let i = x.length - 1; i >= 0; i--) lines.push(`${fmt(1e4 / x[i]!, 6)},${fmt(y[i]!, 6)}`);
   } else {
     lines.push('wavenumber_cm-1;absorbance');
-    for (let i = 0; i < x.length; i++) lines.push(`${fmt(x[i]!, 2).replace('.', ',')};${fmt(y[i]!, 6).replace('.', ',')}`);
+    for (let i = 0; i < x.length; i++)
+      lines.push(`${fmt(x[i]!, 2).replace('.', ',')};${fmt(y[i]!, 6).replace('.', ',')}`);
   }
   return `${lines.join('\n')}\n`;
 }
@@ -153,7 +165,13 @@ interface MixturePart {
 }
 
 /** Mixes compounds so each contributes `share` of the total integrated absorbance. */
-function mix(x: Float64Array, step: number, parts: MixturePart[], total: number, extra: Band[] = []): Float64Array {
+function mix(
+  x: Float64Array,
+  step: number,
+  parts: MixturePart[],
+  total: number,
+  extra: Band[] = [],
+): Float64Array {
   const out = new Float64Array(x.length);
   for (const part of parts) {
     const profile = bandProfile(x, find(part.id).bands);
@@ -194,27 +212,47 @@ function unknownFiles(rng: SeededRandom): DemoFile[] {
   const x = axis(4000, 600, step);
 
   // u01: a single compound from another bench (descending %T CSV) — the top hit should be caffeine.
-  const caffeine = measure(x, bandProfile(x, find('caffeine').bands, { scale: 0.7, lorentzianFraction: 0.55 }), rng, 0.003);
-  files.push({ path: 'unknowns/u01-single-compound.csv', content: delimited(x, caffeine, 'csv-percent-t', 'Unknown u01 (synthetic)') });
+  const caffeine = measure(
+    x,
+    bandProfile(x, find('caffeine').bands, { scale: 0.7, lorentzianFraction: 0.55 }),
+    rng,
+    0.003,
+  );
+  files.push({
+    path: 'unknowns/u01-single-compound.csv',
+    content: delimited(x, caffeine, 'csv-percent-t', 'Unknown u01 (synthetic)'),
+  });
 
   // u02: four components, the drug spiked at 5 % of the integrated signal, noise and a sloped baseline.
   const spiked = measure(x, mix(x, step, SPIKED_MIXTURE, 180), rng, 0.002);
   files.push({
     path: 'unknowns/u02-spiked-mixture.jdx',
-    content: writeJcampDx({ wavenumber: x, absorbance: spiked }, { form: 'difdup', title: 'Unknown u02 (synthetic)', meta: {} }),
+    content: writeJcampDx(
+      { wavenumber: x, absorbance: spiked },
+      { form: 'difdup', title: 'Unknown u02 (synthetic)', meta: {} },
+    ),
   });
 
   // u03: a dried serum film with a band from a compound outside the library.
   const serum = measure(x, mix(x, step, SERUM_FILM, 220, UNLISTED_NITRILE), rng, 0.0015);
-  files.push({ path: 'unknowns/u03-serum-film.csv', content: delimited(x, serum, 'csv-decimal-comma', 'Unknown u03 (synthetic)') });
+  files.push({
+    path: 'unknowns/u03-serum-film.csv',
+    content: delimited(x, serum, 'csv-decimal-comma', 'Unknown u03 (synthetic)'),
+  });
 
   const truth = {
     note: 'Synthetic ground truth of the demo unknowns. Shares are fractions of the integrated absorbance.',
     unknowns: {
       'u01-single-compound.csv': { components: [{ id: 'caffeine', share: 1 }] },
       'u02-spiked-mixture.jdx': { components: SPIKED_MIXTURE, spiked: 'paracetamol' },
-      'u03-serum-film.csv': { components: SERUM_FILM, unlistedBands: UNLISTED_NITRILE.map((b) => b.position) },
-      'u04-tunable-laser.csv': { components: [{ id: 'aspirin', share: 1 }], coverage: { min: 1000, max: 1750 } },
+      'u03-serum-film.csv': {
+        components: SERUM_FILM,
+        unlistedBands: UNLISTED_NITRILE.map((b) => b.position),
+      },
+      'u04-tunable-laser.csv': {
+        components: [{ id: 'aspirin', share: 1 }],
+        coverage: { min: 1000, max: 1750 },
+      },
     },
   };
   files.push({ path: 'unknowns/truth.json', content: `${JSON.stringify(truth, null, 2)}\n` });
@@ -239,11 +277,39 @@ function biofluidReference(rng: SeededRandom): DemoFile[] {
     source: 'synthetic mixture of the demo albumin and glucose entries',
     bands: [],
   };
-  const calY = measure(x, mix(x, step, [{ id: 'albumin-human', share: 0.8 }, { id: 'glucose', share: 0.2 }], 150), rng, 0.0015);
+  const calY = measure(
+    x,
+    mix(
+      x,
+      step,
+      [
+        { id: 'albumin-human', share: 0.8 },
+        { id: 'glucose', share: 0.2 },
+      ],
+      150,
+    ),
+    rng,
+    0.0015,
+  );
   return [
-    { path: '40-pooled-serum-film.csv', content: delimited(x, y, 'csv-decimal-comma', `${compound.name} (synthetic)`) },
-    { path: '40-pooled-serum-film.meta.json', content: sidecar(compound, 'csv-decimal-comma', { sampleForm: 'dried film', preparation: 'air-dried 5 µL drop (synthetic)' }) },
-    { path: '41-albumin-glucose-mix.jdx', content: writeJcampDx({ wavenumber: x, absorbance: calY }, { form: 'difdup', title: `${cal.name} (synthetic)`, meta: {} }) },
+    {
+      path: '40-pooled-serum-film.csv',
+      content: delimited(x, y, 'csv-decimal-comma', `${compound.name} (synthetic)`),
+    },
+    {
+      path: '40-pooled-serum-film.meta.json',
+      content: sidecar(compound, 'csv-decimal-comma', {
+        sampleForm: 'dried film',
+        preparation: 'air-dried 5 µL drop (synthetic)',
+      }),
+    },
+    {
+      path: '41-albumin-glucose-mix.jdx',
+      content: writeJcampDx(
+        { wavenumber: x, absorbance: calY },
+        { form: 'difdup', title: `${cal.name} (synthetic)`, meta: {} },
+      ),
+    },
     { path: '41-albumin-glucose-mix.meta.json', content: sidecar(cal, 'jcamp-difdup') },
   ];
 }
@@ -260,4 +326,3 @@ export function generateDemoLibrary(options: GenerateDemoLibraryOptions = {}): D
   files.push(...timeDomainDemoFiles(rng, (id) => find(id).bands));
   return files;
 }
-

@@ -18,10 +18,10 @@ export interface ToWavenumberAbsorbanceOptions {
 }
 
 /**
- * Returns new arrays (inputs untouched); NaN/Infinity → NOT_FINITE, T ≤ 0 → BAD_TRANSMITTANCE, λ ≤ 0 → NOT_FINITE
- * and a negative wavenumber → NOT_A_SPECTRUM (such an x is some other quantity), each with its line. Zero is let
- * through: the standard's own examples number their points from X = 0, and the library's QC refuses a spectrum
- * that covers none of its grid.
+ * Returns new arrays (inputs untouched); NaN/Infinity → NOT_FINITE, T ≤ 0 → BAD_TRANSMITTANCE,
+ * λ ≤ 0 → NOT_FINITE and a negative wavenumber → NOT_A_SPECTRUM (such an x is some other quantity), each
+ * with its line. Zero is let through: the standard's own examples number their points from X = 0, and the
+ * library's QC refuses a spectrum that covers none of its grid.
  */
 export function toWavenumberAbsorbance(
   points: { x: Float64Array; y: Float64Array },

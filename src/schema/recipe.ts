@@ -9,12 +9,12 @@ export const windowSchema = z
   .refine((w) => w.max > w.min, { message: 'a window needs max > min' });
 export type WavenumberWindow = z.output<typeof windowSchema>;
 
-/** The most points a library grid may have: 0.01 cm⁻¹ over 4000–600 cm⁻¹ is 340,001; this is a guard, not a target. */
+/** The most points a grid may have; a guard, not a target (0.01 cm⁻¹ over 4000–600 cm⁻¹ is 340,001). */
 const MAX_GRID_POINTS = 1_000_001;
 
 /**
- * The library grid: `start` and `stop` in cm⁻¹ (either order, both > 0), `step` > 0, at most 1,000,001 points.
- * Vectors on it run ascending.
+ * The library grid: `start` and `stop` in cm⁻¹ (either order, both > 0), `step` > 0, at most 1,000,001
+ * points. Vectors on it run ascending.
  */
 export const gridSchema = z
   .object({

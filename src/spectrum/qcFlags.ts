@@ -96,9 +96,9 @@ export type QcOptions = QcFlagsOptions;
  * spikes (narrower than any band: y(i) far from the line through its neighbours two and three points away
  * while y(i±1) stay within a third of that excursion; two adjacent bad points are missed, and bands narrower
  * than about 3 points, which are undersampled, can look like spikes), gaps in the source coverage, coarse
- * point spacing, narrow coverage of the grid (an error when nothing is covered), and low dynamic range. `original` is the parsed spectrum (any
- * order; sorted here), `processed` the grid vector (NaN not covered). Near-duplicates are the library's
- * check.
+ * point spacing, narrow coverage of the grid (an error when nothing is covered), and low dynamic range.
+ * `original` is the parsed spectrum (any order; sorted here), `processed` the grid vector (NaN not covered).
+ * Near-duplicates are the library's check.
  */
 export function qcFlags(
   original: Spectrum,

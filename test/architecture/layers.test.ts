@@ -37,7 +37,8 @@ function layerOf(file: string): string {
 function importsOf(file: string): string[] {
   const text = readFileSync(file, 'utf8');
   const found: string[] = [];
-  for (const m of text.matchAll(/(?:^|\n)\s*(?:import|export)\s[^'"]*?from\s+['"]([^'"]+)['"]/g)) found.push(m[1]!);
+  for (const m of text.matchAll(/(?:^|\n)\s*(?:import|export)\s[^'"]*?from\s+['"]([^'"]+)['"]/g))
+    found.push(m[1]!);
   for (const m of text.matchAll(/(?:^|\n)\s*import\s+['"]([^'"]+)['"]/g)) found.push(m[1]!);
   for (const m of text.matchAll(/import\(\s*['"]([^'"]+)['"]\s*\)/g)) found.push(m[1]!);
   return found;
@@ -88,7 +89,10 @@ describe('browser-safe code', () => {
     it(`${relative(root, file)} has no Node-only imports`, () => {
       for (const spec of importsOf(file)) {
         expect(spec.startsWith('node:'), `${spec}`).toBe(false);
-        expect(['fs', 'path', 'os', 'child_process', 'worker_threads', 'better-sqlite3'].includes(spec), spec).toBe(false);
+        expect(
+          ['fs', 'path', 'os', 'child_process', 'worker_threads', 'better-sqlite3'].includes(spec),
+          spec,
+        ).toBe(false);
       }
     });
   }

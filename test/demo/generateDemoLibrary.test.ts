@@ -37,12 +37,24 @@ describe('generateDemoLibrary', () => {
     const classes = new Set(
       files.filter((f) => f.path.endsWith('.meta.json')).map((f) => JSON.parse(f.content).class as string),
     );
-    for (const c of ['protein', 'lipid', 'carbohydrate', 'nucleic-acid', 'metabolite', 'drug', 'solvent', 'buffer', 'mixture', 'biofluid']) {
+    for (const c of [
+      'protein',
+      'lipid',
+      'carbohydrate',
+      'nucleic-acid',
+      'metabolite',
+      'drug',
+      'solvent',
+      'buffer',
+      'mixture',
+      'biofluid',
+    ]) {
       expect(classes.has(c), c).toBe(true);
     }
   });
 
   it('gives only CAS numbers whose check digit is right (check-digit rule published by the CAS registry)', () => {
-    for (const c of demoCompounds) if (c.cas) expect(casCheckDigitValid(c.cas), `${c.id} ${c.cas}`).toBe(true);
+    for (const c of demoCompounds)
+      if (c.cas) expect(casCheckDigitValid(c.cas), `${c.id} ${c.cas}`).toBe(true);
   });
 });

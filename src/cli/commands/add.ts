@@ -214,7 +214,7 @@ export const addCommand: CommandSpec = {
             notes.push(`${o.label}: ${o.id}: ${flag.level} ${flag.code}: ${flag.message}`);
           const p = prepared[i]!;
           if (o.status !== 'added') return;
-          // What the reader bent to read the file (no unit in a header, NPOINTS off …) is said now, not only in show.
+          // What the reader bent to read the file (no unit in a header …) is said now, not only by show.
           for (const w of p.extras.warnings ?? [])
             notes.push(
               `${o.label}${w.line === undefined ? '' : `:${w.line}`}: ${o.id}: warning: ${w.message}`,
