@@ -63,7 +63,8 @@ export function writeJcampDx(spectrum: Spectrum, options: WriteJcampDxOptions = 
   for (let i = 0; i < n; i++) {
     const v = Math.round(y[i]! / yFactor);
     ints[i] = v === 0 ? 0 : v; // no −0: it would print as 0 but compare unequal in DUP runs on some engines
-    const real = v * yFactor;
+    // Dividing by an exact power of ten keeps MAXY/MINY free of binary noise such as 0.5506261100000001.
+    const real = exponent < 0 ? v / 10 ** -exponent : v * 10 ** exponent;
     if (real < minY) minY = real;
     if (real > maxY) maxY = real;
   }

@@ -46,7 +46,8 @@ export interface ProcessedSpectrum {
  * sample, so the fit compares like with like. Smoothing runs separately on each stretch between gaps wider
  * than `resample.maxGap` (the excluded CO₂ window, the holes of a scattered tunable-laser spectrum), so no
  * window mixes data across a gap; a stretch shorter than the window is left unsmoothed. Time-domain
- * entries arrive here already converted to absorbance; `recipe.timeDomain` is applied before, not here.
+ * entries arrive here already converted to absorbance; `recipe.timeDomain` is applied before, not here, and only
+ * widens the gap limit to 1.5 × the spectrum's frequency-bin spacing.
  */
 export function processSpectrum(
   original: Spectrum,
@@ -57,7 +58,12 @@ export function processSpectrum(
   const file = options.file;
   const where = file === undefined ? {} : { file };
   const references = options.references ?? new Map<string, Spectrum>();
-  const maxGap = recipe.resample.maxGap;
+  // A spectrum computed by FFT from time-domain traces is sampled at its frequency-bin spacing: those bins are
+  // its data, not holes, so the gap limit must not be tighter than that spacing (short traces give coarse bins).
+  const maxGap =
+    recipe.timeDomain === null
+      ? recipe.resample.maxGap
+      : Math.max(recipe.resample.maxGap, 1.5 * medianSpacing(original.wavenumber));
   const prepare = (spectrum: Spectrum, label: string | undefined): Spectrum => {
     const at = label === undefined ? {} : { file: label };
     let s = sortAndMerge(spectrum, at);
@@ -131,4 +137,12 @@ function smoothBetweenGaps(spectrum: Spectrum, window: number, order: number, ma
     start = end + 1;
   }
   return { wavenumber: x.slice(), absorbance: out };
+}
+
+function medianSpacing(x: Float64Array): number {
+  if (x.length < 2) return 0;
+  const steps = new Float64Array(x.length - 1);
+  for (let i = 1; i < x.length; i++) steps[i - 1] = Math.abs(x[i]! - x[i - 1]!);
+  steps.sort();
+  return steps[steps.length >> 1]!;
 }

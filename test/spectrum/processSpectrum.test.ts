@@ -163,3 +163,36 @@ describe('processSpectrum', () => {
     expect(sumSq).toBeCloseTo(1, 12);
   });
 });
+
+describe('processSpectrum on spectra computed from time-domain traces', () => {
+  it('treats the frequency-bin spacing as sampling, not as gaps, even when it exceeds resample.maxGap', () => {
+    // Bins every 20 cm⁻¹ (a short trace): with the 16 cm⁻¹ default gap limit a plain spectrum keeps only the 60 grid
+    // points that fall exactly on a bin and nothing between them.
+    const n = 60;
+    const x = new Float64Array(n);
+    const y = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      x[i] = 1000 + 20 * i;
+      y[i] = Math.exp(-(((x[i]! - 1600) / 80) ** 2));
+    }
+    const grid = { start: 2200, stop: 900, step: 2 };
+    const plain = recipeSchema.parse({
+      baseline: { method: 'none' },
+      exclude: [],
+      normalise: { method: 'none' },
+    });
+    const fromTraces = recipeSchema.parse({
+      baseline: { method: 'none' },
+      exclude: [],
+      normalise: { method: 'none' },
+      timeDomain: {},
+    });
+    const covered = (v: Float64Array) => v.filter((a) => Number.isFinite(a)).length;
+    expect(covered(processSpectrum({ wavenumber: x, absorbance: y }, plain, grid).processed)).toBe(60);
+    const result = processSpectrum({ wavenumber: x, absorbance: y }, fromTraces, grid).processed;
+    // 1000–2180 cm⁻¹ on a 2 cm⁻¹ grid from 900: points 1000, 1002, …, 2180 are covered (591 points).
+    expect(covered(result)).toBe(591);
+    // Linear interpolation between bins at 1600 (the band centre, a bin) returns the bin value exactly.
+    expect(result[(1600 - 900) / 2]).toBeCloseTo(1, 12);
+  });
+});
