@@ -3,7 +3,7 @@ import { Command, CommanderError } from 'commander';
 import { BandshelfError } from '../error.js';
 import type { CommandContext, CommandResult, CommandSpec } from './command.js';
 import { commands } from './commands/index.js';
-import { drawProgress } from './progress.js';
+import { drawProgress } from './drawProgress.js';
 
 const CAUTION =
   'Research use only: matches are candidates, not identifications. Confirm by orthogonal methods; bandshelf is not a diagnostic device.';

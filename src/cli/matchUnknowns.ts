@@ -6,6 +6,7 @@ import { BandshelfError } from '../error.js';
 import { isSidecarName } from '../formats/isSidecarName.js';
 import { readSpectrumFile } from '../formats/readSpectrumFile.js';
 import { closeLibrary } from '../library/closeLibrary.js';
+import { describeIoError } from '../library/describeIoError.js';
 import { libraryPath } from '../library/libraryPath.js';
 import { listAssignments } from '../library/listAssignments.js';
 import { openLibrary } from '../library/openLibrary.js';
@@ -114,8 +115,9 @@ function readUnknowns(file: string, cwd: string): Unknown[] {
   try {
     bytes = readFileSync(resolve(cwd, file));
   } catch (error) {
-    throw new BandshelfError('IO_ERROR', `cannot read: ${(error as NodeJS.ErrnoException).code ?? error}`, {
+    throw new BandshelfError('IO_ERROR', `cannot read: ${describeIoError(error)}`, {
       file,
+      cause: error,
     });
   }
   const hash = createHash('sha256').update(bytes).digest('hex');

@@ -2,6 +2,7 @@
 import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import { basename, extname, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
+import { describeIoError } from '../library/describeIoError.js';
 import type { MatchOutcome } from './matchUnknowns.js';
 
 export interface WriteMatchReportsOptions {
@@ -19,13 +20,10 @@ export function writeMatchReports(
   try {
     mkdirSync(target, { recursive: true });
   } catch (error) {
-    throw new BandshelfError(
-      'IO_ERROR',
-      `cannot create the report folder (${(error as NodeJS.ErrnoException).code})`,
-      {
-        file: dir,
-      },
-    );
+    throw new BandshelfError('IO_ERROR', `cannot create the report folder: ${describeIoError(error)}`, {
+      file: dir,
+      cause: error,
+    });
   }
   const used = new Set<string>();
   const written: string[] = [];
@@ -40,8 +38,9 @@ export function writeMatchReports(
       writeFileSync(`${path}.tmp`, `${JSON.stringify(o.report, null, 1)}\n`);
       renameSync(`${path}.tmp`, path);
     } catch (error) {
-      throw new BandshelfError('IO_ERROR', `cannot write (${(error as NodeJS.ErrnoException).code})`, {
+      throw new BandshelfError('IO_ERROR', `cannot write: ${describeIoError(error, { writing: true })}`, {
         file: join(dir, `${name}.match.json`),
+        cause: error,
       });
     }
     written.push(join(dir, `${name}.match.json`));

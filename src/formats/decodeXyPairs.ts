@@ -1,5 +1,6 @@
 // Decodes `(XY..XY)` tables (XYPOINTS, PEAK TABLE): AFFN numbers in groups of x, y (and w), `?` for missing.
 import { BandshelfError } from '../error.js';
+import { growPointBuffers, type PointBuffers } from './growPointBuffers.js';
 
 export interface DecodeXyPairsOptions {
   /** File named in errors. @default undefined */
@@ -24,9 +25,11 @@ export interface XyPairsDecoded {
 /** Groups may run across separators `,` `;` spaces and tabs, one or several per line. */
 export function decodeXyPairs(lines: readonly string[], options: DecodeXyPairsOptions = {}): XyPairsDecoded {
   const { file, firstLine = 1, columns = 2, maxPoints = 5_000_000 } = options;
-  let x = new Float64Array(256);
-  let y = new Float64Array(256);
-  let pointLine = new Uint32Array(256);
+  let points: PointBuffers = {
+    x: new Float64Array(256),
+    y: new Float64Array(256),
+    pointLine: new Uint32Array(256),
+  };
   let count = 0;
   let column = 0;
   let lastLine = firstLine;
@@ -57,22 +60,11 @@ export function decodeXyPairs(lines: readonly string[], options: DecodeXyPairsOp
             line: lineNo,
           });
         }
-        if (count >= x.length) {
-          const cap = x.length * 2;
-          const nx = new Float64Array(cap);
-          nx.set(x);
-          x = nx;
-          const ny = new Float64Array(cap);
-          ny.set(y);
-          y = ny;
-          const nl = new Uint32Array(cap);
-          nl.set(pointLine);
-          pointLine = nl;
-        }
-        x[count] = value;
-        pointLine[count] = lineNo;
+        if (count >= points.x.length) points = growPointBuffers(points);
+        points.x[count] = value;
+        points.pointLine[count] = lineNo;
       } else if (column === 1) {
-        y[count] = value;
+        points.y[count] = value;
         count++;
       }
       column = (column + 1) % columns;
@@ -84,7 +76,11 @@ export function decodeXyPairs(lines: readonly string[], options: DecodeXyPairsOp
       line: lastLine,
     });
   }
-  return { x: x.slice(0, count), y: y.slice(0, count), pointLine: pointLine.slice(0, count) };
+  return {
+    x: points.x.slice(0, count),
+    y: points.y.slice(0, count),
+    pointLine: points.pointLine.slice(0, count),
+  };
 }
 
 const AFFN = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;

@@ -1,5 +1,6 @@
 // Reads two-column delimited text (CSV, semicolon, tab or whitespace) into a spectrum in cm⁻¹ and absorbance.
 import { BandshelfError } from '../error.js';
+import { growPointBuffers, type PointBuffers } from './growPointBuffers.js';
 import { spectrumFromPoints } from './spectrumFromPoints.js';
 import { toWavenumberAbsorbance } from './toWavenumberAbsorbance.js';
 import type { ParsedSpectrum, ParseWarning, XUnit, YUnit } from './types.js';
@@ -62,9 +63,11 @@ export function readDelimited(text: string, options: ReadDelimitedOptions = {}):
   const delimiter = chooseDelimiter(sample);
   const decimalComma = delimiter !== ',';
 
-  let x = new Float64Array(1024);
-  let y = new Float64Array(1024);
-  let pointLine = new Uint32Array(1024);
+  let points: PointBuffers = {
+    x: new Float64Array(1024),
+    y: new Float64Array(1024),
+    pointLine: new Uint32Array(1024),
+  };
   let n = 0;
   let extraColumns = 0;
   for (let i = firstData; i < lines.length; i++) {
@@ -81,26 +84,15 @@ export function readDelimited(text: string, options: ReadDelimitedOptions = {}):
     if (cells.length > 2) extraColumns = Math.max(extraColumns, cells.length);
     const xv = parseCell(cells[0]!, decimalComma, file, i + 1, 'x');
     const yv = parseCell(cells[1]!, decimalComma, file, i + 1, 'y');
-    if (n >= x.length) {
-      const cap = x.length * 2;
-      const nx = new Float64Array(cap);
-      nx.set(x);
-      x = nx;
-      const ny = new Float64Array(cap);
-      ny.set(y);
-      y = ny;
-      const nl = new Uint32Array(cap);
-      nl.set(pointLine);
-      pointLine = nl;
-    }
-    x[n] = xv;
-    y[n] = yv;
-    pointLine[n] = i + 1;
+    if (n >= points.x.length) points = growPointBuffers(points);
+    points.x[n] = xv;
+    points.y[n] = yv;
+    points.pointLine[n] = i + 1;
     n++;
   }
-  x = x.slice(0, n);
-  y = y.slice(0, n);
-  pointLine = pointLine.slice(0, n);
+  const x = points.x.slice(0, n);
+  const y = points.y.slice(0, n);
+  const pointLine = points.pointLine.slice(0, n);
   if (extraColumns > 0) {
     warnings.push({
       line: firstData + 1,

@@ -6,10 +6,12 @@ import { BandshelfError } from '../error.js';
 import { metaErrorFromIssues } from '../formats/metaErrorFromIssues.js';
 import { type EntryMetaPatch, entryMetaPatchSchema, entryMetaSchema } from '../schema/meta.js';
 import { type Recipe, timeDomainSchema } from '../schema/recipe.js';
+import { describeIoError } from './describeIoError.js';
 import type { RevisionInput, SourceFile } from './ingestTypes.js';
 import { type LoadedSidecar, loadSidecar } from './loadSidecar.js';
 import type { IngestJob } from './planIngest.js';
 import { readOriginals } from './readOriginals.js';
+import { readTextFile } from './readTextFile.js';
 import type { Library, ReadOptions, RevisionExtras } from './types.js';
 
 export interface BuildRevisionInputsOptions {
@@ -69,7 +71,7 @@ function readBytes(path: string, label: string, maxBytes: number): Uint8Array {
     return new Uint8Array(readFileSync(path));
   } catch (error) {
     if (error instanceof BandshelfError) throw error;
-    throw new BandshelfError('IO_ERROR', `cannot read: ${(error as NodeJS.ErrnoException).code ?? error}`, {
+    throw new BandshelfError('IO_ERROR', `cannot read: ${describeIoError(error)}`, {
       file: label,
       cause: error,
     });
@@ -116,13 +118,7 @@ export function buildRevisionInputs(
   let sidecar = job.sidecar;
   if (sidecar === undefined && job.sidecarPath !== undefined) {
     const label = sidecarLabel ?? job.label;
-    let text: string;
-    try {
-      text = readFileSync(job.sidecarPath, 'utf8');
-    } catch (error) {
-      throw new BandshelfError('IO_ERROR', 'cannot read the sidecar', { file: label, cause: error });
-    }
-    sidecar = loadSidecar(text, { file: label });
+    sidecar = loadSidecar(readTextFile(job.sidecarPath, { label }), { file: label });
   }
   const timeDomain = job.samplePaths.length > 0;
   if (!timeDomain && sidecar?.timeDomain !== undefined) {

@@ -1,6 +1,6 @@
 // Turns the paths given to `add` into ingest jobs: which data or trace files make one entry, with which sidecar
 // and manifest row. Only names and sidecars are read here; a job's problems surface when it runs.
-import { existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, statSync } from 'node:fs';
 import { basename, dirname, join, relative, resolve, sep } from 'node:path';
 import { BandshelfError } from '../error.js';
 import { isSidecarName } from '../formats/isSidecarName.js';
@@ -8,6 +8,7 @@ import { readManifest } from '../formats/readManifest.js';
 import { sidecarNameFor } from '../formats/sidecarNameFor.js';
 import type { EntryMetaPatch } from '../schema/meta.js';
 import { type LoadedSidecar, loadSidecar } from './loadSidecar.js';
+import { readTextFile } from './readTextFile.js';
 
 /** One entry-producing unit of an `add` (a file may still hold several JCAMP-DX blocks). */
 export interface IngestJob {
@@ -70,17 +71,6 @@ function extensionOf(name: string): string {
   return dot > 0 ? name.slice(dot + 1).toLowerCase() : '';
 }
 
-function readText(path: string, label: string): string {
-  try {
-    return readFileSync(path, 'utf8');
-  } catch (error) {
-    throw new BandshelfError('IO_ERROR', `cannot read: ${(error as NodeJS.ErrnoException).code ?? error}`, {
-      file: label,
-      cause: error,
-    });
-  }
-}
-
 /** Sub-folders with this name hold query spectra (unknowns to match), not references: `add DIR` leaves them out. */
 const QUERY_FOLDER = 'unknowns';
 
@@ -121,7 +111,7 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
       throw new BandshelfError('IO_ERROR', 'the manifest does not exist', { file: label });
     manifests.push({
       dir: dirname(abs),
-      rows: readManifest(readText(abs, label), { file: label }),
+      rows: readManifest(readTextFile(abs, { label }), { file: label }),
       used: new Set(),
       label,
     });
@@ -213,7 +203,7 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
     const label = labelOf(c.abs);
     let sidecar: LoadedSidecar;
     try {
-      sidecar = loadSidecar(readText(c.abs, label), { file: label });
+      sidecar = loadSidecar(readTextFile(c.abs, { label }), { file: label });
     } catch (error) {
       // A broken sidecar beside a data file is reported once, by that file's job.
       const twinExists = candidates.some((d) => !isSidecarName(d.abs) && sidecarNameFor(d.abs) === c.abs);

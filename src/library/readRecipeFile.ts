@@ -1,8 +1,8 @@
 // Reads and validates a recipe JSON file (`init --recipe`, `add --recipe`), naming the file and field on error.
-import { readFileSync } from 'node:fs';
 import { BandshelfError } from '../error.js';
 import { metaErrorFromIssues } from '../formats/metaErrorFromIssues.js';
 import { type Recipe, recipeSchema } from '../schema/recipe.js';
+import { readTextFile } from './readTextFile.js';
 
 export interface ReadRecipeFileOptions {
   /** The file as the user named it, for errors.
@@ -12,15 +12,7 @@ export interface ReadRecipeFileOptions {
 
 export function readRecipeFile(path: string, options: ReadRecipeFileOptions = {}): Recipe {
   const file = options.label ?? path;
-  let text: string;
-  try {
-    text = readFileSync(path, 'utf8');
-  } catch (error) {
-    throw new BandshelfError('IO_ERROR', `cannot read: ${(error as NodeJS.ErrnoException).code ?? error}`, {
-      file,
-      cause: error,
-    });
-  }
+  const text = readTextFile(path, { label: file });
   let parsed: unknown;
   try {
     parsed = JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);

@@ -1,6 +1,6 @@
 // Every bad input to `add` gives one line naming the file and the problem, never a stack trace, and writes nothing:
 // every table's row count stays the same and `check` still passes.
-import { closeSync, existsSync, ftruncateSync, openSync, writeFileSync } from 'node:fs';
+import { closeSync, existsSync, ftruncateSync, mkdirSync, openSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -262,6 +262,33 @@ describe('bad input to add', () => {
       () => ({ file: join(dir, 'missing.csv') }),
       /missing\.csv: no such file.*IO_ERROR/,
     ],
+    [
+      'a recipe file that does not exist',
+      () => ({
+        file: writeSpectrumCsv(join(dir, 'no-recipe.csv'), bandsFor(15)),
+        extra: ['--recipe', join(dir, 'no-recipe.json')],
+      }),
+      /no-recipe\.json: cannot read: the file does not exist \[IO_ERROR\]$/,
+    ],
+    [
+      'a folder given as the recipe file',
+      () => {
+        mkdirSync(join(dir, 'recipe-folder'), { recursive: true });
+        return {
+          file: writeSpectrumCsv(join(dir, 'recipe-folder.csv'), bandsFor(16)),
+          extra: ['--recipe', join(dir, 'recipe-folder')],
+        };
+      },
+      /recipe-folder: cannot read: it is a folder, not a file \[IO_ERROR\]$/,
+    ],
+    [
+      'a --meta file that does not exist',
+      () => ({
+        file: writeSpectrumCsv(join(dir, 'no-meta.csv'), bandsFor(17)),
+        extra: ['--meta', join(dir, 'no-meta.meta.json')],
+      }),
+      /no-meta\.meta\.json: cannot read: the file does not exist \[IO_ERROR\]$/,
+    ],
   ];
 
   for (const [what, make, expected] of cases) {
@@ -380,13 +407,18 @@ describe('bad input to the other store commands', () => {
     [
       'export to a path inside a regular file (unwritable)',
       () => ['export', 'good', '--out', join(plainFile, 'x.csv'), ...lib],
-      /plain\.txt\/x\.csv: cannot write.*\[IO_ERROR\]$/,
+      /plain\.txt\/x\.csv: cannot write: a part of the path is a file, not a folder \[IO_ERROR\]$/,
     ],
     [
       'export into a folder that does not exist',
       () => ['export', 'good', '--out', join(dir, 'no-folder', 'x.csv'), ...lib],
-      /no-folder\/x\.csv: cannot write.*\[IO_ERROR\]$/,
+      /no-folder\/x\.csv: cannot write: the folder it goes in does not exist \[IO_ERROR\]$/,
       join(dir, 'no-folder'),
+    ],
+    [
+      'edit with a folder given as --meta',
+      () => ['edit', 'good', '--meta', dir, ...lib],
+      /: cannot read: it is a folder, not a file \[IO_ERROR\]$/,
     ],
     [
       'export --all onto a regular file',

@@ -1,17 +1,7 @@
 // The delimited-text reader: delimiters, decimal commas, unit headers and ranges, and one typed error per defect.
 import { describe, expect, it } from 'vitest';
-import { BandshelfError } from '../../src/error.js';
 import { readDelimited } from '../../src/formats/readDelimited.js';
-
-function catchError(fn: () => unknown): BandshelfError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof BandshelfError) return e;
-    throw e;
-  }
-  throw new Error('expected a BandshelfError');
-}
+import { bandshelfErrorOf } from '../bandshelfErrorOf.js';
 
 const xs = (text: string, options = {}): number[] =>
   Array.from(readDelimited(text, options).spectrum.wavenumber);
@@ -146,7 +136,7 @@ describe('readDelimited: bad input is a typed error naming file and line', () =>
   ];
   for (const [what, text, code, line] of cases) {
     it(`${what} → ${code}`, () => {
-      const err = catchError(() => readDelimited(text, { file: 'bad.csv' }));
+      const err = bandshelfErrorOf(() => readDelimited(text, { file: 'bad.csv' }));
       expect(err.code).toBe(code);
       expect(err.file).toBe('bad.csv');
       expect(err.line).toBe(line);
@@ -154,12 +144,14 @@ describe('readDelimited: bad input is a typed error naming file and line', () =>
   }
 
   it('words the error as one line with file, line and the cell', () => {
-    const err = catchError(() => readDelimited('cm-1,A\n1000,1\n1001,1.2.3\n', { file: 's.csv' }));
+    const err = bandshelfErrorOf(() => readDelimited('cm-1,A\n1000,1\n1001,1.2.3\n', { file: 's.csv' }));
     expect(err.oneLine()).toBe('s.csv:3: y: y = "1.2.3" is not a number [NOT_NUMERIC]');
   });
 
   it('names the column and what it holds when a header names a unit bandshelf cannot convert', () => {
-    const err = catchError(() => readDelimited('time_ps,absorbance\n1,0.1\n2,0.2\n', { file: 't.csv' }));
+    const err = bandshelfErrorOf(() =>
+      readDelimited('time_ps,absorbance\n1,0.1\n2,0.2\n', { file: 't.csv' }),
+    );
     expect(err.oneLine()).toMatch(/^t\.csv:1: x: the x column "time_ps" is a time .*\[UNKNOWN_UNIT\]$/);
     // Giving the unit overrides the header, as with every other unit question.
     const forced = readDelimited('frequency_hz,counts\n1000,1\n1002,2\n', {
@@ -177,7 +169,7 @@ describe('readDelimited: bad input is a typed error naming file and line', () =>
   });
 
   it('refuses a unit option it does not know', () => {
-    const err = catchError(() => readDelimited('1000,1\n1001,2', { xUnit: 'furlong' as 'nm' }));
+    const err = bandshelfErrorOf(() => readDelimited('1000,1\n1001,2', { xUnit: 'furlong' as 'nm' }));
     expect(err.code).toBe('BAD_OPTION');
   });
 });

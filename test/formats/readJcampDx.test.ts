@@ -1,7 +1,7 @@
 // The JCAMP-DX reader against the standard's own examples, the quirks of real files, and bad input.
 import { describe, expect, it } from 'vitest';
-import { BandshelfError } from '../../src/error.js';
 import { readJcampDx } from '../../src/formats/readJcampDx.js';
+import { bandshelfErrorOf } from '../bandshelfErrorOf.js';
 
 /** A one-block file around the given data lines; `labels` replace the defaults of the same name. */
 function jdx(
@@ -26,16 +26,6 @@ function jdx(
     .filter(([, v]) => v !== '-')
     .map(([k, v]) => `##${k}=${v}`);
   return [...head, dataLabel, ...data, '##END='].join('\n');
-}
-
-function catchError(fn: () => unknown): BandshelfError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof BandshelfError) return e;
-    throw e;
-  }
-  throw new Error('expected a BandshelfError');
 }
 
 const TEN = [1, 2, 3, 3, 2, 1, 0, -1, -2, -3];
@@ -160,7 +150,7 @@ describe('readJcampDx: abscissae, factors and units', () => {
   });
 
   it('refuses a unit option it does not know', () => {
-    const err = catchError(() => readJcampDx(jdx(['0 1 2']), { xUnit: 'inch' as 'nm' }));
+    const err = bandshelfErrorOf(() => readJcampDx(jdx(['0 1 2']), { xUnit: 'inch' as 'nm' }));
     expect(err.code).toBe('BAD_OPTION');
     expect(err.field).toBe('xUnit');
   });
@@ -318,7 +308,7 @@ describe('readJcampDx: real files bend the rules (read and warn)', () => {
     expect(only).toHaveLength(1);
     expect(only[0]!.meta.title).toBe('second');
     expect(only[0]!.source.block).toBe(2);
-    const err = catchError(() => readJcampDx(text, { file: 'set.jdx', block: 3 }));
+    const err = bandshelfErrorOf(() => readJcampDx(text, { file: 'set.jdx', block: 3 }));
     expect(err.code).toBe('BAD_OPTION');
     expect(err.message).toMatch(/holds 2 spectra/);
   });
@@ -366,7 +356,7 @@ describe('readJcampDx: bad input is a typed error naming file and line', () => {
   ];
   for (const [what, text, code, line] of cases) {
     it(`${what} → ${code}`, () => {
-      const err = catchError(() => readJcampDx(text, { file: 'bad.jdx' }));
+      const err = bandshelfErrorOf(() => readJcampDx(text, { file: 'bad.jdx' }));
       expect(err.code).toBe(code);
       expect(err.file).toBe('bad.jdx');
       expect(err.line).toBe(line);
@@ -375,7 +365,7 @@ describe('readJcampDx: bad input is a typed error naming file and line', () => {
   }
 
   it('names the label of an unknown unit', () => {
-    const err = catchError(() => readJcampDx(jdx(['0 1 2'], { XUNITS: 'HZ' }), { file: 'u.jdx' }));
+    const err = bandshelfErrorOf(() => readJcampDx(jdx(['0 1 2'], { XUNITS: 'HZ' }), { file: 'u.jdx' }));
     expect(err.field).toBe('XUNITS');
     expect(err.oneLine()).toBe(
       'u.jdx:4: XUNITS: ##XUNITS=HZ is not a unit bandshelf reads (1/CM, MICROMETERS, NANOMETERS); give the x unit as an option [UNKNOWN_UNIT]',
@@ -383,7 +373,7 @@ describe('readJcampDx: bad input is a typed error naming file and line', () => {
   });
 
   it('says a peak table is not a spectrum', () => {
-    const err = catchError(() => readJcampDx('##TITLE=p\n##PEAK TABLE=(XY..XY)\n1650, 0.9\n##END='));
+    const err = bandshelfErrorOf(() => readJcampDx('##TITLE=p\n##PEAK TABLE=(XY..XY)\n1650, 0.9\n##END='));
     expect(err.message).toBe('a peak table is not a spectrum');
   });
 });

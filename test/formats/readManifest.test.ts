@@ -1,19 +1,9 @@
 // The manifest reader: one metadata object per data file from a CSV or TSV table, quoting, bad cells.
 import { describe, expect, it } from 'vitest';
-import { BandshelfError } from '../../src/error.js';
 import { readManifest } from '../../src/formats/readManifest.js';
+import { bandshelfErrorOf } from '../bandshelfErrorOf.js';
 
 const file = 'library/manifest.csv';
-
-function errorOf(run: () => unknown): BandshelfError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof BandshelfError) return error;
-    throw error;
-  }
-  throw new Error('expected a BandshelfError');
-}
 
 describe('readManifest', () => {
   it('reads one metadata object per data file', () => {
@@ -50,7 +40,7 @@ describe('readManifest', () => {
     const text =
       'File,InChIKey,Sample Form,sample_form_x,License,concentration.value,concentration.unit\n' +
       'w.csv,XLYOFNOQVPJJNP-UHFFFAOYSA-N,liquid,,CC0-1.0,55.5,mol/L\n';
-    const e = errorOf(() => readManifest(text, { file }));
+    const e = bandshelfErrorOf(() => readManifest(text, { file }));
     expect(e.field).toBe('sample_form_x');
     expect(e.line).toBe(1);
     const fixed = text.replace(',sample_form_x', '').replace('liquid,,', 'liquid,');
@@ -76,60 +66,60 @@ describe('readManifest', () => {
 
   it('names the line and field of a bad cell, counting lines inside quoted cells', () => {
     const text = 'file,notes,cas\nok.csv,"two\nlines",7732-18-5\nbad.csv,,7732-18-4\n';
-    const e = errorOf(() => readManifest(text, { file }));
+    const e = bandshelfErrorOf(() => readManifest(text, { file }));
     expect(e.code).toBe('BAD_METADATA');
     expect(e.oneLine()).toBe(`${file}:4: cas: has a wrong check digit [BAD_METADATA]`);
-    const e2 = errorOf(() => readManifest('file,resolution\nx.csv,four\n', { file }));
+    const e2 = bandshelfErrorOf(() => readManifest('file,resolution\nx.csv,four\n', { file }));
     expect([e2.line, e2.field, e2.message]).toEqual([2, 'resolution', '"four" is not a number']);
-    const e3 = errorOf(() => readManifest('file,class\nx.csv,sugar\n', { file }));
+    const e3 = bandshelfErrorOf(() => readManifest('file,class\nx.csv,sugar\n', { file }));
     expect([e3.line, e3.field]).toEqual([2, 'class']);
   });
 
   it('refuses a header without a file column, repeated columns and repeated files', () => {
-    expect(errorOf(() => readManifest('id,name\na,A\n', { file })).field).toBe('file');
-    const repeated = errorOf(() => readManifest('file,name,Name\nx.csv,a,b\n', { file }));
+    expect(bandshelfErrorOf(() => readManifest('id,name\na,A\n', { file })).field).toBe('file');
+    const repeated = bandshelfErrorOf(() => readManifest('file,name,Name\nx.csv,a,b\n', { file }));
     expect([repeated.line, repeated.field, repeated.message]).toEqual([
       1,
       'name',
       'column 3 repeats column 2',
     ]);
-    const twice = errorOf(() => readManifest('file,name\nx.csv,a\ny.csv,b\nx.csv,c\n', { file }));
+    const twice = bandshelfErrorOf(() => readManifest('file,name\nx.csv,a\ny.csv,b\nx.csv,c\n', { file }));
     expect([twice.line, twice.field, twice.message]).toEqual([
       4,
       'file',
       'x.csv is already described on line 2',
     ]);
-    expect(errorOf(() => readManifest('file,name\n,a\n', { file })).message).toBe(
+    expect(bandshelfErrorOf(() => readManifest('file,name\n,a\n', { file })).message).toBe(
       'the row names no data file',
     );
   });
 
   it('refuses rows wider than the header, open quotes and stray text after a quote', () => {
-    expect(errorOf(() => readManifest('file,name\nx.csv,a,b\n', { file })).line).toBe(2);
-    expect(errorOf(() => readManifest('file,name\nx.csv,"open\n\n', { file })).message).toContain(
+    expect(bandshelfErrorOf(() => readManifest('file,name\nx.csv,a,b\n', { file })).line).toBe(2);
+    expect(bandshelfErrorOf(() => readManifest('file,name\nx.csv,"open\n\n', { file })).message).toContain(
       'never closed',
     );
-    expect(errorOf(() => readManifest('file,name\nx.csv,"a"b\n', { file })).message).toContain(
+    expect(bandshelfErrorOf(() => readManifest('file,name\nx.csv,"a"b\n', { file })).message).toContain(
       'closing quote',
     );
   });
 
   it('explains why a ";"-separated table cannot be read', () => {
-    const e = errorOf(() => readManifest('file;name\nx.csv;X\n', { file }));
+    const e = bandshelfErrorOf(() => readManifest('file;name\nx.csv;X\n', { file }));
     expect(e.line).toBe(1);
     expect(e.message).toContain('separate columns by commas');
   });
 
   it('refuses both concentration forms at once, an empty manifest and an oversized one', () => {
     const both = 'file,concentration,concentration.value,concentration.unit\nx.csv,1 mM,1,mM\n';
-    expect(errorOf(() => readManifest(both, { file })).field).toBe('concentration');
-    expect(errorOf(() => readManifest('\n# nothing\n', { file })).code).toBe('EMPTY_FILE');
-    expect(errorOf(() => readManifest('file\n', { file, maxChars: 2 })).code).toBe('FILE_TOO_LARGE');
+    expect(bandshelfErrorOf(() => readManifest(both, { file })).field).toBe('concentration');
+    expect(bandshelfErrorOf(() => readManifest('\n# nothing\n', { file })).code).toBe('EMPTY_FILE');
+    expect(bandshelfErrorOf(() => readManifest('file\n', { file, maxChars: 2 })).code).toBe('FILE_TOO_LARGE');
   });
 
   it('ignores empty unnamed columns, as spreadsheets save them, but not a value under no name', () => {
     expect(readManifest('file,name,,\nx.csv,X,,\n', { file }).get('x.csv')).toEqual({ name: 'X' });
-    const e = errorOf(() => readManifest('file,name,,\nx.csv,X,,oops\n', { file }));
+    const e = bandshelfErrorOf(() => readManifest('file,name,,\nx.csv,X,,oops\n', { file }));
     expect([e.line, e.message]).toEqual([2, 'column 4 has a value but no name in the header']);
   });
 

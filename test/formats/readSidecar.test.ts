@@ -1,24 +1,14 @@
 // The sidecar reader: validated metadata from a .meta.json file; errors name the file, line and field.
 import { describe, expect, it } from 'vitest';
-import { BandshelfError } from '../../src/error.js';
 import { readSidecar } from '../../src/formats/readSidecar.js';
 import { readSidecarSections } from '../../src/formats/readSidecarSections.js';
+import { bandshelfErrorOf } from '../bandshelfErrorOf.js';
 
 const file = 'library/serum-07.meta.json';
 
-function errorOf(run: () => unknown): BandshelfError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof BandshelfError) return error;
-    throw error;
-  }
-  throw new Error('expected a BandshelfError');
-}
-
 describe('readSidecar', () => {
-  it('reads and validates the metadata fields', () => {
-    const text = JSON.stringify({
+  it('reads and validates the metadata fields, returning valid ones exactly as written', () => {
+    const meta = {
       id: 'serum-07',
       name: 'Dried serum film 07',
       class: 'biofluid',
@@ -26,16 +16,8 @@ describe('readSidecar', () => {
       tags: ['serum', 'film'],
       concentration: { value: 1.5, unit: 'mg/mL' },
       synthetic: true,
-    });
-    expect(readSidecar(text, { file })).toEqual({
-      id: 'serum-07',
-      name: 'Dried serum film 07',
-      class: 'biofluid',
-      cas: '7732-18-5',
-      tags: ['serum', 'film'],
-      concentration: { value: 1.5, unit: 'mg/mL' },
-      synthetic: true,
-    });
+    };
+    expect(readSidecar(JSON.stringify(meta), { file })).toEqual(meta);
   });
 
   it('leaves id and name to default from the file name later', () => {
@@ -44,7 +26,7 @@ describe('readSidecar', () => {
   });
 
   it('names the file and the field of a bad value', () => {
-    const e = errorOf(() => readSidecar('{"id": "serum-07", "cas": "7732-18-4"}', { file }));
+    const e = bandshelfErrorOf(() => readSidecar('{"id": "serum-07", "cas": "7732-18-4"}', { file }));
     expect(e.code).toBe('BAD_METADATA');
     expect(e.file).toBe(file);
     expect(e.field).toBe('cas');
@@ -52,7 +34,7 @@ describe('readSidecar', () => {
   });
 
   it('names nested fields by their dotted path and counts further problems', () => {
-    const e = errorOf(() =>
+    const e = bandshelfErrorOf(() =>
       readSidecar('{"concentration": {"value": "five", "unit": "mM"}, "date": "2024-02-30", "tags": [1]}', {
         file,
       }),
@@ -62,15 +44,15 @@ describe('readSidecar', () => {
   });
 
   it('hints at the field a typo meant', () => {
-    const e = errorOf(() => readSidecar('{"clas": "protein"}', { file }));
+    const e = bandshelfErrorOf(() => readSidecar('{"clas": "protein"}', { file }));
     expect(e.field).toBe('clas');
     expect(e.message).toBe('unknown field (did you mean "class"?)');
-    expect(errorOf(() => readSidecar('{"recipie": {}}', { file })).message).toContain('"recipe"');
-    expect(errorOf(() => readSidecar('{"wibble": 1}', { file })).message).toBe('unknown field');
+    expect(bandshelfErrorOf(() => readSidecar('{"recipie": {}}', { file })).message).toContain('"recipe"');
+    expect(bandshelfErrorOf(() => readSidecar('{"wibble": 1}', { file })).message).toBe('unknown field');
   });
 
   it('lists the allowed values of an enumeration', () => {
-    const e = errorOf(() => readSidecar('{"technique": "FTIR"}', { file }));
+    const e = bandshelfErrorOf(() => readSidecar('{"technique": "FTIR"}', { file }));
     expect(e.field).toBe('technique');
     expect(e.message).toContain(
       'atr, transmission, diffuse-reflectance, tunable-laser, field-resolved, other',
@@ -79,22 +61,22 @@ describe('readSidecar', () => {
 
   it('gives the line of a JSON syntax error', () => {
     const text = '{\n  "id": "serum-07",\n  "name": "x",\n  "class": "protein"\n  "tags": []\n}\n';
-    const e = errorOf(() => readSidecar(text, { file }));
+    const e = bandshelfErrorOf(() => readSidecar(text, { file }));
     expect(e.code).toBe('BAD_METADATA');
     expect(e.line).toBe(5);
     expect(e.oneLine()).toMatch(/^library\/serum-07\.meta\.json:5: not valid JSON/);
-    expect(errorOf(() => readSidecar('{"a": "unterminated', { file })).line).toBe(1);
-    expect(errorOf(() => readSidecar('{"a": 1,}', { file })).line).toBe(1);
-    expect(errorOf(() => readSidecar('{"a": 1}\n\nx', { file })).line).toBe(3);
+    expect(bandshelfErrorOf(() => readSidecar('{"a": "unterminated', { file })).line).toBe(1);
+    expect(bandshelfErrorOf(() => readSidecar('{"a": 1,}', { file })).line).toBe(1);
+    expect(bandshelfErrorOf(() => readSidecar('{"a": 1}\n\nx', { file })).line).toBe(3);
   });
 
   it('refuses what is not a JSON object, an empty file and a huge one', () => {
-    expect(errorOf(() => readSidecar('[1, 2]', { file })).message).toContain('JSON object');
-    expect(errorOf(() => readSidecar('null', { file })).code).toBe('BAD_METADATA');
-    expect(errorOf(() => readSidecar('  \n', { file })).code).toBe('EMPTY_FILE');
-    expect(errorOf(() => readSidecar(`{"notes": "${'x'.repeat(200)}"}`, { file, maxChars: 100 })).code).toBe(
-      'FILE_TOO_LARGE',
-    );
+    expect(bandshelfErrorOf(() => readSidecar('[1, 2]', { file })).message).toContain('JSON object');
+    expect(bandshelfErrorOf(() => readSidecar('null', { file })).code).toBe('BAD_METADATA');
+    expect(bandshelfErrorOf(() => readSidecar('  \n', { file })).code).toBe('EMPTY_FILE');
+    expect(
+      bandshelfErrorOf(() => readSidecar(`{"notes": "${'x'.repeat(200)}"}`, { file, maxChars: 100 })).code,
+    ).toBe('FILE_TOO_LARGE');
   });
 });
 
@@ -120,7 +102,7 @@ describe('readSidecarSections', () => {
   });
 
   it('reports a bad recipe as BAD_RECIPE with the path inside it', () => {
-    const e = errorOf(() =>
+    const e = bandshelfErrorOf(() =>
       readSidecarSections('{"recipe": {"baseline": {"method": "als", "p": 2}}}', { file }),
     );
     expect(e.code).toBe('BAD_RECIPE');
@@ -129,17 +111,17 @@ describe('readSidecarSections', () => {
 
   it('keeps trace names inside the sidecar folder', () => {
     for (const bad of ['../x.csv', '/abs/x.csv', 'C:\\x.csv', 'a/../../x.csv', '']) {
-      const e = errorOf(() =>
+      const e = bandshelfErrorOf(() =>
         readSidecarSections(JSON.stringify({ timeDomain: { sample: bad, reference: 'r.csv' } }), { file }),
       );
       expect(e.code).toBe('BAD_METADATA');
       expect(e.field?.startsWith('timeDomain.sample')).toBe(true);
     }
-    expect(errorOf(() => readSidecarSections('{"timeDomain": {"sample": "s.csv"}}', { file })).field).toBe(
-      'timeDomain.reference',
-    );
     expect(
-      errorOf(() =>
+      bandshelfErrorOf(() => readSidecarSections('{"timeDomain": {"sample": "s.csv"}}', { file })).field,
+    ).toBe('timeDomain.reference');
+    expect(
+      bandshelfErrorOf(() =>
         readSidecarSections('{"timeDomain": {"sample": "s.csv", "reference": "r", "x": 1}}', { file }),
       ).field,
     ).toBe('timeDomain.x');

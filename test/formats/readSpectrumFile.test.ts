@@ -1,8 +1,8 @@
 // The byte-level entry point: sniffing, text encodings, size and binary limits.
 import { describe, expect, it } from 'vitest';
-import { BandshelfError } from '../../src/error.js';
 import { readSpectrumFile } from '../../src/formats/readSpectrumFile.js';
 import { writeJcampDx } from '../../src/formats/writeJcampDx.js';
+import { bandshelfErrorOf } from '../bandshelfErrorOf.js';
 import { seededRandom } from './seededRandom.js';
 
 const utf8 = (text: string): Uint8Array => new TextEncoder().encode(text);
@@ -10,16 +10,6 @@ const utf8 = (text: string): Uint8Array => new TextEncoder().encode(text);
 /** Latin-1 bytes: every character below U+0100 as one byte. */
 function latin1(text: string): Uint8Array {
   return Uint8Array.from(Array.from(text, (c) => c.charCodeAt(0)));
-}
-
-function catchError(fn: () => unknown): BandshelfError {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof BandshelfError) return e;
-    throw e;
-  }
-  throw new Error('expected a BandshelfError');
 }
 
 const CSV = 'wavenumber_cm-1,absorbance\n1000,0.5\n1002,0.25\n';
@@ -60,28 +50,30 @@ describe('readSpectrumFile', () => {
     const text = 'x,y\n2500,50\n5000,10\n';
     const [p] = readSpectrumFile(utf8(text), { xUnit: 'nm', yUnit: 'percent-transmittance', block: 1 });
     expect(Array.from(p!.spectrum.wavenumber)).toEqual([2000, 4000]);
-    const err = catchError(() => readSpectrumFile(utf8(text), { file: 'x.csv', block: 2 }));
+    const err = bandshelfErrorOf(() => readSpectrumFile(utf8(text), { file: 'x.csv', block: 2 }));
     expect(err.code).toBe('BAD_OPTION');
   });
 
   it('refuses a file over the size limit', () => {
-    const err = catchError(() => readSpectrumFile(utf8(CSV), { file: 'big.csv', maxBytes: 10 }));
+    const err = bandshelfErrorOf(() => readSpectrumFile(utf8(CSV), { file: 'big.csv', maxBytes: 10 }));
     expect(err.code).toBe('FILE_TOO_LARGE');
     expect(err.file).toBe('big.csv');
   });
 
   it('refuses empty and blank files', () => {
-    expect(catchError(() => readSpectrumFile(new Uint8Array(0), { file: 'e' })).code).toBe('EMPTY_FILE');
-    expect(catchError(() => readSpectrumFile(utf8(' \n\t\n'), { file: 'e' })).code).toBe('EMPTY_FILE');
+    expect(bandshelfErrorOf(() => readSpectrumFile(new Uint8Array(0), { file: 'e' })).code).toBe(
+      'EMPTY_FILE',
+    );
+    expect(bandshelfErrorOf(() => readSpectrumFile(utf8(' \n\t\n'), { file: 'e' })).code).toBe('EMPTY_FILE');
   });
 
   it('refuses binary data: NUL bytes or noise', () => {
     const withNul = utf8(CSV);
     withNul[5] = 0;
-    expect(catchError(() => readSpectrumFile(withNul, { file: 'n.bin' })).code).toBe('BINARY_DATA');
+    expect(bandshelfErrorOf(() => readSpectrumFile(withNul, { file: 'n.bin' })).code).toBe('BINARY_DATA');
     const random = seededRandom(9);
     const noise = Uint8Array.from({ length: 4096 }, () => 1 + Math.floor(random() * 255));
-    const err = catchError(() => readSpectrumFile(noise, { file: 'noise.spa' }));
+    const err = bandshelfErrorOf(() => readSpectrumFile(noise, { file: 'noise.spa' }));
     expect(err.code).toBe('BINARY_DATA');
     expect(err.oneLine()).toMatch(/^noise\.spa: /);
   });

@@ -1,6 +1,7 @@
 // An in-process library for the store's own tests: entries made from small Gaussian spectra, no CLI involved.
 import { join } from 'node:path';
 import { commitRevisions } from '../../src/library/commitRevisions.js';
+import { createRelease } from '../../src/library/createRelease.js';
 import type { RevisionInput } from '../../src/library/ingestTypes.js';
 import { initLibrary } from '../../src/library/initLibrary.js';
 import { prepareRevision } from '../../src/library/prepareRevision.js';
@@ -40,4 +41,27 @@ export function addEntry(library: Library, id: string, bands: Band[], seed = 1) 
     author: 'fixture',
     now: new Date('2026-01-02T03:04:05Z'),
   })[0]!;
+}
+
+/**
+ * Three entries added out of id order (carbo, amide, lipid: the state is sorted by id) and a release `r1` of
+ * them, so a reader's working state and a frozen release can be compared.
+ */
+export function threeEntryLibrary(): Library {
+  const { library } = newLibrary();
+  addEntry(library, 'carbo', [
+    { position: 1035, height: 0.9, fwhm: 25 },
+    { position: 1150, height: 0.3, fwhm: 20 },
+  ]);
+  addEntry(library, 'amide', [
+    { position: 1652, height: 0.8, fwhm: 30 },
+    { position: 1545, height: 0.5, fwhm: 28 },
+  ]);
+  addEntry(library, 'lipid', [
+    { position: 2922, height: 0.7, fwhm: 18 },
+    { position: 2852, height: 0.5, fwhm: 14 },
+    { position: 1740, height: 0.4, fwhm: 20 },
+  ]);
+  createRelease(library, 'r1', { now: new Date('2026-01-03T00:00:00Z') });
+  return library;
 }

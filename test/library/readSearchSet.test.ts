@@ -2,34 +2,18 @@
 import Database from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeLibrary } from '../../src/library/closeLibrary.js';
-import { createRelease } from '../../src/library/createRelease.js';
 import { editEntry } from '../../src/library/editEntry.js';
 import { listEntries } from '../../src/library/listEntries.js';
 import { readEntry } from '../../src/library/readEntry.js';
 import { readSearchSet } from '../../src/library/readSearchSet.js';
 import { retireEntry } from '../../src/library/retireEntry.js';
 import type { Library } from '../../src/library/types.js';
-import { addEntry, newLibrary } from './libraryFixture.js';
+import { threeEntryLibrary } from './libraryFixture.js';
 
 describe('readSearchSet', () => {
   let library: Library;
   beforeAll(() => {
-    ({ library } = newLibrary());
-    // Added out of id order on purpose: the set is sorted by id.
-    addEntry(library, 'carbo', [
-      { position: 1035, height: 0.9, fwhm: 25 },
-      { position: 1150, height: 0.3, fwhm: 20 },
-    ]);
-    addEntry(library, 'amide', [
-      { position: 1652, height: 0.8, fwhm: 30 },
-      { position: 1545, height: 0.5, fwhm: 28 },
-    ]);
-    addEntry(library, 'lipid', [
-      { position: 2922, height: 0.7, fwhm: 18 },
-      { position: 2852, height: 0.5, fwhm: 14 },
-      { position: 1740, height: 0.4, fwhm: 20 },
-    ]);
-    createRelease(library, 'r1', { now: new Date('2026-01-03T00:00:00Z') });
+    library = threeEntryLibrary();
   });
   afterAll(() => closeLibrary(library));
 

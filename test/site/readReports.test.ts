@@ -2,19 +2,9 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { BandshelfError } from '../../src/error.js';
 import { readReports } from '../../src/site/readReports.js';
+import { bandshelfErrorOf } from '../bandshelfErrorOf.js';
 import { tempDir } from '../cli/bandshelfCli.js';
-
-function failure(f: () => unknown): BandshelfError {
-  try {
-    f();
-  } catch (error) {
-    if (error instanceof BandshelfError) return error;
-    throw error;
-  }
-  throw new Error('expected a BandshelfError');
-}
 
 describe('readReports', () => {
   it('skips files that are not JSON and an empty folder gives no reports', () => {
@@ -27,7 +17,7 @@ describe('readReports', () => {
   it('names a file that is not JSON', () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'broken.json'), '{ "kind": ');
-    const e = failure(() => readReports(dir, { shownAs: 'reports' }));
+    const e = bandshelfErrorOf(() => readReports(dir, { shownAs: 'reports' }));
     expect(e.code).toBe('BAD_REPORT');
     expect(e.file).toBe(join('reports', 'broken.json'));
   });
@@ -35,7 +25,7 @@ describe('readReports', () => {
   it('names the file and the first failing field of a report that fails the schema', () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'a.json'), JSON.stringify({ kind: 'bandshelf-match-report', version: 99 }));
-    const e = failure(() => readReports(dir, { shownAs: 'reports' }));
+    const e = bandshelfErrorOf(() => readReports(dir, { shownAs: 'reports' }));
     expect(e.code).toBe('BAD_REPORT');
     expect(e.file).toBe(join('reports', 'a.json'));
     expect(e.field).toBe('version');
@@ -43,7 +33,7 @@ describe('readReports', () => {
   });
 
   it('refuses a folder that does not exist', () => {
-    const e = failure(() => readReports(join(tempDir(), 'missing'), { shownAs: 'missing' }));
+    const e = bandshelfErrorOf(() => readReports(join(tempDir(), 'missing'), { shownAs: 'missing' }));
     expect(e.code).toBe('NOT_FOUND');
     expect(e.field).toBe('--reports');
   });

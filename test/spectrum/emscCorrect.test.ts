@@ -1,8 +1,8 @@
 // Tests of EMSC scatter correction: known offset, multiplicative and Legendre terms recovered exactly.
 import { describe, expect, it } from 'vitest';
-import { BandshelfError } from '../../src/error.js';
 import { emscCorrect } from '../../src/spectrum/emscCorrect.js';
 import type { Spectrum } from '../../src/spectrum/types.js';
+import { bandshelfErrorOf } from '../bandshelfErrorOf.js';
 
 const gaussian = (x: number, centre: number, fwhm: number, height: number) =>
   height * Math.exp(-4 * Math.LN2 * ((x - centre) / fwhm) ** 2);
@@ -77,15 +77,7 @@ describe('emscCorrect', () => {
 
   it('refuses a vanishing or negative multiplicative term, a degenerate model and too few points', () => {
     const reference = sampled(referenceOf);
-    const err = (run: () => unknown) => {
-      try {
-        run();
-      } catch (e) {
-        if (e instanceof BandshelfError) return e;
-      }
-      throw new Error('expected a BandshelfError');
-    };
-    const tiny = err(() =>
+    const tiny = bandshelfErrorOf(() =>
       emscCorrect(
         sampled((x) => 0.3 + 1e-5 * referenceOf(x)),
         reference,
@@ -95,7 +87,7 @@ describe('emscCorrect', () => {
     expect([tiny.code, tiny.field, tiny.file]).toEqual(['BAD_RECIPE', 'emsc', 'u.csv']);
     expect(tiny.message).toContain('multiplicative term');
     expect(
-      err(() =>
+      bandshelfErrorOf(() =>
         emscCorrect(
           sampled((x) => 1 - referenceOf(x)),
           reference,
@@ -104,10 +96,14 @@ describe('emscCorrect', () => {
     ).toContain('b = -1.00');
     // A straight-line reference is itself one of the polynomial terms.
     const line = sampled((x) => 0.001 * x);
-    expect(err(() => emscCorrect(sampled(referenceOf), line, { degree: 1 })).message).toContain('degenerate');
+    expect(bandshelfErrorOf(() => emscCorrect(sampled(referenceOf), line, { degree: 1 })).message).toContain(
+      'degenerate',
+    );
     const short = sampled(referenceOf, 1000, 1006);
-    expect(err(() => emscCorrect(short, short, { degree: 2 })).message).toContain('needs more than 4 points');
-    expect(err(() => emscCorrect(sampled(referenceOf), reference, { degree: 1.5 })).field).toBe(
+    expect(bandshelfErrorOf(() => emscCorrect(short, short, { degree: 2 })).message).toContain(
+      'needs more than 4 points',
+    );
+    expect(bandshelfErrorOf(() => emscCorrect(sampled(referenceOf), reference, { degree: 1.5 })).field).toBe(
       'emsc.degree',
     );
   });

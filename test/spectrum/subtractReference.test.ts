@@ -1,8 +1,8 @@
 // Tests of reference (water) subtraction: the scale fitted in a window, interpolation, refused windows.
 import { describe, expect, it } from 'vitest';
-import { BandshelfError } from '../../src/error.js';
 import { subtractReference } from '../../src/spectrum/subtractReference.js';
 import type { Spectrum } from '../../src/spectrum/types.js';
+import { bandshelfErrorOf } from '../bandshelfErrorOf.js';
 
 function mulberry32(seed: number): () => number {
   let a = seed;
@@ -93,22 +93,14 @@ describe('subtractReference', () => {
   it('refuses a window with too few points or without reference signal (BAD_RECIPE)', () => {
     const sample = sampled(1000, 4000, 2, (x) => water(x));
     const reference = sampled(1000, 4000, 2, water);
-    const err = (run: () => unknown) => {
-      try {
-        run();
-      } catch (e) {
-        if (e instanceof BandshelfError) return e;
-      }
-      throw new Error('expected a BandshelfError');
-    };
-    const few = err(() =>
+    const few = bandshelfErrorOf(() =>
       subtractReference(sample, reference, { min: 2000, max: 2006 }, { file: 'serum.csv' }),
     );
     expect([few.code, few.field, few.file]).toEqual(['BAD_RECIPE', 'reference.window', 'serum.csv']);
     expect(few.message).toContain('only 4 point(s)');
-    const outside = err(() => subtractReference(sample, sampled(3000, 4000, 2, water), window));
+    const outside = bandshelfErrorOf(() => subtractReference(sample, sampled(3000, 4000, 2, water), window));
     expect(outside.message).toContain('only 0 point(s)');
-    const flat = err(() =>
+    const flat = bandshelfErrorOf(() =>
       subtractReference(
         sample,
         sampled(1000, 4000, 2, () => 0.1),

@@ -1,6 +1,5 @@
 // `bandshelf add`: ingests spectrum files, folders or time-domain traces into the library, one transaction per file
 // (or one for all with --atomic).
-import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
 import { metaErrorFromIssues } from '../../formats/metaErrorFromIssues.js';
@@ -17,17 +16,15 @@ import { type IngestJob, planIngest } from '../../library/planIngest.js';
 import { prepareRevision } from '../../library/prepareRevision.js';
 import { readRecipeFile } from '../../library/readRecipeFile.js';
 import { readSearchSet } from '../../library/readSearchSet.js';
+import { readTextFile } from '../../library/readTextFile.js';
 import type { Library, ReadOptions } from '../../library/types.js';
 import { entryMetaPatchSchema } from '../../schema/meta.js';
+import { collectRepeated } from '../collectRepeated.js';
 import type { CommandSpec } from '../command.js';
 import { textTable } from '../textTable.js';
 
 const X_UNITS = ['cm-1', 'um', 'nm'] as const;
 const Y_UNITS = ['absorbance', 'transmittance', 'percent-transmittance'] as const;
-
-function collect(value: string, previous: string[] = []): string[] {
-  return [...previous, value];
-}
 
 function oneLine(error: unknown): string {
   if (error instanceof BandshelfError) return error.oneLine();
@@ -98,7 +95,12 @@ export const addCommand: CommandSpec = {
       .option('--force', 'store entries even when QC raises an error-level flag')
       .option('--atomic', 'all files in one transaction: any failure stores nothing')
       .option('--time-domain', 'the files are field-resolved sample traces; see --reference')
-      .option('--reference <file>', 'reference trace for --time-domain (repeat for several)', collect, [])
+      .option(
+        '--reference <file>',
+        'reference trace for --time-domain (repeat for several)',
+        collectRepeated,
+        [],
+      )
       .option('--time-unit <unit>', 'delay unit of the traces, overriding their headers: fs|ps')
       .option('--json', 'print {added, unchanged, failed} as JSON');
   },
@@ -139,18 +141,7 @@ export const addCommand: CommandSpec = {
         : undefined;
     let metaFile: { sections: LoadedSidecar; label: string } | undefined;
     if (typeof options.meta === 'string') {
-      let text: string;
-      try {
-        text = readFileSync(resolve(context.cwd, options.meta), 'utf8');
-      } catch (error) {
-        throw new BandshelfError(
-          'IO_ERROR',
-          `cannot read: ${(error as NodeJS.ErrnoException).code ?? error}`,
-          {
-            file: options.meta,
-          },
-        );
-      }
+      const text = readTextFile(resolve(context.cwd, options.meta), { label: options.meta });
       metaFile = { sections: loadSidecar(text, { file: options.meta }), label: options.meta };
     }
     const author =

@@ -1,5 +1,4 @@
 // `bandshelf edit ID`: a metadata-only revision (same data and recipe, new metadata).
-import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
 import { metaValueFromText } from '../../formats/metaValueFromText.js';
@@ -9,11 +8,9 @@ import { editEntry } from '../../library/editEntry.js';
 import { libraryPath } from '../../library/libraryPath.js';
 import { loadSidecar } from '../../library/loadSidecar.js';
 import { openLibrary } from '../../library/openLibrary.js';
+import { readTextFile } from '../../library/readTextFile.js';
+import { collectRepeated } from '../collectRepeated.js';
 import type { CommandSpec } from '../command.js';
-
-function collect(value: string, previous: string[] = []): string[] {
-  return [...previous, value];
-}
 
 /** `field=value` pairs into typed metadata values; an empty value removes the field. */
 function parseAssignments(pairs: readonly string[]): Record<string, unknown> {
@@ -50,7 +47,12 @@ export const editCommand: CommandSpec = {
     command
       .argument('<id>', 'entry id')
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
-      .option('--set <field=value>', 'set one field (repeatable; lists are ";"-separated)', collect, [])
+      .option(
+        '--set <field=value>',
+        'set one field (repeatable; lists are ";"-separated)',
+        collectRepeated,
+        [],
+      )
       .option('--meta <file>', 'replace the metadata by this JSON (sidecar format)')
       .option('--message <text>', 'why', 'metadata edit')
       .option('--author <name>', 'who (default $BANDSHELF_AUTHOR or the OS user)')
@@ -65,18 +67,7 @@ export const editCommand: CommandSpec = {
     const set = parseAssignments(pairs);
     let replace: Record<string, unknown> | undefined;
     if (typeof options.meta === 'string') {
-      let text: string;
-      try {
-        text = readFileSync(resolve(context.cwd, options.meta), 'utf8');
-      } catch (error) {
-        throw new BandshelfError(
-          'IO_ERROR',
-          `cannot read: ${(error as NodeJS.ErrnoException).code ?? error}`,
-          {
-            file: options.meta,
-          },
-        );
-      }
+      const text = readTextFile(resolve(context.cwd, options.meta), { label: options.meta });
       const sections = loadSidecar(text, { file: options.meta });
       if (sections.recipe || sections.timeDomain || sections.read) {
         throw new BandshelfError(

@@ -5,6 +5,7 @@ import { BandshelfError } from '../../error.js';
 import { writeCsv } from '../../formats/writeCsv.js';
 import { type JcampForm, writeJcampDx } from '../../formats/writeJcampDx.js';
 import { closeLibrary } from '../../library/closeLibrary.js';
+import { describeIoError } from '../../library/describeIoError.js';
 import { exportAll } from '../../library/exportAll.js';
 import { libraryPath } from '../../library/libraryPath.js';
 import { openLibrary } from '../../library/openLibrary.js';
@@ -125,13 +126,10 @@ export const exportCommand: CommandSpec = {
       try {
         writeFileSync(out, text, { flag: options.force ? 'w' : 'wx' });
       } catch (error) {
-        throw new BandshelfError(
-          'IO_ERROR',
-          `cannot write: ${(error as NodeJS.ErrnoException).code ?? error}`,
-          {
-            file: options.out,
-          },
-        );
+        throw new BandshelfError('IO_ERROR', `cannot write: ${describeIoError(error, { writing: true })}`, {
+          file: options.out,
+          cause: error,
+        });
       }
       const result = {
         id,

@@ -1,14 +1,11 @@
 // `bandshelf identify`: every band of an unknown with its table assignments, library candidates and fit status.
 import { BandshelfError } from '../../error.js';
 import type { CommandSpec } from '../command.js';
+import { configureMixtureOptions } from '../configureMixtureOptions.js';
 import { formatBandTable } from '../formatBandTable.js';
 import { matchUnknowns } from '../matchUnknowns.js';
 import { parseMatchOptions } from '../parseMatchOptions.js';
 import { writeMatchReports } from '../writeMatchReports.js';
-
-function collect(value: string, previous: string[] = []): string[] {
-  return [...previous, value];
-}
 
 export const identifyCommand: CommandSpec = {
   name: 'identify',
@@ -28,11 +25,9 @@ export const identifyCommand: CommandSpec = {
       .option('--at <tag>', 'use a release instead of the working state')
       .option('--recipe <file>', 'process the unknown with this recipe instead of the library’s')
       .option('--tolerance <cm-1>', 'a library peak this close is the same band', '4')
-      .option('--no-mixture', 'skip the mixture fit (explained is then unknown)')
-      .option('--with <ids>', 'entries forced into the mixture (comma-separated, repeatable)', collect, [])
-      .option('--max-components <n>', 'most components in the mixture', '6')
-      .option('--candidates <n>', 'top Pearson hits offered to the mixture fit', '30')
-      .option('--baseline-degree <n>', 'mixture baseline polynomial: auto, none or 0–6', 'auto')
+      .option('--no-mixture', 'skip the mixture fit (explained is then unknown)');
+    configureMixtureOptions(command);
+    command
       .option('--min-overlap <cm-1>', 'least wavenumber range unknown and reference must share', '200')
       .option('--report <dir>', 'write the JSON report into this folder')
       .option('--json', 'print the report as JSON');

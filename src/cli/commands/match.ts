@@ -2,18 +2,17 @@
 import { writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
+import { describeIoError } from '../../library/describeIoError.js';
 import { MATCH_CAUTION } from '../../schema/matchReport.js';
+import { collectRepeated } from '../collectRepeated.js';
 import type { CommandSpec } from '../command.js';
+import { configureMixtureOptions } from '../configureMixtureOptions.js';
 import { formatMatchTable } from '../formatMatchTable.js';
 import { matchCsv } from '../matchCsv.js';
 import { matchUnknowns } from '../matchUnknowns.js';
 import { parseMatchOptions } from '../parseMatchOptions.js';
 import { textTable } from '../textTable.js';
 import { writeMatchReports } from '../writeMatchReports.js';
-
-function collect(value: string, previous: string[] = []): string[] {
-  return [...previous, value];
-}
 
 export const matchCommand: CommandSpec = {
   name: 'match',
@@ -35,15 +34,13 @@ export const matchCommand: CommandSpec = {
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
       .option('--at <tag>', 'match against a release instead of the working state')
       .option('--recipe <file>', 'process the unknown with this recipe instead of the library’s')
-      .option('--range <high:low>', 'score only inside this window (repeatable)', collect, [])
+      .option('--range <high:low>', 'score only inside this window (repeatable)', collectRepeated, [])
       .option('--metric <name>', 'pearson, derivative, cosine, euclidean or all', 'pearson')
       .option('--top <n>', 'hits per metric', '10')
       .option('--min-overlap <cm-1>', 'least wavenumber range unknown and reference must share', '200')
-      .option('--mixture', 'fit the unknown as a non-negative mixture of library spectra')
-      .option('--with <ids>', 'entries forced into the mixture (comma-separated, repeatable)', collect, [])
-      .option('--max-components <n>', 'most components in the mixture', '6')
-      .option('--candidates <n>', 'top Pearson hits offered to the mixture fit', '30')
-      .option('--baseline-degree <n>', 'mixture baseline polynomial: auto, none or 0–6', 'auto')
+      .option('--mixture', 'fit the unknown as a non-negative mixture of library spectra');
+    configureMixtureOptions(command);
+    command
       .option('--tolerance <cm-1>', 'band tolerance for the band identification', '4')
       .option('--report <dir>', 'write one JSON report per unknown into this folder')
       .option('--csv <file>', 'write one CSV row per unknown into this file')
@@ -62,8 +59,9 @@ export const matchCommand: CommandSpec = {
       try {
         writeFileSync(resolve(context.cwd, options.csv), matchCsv(run.outcomes));
       } catch (error) {
-        throw new BandshelfError('IO_ERROR', `cannot write (${(error as NodeJS.ErrnoException).code})`, {
+        throw new BandshelfError('IO_ERROR', `cannot write: ${describeIoError(error, { writing: true })}`, {
           file: options.csv,
+          cause: error,
         });
       }
     }
