@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { demoCompounds } from '../../src/demo/demoCompounds.js';
 import { generateDemoLibrary } from '../../src/demo/generateDemoLibrary.js';
 import { casCheckDigitValid } from '../../src/schema/casCheckDigitValid.js';
+import { entryClasses } from '../../src/schema/meta.js';
 
 const libraryDir = join(resolve(dirname(fileURLToPath(import.meta.url)), '..', '..'), 'library');
 
@@ -37,18 +38,7 @@ describe('generateDemoLibrary', () => {
     const classes = new Set(
       files.filter((f) => f.path.endsWith('.meta.json')).map((f) => JSON.parse(f.content).class as string),
     );
-    for (const c of [
-      'protein',
-      'lipid',
-      'carbohydrate',
-      'nucleic-acid',
-      'metabolite',
-      'drug',
-      'solvent',
-      'buffer',
-      'mixture',
-      'biofluid',
-    ]) {
+    for (const c of entryClasses.filter((c) => c !== 'other')) {
       expect(classes.has(c), c).toBe(true);
     }
   });
