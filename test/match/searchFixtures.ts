@@ -4,17 +4,11 @@ import type { ScoringSet } from '../../src/match/searchTypes.js';
 import type { Grid } from '../../src/schema/recipe.js';
 import { gridAxis } from '../../src/spectrum/gridAxis.js';
 import { gridLength } from '../../src/spectrum/gridLength.js';
+import { mulberry32 } from '../mulberry32.js';
 
 /** mulberry32: a small seeded generator, identical on every machine. */
 export function seeded(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  return mulberry32(seed);
 }
 
 export interface FixtureOptions {

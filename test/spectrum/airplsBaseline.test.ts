@@ -1,16 +1,7 @@
 // Tests of the airPLS baseline (Zhang, Chen & Liang 2010) on synthetic protein-like bands with a known baseline.
 import { describe, expect, it } from 'vitest';
 import { airplsBaseline } from '../../src/spectrum/airplsBaseline.js';
-
-function mulberry32(seed: number): () => number {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { mulberry32 } from '../mulberry32.js';
 
 function synthetic(baselineOf: (t: number) => number, noise: number) {
   const rnd = mulberry32(5);

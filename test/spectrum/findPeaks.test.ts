@@ -1,18 +1,9 @@
 // Tests of band finding: the pharmacopoeia's polystyrene check positions, and small cases checked by hand.
 import { describe, expect, it } from 'vitest';
 import { findPeaks } from '../../src/spectrum/findPeaks.js';
+import { mulberry32 } from '../mulberry32.js';
 
 /** mulberry32: a tiny seeded generator so the noise is the same on every run. */
-function mulberry32(seed: number): () => number {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 /** Box–Muller: standard normal deviates from uniform ones. */
 function normal(rand: () => number): () => number {
   return () => Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand());

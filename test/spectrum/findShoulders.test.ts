@@ -4,16 +4,8 @@ import { findPeaks } from '../../src/spectrum/findPeaks.js';
 import { findShoulders } from '../../src/spectrum/findShoulders.js';
 import { gridAxis } from '../../src/spectrum/gridAxis.js';
 import { resampleToGrid } from '../../src/spectrum/resampleToGrid.js';
+import { mulberry32 } from '../mulberry32.js';
 
-function mulberry32(seed: number): () => number {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 const normal = (rand: () => number) => () =>
   Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand());
 /** A Gaussian band by its centre, FWHM and height. */

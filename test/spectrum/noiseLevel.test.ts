@@ -2,6 +2,7 @@
 import { linearRegression, rootMeanSquare } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
 import { noiseLevel } from '../../src/spectrum/noiseLevel.js';
+import { mulberry32 } from '../mulberry32.js';
 
 describe('noiseLevel', () => {
   it('returns the amplitude of a +e −e −e +e pattern on a sloped line in the default window', () => {
@@ -25,13 +26,7 @@ describe('noiseLevel', () => {
   });
 
   it('equals a general-purpose library: simple-statistics linearRegression residuals and rootMeanSquare', () => {
-    let state = 99;
-    const rand = () => {
-      state = (state + 0x6d2b79f5) | 0;
-      let t = Math.imul(state ^ (state >>> 15), 1 | state);
-      t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-      return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-    };
+    const rand = mulberry32(99);
     const x = Array.from({ length: 60 }, (_, i) => 2100 + 2 * i);
     const y = x.map((v) => 0.02 - 3e-5 * v + 0.004 * (rand() - 0.5));
     const fit = linearRegression(x.map((v, i) => [v, y[i]!]));

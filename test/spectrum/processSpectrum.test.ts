@@ -5,6 +5,7 @@ import { type RecipeInput, recipeSchema } from '../../src/schema/recipe.js';
 import { gridAxis } from '../../src/spectrum/gridAxis.js';
 import { processSpectrum } from '../../src/spectrum/processSpectrum.js';
 import type { Spectrum } from '../../src/spectrum/types.js';
+import { mulberry32 } from '../mulberry32.js';
 
 const spectrum = (x: ArrayLike<number>, y: ArrayLike<number>): Spectrum => ({
   wavenumber: Float64Array.from(x),
@@ -121,13 +122,7 @@ describe('processSpectrum', () => {
 
   it('is deterministic and leaves its input untouched under the default recipe', () => {
     // A synthetic descending spectrum 4000 → 600 at an uneven 1.93 cm⁻¹ with a sloped baseline and seeded noise.
-    let state = 31;
-    const rand = () => {
-      state = (state + 0x6d2b79f5) | 0;
-      let t = Math.imul(state ^ (state >>> 15), 1 | state);
-      t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-      return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-    };
+    const rand = mulberry32(31);
     const n = 1762;
     const x = Float64Array.from({ length: n }, (_, i) => 4000 - 1.93 * i);
     const y = x.map(

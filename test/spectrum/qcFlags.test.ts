@@ -5,16 +5,7 @@ import type { Grid } from '../../src/schema/recipe.js';
 import { gridAxis } from '../../src/spectrum/gridAxis.js';
 import { qcFlags } from '../../src/spectrum/qcFlags.js';
 import type { Spectrum } from '../../src/spectrum/types.js';
-
-function mulberry32(seed: number): () => number {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { mulberry32 } from '../mulberry32.js';
 
 const grid: Grid = { start: 4000, stop: 600, step: 2 };
 const exclude = [{ min: 2280, max: 2400 }];

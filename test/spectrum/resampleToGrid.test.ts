@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { gridAxis } from '../../src/spectrum/gridAxis.js';
 import { resampleToGrid } from '../../src/spectrum/resampleToGrid.js';
+import { mulberry32 } from '../mulberry32.js';
 
 const spectrum = (x: ArrayLike<number>, y: ArrayLike<number>) => ({
   wavenumber: Float64Array.from(x),
@@ -83,13 +84,7 @@ describe('resampleToGrid', () => {
     const n = 1022;
     const x = Float64Array.from({ length: n }, (_, i) => 998.95 + 0.1 * i);
     const line = (v: number) => 0.3 + 0.002 * (v - 1000);
-    let state = 7;
-    const rand = () => {
-      state = (state + 0x6d2b79f5) | 0;
-      let t = Math.imul(state ^ (state >>> 15), 1 | state);
-      t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-      return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-    };
+    const rand = mulberry32(7);
     const sigma = 0.01;
     const noisy = x.map(
       (v) => line(v) + sigma * Math.sqrt(-2 * Math.log(1 - rand())) * Math.cos(2 * Math.PI * rand()),

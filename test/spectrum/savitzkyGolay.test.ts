@@ -1,6 +1,7 @@
 // Tests of Savitzky–Golay filtering of whole signals: published weights inside, least-squares fits at the ends.
 import { describe, expect, it } from 'vitest';
 import { savitzkyGolay } from '../../src/spectrum/savitzkyGolay.js';
+import { mulberry32 } from '../mulberry32.js';
 
 describe('savitzkyGolay', () => {
   it('applies the published 5-point weights −3 12 17 12 −3 / 35 inside the signal', () => {
@@ -48,13 +49,7 @@ describe('savitzkyGolay', () => {
   });
 
   it('lowers white noise by the expected factor (√ Σ c² of the weights)', () => {
-    let state = 12345;
-    const rand = () => {
-      state = (state + 0x6d2b79f5) | 0;
-      let t = Math.imul(state ^ (state >>> 15), 1 | state);
-      t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-      return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-    };
+    const rand = mulberry32(12345);
     const n = 20000;
     const y = new Float64Array(n);
     for (let i = 0; i < n; i += 1)

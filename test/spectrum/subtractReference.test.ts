@@ -3,16 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { subtractReference } from '../../src/spectrum/subtractReference.js';
 import type { Spectrum } from '../../src/spectrum/types.js';
 import { bandshelfErrorOf } from '../bandshelfErrorOf.js';
-
-function mulberry32(seed: number): () => number {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { mulberry32 } from '../mulberry32.js';
 
 const gaussian = (x: number, centre: number, fwhm: number, height: number) =>
   height * Math.exp(-4 * Math.LN2 * ((x - centre) / fwhm) ** 2);

@@ -2,16 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { whittakerSmooth } from '../../src/spectrum/whittakerSmooth.js';
-
-function mulberry32(seed: number): () => number {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { mulberry32 } from '../mulberry32.js';
 
 // An independent dense solve of (W + λ DᵀD) z = W y: D built row by row, Gaussian elimination with pivoting.
 function denseWhittaker(y: number[], w: number[], lambda: number, order: 1 | 2): number[] {

@@ -5,16 +5,7 @@ import { averageTraces } from '../../../src/spectrum/trace/averageTraces.js';
 import { pulseDelay } from '../../../src/spectrum/trace/pulseDelay.js';
 import { shiftTrace } from '../../../src/spectrum/trace/shiftTrace.js';
 import type { Trace } from '../../../src/spectrum/trace/types.js';
-
-function uniformTrace(n: number, step: number, start: number, f: (t: number) => number): Trace {
-  const time = new Float64Array(n);
-  const field = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    time[i] = start + i * step;
-    field[i] = f(time[i]!);
-  }
-  return { time, field };
-}
+import { uniformTrace } from './uniformTrace.js';
 
 /** A few-cycle mid-infrared pulse: Gaussian envelope (intensity FWHM 14 fs) on a 50 THz (1668 cm⁻¹) carrier. */
 function pulse(t0: number) {

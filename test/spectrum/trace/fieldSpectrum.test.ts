@@ -4,6 +4,7 @@ import { fieldSpectrum } from '../../../src/spectrum/trace/fieldSpectrum.js';
 import type { Trace } from '../../../src/spectrum/trace/types.js';
 import { wavenumberFromTerahertz } from '../../../src/spectrum/trace/wavenumberFromTerahertz.js';
 import { zeroFill } from '../../../src/spectrum/trace/zeroFill.js';
+import { uniformTrace } from './uniformTrace.js';
 
 /** Full width at half maximum of a sampled peak, with the half-maximum crossings found by linear interpolation. */
 function fwhm(x: Float64Array, y: Float64Array): number {
@@ -16,16 +17,6 @@ function fwhm(x: Float64Array, y: Float64Array): number {
   while (right < y.length - 1 && y[right]! > half) right++;
   const cross = (a: number, b: number) => x[a]! + ((half - y[a]!) / (y[b]! - y[a]!)) * (x[b]! - x[a]!);
   return cross(right - 1, right) - cross(left, left + 1);
-}
-
-function uniformTrace(n: number, step: number, start: number, f: (t: number) => number): Trace {
-  const time = new Float64Array(n);
-  const field = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    time[i] = start + i * step;
-    field[i] = f(time[i]!);
-  }
-  return { time, field };
 }
 
 describe('fieldSpectrum', () => {

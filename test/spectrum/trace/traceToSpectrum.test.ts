@@ -4,19 +4,10 @@ import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../../src/error.js';
 import { traceToSpectrum } from '../../../src/spectrum/trace/traceToSpectrum.js';
 import type { Trace } from '../../../src/spectrum/trace/types.js';
+import { uniformTrace } from './uniformTrace.js';
 
 /** cm⁻¹ per THz, 10¹² / c with c = 299 792 458 m/s (SI definition). */
 const PER_THZ = 1e12 / 29_979_245_800;
-
-function uniformTrace(n: number, step: number, start: number, f: (t: number) => number): Trace {
-  const time = new Float64Array(n);
-  const field = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    time[i] = start + i * step;
-    field[i] = f(time[i]!);
-  }
-  return { time, field };
-}
 
 /** A transform-limited Gaussian pulse: intensity FWHM `tau` fs, carrier `carrier` THz, peak at `t0` fs. */
 function gaussianPulse(t0: number, tau: number, carrier: number, amplitude = 1) {
