@@ -11,11 +11,11 @@ const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const nodeEntries = {
   bandshelf: 'src/cli/main.ts',
   index: 'src/index.ts',
-  demo: 'src/cli/demo.ts',
-  'demo-data': 'src/cli/writeDemoData.ts',
-  schema: 'src/cli/writeSchemas.ts',
-  bench: 'src/cli/bench.ts',
-  'bench-site': 'src/cli/benchSite.ts',
+  demo: 'scripts/demo.ts',
+  'demo-data': 'scripts/writeDemoData.ts',
+  schema: 'scripts/writeSchemas.ts',
+  bench: 'scripts/bench.ts',
+  'bench-site': 'scripts/benchSite.ts',
   'scores-worker': 'src/match/scoresWorker.ts',
 };
 

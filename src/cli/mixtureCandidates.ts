@@ -1,6 +1,6 @@
 // The library spectra offered to one unknown's mixture fit; processed again over its span when it covers only part.
 import { BandshelfError } from '../error.js';
-import { readEntry } from '../library/readEntry.js';
+import { readEntry } from '../library/store/readEntry.js';
 import type { EntryView, Library, SearchSet } from '../library/types.js';
 import { reprocessOverWindow } from '../match/reprocessOverWindow.js';
 import { spectrumExtent } from '../match/spectrumExtent.js';

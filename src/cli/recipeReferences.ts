@@ -1,5 +1,5 @@
 // The original spectra a recipe's reference subtraction or EMSC step needs, read from the library.
-import { readEntry } from '../library/readEntry.js';
+import { readEntry } from '../library/store/readEntry.js';
 import type { Library } from '../library/types.js';
 import type { Recipe } from '../schema/recipe.js';
 import type { Spectrum } from '../spectrum/types.js';

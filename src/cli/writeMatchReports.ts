@@ -2,7 +2,7 @@
 import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import { basename, extname, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
-import { describeIoError } from '../library/describeIoError.js';
+import { describeIoError } from '../library/store/describeIoError.js';
 import type { MatchOutcome } from './matchUnknowns.js';
 
 export interface WriteMatchReportsOptions {

@@ -1,6 +1,6 @@
 // Full-spectrum search of a library file (Node): the library's search set, matrices from the disk cache, and the
 // kernels split across worker threads.
-import { readSearchSet } from '../library/readSearchSet.js';
+import { readSearchSet } from '../library/store/readSearchSet.js';
 import type { Library, SearchSet } from '../library/types.js';
 import { buildSearchMatrix } from './buildSearchMatrix.js';
 import { createScorePool, type ScorePool } from './createScorePool.js';

@@ -1,14 +1,14 @@
 // Gathers what a site build shows from an open library: entries, releases with their diffs, the band-assignment
 // table and the processed vectors of one state. Entry vectors are read later, one entry at a time.
 import { BandshelfError } from '../error.js';
-import { diffStates } from '../library/diffStates.js';
-import { entryHistory } from '../library/entryHistory.js';
-import { listAssignments } from '../library/listAssignments.js';
-import { listEntries } from '../library/listEntries.js';
-import { listReleases } from '../library/listReleases.js';
-import { readEntry } from '../library/readEntry.js';
-import { readRelease } from '../library/readRelease.js';
-import { readSearchSet } from '../library/readSearchSet.js';
+import { diffStates } from '../library/store/diffStates.js';
+import { entryHistory } from '../library/store/entryHistory.js';
+import { listAssignments } from '../library/store/listAssignments.js';
+import { listEntries } from '../library/store/listEntries.js';
+import { listReleases } from '../library/store/listReleases.js';
+import { readEntry } from '../library/store/readEntry.js';
+import { readRelease } from '../library/store/readRelease.js';
+import { readSearchSet } from '../library/store/readSearchSet.js';
 import type { EntrySummary, Library } from '../library/types.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { Spectrum } from '../spectrum/types.js';

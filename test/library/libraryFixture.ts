@@ -1,10 +1,10 @@
 // An in-process library for the store's own tests: entries made from small Gaussian spectra, no CLI involved.
 import { join } from 'node:path';
-import { commitRevisions } from '../../src/library/commitRevisions.js';
-import { createRelease } from '../../src/library/createRelease.js';
-import type { RevisionInput } from '../../src/library/ingestTypes.js';
-import { initLibrary } from '../../src/library/initLibrary.js';
-import { prepareRevision } from '../../src/library/prepareRevision.js';
+import type { RevisionInput } from '../../src/library/ingest/ingestTypes.js';
+import { prepareRevision } from '../../src/library/ingest/prepareRevision.js';
+import { commitRevisions } from '../../src/library/store/commitRevisions.js';
+import { createRelease } from '../../src/library/store/createRelease.js';
+import { initLibrary } from '../../src/library/store/initLibrary.js';
 import type { Library } from '../../src/library/types.js';
 import { type Band, syntheticSpectrum, tempDir } from '../cli/bandshelfCli.js';
 

@@ -2,7 +2,7 @@
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { schemaDocuments } from '../../src/cli/schemaDocuments.js';
+import { schemaDocuments } from '../../scripts/schemaDocuments.js';
 import { ROOT } from '../cli/bandshelfCli.js';
 
 const dir = join(ROOT, 'schema');

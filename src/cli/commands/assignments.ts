@@ -2,12 +2,12 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
-import { addAssignments } from '../../library/addAssignments.js';
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { defaultAuthor } from '../../library/defaultAuthor.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { listAssignments } from '../../library/listAssignments.js';
-import { openLibrary } from '../../library/openLibrary.js';
+import { addAssignments } from '../../library/store/addAssignments.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { defaultAuthor } from '../../library/store/defaultAuthor.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { listAssignments } from '../../library/store/listAssignments.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
 import type { CommandSpec } from '../command.js';
 import { textTable } from '../textTable.js';
 

@@ -1,9 +1,9 @@
 // `bandshelf bands`: finds library entries with stored peaks at given positions (band-position search).
 import { BandshelfError } from '../../error.js';
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { openLibrary } from '../../library/openLibrary.js';
-import { readPeakSet } from '../../library/readPeakSet.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
+import { readPeakSet } from '../../library/store/readPeakSet.js';
 import { buildBandIndex } from '../../match/buildBandIndex.js';
 import { searchBands } from '../../match/searchBands.js';
 import type { BandQuery, BandStrength } from '../../match/types.js';

@@ -1,9 +1,9 @@
 // `bandshelf check`: verifies the library file and reproduces every stored revision; non-zero exit on a problem.
 import { BandshelfError } from '../../error.js';
-import { checkLibrary } from '../../library/checkLibrary.js';
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { openLibrary } from '../../library/openLibrary.js';
+import { checkLibrary } from '../../library/store/checkLibrary.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
 import type { CommandSpec } from '../command.js';
 
 export const checkCommand: CommandSpec = {

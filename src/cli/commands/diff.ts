@@ -1,8 +1,8 @@
 // `bandshelf diff A B`: entries added, changed (data, recipe, metadata) and removed between two states.
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { diffStates } from '../../library/diffStates.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { openLibrary } from '../../library/openLibrary.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { diffStates } from '../../library/store/diffStates.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
 import type { CommandSpec } from '../command.js';
 
 export const diffCommand: CommandSpec = {

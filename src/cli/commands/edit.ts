@@ -2,13 +2,13 @@
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
 import { metaValueFromText } from '../../formats/metaValueFromText.js';
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { defaultAuthor } from '../../library/defaultAuthor.js';
-import { editEntry } from '../../library/editEntry.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { loadSidecar } from '../../library/loadSidecar.js';
-import { openLibrary } from '../../library/openLibrary.js';
-import { readTextFile } from '../../library/readTextFile.js';
+import { loadSidecar } from '../../library/ingest/loadSidecar.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { defaultAuthor } from '../../library/store/defaultAuthor.js';
+import { editEntry } from '../../library/store/editEntry.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
+import { readTextFile } from '../../library/store/readTextFile.js';
 import { collectRepeated } from '../collectRepeated.js';
 import type { CommandSpec } from '../command.js';
 

@@ -1,8 +1,8 @@
 // `bandshelf history ID`: every revision of an entry, with what changed, its review state and releases.
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { entryHistory } from '../../library/entryHistory.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { openLibrary } from '../../library/openLibrary.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { entryHistory } from '../../library/store/entryHistory.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
 import type { CommandSpec } from '../command.js';
 import { textTable } from '../textTable.js';
 

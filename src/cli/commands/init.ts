@@ -1,10 +1,10 @@
 // `bandshelf init`: creates an empty library file with its grid and default processing recipe.
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { initLibrary } from '../../library/initLibrary.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { readRecipeFile } from '../../library/readRecipeFile.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { initLibrary } from '../../library/store/initLibrary.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { readRecipeFile } from '../../library/store/readRecipeFile.js';
 import type { Grid } from '../../schema/recipe.js';
 import { gridLength } from '../../spectrum/gridLength.js';
 import type { CommandSpec } from '../command.js';

@@ -1,9 +1,9 @@
 // `bandshelf list`: the entries of the current state or of a release.
 import { BandshelfError } from '../../error.js';
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { listEntries } from '../../library/listEntries.js';
-import { openLibrary } from '../../library/openLibrary.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { listEntries } from '../../library/store/listEntries.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
 import { entryClasses } from '../../schema/meta.js';
 import type { CommandSpec } from '../command.js';
 import { textTable } from '../textTable.js';

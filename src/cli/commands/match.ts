@@ -2,7 +2,7 @@
 import { writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
-import { describeIoError } from '../../library/describeIoError.js';
+import { describeIoError } from '../../library/store/describeIoError.js';
 import { MATCH_CAUTION } from '../../schema/matchReport.js';
 import { collectRepeated } from '../collectRepeated.js';
 import type { CommandSpec } from '../command.js';

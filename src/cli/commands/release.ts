@@ -1,9 +1,9 @@
 // `bandshelf release TAG`: freezes the current revision of every entry under a tag (or lists the releases).
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { createRelease } from '../../library/createRelease.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { listReleases } from '../../library/listReleases.js';
-import { openLibrary } from '../../library/openLibrary.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { createRelease } from '../../library/store/createRelease.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { listReleases } from '../../library/store/listReleases.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
 import type { CommandSpec } from '../command.js';
 import { textTable } from '../textTable.js';
 

@@ -1,10 +1,10 @@
 // `bandshelf retire ID`: takes an entry out of the current state; its history and releases stay.
 import { BandshelfError } from '../../error.js';
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { defaultAuthor } from '../../library/defaultAuthor.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { openLibrary } from '../../library/openLibrary.js';
-import { retireEntry } from '../../library/retireEntry.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { defaultAuthor } from '../../library/store/defaultAuthor.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
+import { retireEntry } from '../../library/store/retireEntry.js';
 import type { CommandSpec } from '../command.js';
 
 export const retireCommand: CommandSpec = {

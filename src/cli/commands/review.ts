@@ -1,10 +1,10 @@
 // `bandshelf review ID`: approves or rejects the newest revision of an entry (a second person's review).
 import { BandshelfError } from '../../error.js';
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { defaultAuthor } from '../../library/defaultAuthor.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { openLibrary } from '../../library/openLibrary.js';
-import { reviewRevision } from '../../library/reviewRevision.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { defaultAuthor } from '../../library/store/defaultAuthor.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
+import { reviewRevision } from '../../library/store/reviewRevision.js';
 import type { CommandSpec } from '../command.js';
 
 export const reviewCommand: CommandSpec = {

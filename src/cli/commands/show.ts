@@ -1,9 +1,9 @@
 // `bandshelf show ID`: one entry's metadata, data, peaks, QC and recipe.
 import { BandshelfError } from '../../error.js';
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { openLibrary } from '../../library/openLibrary.js';
-import { readEntry } from '../../library/readEntry.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
+import { readEntry } from '../../library/store/readEntry.js';
 import type { EntryView } from '../../library/types.js';
 import { gridAxis } from '../../spectrum/gridAxis.js';
 import type { CommandSpec } from '../command.js';

@@ -1,9 +1,9 @@
 // `bandshelf site`: builds the static, offline website of the library and its match reports.
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
-import { closeLibrary } from '../../library/closeLibrary.js';
-import { libraryPath } from '../../library/libraryPath.js';
-import { openLibrary } from '../../library/openLibrary.js';
+import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { libraryPath } from '../../library/store/libraryPath.js';
+import { openLibrary } from '../../library/store/openLibrary.js';
 import { MATCH_CAUTION } from '../../schema/matchReport.js';
 import { buildSite } from '../../site/buildSite.js';
 import { collectSiteData } from '../../site/collectSiteData.js';

@@ -1,0 +1,75 @@
+// `npm run demo`: builds a library from the synthetic demo collection, matches the demo unknowns and builds the site.
+import { existsSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { main } from '../src/cli/main.js';
+
+const OUT = resolve('demo-out');
+const LIBRARY = join(OUT, 'bandshelf.sqlite');
+const REPORTS = join(OUT, 'reports');
+const SITE = join(OUT, 'site');
+
+async function step(title: string, argv: string[]): Promise<void> {
+  process.stdout.write(`\n== ${title}\n$ bandshelf ${argv.join(' ')}\n`);
+  const code = await main(argv);
+  if (code !== 0) {
+    process.stderr.write(`demo: step "${title}" failed with exit code ${code}\n`);
+    process.exit(code);
+  }
+}
+
+async function runDemo(): Promise<void> {
+  // demo-out/ is the demo's own folder: it is rebuilt from scratch on every run.
+  rmSync(OUT, { recursive: true, force: true });
+  mkdirSync(REPORTS, { recursive: true });
+  const lib = ['--library', LIBRARY];
+  await step('Create the library (grid 4000–600 cm⁻¹ at 2 cm⁻¹)', ['init', ...lib]);
+  await step('Ingest the synthetic demo collection', [
+    'add',
+    'library',
+    ...lib,
+    '--message',
+    'demo collection',
+  ]);
+  await step('Freeze a release', ['release', 'demo-2026.12', ...lib, '--message', 'first demo release']);
+  await step('Check the library of record', ['check', ...lib]);
+  const unknowns = readdirSync('library/unknowns')
+    .filter((f) => /\.(csv|jdx)$/.test(f))
+    .sort();
+  for (const file of unknowns) {
+    await step(`Match ${file}`, [
+      'match',
+      join('library/unknowns', file),
+      ...lib,
+      '--mixture',
+      '--report',
+      REPORTS,
+    ]);
+  }
+  await step('Identify the bands of the serum film', [
+    'identify',
+    'library/unknowns/u03-serum-film.csv',
+    ...lib,
+    '--report',
+    REPORTS,
+  ]);
+  await step('Band-position search: amide I, amide II, PO₂⁻ asymmetric', [
+    'bands',
+    '1652',
+    '1545',
+    '1240',
+    ...lib,
+  ]);
+  await step('Build the static site', ['site', ...lib, '--reports', REPORTS, '--out', SITE, '--clean']);
+  if (existsSync(SITE)) {
+    process.stdout.write(
+      `\nThe site is in ${SITE}. Serve it on this machine only, e.g.\n` +
+        `  npx @11ty/eleventy-dev-server --dir=${SITE} --port=8080   (then open http://127.0.0.1:8080/)\n` +
+        `  python3 -m http.server --directory ${SITE} --bind 127.0.0.1 8080\n`,
+    );
+  }
+  process.stdout.write(
+    '\nResearch use only: matches are candidates, not identifications. Confirm by orthogonal methods and defer to local regulations and licensed clinical practice.\n',
+  );
+}
+
+await runDemo();

@@ -1,9 +1,0 @@
-// The newest stored revision of an entry (retired or not), or undefined when the id was never added.
-import type { RevisionRow } from './rowTypes.js';
-import type { Library } from './types.js';
-
-export function headRevision(library: Library, id: string): RevisionRow | undefined {
-  return library.db
-    .prepare('SELECT * FROM revisions WHERE entry_id = ? ORDER BY revision DESC LIMIT 1')
-    .get(id) as RevisionRow | undefined;
-}

@@ -1,0 +1,52 @@
+// Pins the library spectra a recipe names (reference subtraction, EMSC) to a revision, so the processed vector
+// stays reproducible after those entries change.
+import { BandshelfError } from '../../error.js';
+import type { Recipe } from '../../schema/recipe.js';
+import type { Library } from '../types.js';
+
+export interface PinRecipeOptions {
+  /** The entry the recipe is for: it may not name itself. */
+  entryId?: string;
+  /** The file named in errors. */
+  file?: string;
+}
+
+export function pinRecipe(library: Library, recipe: Recipe, options: PinRecipeOptions = {}): Recipe {
+  const pin = <T extends { id: string; revision?: number | undefined }>(step: T, field: string): T => {
+    if (step.id === options.entryId) {
+      throw new BandshelfError('BAD_RECIPE', `an entry cannot use itself as its ${field} spectrum`, {
+        file: options.file,
+        field: `${field}.id`,
+      });
+    }
+    if (step.revision !== undefined) {
+      const exists = library.db
+        .prepare("SELECT 1 FROM revisions WHERE entry_id = ? AND revision = ? AND kind != 'retire'")
+        .get(step.id, step.revision);
+      if (exists === undefined) {
+        throw new BandshelfError(
+          'NOT_FOUND',
+          `the ${field} spectrum '${step.id}' has no revision ${step.revision} with data`,
+          { file: options.file, field: `${field}.revision` },
+        );
+      }
+      return step;
+    }
+    const head = library.db
+      .prepare('SELECT revision, kind FROM revisions WHERE entry_id = ? ORDER BY revision DESC LIMIT 1')
+      .get(step.id) as { revision: number; kind: string } | undefined;
+    if (head === undefined || head.kind === 'retire') {
+      throw new BandshelfError(
+        'NOT_FOUND',
+        `the ${field} spectrum '${step.id}' is not in the library${head ? ' (it is retired)' : ''}; add it first`,
+        { file: options.file, field: `${field}.id` },
+      );
+    }
+    return { ...step, revision: head.revision };
+  };
+  return {
+    ...recipe,
+    reference: recipe.reference === null ? null : pin(recipe.reference, 'reference'),
+    emsc: recipe.emsc === null ? null : pin(recipe.emsc, 'emsc'),
+  };
+}

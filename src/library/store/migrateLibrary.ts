@@ -1,0 +1,146 @@
+// Brings a library file's tables up to the current layout, one step per PRAGMA user_version.
+import type Database from 'better-sqlite3';
+import { BandshelfError } from '../../error.js';
+
+/** Immutable tables: rows are only ever inserted; triggers refuse UPDATE and DELETE so history stays honest. */
+const IMMUTABLE = [
+  'entries',
+  'revisions',
+  'files',
+  'revision_files',
+  'reviews',
+  'releases',
+  'release_members',
+];
+
+const V1 = `
+CREATE TABLE settings (
+  key TEXT PRIMARY KEY,
+  value TEXT NOT NULL
+) STRICT;
+
+CREATE TABLE entries (
+  id TEXT PRIMARY KEY,
+  created_at TEXT NOT NULL
+) STRICT;
+
+-- One immutable row per revision. Blobs are little-endian: original_x/original_y Float64, processed Float32
+-- (NaN = not covered), peaks Float64 quadruples (position, height, prominence, fwhm) ascending in position.
+CREATE TABLE revisions (
+  key INTEGER PRIMARY KEY,
+  entry_id TEXT NOT NULL REFERENCES entries(id),
+  revision INTEGER NOT NULL CHECK (revision > 0),
+  kind TEXT NOT NULL CHECK (kind IN ('data', 'metadata', 'retire')),
+  content_hash TEXT NOT NULL,
+  data_hash TEXT NOT NULL,
+  read_options TEXT NOT NULL,
+  recipe TEXT NOT NULL,
+  meta TEXT NOT NULL,
+  original_x BLOB NOT NULL,
+  original_y BLOB NOT NULL,
+  processed BLOB NOT NULL,
+  covered_points INTEGER NOT NULL,
+  coverage_min REAL,
+  coverage_max REAL,
+  peaks BLOB NOT NULL,
+  qc TEXT NOT NULL,
+  extras TEXT NOT NULL,
+  author TEXT NOT NULL,
+  message TEXT NOT NULL,
+  created_at TEXT NOT NULL,
+  record_hash TEXT NOT NULL,
+  UNIQUE (entry_id, revision)
+) STRICT;
+
+-- File bytes, stored once however many revisions use them.
+CREATE TABLE files (
+  sha256 TEXT PRIMARY KEY,
+  bytes BLOB NOT NULL
+) STRICT;
+
+CREATE TABLE revision_files (
+  revision_key INTEGER NOT NULL REFERENCES revisions(key),
+  position INTEGER NOT NULL,
+  role TEXT NOT NULL CHECK (role IN ('data', 'sample-trace', 'reference-trace')),
+  name TEXT NOT NULL,
+  sha256 TEXT NOT NULL REFERENCES files(sha256),
+  PRIMARY KEY (revision_key, position)
+) STRICT;
+
+-- Review decisions are rows of their own: the newest one for a revision is its state; none means draft.
+CREATE TABLE reviews (
+  key INTEGER PRIMARY KEY,
+  revision_key INTEGER NOT NULL REFERENCES revisions(key),
+  state TEXT NOT NULL CHECK (state IN ('reviewed', 'rejected')),
+  reviewer TEXT NOT NULL,
+  note TEXT NOT NULL,
+  created_at TEXT NOT NULL
+) STRICT;
+CREATE INDEX reviews_by_revision ON reviews (revision_key, key);
+
+CREATE TABLE releases (
+  tag TEXT PRIMARY KEY,
+  created_at TEXT NOT NULL,
+  message TEXT NOT NULL,
+  reviewed_only INTEGER NOT NULL CHECK (reviewed_only IN (0, 1))
+) STRICT;
+
+CREATE TABLE release_members (
+  tag TEXT NOT NULL REFERENCES releases(tag),
+  entry_id TEXT NOT NULL REFERENCES entries(id),
+  revision_key INTEGER NOT NULL REFERENCES revisions(key),
+  PRIMARY KEY (tag, entry_id)
+) STRICT;
+CREATE INDEX release_members_by_revision ON release_members (revision_key);
+
+-- The lab's own band-assignment rows (JSON validated at insert), beside the table bandshelf ships.
+CREATE TABLE band_assignments (
+  key INTEGER PRIMARY KEY,
+  row TEXT NOT NULL,
+  author TEXT NOT NULL,
+  created_at TEXT NOT NULL
+) STRICT;
+`;
+
+function immutabilityTriggers(): string {
+  return IMMUTABLE.map(
+    (table) => `
+CREATE TRIGGER ${table}_no_update BEFORE UPDATE ON ${table}
+BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END;
+CREATE TRIGGER ${table}_no_delete BEFORE DELETE ON ${table}
+BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END;`,
+  ).join('\n');
+}
+
+/** Migrations in order: index i takes user_version i to i + 1. */
+const STEPS: string[] = [V1 + immutabilityTriggers()];
+
+/** The user_version a library written by this code has. */
+export const LIBRARY_VERSION = STEPS.length;
+
+/** Names of the triggers that keep history immutable (checked by `check`). */
+export const IMMUTABILITY_TRIGGERS = IMMUTABLE.flatMap((t) => [`${t}_no_update`, `${t}_no_delete`]);
+
+export interface MigrateLibraryOptions {
+  /** The library file, named in errors.
+   * @default undefined */
+  file?: string;
+}
+
+export function migrateLibrary(db: Database.Database, options: MigrateLibraryOptions = {}): void {
+  const version = db.pragma('user_version', { simple: true }) as number;
+  if (version > LIBRARY_VERSION) {
+    throw new BandshelfError(
+      'NO_LIBRARY',
+      `the library has layout version ${version}; this bandshelf understands up to ${LIBRARY_VERSION} (upgrade bandshelf)`,
+      { file: options.file },
+    );
+  }
+  for (let v = version; v < LIBRARY_VERSION; v++) {
+    const step = STEPS[v]!;
+    db.transaction(() => {
+      db.exec(step);
+      db.pragma(`user_version = ${v + 1}`);
+    }).immediate();
+  }
+}

@@ -1,0 +1,102 @@
+// Streams the revision rows of one library state once: entries in id order, the state key, a position-sorted
+// peak index and, when asked, the processed vectors as one Float32 matrix. readSearchSet and readPeakSet share it.
+import { createHash } from 'node:crypto';
+import { gridLength } from '../../spectrum/gridLength.js';
+import type { Library, SearchSet, SearchSetEntry } from '../types.js';
+import { canonicalJson } from './canonicalJson.js';
+import { peakOrder } from './peakOrder.js';
+import { stateSelect } from './stateSelect.js';
+
+export interface ReadStateRowsOptions {
+  /** A release tag, or undefined / 'current' for the working state.
+   * @default undefined */
+  at?: string | null;
+  /** Also read the processed vectors; when false the SQL never names them, so they stay on disk.
+   * @default false */
+  processed?: boolean;
+}
+
+/** A SearchSet without the library's grid and recipe; `processed` is empty unless it was asked for. */
+export type StateRows = Omit<SearchSet, 'grid' | 'recipe'>;
+
+/** Each stored peak is four little-endian Float64 values: position, height, prominence, fwhm. */
+const PEAK_BYTES = 32;
+
+export function readStateRows(library: Library, options: ReadStateRowsOptions = {}): StateRows {
+  const withProcessed = options.processed ?? false;
+  const cols = gridLength(library.grid);
+  const rowBytes = cols * 4;
+  const at = { at: options.at };
+  // One read transaction so the count and the rows see the same snapshot even while another process writes.
+  return library.db.transaction((): StateRows => {
+    const counted = stateSelect(library, 'count(1) AS n, coalesce(sum(length(r.peaks)), 0) AS peakBytes', at);
+    const { n, peakBytes } = library.db.prepare(counted.sql).get(...counted.params) as {
+      n: number;
+      peakBytes: number;
+    };
+    const columns = `r.entry_id, r.revision, r.content_hash, r.meta ->> '$.name', r.meta ->> '$.class', r.peaks`;
+    const select = stateSelect(library, withProcessed ? `${columns}, r.processed` : columns, at);
+    const processed = new Float32Array(withProcessed ? n * cols : 0);
+    const bytes = new Uint8Array(processed.buffer);
+    const capacity = Math.floor(peakBytes / PEAK_BYTES);
+    const peakEntry = new Uint32Array(capacity);
+    const peakPosition = new Float64Array(capacity);
+    const peakHeight = new Float64Array(capacity);
+    const peakProminence = new Float64Array(capacity);
+    const entries: SearchSetEntry[] = [];
+    const digest = createHash('sha256').update(`${canonicalJson(library.grid)}\n`);
+    let row = 0;
+    let k = 0;
+    const statement = library.db.prepare(select.sql).raw(true);
+    for (const raw of statement.iterate(...select.params)) {
+      const [id, revision, hash, name, cls, peaks, blob] = raw as [
+        string,
+        number,
+        string,
+        string | null,
+        string | null,
+        Buffer,
+        Buffer | undefined,
+      ];
+      entries.push({ id, revision, name: name ?? id, class: cls ?? 'other', hash });
+      digest.update(`${id}@${revision}:${hash}\n`);
+      if (withProcessed && row < n) {
+        if (blob?.byteLength === rowBytes) bytes.set(blob, row * rowBytes);
+        else processed.fill(Number.NaN, row * cols, (row + 1) * cols); // a malformed row matches nothing
+      }
+      const view = new DataView(peaks.buffer, peaks.byteOffset, peaks.byteLength);
+      for (let o = 0; o + PEAK_BYTES <= peaks.byteLength && k < capacity; o += PEAK_BYTES) {
+        peakEntry[k] = row;
+        peakPosition[k] = view.getFloat64(o, true);
+        peakHeight[k] = view.getFloat64(o + 8, true);
+        peakProminence[k] = view.getFloat64(o + 16, true);
+        k++;
+      }
+      row++;
+    }
+    // Peaks were collected in row order, so ordering ties by index orders them by entry row too.
+    const order = peakOrder(peakPosition.subarray(0, k));
+    const sorted = {
+      entry: new Uint32Array(k),
+      position: new Float64Array(k),
+      height: new Float64Array(k),
+      prominence: new Float64Array(k),
+    };
+    for (let i = 0; i < k; i++) {
+      const j = order[i]!;
+      sorted.entry[i] = peakEntry[j]!;
+      sorted.position[i] = peakPosition[j]!;
+      sorted.height[i] = peakHeight[j]!;
+      sorted.prominence[i] = peakProminence[j]!;
+    }
+    return {
+      stateKey: digest.digest('hex'),
+      at: select.at,
+      entries,
+      processed: !withProcessed || row === n ? processed : processed.subarray(0, row * cols),
+      rows: row,
+      cols,
+      peaks: sorted,
+    };
+  })();
+}
