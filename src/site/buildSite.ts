@@ -5,6 +5,7 @@ import { dirname, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
 import { buildSearchIndex, type SearchIndexEntry } from './buildSearchIndex.js';
 import { copySiteAssets } from './copySiteAssets.js';
+import { dataScript } from './dataScript.js';
 import { encodeSearchMatrix } from './encodeSearchMatrix.js';
 import { entryJson } from './entryJson.js';
 import { entryPage } from './entryPage.js';
@@ -142,10 +143,16 @@ async function writeSite(
     const slug = slugs.get(summary.id)!;
     const detail = source.loadEntry(summary.id);
     const folder = `entries/${slug}/`;
-    const processedBytes = write(`${folder}${slug}.processed.f32`, float32Bytes(detail.processed));
-    const dataBytes = write(
-      `${folder}${slug}.json`,
-      entryJson(detail, { processedFile: `${slug}.processed.f32` }),
+    const processed = float32Bytes(detail.processed);
+    const processedBytes = write(`${folder}${slug}.processed.f32`, processed);
+    const json = entryJson(detail, { processedFile: `${slug}.processed.f32` });
+    const dataBytes = write(`${folder}${slug}.json`, json);
+    // The page reads the same data from a script file, which a browser loads from disk too (fetch it refuses).
+    write(
+      `${folder}${slug}.data.js`,
+      dataScript(`entry:${slug}`, null, {
+        json: `{"document":${json.trim()},"processed":${JSON.stringify(Buffer.from(processed).toString('base64'))}}`,
+      }),
     );
     entryPages.push(entryPage(detail, { assignments: source.assignments, dataBytes, processedBytes, slug }));
     searchEntries.push({
@@ -157,36 +164,43 @@ async function writeSite(
   }
 
   const summaries = new Map(source.entries.map((e) => [e.id, e]));
-  write('assets/search-index.json', buildSearchIndex(searchEntries, { assignments: source.assignments }));
-  write('assets/search-matrix.bin', encodeSearchMatrix(source.matrix));
+  const searchIndex = buildSearchIndex(searchEntries, { assignments: source.assignments });
+  write('assets/search-index.json', searchIndex);
+  write('assets/search-index.js', dataScript('search-index', null, { json: searchIndex }));
+  const matrixBytes = encodeSearchMatrix(source.matrix);
+  write('assets/search-matrix.bin', matrixBytes);
+  const matrixMeta = `${jsonForScript({
+    format: 'bandshelf-search-matrix',
+    version: 1,
+    rows: source.matrix.rows,
+    cols: source.matrix.cols,
+    grid: source.grid,
+    recipe: source.recipe,
+    stateKey: source.stateKey,
+    at: source.at,
+    entries: source.matrix.ids.map((id, i) => {
+      const summary = summaries.get(id);
+      return {
+        id,
+        revision: source.matrix.revisions[i],
+        name: summary?.name ?? id,
+        class: summary?.class ?? 'other',
+        path: slugs.has(id) ? `entries/${slugs.get(id)}/` : null,
+      };
+    }),
+    references: Object.fromEntries(
+      Object.entries(source.references).map(([id, s]) => [
+        id,
+        { wavenumber: Array.from(s.wavenumber), absorbance: Array.from(s.absorbance) },
+      ]),
+    ),
+  })}\n`;
+  write('assets/search-matrix.json', matrixMeta);
   write(
-    'assets/search-matrix.json',
-    `${jsonForScript({
-      format: 'bandshelf-search-matrix',
-      version: 1,
-      rows: source.matrix.rows,
-      cols: source.matrix.cols,
-      grid: source.grid,
-      recipe: source.recipe,
-      stateKey: source.stateKey,
-      at: source.at,
-      entries: source.matrix.ids.map((id, i) => {
-        const summary = summaries.get(id);
-        return {
-          id,
-          revision: source.matrix.revisions[i],
-          name: summary?.name ?? id,
-          class: summary?.class ?? 'other',
-          path: slugs.has(id) ? `entries/${slugs.get(id)}/` : null,
-        };
-      }),
-      references: Object.fromEntries(
-        Object.entries(source.references).map(([id, s]) => [
-          id,
-          { wavenumber: Array.from(s.wavenumber), absorbance: Array.from(s.absorbance) },
-        ]),
-      ),
-    })}\n`,
+    'assets/search-matrix.js',
+    dataScript('search-matrix', null, {
+      json: `{"meta":${matrixMeta.trim()},"matrix":${JSON.stringify(Buffer.from(matrixBytes).toString('base64'))}}`,
+    }),
   );
 
   const rowOf = new Map(source.matrix.ids.map((id, i) => [id, i]));

@@ -2,6 +2,7 @@
 import type { EleventyUserConfig } from '@11ty/eleventy';
 import { z } from 'zod';
 import { BandshelfError } from '../error.js';
+import { relativeUrl } from './relativeUrl.js';
 import type { SiteView } from './types.js';
 
 export interface SiteEleventyPluginOptions {
@@ -71,5 +72,10 @@ export function siteEleventyPlugin(
     lstripBlocks: true,
   });
   eleventyConfig.ignores.add('assets/**');
+  // Every link is relative to its page (no root-absolute URL), so the same folder works from `/`, from a sub-path
+  // and from disk; `--base` then needs no rewriting of links at all.
+  eleventyConfig.addFilter('url', function (this: { page?: { url?: string } }, path: string) {
+    return relativeUrl(String(path), { from: this.page?.url ?? '/' });
+  });
   eleventyConfig.addGlobalData('bs', deepFreeze(options.view));
 }

@@ -242,17 +242,24 @@ describe('the output folder', () => {
 });
 
 describe('--base', () => {
-  it('prefixes every link and asset', () => {
+  it('writes every link and asset relative to its page, so any sub-path and file:// work', () => {
     const dir = join(fx.dir, 'prefixed');
     const r = bandshelf(['site', '--library', fx.library, '--out', dir, '--base', '/spectra/']);
     expect(r.code, r.stderr).toBe(0);
     const page = readFileSync(join(dir, 'entries/albumin-test/index.html'), 'utf8');
-    const urls = [...page.matchAll(/\s(?:href|src|data-json)="([^"#]*)"/g)]
-      .map((m) => m[1]!)
-      .filter((u) => u.startsWith('/'));
+    const urls = [...page.matchAll(/\s(?:href|src|data-json|data-script|data-base)="([^"#]*)"/g)].map(
+      (m) => m[1]!,
+    );
     expect(urls.length).toBeGreaterThan(10);
-    for (const u of urls) expect(u.startsWith('/spectra/'), u).toBe(true);
-    expect(page).toContain('data-base="/spectra/"');
+    // No root-absolute URL: an entry page two folders deep reaches the assets through ../../ (RFC 3986 §5.2).
+    for (const u of urls) expect(u.startsWith('/'), u).toBe(false);
+    expect(page).toContain('href="../../assets/site.css"');
+    expect(page).toContain('data-base="../../"');
+    // The data the page needs ships as a script beside it (browsers refuse fetch from file://, not <script>).
+    expect(page).toContain('data-script="../../entries/albumin-test/albumin-test.data.js"');
+    expect(readFileSync(join(dir, 'entries/albumin-test/albumin-test.data.js'), 'utf8')).toMatch(
+      /^\(self\.__bandshelf=self\.__bandshelf\|\|\{\}\)\["entry:albumin-test"\]=\{"document":/,
+    );
   });
 
   it('refuses a prefix that is not a plain path', () => {

@@ -73,9 +73,7 @@ export const siteCommand: CommandSpec = {
       const lines = [
         `site written to ${built.out}: ${built.entries} entr${built.entries === 1 ? 'y' : 'ies'}, ${built.reports} report${built.reports === 1 ? '' : 's'}, ${built.files} files, ${megabytes(built.bytes)} MB`,
         source.entries.length === 0 ? 'the library has no entries: the site says so' : '',
-        built.pathPrefix === '/'
-          ? `open it with any static server, e.g. npx @11ty/eleventy-dev-server --dir ${options.out} (then http://localhost:8080/)`
-          : `the pages expect to be served under ${built.pathPrefix}: mount ${options.out} there on a static web server`,
+        `every link is relative: open ${options.out}/index.html from disk, or serve the folder from any path on a static web server`,
       ].filter((l) => l !== '');
       return { stdout: lines.join('\n'), exitCode: 0 };
     } finally {

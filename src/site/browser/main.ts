@@ -13,7 +13,22 @@ const pages: Record<string, (doc: Document) => void> = {
   report: mountReportPlots,
 };
 
+/** Opened from disk, a link to a folder shows a file listing: point such links at the folder's index.html. */
+function linkIndexFiles(doc: Document): void {
+  if (doc.location.protocol !== 'file:') return;
+  for (const link of Array.from(doc.querySelectorAll<HTMLAnchorElement>('a[href]'))) {
+    const href = link.getAttribute('href') ?? '';
+    if (/^[a-z][a-z0-9+.-]*:/i.test(href) || href.startsWith('#')) continue;
+    const [path = '', hash] = href.split('#');
+    if (path === '' || path.endsWith('/') || path === '.' || path === '..') {
+      const folder = path === '' || path.endsWith('/') ? path : `${path}/`;
+      link.setAttribute('href', `${folder}index.html${hash === undefined ? '' : `#${hash}`}`);
+    }
+  }
+}
+
 function start(): void {
+  linkIndexFiles(document);
   const mount = pages[document.body.dataset.page ?? ''];
   if (mount) mount(document);
 }

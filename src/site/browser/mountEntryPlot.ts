@@ -1,14 +1,16 @@
-// Wires an entry page: fetches the entry's JSON download and processed vector once, draws the thinned plot, redraws
+// Wires an entry page: loads the entry's data script (document and processed vector) once, draws the thinned plot, redraws
 // when a trace is toggled or the zoom reset, and makes the CSV and JCAMP-DX downloads from the same data on request.
 import type { Result } from 'vega-embed';
 import { entryPlotData } from '../entryPlotData.js';
 import type { EntryDocument } from '../types.js';
+import { base64Bytes } from './base64Bytes.js';
 import { embedSpec } from './embedSpec.js';
 import { entryDownload } from './entryDownload.js';
 import { entryPlotSpec } from './entryPlotSpec.js';
+import { siteData } from './siteData.js';
 
 export interface MountEntryPlotOptions {
-  /** Id of the plot container (its `data-json` attribute names the JSON download).
+  /** Id of the plot container (its `data-script` attribute names the entry's data script, `data-key` its slug).
    * @default 'entry-plot' */
   plotId?: string;
 }
@@ -28,27 +30,31 @@ function offerDownload(doc: Document, file: string, type: string, text: string):
 
 export function mountEntryPlot(doc: Document, options: MountEntryPlotOptions = {}): void {
   const target = doc.getElementById(options.plotId ?? 'entry-plot');
-  const url = target?.dataset.json;
+  const url = target?.dataset.script;
   if (!target || !url) return;
   const boxes = Array.from(doc.querySelectorAll<HTMLInputElement>('#plot-controls input[name="trace"]'));
   const buttons = Array.from(doc.querySelectorAll<HTMLButtonElement>('button[data-derive]'));
-  const entry: Promise<EntryDocument> = fetch(url).then((r) => {
-    if (!r.ok) throw new Error(`${url}: HTTP ${r.status}`);
-    return r.json() as Promise<EntryDocument>;
-  });
-  // The processed vector sits beside the JSON as little-endian float32; a missing one only hides that trace.
-  const processed: Promise<Float32Array | null> = entry.then((document) =>
-    fetch(new URL(document.processed.file, new URL(url, doc.baseURI)).href)
-      .then((r) => (r.ok ? r.arrayBuffer() : null))
-      .then((buffer) => {
-        if (!buffer || buffer.byteLength !== document.processed.length * 4) return null;
-        const view = new DataView(buffer);
-        const values = new Float32Array(document.processed.length);
-        for (let i = 0; i < values.length; i++) values[i] = view.getFloat32(i * 4, true);
-        return values;
-      })
-      .catch(() => null),
+  // Loaded from a script file beside the JSON download (a browser refuses fetch from file://, not scripts).
+  const data = siteData<{ document: EntryDocument; processed: string }>(
+    url,
+    `entry:${target.dataset.key ?? ''}`,
+    {
+      doc,
+    },
   );
+  const entry: Promise<EntryDocument> = data.then((d) => d.document);
+  // The processed vector is little-endian float32; a missing or short one only hides that trace.
+  const processed: Promise<Float32Array | null> = data.then(({ document, processed: text }) => {
+    try {
+      const bytes = base64Bytes(text, { length: document.processed.length * 4 });
+      const view = new DataView(bytes.buffer);
+      const values = new Float32Array(document.processed.length);
+      for (let i = 0; i < values.length; i++) values[i] = view.getFloat32(i * 4, true);
+      return values;
+    } catch {
+      return null;
+    }
+  });
 
   for (const button of buttons) {
     button.disabled = false;

@@ -1,6 +1,7 @@
 // The search page: loads the prebuilt lunr index once and lists matching entries as the user types.
 import type lunr from 'lunr';
 import { searchQuery } from './searchQuery.js';
+import { siteData } from './siteData.js';
 
 export interface MountSearchOptions {
   /** Most results listed.
@@ -43,14 +44,12 @@ export function mountSearch(doc: Document, options: MountSearchOptions = {}): vo
   }
   const limit = options.limit ?? 50;
   let loaded: { index: lunr.Index; docs: IndexFile['docs'] } | undefined;
-  const ready = fetch(form.dataset.index ?? `${base}assets/search-index.json`)
-    .then((r) => {
-      if (!r.ok) throw new Error(`HTTP ${r.status}`);
-      return r.json() as Promise<IndexFile>;
-    })
-    .then((file) => {
-      loaded = { index: lunrGlobal.Index.load(file.index), docs: file.docs };
-    });
+  // A script file, not fetch: browsers refuse fetch from file:// but load scripts.
+  const ready = siteData<IndexFile>(form.dataset.index ?? `${base}assets/search-index.js`, 'search-index', {
+    doc,
+  }).then((file) => {
+    loaded = { index: lunrGlobal.Index.load(file.index), docs: file.docs };
+  });
   const render = (): void => {
     if (!loaded) return;
     const text = input.value.trim();
