@@ -37,8 +37,17 @@ function buildProgram(
   return program;
 }
 
+/** A reader that closed the pipe (`| head`) wants no more output: end quietly with the status the command had. */
+function quietOnClosedOutput(): void {
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+    throw error;
+  });
+}
+
 /** Runs the CLI with `argv` (without node and script) and returns the exit code. */
 export async function main(argv: string[]): Promise<number> {
+  quietOnClosedOutput();
   const progress = drawProgress(process.stderr);
   const context: CommandContext = {
     stderrIsTTY: Boolean(process.stderr.isTTY),
@@ -71,6 +80,7 @@ export async function main(argv: string[]): Promise<number> {
   if (result.stderr)
     process.stderr.write(result.stderr.endsWith('\n') ? result.stderr : `${result.stderr}\n`);
   if (result.stdout) {
+    process.exitCode = result.exitCode;
     await new Promise<void>((resolve) => {
       process.stdout.write(result!.stdout.endsWith('\n') ? result!.stdout : `${result!.stdout}\n`, () =>
         resolve(),
