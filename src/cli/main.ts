@@ -1,6 +1,7 @@
 // The CLI entry point: the only place that prints, draws progress or decides the exit code.
 import { Command, CommanderError } from 'commander';
 import { BandshelfError } from '../error.js';
+import { damagedLibraryAdvice } from '../library/store/damagedLibraryAdvice.js';
 import type { CommandContext, CommandResult, CommandSpec } from './command.js';
 import { commands } from './commands/index.js';
 import { drawProgress } from './drawProgress.js';
@@ -71,6 +72,17 @@ export async function main(argv: string[]): Promise<number> {
       return error.code === 'BAD_OPTION' ? 2 : 1;
     }
     const message = error instanceof Error ? error.message : String(error);
+    const sqlite = String((error as { code?: unknown }).code ?? '');
+    // SQLite's own words for a damaged file (bytes flipped on disk, a truncated copy): name the file and the cure.
+    if (/^SQLITE_(CORRUPT|NOTADB)/.test(sqlite) || /malformed/i.test(message)) {
+      const at = argv.indexOf('--library');
+      const file = at >= 0 ? argv[at + 1] : 'bandshelf.sqlite';
+      const damaged = new BandshelfError('DAMAGED_LIBRARY', damagedLibraryAdvice(message.split('\n')[0]!), {
+        file,
+      });
+      process.stderr.write(`bandshelf: ${damaged.oneLine()}\n`);
+      return 1;
+    }
     process.stderr.write(`bandshelf: internal error: ${message.split('\n')[0]}\n`);
     if (process.env.BANDSHELF_DEBUG && error instanceof Error) process.stderr.write(`${error.stack}\n`);
     return 70;
