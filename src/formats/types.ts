@@ -31,6 +31,13 @@ export interface ParsedSpectrum {
     yUnit: YUnit;
     /** 1-based position of this spectrum among the spectra of a JCAMP-DX file. */
     block?: number;
+    /** Header name of the y column this spectrum came from, in a delimited file with several. */
+    column?: string;
   };
+  /**
+   * 1 where the point (same index as spectrum.wavenumber) is saturated: its transmittance lay at or below the
+   * absorbance ceiling's floor and was clipped. Such points are not covered: kept out of scoring, peaks and fits.
+   */
+  saturated?: Uint8Array;
   warnings: ParseWarning[];
 }
