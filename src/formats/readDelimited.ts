@@ -129,7 +129,7 @@ export function readDelimited(text: string, options: ReadDelimitedOptions = {}):
   return parsed;
 }
 
-const X_UNITS: readonly string[] = ['cm-1', 'um', 'nm'];
+const X_UNITS: readonly string[] = ['cm-1', 'um', 'nm', 'thz'];
 const Y_UNITS: readonly string[] = ['absorbance', 'transmittance', 'percent-transmittance'];
 
 type Delimiter = ';' | '\t' | ',' | ' ';

@@ -33,7 +33,7 @@ export interface ReadJcampDxOptions {
 export function readJcampDx(text: string, options: ReadJcampDxOptions = {}): ParsedSpectrum[] {
   const { file } = options;
   for (const [field, value, allowed] of [
-    ['xUnit', options.xUnit, ['cm-1', 'um', 'nm']],
+    ['xUnit', options.xUnit, ['cm-1', 'um', 'nm', 'thz']],
     ['yUnit', options.yUnit, ['absorbance', 'transmittance', 'percent-transmittance']],
   ] as const) {
     if (value !== undefined && !(allowed as readonly string[]).includes(value)) {

@@ -50,7 +50,9 @@ export function toWavenumberAbsorbance(
       ? wavenumberFromMicrometres(points.x, where)
       : xUnit === 'nm'
         ? wavenumberFromNanometres(points.x, where)
-        : positiveWavenumbers(points.x, file, lines);
+        : xUnit === 'thz'
+          ? positiveWavenumbers(points.x, file, lines).map((f) => f * CM_PER_THZ)
+          : positiveWavenumbers(points.x, file, lines);
   const y =
     yUnit === 'transmittance'
       ? absorbanceFromTransmittance(points.y, clip)
@@ -59,6 +61,9 @@ export function toWavenumberAbsorbance(
         : points.y.slice();
   return { x, y };
 }
+
+/** ν̃ = f / c: 1 THz is 10¹² s⁻¹ / 29 979 245 800 cm s⁻¹ (c exact, SI definition) = 33.356 409 52 cm⁻¹. */
+const CM_PER_THZ = 1e12 / 29_979_245_800;
 
 /** A copy of x in cm⁻¹; an infrared spectrum has no negative wavenumber. */
 function positiveWavenumbers(x: Float64Array, file?: string, lines?: ArrayLike<number>): Float64Array {
