@@ -143,13 +143,18 @@ const sourceSchema = text(1000)
 
 const tagSchema = line(60).refine((t) => !t.includes(';'), { message: 'must not contain ";"' });
 
+/** An enum whose values are lower case, accepting any case (`Biofluid`, `ATR`) and stray spaces around. */
+function caseInsensitiveEnum<const T extends readonly [string, ...string[]]>(values: T) {
+  return z.preprocess((v) => (typeof v === 'string' ? v.trim().toLowerCase() : v), z.enum(values));
+}
+
 /** Metadata of one entry. Only `id` and `name` are required. */
 export const entryMetaSchema = z
   .object({
     id: entryIdSchema,
     name: line(300),
     synonyms: z.array(line(300)).max(100),
-    class: z.enum(entryClasses),
+    class: caseInsensitiveEnum(entryClasses),
     formula: formulaSchema,
     inchiKey: inchiKeySchema,
     cas: casSchema,
@@ -163,7 +168,7 @@ export const entryMetaSchema = z
         unit: line(40),
       })
       .strict(),
-    technique: z.enum(techniques),
+    technique: caseInsensitiveEnum(techniques),
     /** Spectral resolution in cm⁻¹. */
     resolution: z.number().finite().positive(),
     /** Sample temperature in °C. */

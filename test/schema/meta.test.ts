@@ -90,7 +90,11 @@ describe('entryMetaSchema', () => {
       'other',
     ]);
     expect(issuesOf({ ...base, class: 'sugar' })[0]?.path).toBe('class');
-    expect(issuesOf({ ...base, technique: 'ATR' })[0]?.path).toBe('technique');
+    expect(entryMetaSchema.parse({ ...base, technique: 'ATR', class: 'Biofluid' })).toMatchObject({
+      technique: 'atr',
+      class: 'biofluid',
+    });
+    expect(issuesOf({ ...base, technique: 'laser-x' })[0]?.path).toBe('technique');
   });
 
   it.each([
