@@ -3,7 +3,7 @@
 import { readSpectrumFile } from '../../formats/readSpectrumFile.js';
 import { jsScoreKernels } from '../../match/jsScoreKernels.js';
 import { searchSpectra } from '../../match/searchSpectra.js';
-import type { Hit } from '../../match/searchTypes.js';
+import { type Hit, MIN_OVERLAP_DEFAULT } from '../../match/searchTypes.js';
 import { singleThreadRunner } from '../../match/singleThreadRunner.js';
 import type { Grid, Recipe } from '../../schema/recipe.js';
 import { processSpectrum } from '../../spectrum/processSpectrum.js';
@@ -25,7 +25,7 @@ export interface MatchSpectrumFileOptions {
    * @default 10 */
   k?: number;
   /** Least shared coverage, cm⁻¹ (as `bandshelf match --min-overlap`).
-   * @default 200 */
+   * @default MIN_OVERLAP_DEFAULT (200) */
   minOverlap?: number;
 }
 
@@ -60,7 +60,7 @@ export function matchSpectrumFile(
   const [hits] = searchSpectra(set, [processed], {
     metric: 'pearson',
     k: options.k ?? 10,
-    minOverlap: options.minOverlap ?? 200,
+    minOverlap: options.minOverlap ?? MIN_OVERLAP_DEFAULT,
     precision: 'exact',
     runner: (matrix) => singleThreadRunner(jsScoreKernels(matrix.memory)),
   });
