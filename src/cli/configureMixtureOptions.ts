@@ -14,8 +14,5 @@ export function configureMixtureOptions(command: Command): Command {
     )
     .option('--max-components <n>', 'most components in the mixture', '6')
     .option('--candidates <n>', 'top Pearson hits offered to the mixture fit', '30')
-    .option(
-      '--baseline-degree <n>',
-      'mixture baseline polynomial: none or 0–6 (default: from the recipe)',
-    );
+    .option('--baseline-degree <n>', 'mixture baseline polynomial: none or 0–6 (default: from the recipe)');
 }
