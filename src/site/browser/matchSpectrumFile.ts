@@ -1,6 +1,7 @@
 // Matches a dropped spectrum file against the published data with the one match pipeline `bandshelf match` runs
 // (browser-safe: the same reader, recipe, search, mixture fit and band identification, bundled for the page).
 import { readSpectrumFile } from '../../formats/readSpectrumFile.js';
+import { instantiateScoreKernels } from '../../match/instantiateScoreKernels.js';
 import { jsScoreKernels } from '../../match/jsScoreKernels.js';
 import { runMatchPipeline } from '../../match/pipeline/runMatchPipeline.js';
 import type { MatchScorer, MatchSource } from '../../match/pipeline/types.js';
@@ -68,14 +69,15 @@ export interface FileMatch {
 }
 
 /**
- * Scores run on plain JavaScript kernels: compiling WebAssembly would need 'wasm-unsafe-eval' in the page's
- * Content-Security-Policy, and one query against a published release is fast enough without it.
+ * The WebAssembly kernels `bandshelf match` runs, so scores agree to the last bit; where the engine or the page's
+ * Content-Security-Policy (no 'wasm-unsafe-eval') refuses WebAssembly, the JavaScript kernels serve.
  */
 export const pageScorer: MatchScorer = (source, queries, options) =>
   searchSpectra(source, queries, {
     ...options,
     precision: 'exact',
-    runner: (matrix) => singleThreadRunner(jsScoreKernels(matrix.memory)),
+    runner: (matrix) =>
+      singleThreadRunner(instantiateScoreKernels(matrix.memory) ?? jsScoreKernels(matrix.memory)),
   });
 
 /** The file's SHA-256 (Web Crypto, in the browser and in Node alike). */
