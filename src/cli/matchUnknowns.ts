@@ -12,8 +12,10 @@ import { listAssignments } from '../library/store/listAssignments.js';
 import { openLibrary } from '../library/store/openLibrary.js';
 import { readRecipeFile } from '../library/store/readRecipeFile.js';
 import { readSearchSet } from '../library/store/readSearchSet.js';
+import { recipeReferences } from '../library/store/recipeReferences.js';
 import type { SearchSet } from '../library/types.js';
 import { buildBandIndex } from '../match/buildBandIndex.js';
+import { libraryMatchSource } from '../match/libraryMatchSource.js';
 import { type RunMatchPipelineOptions, runMatchPipeline } from '../match/pipeline/runMatchPipeline.js';
 import type { MatchUnknown } from '../match/pipeline/types.js';
 import { type Metric, MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
@@ -21,8 +23,6 @@ import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import type { WavenumberWindow } from '../schema/recipe.js';
 import type { CommandContext } from './command.js';
-import { libraryMatchSource } from './libraryMatchSource.js';
-import { recipeReferences } from './recipeReferences.js';
 
 export interface MatchUnknownsOptions {
   /** --library as given. @default './bandshelf.sqlite' */

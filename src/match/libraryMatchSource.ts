@@ -1,11 +1,11 @@
 // A library's search set as the match pipeline's source, and the Node scorer (worker/WASM kernels, disk cache).
 import { BandshelfError } from '../error.js';
 import { readEntry } from '../library/store/readEntry.js';
+import { recipeReferences } from '../library/store/recipeReferences.js';
 import type { Library, SearchSet } from '../library/types.js';
-import type { EntryOriginal, MatchScorer, MatchSource } from '../match/pipeline/types.js';
-import { searchLibrary } from '../match/searchLibrary.js';
 import type { Spectrum } from '../spectrum/types.js';
-import { recipeReferences } from './recipeReferences.js';
+import type { EntryOriginal, MatchScorer, MatchSource } from './pipeline/types.js';
+import { searchLibrary } from './searchLibrary.js';
 
 export interface LibraryMatchSourceOptions {
   /** The release tag the set was read at (reference spectra are read from it). @default undefined */
