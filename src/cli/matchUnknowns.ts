@@ -51,6 +51,12 @@ export interface MatchUnknownsOptions {
   baselineDegree?: number | null;
   /** Band tolerance for identification, cm⁻¹. @default 4 */
   tolerance?: number;
+  /** Classes left out of the hits and the fit. @default [] */
+  excludeClass?: readonly string[];
+  /** Entry ids left out of the hits and the fit. @default [] */
+  exclude?: readonly string[];
+  /** Only these classes in the hits and the fit. @default [] (all) */
+  onlyClass?: readonly string[];
   /** Keep the unknown's path as given in the report (else its file name only). @default false */
   keepPath?: boolean;
 }
@@ -177,6 +183,9 @@ export async function matchUnknowns(
       minOverlap: options.minOverlap ?? MIN_OVERLAP_DEFAULT,
       mixture: options.mixture === true,
       with: forced,
+      excludeClass: options.excludeClass ?? [],
+      exclude: options.exclude ?? [],
+      onlyClass: options.onlyClass ?? [],
       maxComponents: options.maxComponents ?? 6,
       candidates: options.candidates ?? 30,
       ...(options.baselineDegree === undefined ? {} : { baselineDegree: options.baselineDegree }),

@@ -104,6 +104,9 @@ export function parseMatchOptions(
       number(options.minOverlap, 'min-overlap', (n) => n >= 0, 'a number of cm⁻¹ ≥ 0') ?? MIN_OVERLAP_DEFAULT,
     mixture,
     with: list(options.with),
+    excludeClass: list(options.excludeClass),
+    exclude: list(options.exclude),
+    onlyClass: list(options.onlyClass),
     maxComponents:
       number(
         options.maxComponents,

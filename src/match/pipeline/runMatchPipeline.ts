@@ -42,8 +42,30 @@ export interface RunMatchPipelineOptions {
   baselineDegree?: number | null;
   /** Band tolerance for identification, cm⁻¹. @default 4 */
   tolerance?: number;
+  /** Classes left out of the hit lists and the fit. @default [] */
+  excludeClass?: readonly string[];
+  /** Entry ids left out of the hit lists and the fit. @default [] */
+  exclude?: readonly string[];
+  /** Only entries of these classes in the hit lists and the fit. @default [] (every class) */
+  onlyClass?: readonly string[];
+  /**
+   * Classes the mixture fit never draws on unless forced with `with`: composites are not components.
+   * @default COMPOSITE_CLASSES (['biofluid', 'mixture'])
+   */
+  fitExcludeClass?: readonly string[];
   /** The source's band index, when the caller keeps one across unknowns. @default built from the source's peaks */
   index?: BandIndex;
+}
+
+/** Classes of composite references (a serum film, a calibration mixture) that are not pure-substance components. */
+export const COMPOSITE_CLASSES: readonly string[] = ['biofluid', 'mixture'];
+
+/** Whether an entry may appear in the hit lists and the fit under the class and id options. */
+function admits(options: RunMatchPipelineOptions): (e: { id: string; class: string }) => boolean {
+  const excludeClass = new Set(options.excludeClass ?? []);
+  const exclude = new Set(options.exclude ?? []);
+  const only = new Set(options.onlyClass ?? []);
+  return (e) => !exclude.has(e.id) && !excludeClass.has(e.class) && (only.size === 0 || only.has(e.class));
 }
 
 /**
@@ -93,7 +115,12 @@ async function fitOffered(
   const { source } = input;
   const forced = [...new Set(options.with ?? [])];
   const rowOf = new Map(source.entries.map((e, i) => [e.id, i]));
-  const rows = [...forced.map((id) => rowOf.get(id)!), ...poolHits.map((h) => h.row)];
+  const composite = new Set(options.fitExcludeClass ?? COMPOSITE_CLASSES);
+  const leftOut = [...new Set(poolHits.filter((h) => composite.has(h.class)).map((h) => h.class))].sort();
+  const rows = [
+    ...forced.map((id) => rowOf.get(id)!),
+    ...poolHits.filter((h) => !composite.has(h.class)).map((h) => h.row),
+  ];
   const offered = await offerMixtureCandidates({ source, rows, unknown: input.unknown.spectrum }, { recipe });
   const ranges = options.ranges ?? [];
   const fit = fitMixture(processed, offered.candidates, {
@@ -105,10 +132,14 @@ async function fitOffered(
     ranges: ranges.length === 0 ? null : ranges,
   });
   const window = offered.window;
+  const classNote =
+    leftOut.length === 0
+      ? ''
+      : `; references of class ${leftOut.join(', ')} were left out (composites, not components)`;
   const criterion =
     window === null || offered.reprocessed.length === 0
-      ? fit.criterion
-      : `${fit.criterion}; the unknown covers only ${window.max.toFixed(0)}–${window.min.toFixed(0)} cm⁻¹, so ` +
+      ? `${fit.criterion}${classNote}`
+      : `${fit.criterion}${classNote}; the unknown covers only ${window.max.toFixed(0)}–${window.min.toFixed(0)} cm⁻¹, so ` +
         `${offered.reprocessed.length} reference(s) reaching beyond it were processed again over that span ` +
         `with their own recipes (baseline and normalisation over the same span as the unknown's)`;
   return { ...fit, criterion, candidates: new Set(offered.candidates.map((c) => c.id)).size };
@@ -156,10 +187,14 @@ export async function runMatchPipeline(
   const searchMetrics: Metric[] = [...metrics];
   if (withMixture && !searchMetrics.includes('pearson')) searchMetrics.push('pearson');
   const hitsByMetric = new Map<Metric, Hit[]>();
+  const admitted = admits(options);
+  // The scorer ranks every row; ask for as many more hits as rows are left out, then drop those.
+  const leftOut = source.entries.filter((e) => !admitted(e)).length;
   for (const metric of searchMetrics) {
-    const k = metric === 'pearson' && withMixture ? Math.max(top, poolSize) : top;
+    const wanted = metric === 'pearson' && withMixture ? Math.max(top, poolSize) : top;
+    const k = Math.min(source.entries.length, wanted + leftOut);
     const [hits] = await scorer(source, [processed], { metric, ranges, k, minOverlap });
-    hitsByMetric.set(metric, hits ?? []);
+    hitsByMetric.set(metric, (hits ?? []).filter((h) => admitted(h)).slice(0, wanted));
   }
   const mixture = withMixture
     ? await fitOffered(input, processed, hitsByMetric.get('pearson')!.slice(0, poolSize), recipe, options)

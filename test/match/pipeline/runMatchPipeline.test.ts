@@ -171,6 +171,26 @@ describe('runMatchPipeline', () => {
     expect(report.mixture!.components.map((c) => c.id).sort()).toEqual(['alpha', 'beta']);
   });
 
+  it('leaves composite classes out of the fit by default and class or id filters out of the hit list', async () => {
+    const s = source();
+    // Entry 'gamma' relabelled as a composite reference: the fit must not draw on it (issue rule: pure substances only).
+    const entries = s.entries.map((e) => (e.id === 'gamma' ? { ...e, class: 'mixture' } : e));
+    const unknown = { file: 'g.csv', hash: 'e'.repeat(64), spectrum: originals.gamma!, warnings: [] };
+    const report = await runMatchPipeline(
+      { unknown, source: { ...s, entries }, scorer, assignments: [] },
+      { mixture: true },
+    );
+    expect(report.hitsByMetric.pearson![0]!.id).toBe('gamma');
+    expect(report.mixture!.components.map((c) => c.id)).not.toContain('gamma');
+    expect(report.mixture!.criterion).toContain('class mixture were left out');
+    const filtered = await runMatchPipeline(
+      { unknown, source: s, scorer, assignments: [] },
+      { exclude: ['gamma'], excludeClass: [], onlyClass: [] },
+    );
+    expect(filtered.hitsByMetric.pearson!.map((h) => h.id)).not.toContain('gamma');
+    expect(filtered.hitsByMetric.pearson!).toHaveLength(3);
+  });
+
   it('refuses a forced id the source does not hold', async () => {
     await expect(
       runMatchPipeline(
