@@ -202,11 +202,20 @@ async function writeSite(
       recipe: source.recipe,
       stateKey: source.stateKey,
       at: source.at,
+      name: source.name,
+      peaks: {
+        entry: Array.from(source.matrix.peaks.entry),
+        position: Array.from(source.matrix.peaks.position),
+        height: Array.from(source.matrix.peaks.height),
+        prominence: Array.from(source.matrix.peaks.prominence),
+      },
+      assignments: source.matrix.assignments,
       entries: source.matrix.ids.map((id, i) => {
         const summary = summaries.get(id);
         return {
           id,
           revision: source.matrix.revisions[i],
+          hash: source.matrix.hashes[i],
           name: summary?.name ?? id,
           class: summary?.class ?? 'other',
           path: slugs.has(id) ? `entries/${slugs.get(id)}/` : null,
