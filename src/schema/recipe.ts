@@ -157,6 +157,12 @@ export const recipeSchema = z
       .object({
         /** Source points further apart than this (cm⁻¹) leave the grid between them not covered. */
         maxGap: z.number().positive().default(16),
+        /**
+         * 'area' conserves band area (each grid cell the mean of the source curve over it); 'cell-or-interpolate'
+         * is the version-1 rule (bin-average dense cells, interpolate sparse ones).
+         * @default 'area' in version 2, 'cell-or-interpolate' in version 1
+         */
+        method: z.enum(['area', 'cell-or-interpolate']).optional(),
       })
       .strict()
       .default({ maxGap: 16 }),

@@ -112,7 +112,8 @@ export function processSpectrum(
     spectrum = smoothBetweenGaps(spectrum, window, recipe.smooth.order, maxGap);
   }
 
-  const vector = resampleToGrid(spectrum, grid, { maxGap });
+  const method = recipe.resample.method ?? (recipe.version === 1 ? 'cell-or-interpolate' : 'area');
+  const vector = resampleToGrid(spectrum, grid, { maxGap, method });
   if (recipe.exclude.length > 0) {
     const axis = gridAxis(grid);
     for (const w of recipe.exclude) {

@@ -11,9 +11,18 @@ const spectrum = (x: ArrayLike<number>, y: ArrayLike<number>): Spectrum => ({
   wavenumber: Float64Array.from(x),
   absorbance: Float64Array.from(y),
 });
-/** Every step off unless the case turns it on, so each hand value follows from the steps named. */
+/**
+ * Every step off unless the case turns it on, so each hand value follows from the steps named; the hand values
+ * use the bin-average-or-interpolate resampling (resampleByArea has its own tests).
+ */
 const plain = (extra: RecipeInput = {}) =>
-  recipeSchema.parse({ exclude: [], baseline: { method: 'none' }, normalise: { method: 'none' }, ...extra });
+  recipeSchema.parse({
+    exclude: [],
+    baseline: { method: 'none' },
+    normalise: { method: 'none' },
+    resample: { method: 'cell-or-interpolate' },
+    ...extra,
+  });
 const grid = { start: 1010, stop: 1000, step: 2 };
 const values = (v: Float64Array) =>
   Array.from(v, (a) => (Number.isNaN(a) ? null : Math.round(a * 1e9) / 1e9));
@@ -172,11 +181,13 @@ describe('processSpectrum on spectra computed from time-domain traces', () => {
     }
     const grid = { start: 2200, stop: 900, step: 2 };
     const plain = recipeSchema.parse({
+      resample: { method: 'cell-or-interpolate' },
       baseline: { method: 'none' },
       exclude: [],
       normalise: { method: 'none' },
     });
     const fromTraces = recipeSchema.parse({
+      resample: { method: 'cell-or-interpolate' },
       baseline: { method: 'none' },
       exclude: [],
       normalise: { method: 'none' },
