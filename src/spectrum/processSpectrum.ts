@@ -7,6 +7,7 @@ import { excludeWindows } from './excludeWindows.js';
 import { gridAxis } from './gridAxis.js';
 import { normaliseVector } from './normaliseVector.js';
 import { resampleToGrid } from './resampleToGrid.js';
+import { saturatedRanges } from './saturatedRanges.js';
 import { savitzkyGolay } from './savitzkyGolay.js';
 import { sortAndMerge } from './sortAndMerge.js';
 import { subtractBaseline } from './subtractBaseline.js';
@@ -25,6 +26,11 @@ export interface ProcessSpectrumOptions {
    * @default undefined
    */
   file?: string;
+  /**
+   * 1 per saturated point of `original` (clipped at the absorbance ceiling): grid cells nearer those points
+   * are set NaN (not covered), like exclusion windows. @default undefined (none)
+   */
+  saturated?: Uint8Array;
 }
 
 export interface ProcessedSpectrum {
@@ -114,9 +120,13 @@ export function processSpectrum(
 
   const method = recipe.resample.method ?? (recipe.version === 1 ? 'cell-or-interpolate' : 'area');
   const vector = resampleToGrid(spectrum, grid, { maxGap, method });
-  if (recipe.exclude.length > 0) {
+  const masked = [
+    ...recipe.exclude,
+    ...saturatedRanges(original, { saturated: options.saturated }).map(([min, max]) => ({ min, max })),
+  ];
+  if (masked.length > 0) {
     const axis = gridAxis(grid);
-    for (const w of recipe.exclude) {
+    for (const w of masked) {
       const lo = Math.min(w.min, w.max);
       const hi = Math.max(w.min, w.max);
       for (let i = 0; i < axis.length; i++) {
