@@ -22,7 +22,7 @@ import { scoringMask } from '../match/scoringMask.js';
 import { searchLibrary } from '../match/searchLibrary.js';
 import type { Hit, Metric } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
-import type { MixtureResult } from '../match/types.js';
+import type { MixtureCandidate, MixtureResult } from '../match/types.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import type { WavenumberWindow } from '../schema/recipe.js';
 import { gridAxis } from '../spectrum/gridAxis.js';
@@ -187,6 +187,7 @@ export function matchUnknowns(
         ? set.recipe
         : readRecipeFile(resolve(context.cwd, options.recipe), { label: options.recipe });
     const references = recipeReferences(library, recipe, options.at === undefined ? {} : { at: options.at });
+    let componentVectors: MixtureCandidate[] = [];
     const assignments = [...shippedAssignments(), ...listAssignments(library)];
     const index = buildBandIndex(set);
     const axis = gridAxis(set.grid);
@@ -277,10 +278,11 @@ export function matchUnknowns(
                 `${offered.reprocessed.length} reference(s) reaching beyond it were processed again over that span ` +
                 `with their own recipes (baseline and normalisation over the same span as the unknown's)`;
           mixture = { ...fit, criterion, candidates: new Set(offered.candidates.map((c) => c.id)).size };
+          componentVectors = offered.candidates;
         }
         const bands = identifyBands(
           { wavenumber: axis, absorbance: processed },
-          { assignments, index, mixture, tolerance },
+          { assignments, index, mixture, tolerance, componentVectors },
         );
         const byMetric: Partial<Record<Metric, Hit[]>> = {};
         for (const metric of metrics) byMetric[metric] = hitsByMetric.get(metric)![q]!.slice(0, top);

@@ -201,6 +201,8 @@ export function buildMatchReport(
       fwhm: finiteOrNull(b.fwhm),
       kind: b.kind,
       assignments: b.assignments.map((a) => ({ ...a, class: [...a.class] })),
+      assignedTo: b.assignedTo === null ? null : { ...b.assignedTo },
+      flags: b.flags.map((f) => ({ ...f })),
       candidates: b.candidates.map((c) => ({ ...c })),
       explained: b.explained,
     })),

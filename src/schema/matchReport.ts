@@ -113,6 +113,8 @@ export const identifiedBandSchema = z
     assignments: z.array(
       z
         .object({
+          /** The matched table row's id. */
+          id: z.string().optional(),
           label: z.string().min(1),
           vibration: z.string(),
           group: z.string(),
@@ -122,9 +124,30 @@ export const identifiedBandSchema = z
           origin: z.string(),
           min: z.number().finite(),
           max: z.number().finite(),
+          /** The row's own tolerance beyond min–max, cm⁻¹. */
+          tolerance: z.number().finite().nonnegative(),
+          /** 0–1: position agreement × width agreement × relative-intensity weight. */
+          score: z.number().finite().min(0).max(1),
         })
         .strict(),
     ),
+    /** The fitted mixture component that carries most of the band's height; table rows are then not offered. */
+    assignedTo: z
+      .object({
+        id: z.string().min(1),
+        revision: z.number().int().positive(),
+        name: z.string().optional(),
+        share: z.number().finite(),
+      })
+      .strict()
+      .nullable()
+      .default(null),
+    /** Region rows the band lies in (e.g. among water-vapour lines): a caution, not an assignment. */
+    flags: z
+      .array(
+        z.object({ id: z.string().optional(), label: z.string().min(1), source: z.string().min(1) }).strict(),
+      )
+      .default([]),
     candidates: z.array(
       z
         .object({
