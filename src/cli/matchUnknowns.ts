@@ -15,6 +15,7 @@ import { readSearchSet } from '../library/store/readSearchSet.js';
 import type { EntryView, SearchSet } from '../library/types.js';
 import { buildBandIndex } from '../match/buildBandIndex.js';
 import { buildMatchReport } from '../match/buildMatchReport.js';
+import { cachedWrongHitNull } from '../match/cachedWrongHitNull.js';
 import { coveredSpan } from '../match/coveredSpan.js';
 import { fitMixture } from '../match/fitMixture.js';
 import { identifyBands } from '../match/identifyBands.js';
@@ -190,6 +191,7 @@ export function matchUnknowns(
     let componentVectors: MixtureCandidate[] = [];
     const assignments = [...shippedAssignments(), ...listAssignments(library)];
     const index = buildBandIndex(set);
+    const wrongHits = cachedWrongHitNull({ libraryPath: library.path, set });
     const axis = gridAxis(set.grid);
 
     const files = targets.flatMap((t) => filesOf(t, context.cwd));
@@ -305,6 +307,7 @@ export function matchUnknowns(
           hitsByMetric: byMetric,
           mixture,
           bands,
+          wrongHitNull: wrongHits,
         });
       } catch (error) {
         if (unknowns.length === 1 && outcomes.length === 1) throw error;

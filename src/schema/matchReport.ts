@@ -32,8 +32,14 @@ export const matchHitSchema = z
     overlap: z.number().finite().nonnegative(),
     /** Lead over the next hit in rawScore units; null for the last scored row. */
     gapToNext: z.number().finite().nullable(),
-    /** (rawScore − mean) / sd over every library score of this query (sign-flipped for euclidean). */
+    /** (rawScore − mean) / sd over every other library score of this query (sign-flipped for euclidean). */
     z: z.number().finite().nullable(),
+    /**
+     * Empirical p-value of this score against the library's own best wrong hits (see `confidence`): how often an
+     * entry's best match to a different substance scores at least this high. A per-hit score calibration, not the
+     * probability that the identification is right. Null for metrics without a null (only pearson has one).
+     */
+    pValue: z.number().finite().min(0).max(1).nullable().default(null),
   })
   .strict();
 export type MatchHit = z.output<typeof matchHitSchema>;
@@ -241,6 +247,18 @@ export const matchReportSchema = z
       })
       .strict(),
     standing: standingSchema,
+    /** How `pValue` was calibrated: the null, its size, and what it means. Null when no null was computed. */
+    confidence: z
+      .object({
+        metric: metricSchema,
+        /** Best-wrong-hit scores in the null, and entries in the library. */
+        nullSize: z.number().int().nonnegative(),
+        entries: z.number().int().nonnegative(),
+        text: z.string().min(1),
+      })
+      .strict()
+      .nullable()
+      .default(null),
     mixture: mixtureReportSchema.nullable(),
     bands: z.array(identifiedBandSchema),
   })
