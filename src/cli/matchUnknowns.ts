@@ -308,6 +308,7 @@ export function matchUnknowns(
           mixture,
           bands,
           wrongHitNull: wrongHits,
+          referenceOf: (row) => set.processed.subarray(row * axis.length, (row + 1) * axis.length),
         });
       } catch (error) {
         if (unknowns.length === 1 && outcomes.length === 1) throw error;

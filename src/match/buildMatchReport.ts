@@ -11,6 +11,7 @@ import type { Grid, Recipe, WavenumberWindow } from '../schema/recipe.js';
 import { gridAxis } from '../spectrum/gridAxis.js';
 import { coveredSpan } from './coveredSpan.js';
 import { empiricalPValue } from './empiricalPValue.js';
+import { type ContributionRegion, scoreContributions } from './scoreContributions.js';
 import { scoringMask } from './scoringMask.js';
 import type { Hit, Metric } from './searchTypes.js';
 import type { IdentifiedBand, MixtureResult } from './types.js';
@@ -51,6 +52,10 @@ export interface MatchReportInput {
   bands: readonly IdentifiedBand[];
   /** The library's best-wrong-hit null (pearson) for per-hit p-values; absent or null gives pValue null. */
   wrongHitNull?: WrongHitNull | null;
+  /** A hit's processed reference vector on the grid by its search-set row, for the per-region contributions. */
+  referenceOf?: ((row: number) => ArrayLike<number>) | null;
+  /** Regions the contributions are split over. @default DEFAULT_CONTRIBUTION_REGIONS */
+  contributionRegions?: readonly ContributionRegion[];
 }
 
 export interface BuildMatchReportOptions {
@@ -114,7 +119,9 @@ function standingOf(metric: Metric, hits: readonly MatchHit[], floor: number): M
   };
 }
 
-function hitRows(hits: readonly Hit[], nullScores: ArrayLike<number> | null): MatchHit[] {
+type Explain = ((h: Hit) => MatchHit['contributions']) | null;
+
+function hitRows(hits: readonly Hit[], nullScores: ArrayLike<number> | null, explain: Explain): MatchHit[] {
   return hits.map((h, i) => ({
     rank: i + 1,
     id: h.id,
@@ -127,6 +134,7 @@ function hitRows(hits: readonly Hit[], nullScores: ArrayLike<number> | null): Ma
     gapToNext: h.gapToNext === null ? null : finiteOrNull(h.gapToNext),
     z: h.z === null ? null : finiteOrNull(h.z),
     pValue: nullScores === null ? null : empiricalPValue({ score: h.rawScore, nullScores }),
+    contributions: explain === null ? null : explain(h),
   }));
 }
 
@@ -153,9 +161,19 @@ export function buildMatchReport(
   }
   const hitsByMetric: MatchReport['hitsByMetric'] = {};
   const wrong = input.wrongHitNull ?? null;
+  const referenceOf = input.referenceOf ?? null;
   for (const metric of input.metrics) {
     const nullScores = wrong !== null && wrong.metric === metric ? wrong.scores : null;
-    hitsByMetric[metric] = hitRows(input.hitsByMetric[metric] ?? [], nullScores);
+    // Contributions split Pearson r; the other metrics' scores are not sums of those products.
+    const explain: Explain =
+      referenceOf === null || metric !== 'pearson'
+        ? null
+        : (h) =>
+            scoreContributions(
+              { wavenumber: axis, unknown: query.processed, reference: referenceOf(h.row) },
+              { mask, ...(input.contributionRegions ? { regions: input.contributionRegions } : {}) },
+            ).map((c) => ({ ...c, min: finiteOrNull(c.min), max: finiteOrNull(c.max) }));
+    hitsByMetric[metric] = hitRows(input.hitsByMetric[metric] ?? [], nullScores, explain);
   }
   const primary = input.metrics[0]!;
   const report = {

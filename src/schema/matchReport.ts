@@ -40,6 +40,25 @@ export const matchHitSchema = z
      * probability that the identification is right. Null for metrics without a null (only pearson has one).
      */
     pValue: z.number().finite().min(0).max(1).nullable().default(null),
+    /**
+     * Why this hit: each spectral region's share of the Pearson r (Σ over the region of the products of the
+     * centred, unit-norm vectors over the scored points); the shares sum to r. Null where not computed.
+     */
+    contributions: z
+      .array(
+        z
+          .object({
+            label: z.string().min(1),
+            /** Region bounds, cm⁻¹; null for the `elsewhere` row (points in no named region). */
+            min: z.number().finite().nullable(),
+            max: z.number().finite().nullable(),
+            share: z.number().finite(),
+            points: z.number().int().positive(),
+          })
+          .strict(),
+      )
+      .nullable()
+      .default(null),
   })
   .strict();
 export type MatchHit = z.output<typeof matchHitSchema>;

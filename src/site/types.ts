@@ -271,7 +271,16 @@ export interface ReportPage {
   revisions: string;
   hits: {
     metric: string;
-    rows: { rank: number; id: string; path: string | null; name: string; score: string; extra: string }[];
+    rows: {
+      rank: number;
+      id: string;
+      path: string | null;
+      name: string;
+      score: string;
+      extra: string;
+      /** Why this hit: each region's share of r as a bar segment (percent of Σ|share|), empty when not computed. */
+      why: { label: string; percent: number; negative: boolean; title: string }[];
+    }[];
   }[];
   mixture: {
     r2: string;

@@ -43,6 +43,19 @@ describe('bandshelf match', () => {
     expect(r.caution).toMatch(/^Research use only: candidates, not identifications/);
   });
 
+  it('explains each pearson hit by region with --explain; the shares add up to its r', () => {
+    const r = bandshelf(['match', fx.unknowns.urea, '--library', fx.library, '--json'], { cwd: fx.dir });
+    const report = parseJson<MatchReport>(r.stdout);
+    for (const h of report.hits) {
+      // Issue 12 §3: the region shares are the pieces of Pearson r itself.
+      expect(h.contributions!.reduce((s, c) => s + c.share, 0)).toBeCloseTo(h.rawScore, 4);
+    }
+    const text = bandshelf(['match', fx.unknowns.urea, '--library', fx.library, '--explain'], {
+      cwd: fx.dir,
+    });
+    expect(text.stdout).toMatch(/why #1 \S+: r [\d.]+ = .+ [+-]\d\.\d{3}/);
+  });
+
   it('prints a readable table with the standing and the caution line by default', () => {
     const r = run(['match', fx.unknowns.urea, '--top', '3']);
     expect(r.code).toBe(0);
