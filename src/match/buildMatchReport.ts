@@ -219,8 +219,8 @@ export function buildMatchReport(
             entries: wrong.entries,
             text:
               `pValue: the share of the library's own best wrong hits scoring at least as high, (1 + count) / ` +
-              `(1 + ${wrong.sampled}); the null matches ${wrong.sampled === wrong.entries ? 'every' : `${wrong.sampled} evenly spaced`} ` +
-              `of the ${wrong.entries} entries against the rest (its own id and name left out) by Pearson r over ` +
+              `(1 + ${wrong.sampled}); the null matches ${wrong.sampled === wrong.entries ? `all ${wrong.entries} entries` : `${wrong.sampled} evenly spaced of the ${wrong.entries} entries`} ` +
+              `against the rest (its own id and name left out) by Pearson r over ` +
               `the points both cover. A per-hit score calibration, not the probability that the identification is right.`,
           },
     mixture:
