@@ -4,6 +4,7 @@ import { readEntry } from '../library/store/readEntry.js';
 import { recipeReferences } from '../library/store/recipeReferences.js';
 import type { Library, SearchSet } from '../library/types.js';
 import type { Spectrum } from '../spectrum/types.js';
+import { cachedWrongHitNull } from './cachedWrongHitNull.js';
 import type { EntryOriginal, MatchScorer, MatchSource } from './pipeline/types.js';
 import { searchLibrary } from './searchLibrary.js';
 
@@ -31,6 +32,7 @@ export function libraryMatchSource(
     ...set,
     name: library.name,
     references,
+    wrongHitNull: cachedWrongHitNull({ libraryPath: library.path, set }),
     originals: async (rows) => {
       const out = new Map<number, EntryOriginal>();
       for (const row of rows) {

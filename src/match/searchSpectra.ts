@@ -343,7 +343,12 @@ function rankHits(
     const value = reported(r);
     const next = order[j + 1];
     const gap = next === undefined ? null : Math.abs(value - reported(next));
-    const z = n > 1 && sd > 0 ? ((euclidean ? -1 : 1) * (value - mean)) / sd : null;
+    // The hit's own score is left out of the spread it is measured against, else a clear best hit inflates the
+    // sd and caps its own z near √(n − 1)·…; mean and sd are those of the other n − 1 scores.
+    const m1 = n > 2 ? (sum - value) / (n - 1) : Number.NaN;
+    const sd1 =
+      n > 2 ? Math.sqrt(Math.max(0, (sum2 - value * value - (sum - value) * m1) / (n - 2))) : Number.NaN;
+    const z = n > 2 && sd1 > 0 ? ((euclidean ? -1 : 1) * (value - m1)) / sd1 : null;
     hits.push({
       id: entry.id,
       revision: entry.revision,

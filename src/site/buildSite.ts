@@ -210,6 +210,7 @@ async function writeSite(
         prominence: Array.from(source.matrix.peaks.prominence),
       },
       assignments: source.matrix.assignments,
+      wrongHitNull: source.matrix.wrongHitNull,
       entries: source.matrix.ids.map((id, i) => {
         const summary = summaries.get(id);
         return {

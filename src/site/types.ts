@@ -132,6 +132,8 @@ export interface SiteSource {
     peaks: { entry: Uint32Array; position: Float64Array; height: Float64Array; prominence: Float64Array };
     /** The assignment table `bandshelf match` uses (shipped rows plus the library's own). */
     assignments: BandAssignment[];
+    /** The library's best-wrong-hit null, so the in-browser p-values equal `bandshelf match`'s. */
+    wrongHitNull: { scores: number[]; entries: number; sampled: number };
   };
   /** Library spectra the recipe subtracts or corrects against, by id, for the in-browser matcher. */
   references: Record<string, Spectrum>;
@@ -284,7 +286,16 @@ export interface ReportPage {
   revisions: string;
   hits: {
     metric: string;
-    rows: { rank: number; id: string; path: string | null; name: string; score: string; extra: string }[];
+    rows: {
+      rank: number;
+      id: string;
+      path: string | null;
+      name: string;
+      score: string;
+      extra: string;
+      /** Why this hit: each region's share of r as a bar segment (percent of Σ|share|), empty when not computed. */
+      why: { label: string; percent: number; negative: boolean; title: string }[];
+    }[];
   }[];
   mixture: {
     r2: string;

@@ -50,7 +50,8 @@ export const matchCommand: CommandSpec = {
       .option('--tolerance <cm-1>', 'band tolerance for the band identification', '4')
       .option('--report <dir>', 'write one JSON report per unknown into this folder')
       .option('--csv <file>', 'write one CSV row per unknown into this file')
-      .option('--json', 'print the report (batch: {reports, failed}) as JSON');
+      .option('--json', 'print the report (batch: {reports, failed}) as JSON')
+      .option('--explain', 'under each pearson hit, print the share of its score each spectral region gives');
   },
   async run(args, options, context) {
     const targets = (args[0] as string[] | undefined) ?? [];
@@ -89,7 +90,10 @@ export const matchCommand: CommandSpec = {
         : JSON.stringify(run.outcomes[0]!.report);
       return { stdout, stderr, exitCode };
     }
-    if (!run.batch) return { stdout: formatMatchTable(run.outcomes[0]!.report!), stderr, exitCode };
+    if (!run.batch) {
+      const stdout = formatMatchTable(run.outcomes[0]!.report!, { explain: options.explain === true });
+      return { stdout, stderr, exitCode };
+    }
     if (typeof options.csv !== 'string') {
       // Batch without a CSV file: the CSV is the output.
       return {

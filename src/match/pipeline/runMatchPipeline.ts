@@ -11,7 +11,7 @@ import { fitMixture } from '../fitMixture.js';
 import { identifyBands } from '../identifyBands.js';
 import { scoringMask } from '../scoringMask.js';
 import { type Hit, type Metric, MIN_OVERLAP_DEFAULT } from '../searchTypes.js';
-import type { BandIndex, MixtureResult } from '../types.js';
+import type { BandIndex, MixtureCandidate, MixtureResult } from '../types.js';
 import { offerMixtureCandidates } from './offerMixtureCandidates.js';
 import type { MatchPipelineInput } from './types.js';
 
@@ -111,7 +111,7 @@ async function fitOffered(
   poolHits: readonly Hit[],
   recipe: Recipe,
   options: RunMatchPipelineOptions,
-): Promise<MixtureResult & { candidates: number }> {
+): Promise<{ mixture: MixtureResult & { candidates: number }; offered: MixtureCandidate[] }> {
   const { source } = input;
   const forced = [...new Set(options.with ?? [])];
   const rowOf = new Map(source.entries.map((e, i) => [e.id, i]));
@@ -142,7 +142,10 @@ async function fitOffered(
       : `${fit.criterion}${classNote}; the unknown covers only ${window.max.toFixed(0)}–${window.min.toFixed(0)} cm⁻¹, so ` +
         `${offered.reprocessed.length} reference(s) reaching beyond it were processed again over that span ` +
         `with their own recipes (baseline and normalisation over the same span as the unknown's)`;
-  return { ...fit, criterion, candidates: new Set(offered.candidates.map((c) => c.id)).size };
+  return {
+    mixture: { ...fit, criterion, candidates: new Set(offered.candidates.map((c) => c.id)).size },
+    offered: offered.candidates,
+  };
 }
 
 /**
@@ -196,12 +199,19 @@ export async function runMatchPipeline(
     const [hits] = await scorer(source, [processed], { metric, ranges, k, minOverlap });
     hitsByMetric.set(metric, (hits ?? []).filter((h) => admitted(h)).slice(0, wanted));
   }
-  const mixture = withMixture
+  const fitted = withMixture
     ? await fitOffered(input, processed, hitsByMetric.get('pearson')!.slice(0, poolSize), recipe, options)
     : null;
+  const mixture = fitted === null ? null : fitted.mixture;
   const bands = identifyBands(
     { wavenumber: gridAxis(source.grid), absorbance: processed },
-    { assignments: input.assignments, index: options.index ?? buildBandIndex(source), mixture, tolerance },
+    {
+      assignments: input.assignments,
+      index: options.index ?? buildBandIndex(source),
+      mixture,
+      tolerance,
+      componentVectors: fitted === null ? [] : fitted.offered,
+    },
   );
   const byMetric: Partial<Record<Metric, Hit[]>> = {};
   for (const metric of metrics) byMetric[metric] = hitsByMetric.get(metric)!.slice(0, top);
@@ -224,5 +234,7 @@ export async function runMatchPipeline(
     hitsByMetric: byMetric,
     mixture,
     bands,
+    wrongHitNull: source.wrongHitNull ?? null,
+    referenceOf: (row) => source.processed.subarray(row * source.cols, (row + 1) * source.cols),
   });
 }

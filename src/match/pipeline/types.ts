@@ -5,6 +5,7 @@ import type { Spectrum } from '../../spectrum/types.js';
 import type { SearchSpectraOptions } from '../searchSpectra.js';
 import type { Hit, ScoringSet } from '../searchTypes.js';
 import type { PeakTable } from '../types.js';
+import type { WrongHitNull } from '../wrongHitNull.js';
 
 /** One searchable entry of a source. */
 export interface SourceEntry {
@@ -42,6 +43,8 @@ export interface MatchSource extends ScoringSet, PeakTable {
   cols: number;
   /** The reference spectra the default recipe's reference or EMSC step names, by entry id. */
   references: ReadonlyMap<string, Spectrum>;
+  /** The library's best-wrong-hit null for per-hit p-values (pearson); absent or null gives pValue null. */
+  wrongHitNull?: WrongHitNull | null;
   /** The originals of the given rows (async: the browser may have to load them). */
   originals: (rows: readonly number[]) => Promise<ReadonlyMap<number, EntryOriginal>>;
 }

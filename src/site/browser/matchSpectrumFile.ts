@@ -40,6 +40,8 @@ export interface PublishedSearchSet {
     height: ArrayLike<number>;
     prominence: ArrayLike<number>;
   };
+  /** The library's best-wrong-hit null, as `bandshelf match` computes it. @default none (no p-values) */
+  wrongHitNull?: { scores: number[]; entries: number; sampled: number };
   /** The assignment table of `bandshelf match`. @default the shipped table */
   assignments?: BandAssignment[];
 }

@@ -78,6 +78,15 @@ export function publishedMatchSource(
       prominence: Float64Array.from(peaks.prominence),
     },
     references: new Map(Object.entries(set.references).map(([id, s]) => [id, spectrumOf(s)])),
+    wrongHitNull:
+      set.wrongHitNull === undefined
+        ? null
+        : {
+            metric: 'pearson',
+            scores: Float64Array.from(set.wrongHitNull.scores),
+            entries: set.wrongHitNull.entries,
+            sampled: set.wrongHitNull.sampled,
+          },
     originals: async (rows) => {
       const out = new Map<number, EntryOriginal>();
       if (options.loadEntry === undefined) return out;
