@@ -27,7 +27,8 @@ export type ErrorCode =
   | 'SMALL_OVERLAP'
   | 'CHECK_FAILED'
   | 'IO_ERROR'
-  | 'OUT_NOT_EMPTY';
+  | 'OUT_NOT_EMPTY'
+  | 'DAMAGED_LIBRARY';
 
 export interface BandshelfErrorDetails {
   /** The file the problem is in, as the user named it. */

@@ -6,6 +6,9 @@ import type { Grid, WavenumberWindow } from '../schema/recipe.js';
  * (blind to offsets and slow baselines); `cosine`: cosine of the uncentred vectors; `euclidean`: distance between
  * the unit-normalised vectors (0 = same shape, at most 2).
  */
+/** The least wavenumber range, cm⁻¹, unknown and reference must share by default: the one owner of that default. */
+export const MIN_OVERLAP_DEFAULT = 200;
+
 export type Metric = 'pearson' | 'derivative' | 'cosine' | 'euclidean';
 
 /** One library row as the search reports it. A library `SearchSetEntry` satisfies it. */

@@ -120,6 +120,9 @@ export function collectSiteData(library: Library, options: CollectSiteDataOption
       cols: set.cols,
       ids: set.entries.map((e) => e.id),
       revisions: set.entries.map((e) => e.revision),
+      hashes: set.entries.map((e) => e.hash),
+      peaks: set.peaks,
+      assignments: [...shippedAssignments(), ...listAssignments(library)],
     },
     references,
     loadEntry(id) {
