@@ -65,3 +65,9 @@ export class BandshelfError extends Error {
     return `${text.replace(/\s*\n\s*/g, ' ')} [${this.code}]`;
   }
 }
+
+/** Any thrown value as one terminal line: a BandshelfError as its `oneLine()`, anything else marked internal. */
+export function errorLine(error: unknown): string {
+  if (error instanceof BandshelfError) return error.oneLine();
+  return `internal error: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`;
+}

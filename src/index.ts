@@ -11,6 +11,7 @@ export { sidecarNameFor } from './formats/sidecarNameFor.js';
 export type * from './formats/types.js';
 export { writeCsv } from './formats/writeCsv.js';
 export { writeJcampDx } from './formats/writeJcampDx.js';
+export { type IngestOptions, type IngestOutcome, ingest } from './library/ingest/ingest.js';
 export { addAssignments } from './library/store/addAssignments.js';
 export { checkLibrary } from './library/store/checkLibrary.js';
 export { closeLibrary } from './library/store/closeLibrary.js';
