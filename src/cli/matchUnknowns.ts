@@ -117,6 +117,7 @@ function readUnknowns(file: string, cwd: string, keepPath: boolean): MatchUnknow
       hash,
       ...(title === undefined ? {} : { title }),
       spectrum: p.spectrum,
+      ...(p.saturated === undefined ? {} : { saturated: p.saturated }),
       warnings: p.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
     };
   });

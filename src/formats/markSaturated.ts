@@ -1,5 +1,7 @@
 // Finds the points of a transmittance-derived spectrum that sit at the absorbance ceiling and words a warning.
+
 import type { Spectrum } from '../spectrum/types.js';
+import { ABSORBANCE_CEILING } from '../spectrum/types.js';
 import type { ParseWarning } from './types.js';
 
 export interface MarkSaturatedOptions {
@@ -15,7 +17,7 @@ export interface MarkSaturatedResult {
 
 /** Points at or above the ceiling cannot be told apart from one another: the detector saw no light there. */
 export function markSaturated(spectrum: Spectrum, options: MarkSaturatedOptions = {}): MarkSaturatedResult {
-  const { absorbanceCeiling = 4 } = options;
+  const { absorbanceCeiling = ABSORBANCE_CEILING } = options;
   const { wavenumber, absorbance } = spectrum;
   const mask = new Uint8Array(absorbance.length);
   let count = 0;

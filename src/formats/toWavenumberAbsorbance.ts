@@ -1,5 +1,7 @@
 // Converts a file's abscissa and ordinate from their stated units to cm⁻¹ and decadic absorbance.
+
 import { BandshelfError } from '../error.js';
+import { ABSORBANCE_CEILING } from '../spectrum/types.js';
 import { absorbanceFromPercentTransmittance } from '../spectrum/units/absorbanceFromPercentTransmittance.js';
 import { absorbanceFromTransmittance } from '../spectrum/units/absorbanceFromTransmittance.js';
 import { wavenumberFromMicrometres } from '../spectrum/units/wavenumberFromMicrometres.js';
@@ -29,7 +31,13 @@ export function toWavenumberAbsorbance(
   points: { x: Float64Array; y: Float64Array },
   options: ToWavenumberAbsorbanceOptions = {},
 ): { x: Float64Array; y: Float64Array } {
-  const { xUnit = 'cm-1', yUnit = 'absorbance', file, lines, absorbanceCeiling = 4 } = options;
+  const {
+    xUnit = 'cm-1',
+    yUnit = 'absorbance',
+    file,
+    lines,
+    absorbanceCeiling = ABSORBANCE_CEILING,
+  } = options;
   const where = { file, lines };
   const clip = { file, lines, ceiling: absorbanceCeiling };
   // Report NaN/Infinity as such before a unit conversion could word it as a bad wavelength or transmittance.

@@ -216,6 +216,7 @@ export function buildRevisionInputs(
       files,
       read: entryRead,
       original: o.spectrum,
+      ...(o.saturated === undefined ? {} : { saturated: o.saturated }),
       meta: checked.data as RevisionInput['meta'],
       recipe,
       extras,

@@ -39,6 +39,7 @@ export function prepareRevision(
   const base = { ...input, id, kind: options.kind ?? 'data', recipe, hashes };
   const { processed, peaks, referenceScale } = processOriginal(library, input.original, recipe, {
     file: input.label,
+    ...(input.saturated === undefined ? {} : { saturated: input.saturated }),
   });
   // The negative-absorbance check looks at the spectrum after the baseline step, before normalisation.
   const sorted = sortAndMerge(input.original, { file: input.label });
@@ -50,6 +51,7 @@ export function prepareRevision(
     baselineCorrected,
     maxGap: recipe.resample.maxGap,
     exclude: recipe.exclude,
+    crop: recipe.crop,
     ...(input.extras.dynamicRangeOrders !== undefined
       ? { dynamicRangeOrders: input.extras.dynamicRangeOrders }
       : {}),

@@ -208,7 +208,10 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
       add(where, `the processed vector has ${stored.length} values; the grid has ${cols}`);
       return;
     }
-    const recomputed = processOriginal(library, { wavenumber: x, absorbance: y }, recipe, { file: where });
+    const recomputed = processOriginal(library, { wavenumber: x, absorbance: y }, recipe, {
+      file: where,
+      ...(again?.saturated === undefined ? {} : { saturated: again.saturated }),
+    });
     let scale = 0;
     for (const v of recomputed.processed) if (Number.isFinite(v) && Math.abs(v) > scale) scale = Math.abs(v);
     let covered = 0;

@@ -89,6 +89,7 @@ function processUnknown(
   const { processed } = processSpectrum(unknown.spectrum, recipe, source.grid, {
     references: new Map(references),
     file: unknown.file,
+    ...(unknown.saturated === undefined ? {} : { saturated: unknown.saturated }),
   });
   const minOverlap = options.minOverlap ?? MIN_OVERLAP_DEFAULT;
   const mask = scoringMask(processed, source.grid, { ranges: options.ranges ?? [], exclude: recipe.exclude });

@@ -65,6 +65,8 @@ export interface MatchUnknown {
   hash: string;
   title?: string;
   spectrum: Spectrum;
+  /** 1 per point the reader clipped at the absorbance ceiling (kept out of scoring and the fit). */
+  saturated?: Uint8Array;
   warnings: readonly string[];
 }
 

@@ -109,6 +109,7 @@ export async function matchSpectrumFile(
         hash: await sha256(bytes),
         ...(title === undefined ? {} : { title }),
         spectrum: first.spectrum,
+        ...(first.saturated === undefined ? {} : { saturated: first.saturated }),
         warnings,
       },
       source,
