@@ -133,7 +133,19 @@ describe('identifyBands', () => {
     };
     const bands = identifyBands(serum, {
       index: buildBandIndex(table),
-      mixture: { residualBands: [{ position: 1739, height: 0.01, prominence: 0.01, fwhm: 18 }] },
+      mixture: {
+        residualBands: [
+          {
+            position: 1739,
+            height: 0.01,
+            prominence: 0.01,
+            fwhm: 18,
+            width: 18,
+            share: 0.02,
+            localNoise: 0.001,
+          },
+        ],
+      },
     });
     expect(bandNear(bands, 1652).candidates.map((c) => [c.id, c.revision, c.position])).toEqual([
       ['albumin', 2, 1653],
