@@ -167,7 +167,10 @@ export interface IdentifiedBand {
   /** Full width at half prominence, cm⁻¹ (NaN where it could not be measured). */
   fwhm: number;
   kind: 'peak' | 'shoulder';
+  /** Table rows offered for a band no fitted component carries, best first (empty when `assignedTo` is set). */
   assignments: {
+    /** The matched row's id (shipped rows carry one). */
+    id?: string;
     label: string;
     vibration: string;
     group: string;
@@ -177,7 +180,15 @@ export interface IdentifiedBand {
     origin: string;
     min: number;
     max: number;
+    /** The row's own tolerance beyond min–max, cm⁻¹. */
+    tolerance: number;
+    /** 0–1 ranking score: position agreement × width agreement × relative intensity weight. */
+    score: number;
   }[];
+  /** The fitted component that carries the band (most of its height), or null. */
+  assignedTo: { id: string; revision: number; name?: string; share: number } | null;
+  /** Region rows the band lies in (e.g. water-vapour lines may disturb it): a caution, not an assignment. */
+  flags: { id?: string; label: string; source: string }[];
   /** Library entries with a stored peak within tolerance, closest first. */
   candidates: {
     id: string;

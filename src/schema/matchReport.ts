@@ -32,8 +32,33 @@ export const matchHitSchema = z
     overlap: z.number().finite().nonnegative(),
     /** Lead over the next hit in rawScore units; null for the last scored row. */
     gapToNext: z.number().finite().nullable(),
-    /** (rawScore − mean) / sd over every library score of this query (sign-flipped for euclidean). */
+    /** (rawScore − mean) / sd over every other library score of this query (sign-flipped for euclidean). */
     z: z.number().finite().nullable(),
+    /**
+     * Empirical p-value of this score against the library's own best wrong hits (see `confidence`): how often an
+     * entry's best match to a different substance scores at least this high. A per-hit score calibration, not the
+     * probability that the identification is right. Null for metrics without a null (only pearson has one).
+     */
+    pValue: z.number().finite().min(0).max(1).nullable().default(null),
+    /**
+     * Why this hit: each spectral region's share of the Pearson r (Σ over the region of the products of the
+     * centred, unit-norm vectors over the scored points); the shares sum to r. Null where not computed.
+     */
+    contributions: z
+      .array(
+        z
+          .object({
+            label: z.string().min(1),
+            /** Region bounds, cm⁻¹; null for the `elsewhere` row (points in no named region). */
+            min: z.number().finite().nullable(),
+            max: z.number().finite().nullable(),
+            share: z.number().finite(),
+            points: z.number().int().positive(),
+          })
+          .strict(),
+      )
+      .nullable()
+      .default(null),
   })
   .strict();
 export type MatchHit = z.output<typeof matchHitSchema>;
@@ -155,6 +180,8 @@ export const identifiedBandSchema = z
     assignments: z.array(
       z
         .object({
+          /** The matched table row's id. */
+          id: z.string().optional(),
           label: z.string().min(1),
           vibration: z.string(),
           group: z.string(),
@@ -164,9 +191,30 @@ export const identifiedBandSchema = z
           origin: z.string(),
           min: z.number().finite(),
           max: z.number().finite(),
+          /** The row's own tolerance beyond min–max, cm⁻¹. */
+          tolerance: z.number().finite().nonnegative(),
+          /** 0–1: position agreement × width agreement × relative-intensity weight. */
+          score: z.number().finite().min(0).max(1),
         })
         .strict(),
     ),
+    /** The fitted mixture component that carries most of the band's height; table rows are then not offered. */
+    assignedTo: z
+      .object({
+        id: z.string().min(1),
+        revision: z.number().int().positive(),
+        name: z.string().optional(),
+        share: z.number().finite(),
+      })
+      .strict()
+      .nullable()
+      .default(null),
+    /** Region rows the band lies in (e.g. among water-vapour lines): a caution, not an assignment. */
+    flags: z
+      .array(
+        z.object({ id: z.string().optional(), label: z.string().min(1), source: z.string().min(1) }).strict(),
+      )
+      .default([]),
     candidates: z.array(
       z
         .object({
@@ -260,6 +308,18 @@ export const matchReportSchema = z
       })
       .strict(),
     standing: standingSchema,
+    /** How `pValue` was calibrated: the null, its size, and what it means. Null when no null was computed. */
+    confidence: z
+      .object({
+        metric: metricSchema,
+        /** Best-wrong-hit scores in the null, and entries in the library. */
+        nullSize: z.number().int().nonnegative(),
+        entries: z.number().int().nonnegative(),
+        text: z.string().min(1),
+      })
+      .strict()
+      .nullable()
+      .default(null),
     mixture: mixtureReportSchema.nullable(),
     bands: z.array(identifiedBandSchema),
   })

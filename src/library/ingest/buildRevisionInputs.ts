@@ -173,7 +173,7 @@ export function buildRevisionInputs(
   if (several && given.id !== undefined) {
     throw new BandshelfError(
       'BAD_OPTION',
-      `the file holds ${originals.length} spectra but its metadata names one id ('${String(given.id)}'); choose one with --block N`,
+      `the file holds ${originals.length} spectra but its metadata names one id ('${String(given.id)}'); choose one with \`block\``,
       { file: job.label, field: 'id' },
     );
   }
