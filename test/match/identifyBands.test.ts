@@ -245,7 +245,21 @@ describe('identifyBands', () => {
     const bands = identifyBands(unknown, {
       mixture: {
         residualBands: [],
-        components: [{ id: 'drug', revision: 1, weight: 1, share: 1, forced: false, improvement: 0.9 }],
+        components: [
+          {
+            id: 'drug',
+            revision: 1,
+            weight: 1,
+            share: 1,
+            forced: false,
+            improvement: 0.9,
+            pValue: 1e-6,
+            standardError: 0.01,
+            interval95: [0.98, 1.02],
+            significant: true,
+            detectionLimit: { weight: 0.033, share: 0.03 },
+          },
+        ],
         baseline: null,
       },
       componentVectors: [{ id: 'drug', revision: 1, vector: drug }],

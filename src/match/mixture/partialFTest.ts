@@ -1,5 +1,7 @@
 // Nested-model partial F-test: does adding columns to a least-squares fit lower the residual more than noise would?
-import jStat from 'jstat';
+import jStatModule from 'jstat';
+
+const { jStat } = jStatModule;
 
 export interface PartialFTestInput {
   /** Residual sum of squares of the smaller model. */

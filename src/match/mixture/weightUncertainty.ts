@@ -1,6 +1,8 @@
 // Standard errors and 95 % intervals of mixture weights from the covariance of the final least-squares fit.
-import jStat from 'jstat';
+import jStatModule from 'jstat';
 import { invertSymmetric } from './invertSymmetric.js';
+
+const { jStat } = jStatModule;
 
 export interface WeightUncertaintyInput {
   /** Row-major p×p Gram matrix AᵀA of the components' baseline-projected columns. */
