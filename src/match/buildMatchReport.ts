@@ -227,7 +227,15 @@ export function buildMatchReport(
       mixture === null
         ? null
         : {
-            components: mixture.components.map((c) => ({ ...c })),
+            components: mixture.components.map((c) => ({
+              ...c,
+              standardError: finiteOrNull(c.standardError),
+              interval95: [c.interval95[0], finiteOrNull(c.interval95[1])] as [number, number | null],
+              detectionLimit: {
+                weight: finiteOrNull(c.detectionLimit.weight),
+                share: c.detectionLimit.share,
+              },
+            })),
             r2: finiteOrNull(mixture.r2),
             rss: mixture.rss,
             baseline: mixture.baseline,
@@ -236,7 +244,22 @@ export function buildMatchReport(
             noise: Number.isFinite(mixture.noise) ? mixture.noise : 0,
             noiseSource: mixture.noiseSource,
             k: mixture.k,
-            residualBands: mixture.residualBands.map((b) => ({ ...b, fwhm: finiteOrNull(b.fwhm) })),
+            noiseLag1: mixture.noiseLag1,
+            effectivePoints: mixture.effectivePoints,
+            alpha: mixture.alpha,
+            rule: mixture.rule,
+            notSelected: mixture.notSelected.map((c) => ({
+              ...c,
+              detectionLimit: {
+                weight: finiteOrNull(c.detectionLimit.weight),
+                share: c.detectionLimit.share,
+              },
+            })),
+            residualBands: mixture.residualBands.map((b) => ({
+              ...b,
+              fwhm: finiteOrNull(b.fwhm),
+              width: finiteOrNull(b.width),
+            })),
             points: mixture.points,
             span: mixture.span,
             candidates: mixture.candidates,

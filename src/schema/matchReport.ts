@@ -72,6 +72,14 @@ export const standingSchema = z
   })
   .strict();
 
+/** ICH Q2(R1) detection limit 3.3 σ/S: as a weight (null if not detectable at all) and as a share of the signal. */
+export const detectionLimitSchema = z
+  .object({
+    weight: z.number().finite().nonnegative().nullable(),
+    share: z.number().finite().min(0).max(1),
+  })
+  .strict();
+
 export const mixtureComponentSchema = z
   .object({
     id: z.string().min(1),
@@ -84,6 +92,26 @@ export const mixtureComponentSchema = z
     forced: z.boolean(),
     /** Fractional drop of the residual sum of squares when forward selection added it; null when forced. */
     improvement: z.number().finite().nullable(),
+    /** p-value of the partial F-test that admitted it; null when forced. */
+    pValue: z.number().min(0).max(1).nullable(),
+    /** Standard error of the weight (final least-squares covariance, effective-dof corrected); null if infinite. */
+    standardError: z.number().finite().nonnegative().nullable(),
+    /** 95 % interval of the weight [low, high], low clipped at 0; high null if unbounded. */
+    interval95: z.tuple([z.number().finite().nonnegative(), z.number().finite().nullable()]),
+    /** The interval's lower end is above 0; a component that is not significant is not reported as found. */
+    significant: z.boolean(),
+    detectionLimit: detectionLimitSchema,
+  })
+  .strict();
+
+/** An offered candidate the fit did not keep, with what this spectrum could have shown of it. */
+export const unselectedCandidateSchema = z
+  .object({
+    id: z.string().min(1),
+    revision: z.number().int().positive(),
+    name: z.string().optional(),
+    class: z.string().optional(),
+    detectionLimit: detectionLimitSchema,
   })
   .strict();
 
@@ -93,6 +121,12 @@ export const residualBandSchema = z
     height: z.number().finite(),
     prominence: z.number().finite(),
     fwhm: z.number().finite().nullable(),
+    /** FWHM of the residual band, cm⁻¹ (at least the instrument resolution). */
+    width: z.number().finite().nullable(),
+    /** Residual height over the unknown's value at that position, 0–1. */
+    share: z.number().finite().min(0).max(1),
+    /** Local noise σ the k × threshold was built on. */
+    localNoise: z.number().finite().nonnegative(),
   })
   .strict();
 
@@ -115,6 +149,14 @@ export const mixtureReportSchema = z
     residual: gridVectorSchema,
     noise: z.number().finite().nonnegative(),
     noiseSource: z.enum(['band-free-window', 'residual-differences']),
+    /** Lag-1 autocorrelation of the residual noise and the effective independent points it implies. */
+    noiseLag1: z.number().finite(),
+    effectivePoints: z.number().finite().nonnegative(),
+    /** Significance level of the selection test. */
+    alpha: z.number().gt(0).lt(1),
+    /** The selection, uncertainty, detection-limit and residual-band rules in words. */
+    rule: z.string().min(1),
+    notSelected: z.array(unselectedCandidateSchema),
     k: z.number().finite().positive(),
     /** Peaks of the residual above k × noise: the bands the fitted components do not explain. */
     residualBands: z.array(residualBandSchema),

@@ -212,7 +212,19 @@ describe('identifyBands', () => {
     };
     const bands = identifyBands(serum, {
       index: buildBandIndex(table),
-      mixture: { residualBands: [{ position: 1739, height: 0.01, prominence: 0.01, fwhm: 18 }] },
+      mixture: {
+        residualBands: [
+          {
+            position: 1739,
+            height: 0.01,
+            prominence: 0.01,
+            fwhm: 18,
+            width: 18,
+            share: 0.02,
+            localNoise: 0.001,
+          },
+        ],
+      },
     });
     expect(bandNear(bands, 1652).candidates.map((c) => [c.id, c.revision, c.position])).toEqual([
       ['albumin', 2, 1653],
@@ -233,7 +245,21 @@ describe('identifyBands', () => {
     const bands = identifyBands(unknown, {
       mixture: {
         residualBands: [],
-        components: [{ id: 'drug', revision: 1, weight: 1, share: 1, forced: false, improvement: 0.9 }],
+        components: [
+          {
+            id: 'drug',
+            revision: 1,
+            weight: 1,
+            share: 1,
+            forced: false,
+            improvement: 0.9,
+            pValue: 1e-6,
+            standardError: 0.01,
+            interval95: [0.98, 1.02],
+            significant: true,
+            detectionLimit: { weight: 0.033, share: 0.03 },
+          },
+        ],
         baseline: null,
       },
       componentVectors: [{ id: 'drug', revision: 1, vector: drug }],
