@@ -68,16 +68,6 @@ function admits(options: RunMatchPipelineOptions): (e: { id: string; class: stri
   return (e) => !exclude.has(e.id) && !excludeClass.has(e.class) && (only.size === 0 || only.has(e.class));
 }
 
-/**
- * The fit's baseline degree when the caller names none: a free offset (degree 0) when the recipe removes the
- * baseline, because a rubberband or ALS baseline anchors on noise minima and leaves each spectrum lifted by a little
- * that does not add up across a mixture; degree 2 when the recipe keeps the baseline. The one owner of that rule
- * until fitMixture takes the recipe into account itself.
- */
-function recipeBaselineDegree(recipe: Recipe): number {
-  return recipe.baseline.method === 'none' ? 2 : 0;
-}
-
 /** The unknown processed with the recipe, after checking that it covers enough of the grid to be scored. */
 function processUnknown(
   input: MatchPipelineInput,
@@ -128,8 +118,7 @@ async function fitOffered(
     grid: source.grid,
     with: forced,
     maxComponents: options.maxComponents ?? 6,
-    baselineDegree:
-      options.baselineDegree === undefined ? recipeBaselineDegree(recipe) : options.baselineDegree,
+    ...(options.baselineDegree === undefined ? {} : { baselineDegree: options.baselineDegree }),
     ranges: ranges.length === 0 ? null : ranges,
   });
   const window = offered.window;
