@@ -27,7 +27,8 @@ export type ErrorCode =
   | 'SMALL_OVERLAP'
   | 'CHECK_FAILED'
   | 'IO_ERROR'
-  | 'OUT_NOT_EMPTY';
+  | 'OUT_NOT_EMPTY'
+  | 'DAMAGED_LIBRARY';
 
 export interface BandshelfErrorDetails {
   /** The file the problem is in, as the user named it. */
@@ -63,4 +64,10 @@ export class BandshelfError extends Error {
     const text = prefix ? `${prefix}: ${this.message}` : this.message;
     return `${text.replace(/\s*\n\s*/g, ' ')} [${this.code}]`;
   }
+}
+
+/** Any thrown value as one terminal line: a BandshelfError as its `oneLine()`, anything else marked internal. */
+export function errorLine(error: unknown): string {
+  if (error instanceof BandshelfError) return error.oneLine();
+  return `internal error: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`;
 }

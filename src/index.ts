@@ -11,6 +11,7 @@ export { sidecarNameFor } from './formats/sidecarNameFor.js';
 export type * from './formats/types.js';
 export { writeCsv } from './formats/writeCsv.js';
 export { writeJcampDx } from './formats/writeJcampDx.js';
+export { type IngestOptions, type IngestOutcome, ingest } from './library/ingest/ingest.js';
 export { addAssignments } from './library/store/addAssignments.js';
 export { checkLibrary } from './library/store/checkLibrary.js';
 export { closeLibrary } from './library/store/closeLibrary.js';
@@ -36,8 +37,17 @@ export { cosineScores } from './match/cosineScores.js';
 export { euclideanScores } from './match/euclideanScores.js';
 export { fitMixture } from './match/fitMixture.js';
 export { identifyBands } from './match/identifyBands.js';
+export { libraryMatchSource } from './match/libraryMatchSource.js';
 export { nnls } from './match/nnls.js';
 export { pearsonScores } from './match/pearsonScores.js';
+export { type RunMatchPipelineOptions, runMatchPipeline } from './match/pipeline/runMatchPipeline.js';
+export type {
+  EntryOriginal,
+  MatchPipelineInput,
+  MatchScorer,
+  MatchSource,
+  MatchUnknown,
+} from './match/pipeline/types.js';
 export { searchBands } from './match/searchBands.js';
 export { searchLibrary } from './match/searchLibrary.js';
 export { searchSpectra } from './match/searchSpectra.js';

@@ -3,7 +3,7 @@
 import type { Command } from 'commander';
 import { collectRepeated } from './collectRepeated.js';
 
-/** Adds --with, --max-components, --candidates and --baseline-degree to `command`, and returns it. */
+/** Adds --with, --max-components, --candidates, the class/id filters and --baseline-degree to `command`. */
 export function configureMixtureOptions(command: Command): Command {
   return command
     .option(
@@ -14,5 +14,23 @@ export function configureMixtureOptions(command: Command): Command {
     )
     .option('--max-components <n>', 'most components in the mixture', '6')
     .option('--candidates <n>', 'top Pearson hits offered to the mixture fit', '30')
-    .option('--baseline-degree <n>', 'mixture baseline polynomial: auto, none or 0–6', 'auto');
+    .option(
+      '--exclude-class <classes>',
+      'leave these classes out of the hits and the fit (comma-separated)',
+      collectRepeated,
+      [],
+    )
+    .option(
+      '--exclude <ids>',
+      'leave these entries out of the hits and the fit (comma-separated)',
+      collectRepeated,
+      [],
+    )
+    .option(
+      '--only-class <classes>',
+      'only these classes in the hits and the fit (comma-separated)',
+      collectRepeated,
+      [],
+    )
+    .option('--baseline-degree <n>', 'mixture baseline polynomial: none or 0–6 (default 2, a smooth residue of any baseline correction)');
 }

@@ -38,9 +38,15 @@ export function formatBandTable(report: MatchReport, options: FormatBandTableOpt
             b.kind,
             b.height.toPrecision(3),
             b.fwhm === null ? '–' : b.fwhm.toFixed(0),
-            b.assignments.length === 0
-              ? '–'
-              : b.assignments.map((a) => `${a.label} (${a.class.join('/')}) [${note(a.source)}]`).join('; '),
+            b.assignedTo !== null
+              ? `fitted ${b.assignedTo.id} (${(100 * b.assignedTo.share).toFixed(0)} % of the band)`
+              : b.assignments.length === 0
+                ? '–'
+                : b.assignments
+                    .map(
+                      (a) => `${a.label} (${a.class.join('/')}) [${note(a.source)}${a.id ? ` ${a.id}` : ''}]`,
+                    )
+                    .join('; '),
             b.candidates.length === 0
               ? '–'
               : b.candidates

@@ -8,6 +8,11 @@ export interface FormatMatchTableOptions {
    * @default false
    */
   omitCaution?: boolean;
+  /**
+   * Print each hit's per-region contributions to its score (`match --explain`).
+   * @default false
+   */
+  explain?: boolean;
 }
 
 const cm = (v: number): string => v.toFixed(0);
@@ -45,7 +50,7 @@ export function formatMatchTable(report: MatchReport, options: FormatMatchTableO
     out.push(
       textTable(
         [
-          ['#', 'ID', 'REV', 'NAME', 'CLASS', 'SCORE', 'GAP', 'Z', 'OVERLAP'],
+          ['#', 'ID', 'REV', 'NAME', 'CLASS', 'SCORE', 'P', 'GAP', 'Z', 'OVERLAP'],
           ...hits.map((h) => [
             String(h.rank),
             h.id,
@@ -53,14 +58,28 @@ export function formatMatchTable(report: MatchReport, options: FormatMatchTableO
             h.name,
             h.class,
             h.score.toFixed(4),
+            h.pValue === null ? '–' : h.pValue.toPrecision(2),
             h.gapToNext === null ? '–' : h.gapToNext.toFixed(4),
             h.z === null ? '–' : h.z.toFixed(1),
             `${cm(h.overlap)} cm⁻¹`,
           ]),
         ],
-        { right: [0, 2, 5, 6, 7, 8] },
+        { right: [0, 2, 5, 6, 7, 8, 9] },
       ),
     );
+    if (options.explain) {
+      for (const h of hits) {
+        if (h.contributions === null) continue;
+        const parts = h.contributions.map(
+          (c) => `${c.label} ${c.share >= 0 ? '+' : ''}${c.share.toFixed(3)}`,
+        );
+        out.push(`  why #${h.rank} ${h.id}: r ${h.rawScore.toFixed(3)} = ${parts.join(', ')}`);
+      }
+    }
+  }
+  if (report.confidence !== null) {
+    out.push('');
+    out.push(`P: ${report.confidence.text}`);
   }
   out.push('');
   out.push(

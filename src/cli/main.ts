@@ -1,6 +1,7 @@
 // The CLI entry point: the only place that prints, draws progress or decides the exit code.
 import { Command, CommanderError } from 'commander';
 import { BandshelfError } from '../error.js';
+import { damagedLibraryAdvice } from '../library/store/damagedLibraryAdvice.js';
 import type { CommandContext, CommandResult, CommandSpec } from './command.js';
 import { commands } from './commands/index.js';
 import { drawProgress } from './drawProgress.js';
@@ -37,8 +38,17 @@ function buildProgram(
   return program;
 }
 
+/** A reader that closed the pipe (`| head`) wants no more output: end quietly with the status the command had. */
+function quietOnClosedOutput(): void {
+  process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+    if (error.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+    throw error;
+  });
+}
+
 /** Runs the CLI with `argv` (without node and script) and returns the exit code. */
 export async function main(argv: string[]): Promise<number> {
+  quietOnClosedOutput();
   const progress = drawProgress(process.stderr);
   const context: CommandContext = {
     stderrIsTTY: Boolean(process.stderr.isTTY),
@@ -62,6 +72,17 @@ export async function main(argv: string[]): Promise<number> {
       return error.code === 'BAD_OPTION' ? 2 : 1;
     }
     const message = error instanceof Error ? error.message : String(error);
+    const sqlite = String((error as { code?: unknown }).code ?? '');
+    // SQLite's own words for a damaged file (bytes flipped on disk, a truncated copy): name the file and the cure.
+    if (/^SQLITE_(CORRUPT|NOTADB)/.test(sqlite) || /malformed/i.test(message)) {
+      const at = argv.indexOf('--library');
+      const file = at >= 0 ? argv[at + 1] : 'bandshelf.sqlite';
+      const damaged = new BandshelfError('DAMAGED_LIBRARY', damagedLibraryAdvice(message.split('\n')[0]!), {
+        file,
+      });
+      process.stderr.write(`bandshelf: ${damaged.oneLine()}\n`);
+      return 1;
+    }
     process.stderr.write(`bandshelf: internal error: ${message.split('\n')[0]}\n`);
     if (process.env.BANDSHELF_DEBUG && error instanceof Error) process.stderr.write(`${error.stack}\n`);
     return 70;
@@ -71,6 +92,7 @@ export async function main(argv: string[]): Promise<number> {
   if (result.stderr)
     process.stderr.write(result.stderr.endsWith('\n') ? result.stderr : `${result.stderr}\n`);
   if (result.stdout) {
+    process.exitCode = result.exitCode;
     await new Promise<void>((resolve) => {
       process.stdout.write(result!.stdout.endsWith('\n') ? result!.stdout : `${result!.stdout}\n`, () =>
         resolve(),

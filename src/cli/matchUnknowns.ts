@@ -12,25 +12,17 @@ import { listAssignments } from '../library/store/listAssignments.js';
 import { openLibrary } from '../library/store/openLibrary.js';
 import { readRecipeFile } from '../library/store/readRecipeFile.js';
 import { readSearchSet } from '../library/store/readSearchSet.js';
-import type { EntryView, SearchSet } from '../library/types.js';
+import { recipeReferences } from '../library/store/recipeReferences.js';
+import type { SearchSet } from '../library/types.js';
 import { buildBandIndex } from '../match/buildBandIndex.js';
-import { buildMatchReport } from '../match/buildMatchReport.js';
-import { coveredSpan } from '../match/coveredSpan.js';
-import { fitMixture } from '../match/fitMixture.js';
-import { identifyBands } from '../match/identifyBands.js';
-import { scoringMask } from '../match/scoringMask.js';
-import { searchLibrary } from '../match/searchLibrary.js';
-import type { Hit, Metric } from '../match/searchTypes.js';
+import { libraryMatchSource } from '../match/libraryMatchSource.js';
+import { type RunMatchPipelineOptions, runMatchPipeline } from '../match/pipeline/runMatchPipeline.js';
+import type { MatchUnknown } from '../match/pipeline/types.js';
+import { type Metric, MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
-import type { MixtureResult } from '../match/types.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import type { WavenumberWindow } from '../schema/recipe.js';
-import { gridAxis } from '../spectrum/gridAxis.js';
-import { processSpectrum } from '../spectrum/processSpectrum.js';
-import type { Spectrum } from '../spectrum/types.js';
 import type { CommandContext } from './command.js';
-import { mixtureCandidates } from './mixtureCandidates.js';
-import { recipeReferences } from './recipeReferences.js';
 
 export interface MatchUnknownsOptions {
   /** --library as given. @default './bandshelf.sqlite' */
@@ -45,7 +37,7 @@ export interface MatchUnknownsOptions {
   metrics?: readonly Metric[];
   /** Hits reported per metric. @default 10 */
   top?: number;
-  /** @default 200 */
+  /** @default MIN_OVERLAP_DEFAULT (200) */
   minOverlap?: number;
   /** Run the mixture fit. @default false */
   mixture?: boolean;
@@ -55,15 +47,18 @@ export interface MatchUnknownsOptions {
   maxComponents?: number;
   /** Top pearson hits offered to forward selection. @default 30 */
   candidates?: number;
-  /**
-   * Baseline polynomial degree of the fit. 'auto': a free offset (degree 0) when the recipe removes the baseline,
-   * because a rubberband or ALS baseline anchors on noise minima and leaves each spectrum lifted by a little
-   * that does not add up across a mixture; degree 2 when the recipe keeps the baseline.
-   * @default 'auto'
-   */
-  baselineDegree?: number | null | 'auto';
+  /** Baseline polynomial degree of the fit (null: none). @default the pipeline's rule (from the recipe) */
+  baselineDegree?: number | null;
   /** Band tolerance for identification, cm⁻¹. @default 4 */
   tolerance?: number;
+  /** Classes left out of the hits and the fit. @default [] */
+  excludeClass?: readonly string[];
+  /** Entry ids left out of the hits and the fit. @default [] */
+  exclude?: readonly string[];
+  /** Only these classes in the hits and the fit. @default [] (all) */
+  onlyClass?: readonly string[];
+  /** Keep the unknown's path as given in the report (else its file name only). @default false */
+  keepPath?: boolean;
 }
 
 export interface MatchOutcome {
@@ -79,15 +74,6 @@ export interface MatchRun {
   outcomes: MatchOutcome[];
   /** More than one unknown (a folder, several files or a multi-block file). */
   batch: boolean;
-  warnings: string[];
-}
-
-interface Unknown {
-  file: string;
-  block?: number;
-  hash: string;
-  title?: string;
-  spectrum: Spectrum;
   warnings: string[];
 }
 
@@ -110,7 +96,8 @@ function filesOf(target: string, cwd: string): string[] {
   return names.map((name) => join(target, name));
 }
 
-function readUnknowns(file: string, cwd: string): Unknown[] {
+/** The report names the file only (a path can carry a patient or study code) unless `keepPath`. */
+function readUnknowns(file: string, cwd: string, keepPath: boolean): MatchUnknown[] {
   let bytes: Uint8Array;
   try {
     bytes = readFileSync(resolve(cwd, file));
@@ -125,11 +112,12 @@ function readUnknowns(file: string, cwd: string): Unknown[] {
   return parsed.map((p) => {
     const title = typeof p.meta.title === 'string' ? p.meta.title : undefined;
     return {
-      file,
+      file: keepPath ? file : basename(file),
       ...(parsed.length > 1 && p.source.block !== undefined ? { block: p.source.block } : {}),
       hash,
       ...(title === undefined ? {} : { title }),
       spectrum: p.spectrum,
+      ...(p.saturated === undefined ? {} : { saturated: p.saturated }),
       warnings: p.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
     };
   });
@@ -141,26 +129,17 @@ function oneLine(error: unknown): string {
 }
 
 /**
- * One unknown → one report. In batch mode an unknown that cannot be read, processed or scored is recorded with its
- * error and the rest go on; a single unknown's error is thrown. Library-level problems (no library, empty library,
- * unknown release, a `--with` id that does not exist) always throw.
+ * One unknown → one report, each through `runMatchPipeline`. In batch mode an unknown that cannot be read,
+ * processed or scored is recorded with its error and the rest go on; a single unknown's error is thrown.
+ * Library-level problems (no library, empty library, unknown release, a `--with` id that does not exist) always throw.
  */
-export function matchUnknowns(
+export async function matchUnknowns(
   targets: readonly string[],
   options: MatchUnknownsOptions,
   context: CommandContext,
-): MatchRun {
+): Promise<MatchRun> {
   if (targets.length === 0) throw new BandshelfError('BAD_OPTION', 'name an unknown spectrum file or folder');
-  const metrics = options.metrics ?? ['pearson'];
-  const top = options.top ?? 10;
-  const minOverlap = options.minOverlap ?? 200;
-  const ranges = options.ranges ?? [];
   const forced = [...new Set(options.with ?? [])];
-  const maxComponents = options.maxComponents ?? 6;
-  const poolSize = options.candidates ?? 30;
-  const tolerance = options.tolerance ?? 4;
-  const warnings: string[] = [];
-
   const library = openLibrary(libraryPath(options.library, context.cwd), { readonly: true });
   try {
     const set: SearchSet = readSearchSet(library, options.at === undefined ? {} : { at: options.at });
@@ -172,9 +151,9 @@ export function matchUnknowns(
           : `release '${set.at}' holds no entries to match against`,
       );
     }
-    const rowOf = new Map(set.entries.map((e, i) => [e.id, i]));
+    const ids = new Set(set.entries.map((e) => e.id));
     for (const id of forced) {
-      if (!rowOf.has(id)) {
+      if (!ids.has(id)) {
         throw new BandshelfError(
           'NOT_FOUND',
           `--with names '${id}', which is not an entry of ${set.at === null ? 'the library' : `release '${set.at}'`}`,
@@ -182,24 +161,49 @@ export function matchUnknowns(
         );
       }
     }
+    const { source, scorer } = libraryMatchSource(
+      library,
+      set,
+      options.at === undefined ? {} : { at: options.at },
+    );
     const recipe =
       options.recipe === undefined
-        ? set.recipe
+        ? undefined
         : readRecipeFile(resolve(context.cwd, options.recipe), { label: options.recipe });
-    const references = recipeReferences(library, recipe, options.at === undefined ? {} : { at: options.at });
+    const settings: RunMatchPipelineOptions = {
+      ...(recipe === undefined
+        ? {}
+        : {
+            recipe,
+            recipeSource: 'file' as const,
+            references: recipeReferences(library, recipe, options.at === undefined ? {} : { at: options.at }),
+          }),
+      ranges: options.ranges ?? [],
+      metrics: options.metrics ?? ['pearson'],
+      top: options.top ?? 10,
+      minOverlap: options.minOverlap ?? MIN_OVERLAP_DEFAULT,
+      mixture: options.mixture === true,
+      with: forced,
+      excludeClass: options.excludeClass ?? [],
+      exclude: options.exclude ?? [],
+      onlyClass: options.onlyClass ?? [],
+      maxComponents: options.maxComponents ?? 6,
+      candidates: options.candidates ?? 30,
+      ...(options.baselineDegree === undefined ? {} : { baselineDegree: options.baselineDegree }),
+      tolerance: options.tolerance ?? 4,
+      index: buildBandIndex(set),
+    };
     const assignments = [...shippedAssignments(), ...listAssignments(library)];
-    const index = buildBandIndex(set);
-    const axis = gridAxis(set.grid);
 
     const files = targets.flatMap((t) => filesOf(t, context.cwd));
     const outcomes: MatchOutcome[] = [];
-    const unknowns: { outcome: MatchOutcome; unknown: Unknown; processed: Float64Array }[] = [];
+    const warnings: string[] = [];
     const single = files.length === 1;
     for (const [i, file] of files.entries()) {
       context.progress(i, files.length, basename(file));
-      let read: Unknown[];
+      let read: MatchUnknown[];
       try {
-        read = readUnknowns(file, context.cwd);
+        read = readUnknowns(file, context.cwd, options.keepPath === true);
       } catch (error) {
         if (single) throw error;
         outcomes.push({ file, error: oneLine(error) });
@@ -212,106 +216,15 @@ export function matchUnknowns(
         };
         outcomes.push(outcome);
         try {
-          const { processed } = processSpectrum(unknown.spectrum, recipe, set.grid, { references, file });
-          // The search refuses a small overlap for the whole batch; check each unknown first so one bad file
-          // does not stop the others.
-          const mask = scoringMask(processed, set.grid, { ranges, exclude: recipe.exclude });
-          const overlap = coveredSpan(mask, set.grid.step);
-          if (overlap < minOverlap || overlap === 0) {
-            throw new BandshelfError(
-              'SMALL_OVERLAP',
-              `the unknown covers only ${overlap} cm⁻¹ of the library grid inside the scoring ranges; at least ` +
-                `${minOverlap} cm⁻¹ are needed (lower --min-overlap or widen --range)`,
-              { file, field: 'minOverlap' },
-            );
-          }
-          unknowns.push({ outcome, unknown, processed });
+          outcome.report = await runMatchPipeline({ unknown, source, scorer, assignments }, settings);
         } catch (error) {
           if (single && read.length === 1) throw error;
           outcome.error = oneLine(error);
         }
+        for (const w of unknown.warnings) warnings.push(`${file}: ${w}`);
       }
     }
-    context.progress(files.length, files.length, 'searching');
-
-    const queries = unknowns.map((u) => u.processed);
-    const hitsByMetric = new Map<Metric, Hit[][]>();
-    const needPool = options.mixture === true;
-    const searchMetrics: Metric[] = [...metrics];
-    if (needPool && !searchMetrics.includes('pearson')) searchMetrics.push('pearson');
-    for (const metric of searchMetrics) {
-      const k = metric === 'pearson' && needPool ? Math.max(top, poolSize) : top;
-      hitsByMetric.set(
-        metric,
-        queries.length === 0 ? [] : searchLibrary(library, queries, { set, metric, ranges, k, minOverlap }),
-      );
-    }
-    const degree =
-      options.baselineDegree === undefined || options.baselineDegree === 'auto'
-        ? recipe.baseline.method === 'none'
-          ? 2
-          : 0
-        : options.baselineDegree;
-    // Entries read to process them again over a partial unknown's span, kept for the rest of the batch.
-    const views = new Map<number, EntryView>();
-
-    unknowns.forEach(({ outcome, unknown, processed }, q) => {
-      try {
-        let mixture: (MixtureResult & { candidates: number }) | null = null;
-        if (needPool) {
-          const poolHits = hitsByMetric.get('pearson')![q]!.slice(0, poolSize);
-          const rows = [...forced.map((id) => rowOf.get(id)!), ...poolHits.map((h) => h.row)];
-          const offered = mixtureCandidates(library, set, rows, unknown.spectrum, recipe, { views });
-          const fit = fitMixture(processed, offered.candidates, {
-            grid: set.grid,
-            with: forced,
-            maxComponents,
-            baselineDegree: degree,
-            ranges: ranges.length === 0 ? null : ranges,
-          });
-          const window = offered.window;
-          const criterion =
-            window === null || offered.reprocessed.length === 0
-              ? fit.criterion
-              : `${fit.criterion}; the unknown covers only ${window.max.toFixed(0)}–${window.min.toFixed(0)} cm⁻¹, so ` +
-                `${offered.reprocessed.length} reference(s) reaching beyond it were processed again over that span ` +
-                `with their own recipes (baseline and normalisation over the same span as the unknown's)`;
-          mixture = { ...fit, criterion, candidates: new Set(offered.candidates.map((c) => c.id)).size };
-        }
-        const bands = identifyBands(
-          { wavenumber: axis, absorbance: processed },
-          { assignments, index, mixture, tolerance },
-        );
-        const byMetric: Partial<Record<Metric, Hit[]>> = {};
-        for (const metric of metrics) byMetric[metric] = hitsByMetric.get(metric)![q]!.slice(0, top);
-        outcome.report = buildMatchReport({
-          query: {
-            file: unknown.file,
-            ...(unknown.block === undefined ? {} : { block: unknown.block }),
-            hash: unknown.hash,
-            ...(unknown.title === undefined ? {} : { title: unknown.title }),
-            recipe,
-            recipeSource: options.recipe === undefined ? 'library' : 'file',
-            grid: set.grid,
-            ranges,
-            processed,
-            warnings: unknown.warnings,
-          },
-          library: { name: library.name, release: set.at, stateKey: set.stateKey, entries: set.entries },
-          settings: { top, minOverlap, tolerance, maxComponents, with: forced },
-          metrics,
-          hitsByMetric: byMetric,
-          mixture,
-          bands,
-        });
-      } catch (error) {
-        if (unknowns.length === 1 && outcomes.length === 1) throw error;
-        outcome.error = oneLine(error);
-      }
-    });
-    for (const u of unknowns) {
-      for (const w of u.unknown.warnings) warnings.push(`${u.unknown.file}: ${w}`);
-    }
+    context.progress(files.length, files.length, 'done');
     return { outcomes, batch: outcomes.length > 1, warnings };
   } finally {
     closeLibrary(library);

@@ -1,6 +1,6 @@
 // Turns the shared options of `match` and `identify` into checked values, one clear BAD_OPTION per mistake.
 import { BandshelfError } from '../error.js';
-import type { Metric } from '../match/searchTypes.js';
+import { type Metric, MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import type { WavenumberWindow } from '../schema/recipe.js';
 import type { MatchUnknownsOptions } from './matchUnknowns.js';
 
@@ -80,7 +80,8 @@ export function parseMatchOptions(
     });
   }
   const degreeText = options.baselineDegree;
-  let baselineDegree: MatchUnknownsOptions['baselineDegree'] = 'auto';
+  // Unset: fitMixture's own default, the one owner of that rule.
+  let baselineDegree: MatchUnknownsOptions['baselineDegree'];
   if (degreeText === 'none') baselineDegree = null;
   else if (degreeText !== undefined && degreeText !== 'auto') {
     baselineDegree = number(
@@ -95,12 +96,17 @@ export function parseMatchOptions(
     options.mixture === undefined ? (settings.mixtureByDefault ?? false) : options.mixture !== false;
   const parsed: MatchUnknownsOptions = {
     library: options.library,
+    keepPath: options.keepPath === true,
     ranges: ranges(options.range),
     metrics,
     top: number(options.top, 'top', (n) => Number.isInteger(n) && n >= 1, 'a whole number ≥ 1') ?? 10,
-    minOverlap: number(options.minOverlap, 'min-overlap', (n) => n >= 0, 'a number of cm⁻¹ ≥ 0') ?? 200,
+    minOverlap:
+      number(options.minOverlap, 'min-overlap', (n) => n >= 0, 'a number of cm⁻¹ ≥ 0') ?? MIN_OVERLAP_DEFAULT,
     mixture,
     with: list(options.with),
+    excludeClass: list(options.excludeClass),
+    exclude: list(options.exclude),
+    onlyClass: list(options.onlyClass),
     maxComponents:
       number(
         options.maxComponents,
@@ -111,7 +117,7 @@ export function parseMatchOptions(
     candidates:
       number(options.candidates, 'candidates', (n) => Number.isInteger(n) && n >= 1, 'a whole number ≥ 1') ??
       30,
-    baselineDegree,
+    ...(baselineDegree === undefined ? {} : { baselineDegree }),
     tolerance: number(options.tolerance, 'tolerance', (n) => n > 0, 'a positive number of cm⁻¹') ?? 4,
   };
   if (typeof options.at === 'string') parsed.at = options.at;

@@ -16,6 +16,12 @@ export interface DecodeAsdfLinesOptions {
    * @default undefined (every line after a DIF line is taken to start with the Y check)
    */
   xHint?: { first: number; step: number };
+  /**
+   * Take a line's first value that repeats the last ordinate as the Y check even where `xHint` says the X names
+   * a new point (writers that put the next point's X on a line and still repeat the check).
+   * @default false
+   */
+  matchingValueIsCheck?: boolean;
 }
 
 export interface AsdfDecoded {
@@ -46,7 +52,7 @@ const MISSING = 4;
  * `?` is a missing ordinate: it keeps its place (so abscissae stay right) and comes back as NaN.
  */
 export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLinesOptions = {}): AsdfDecoded {
-  const { file, firstLine = 1, maxPoints = 5_000_000, xHint } = options;
+  const { file, firstLine = 1, maxPoints = 5_000_000, xHint, matchingValueIsCheck = false } = options;
   const warnings: ParseWarning[] = [];
   let y = new Float64Array(1024);
   let pointLine = new Uint32Array(1024);
@@ -198,7 +204,12 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
       const v = values[t]!;
       if (kind === ABS) {
         const matches = Math.abs(v - prevY) <= 1e-9 * Math.max(1, Math.abs(v)) || Number.isNaN(prevY);
-        if (t === 1 && lineEndedDif && havePrev && !startsNewPoint(values[0]!, count)) {
+        if (
+          t === 1 &&
+          lineEndedDif &&
+          havePrev &&
+          ((matchingValueIsCheck && matches) || !startsNewPoint(values[0]!, count))
+        ) {
           // The Y check: the previous line's last ordinate, repeated.
           checked = true;
           if (!matches) {

@@ -1,8 +1,10 @@
 // Reads two-column delimited text (CSV, semicolon, tab or whitespace) into a spectrum in cm⁻¹ and absorbance.
 import { BandshelfError } from '../error.js';
 import { growPointBuffers, type PointBuffers } from './growPointBuffers.js';
+import { markSaturated } from './markSaturated.js';
 import { spectrumFromPoints } from './spectrumFromPoints.js';
 import { toWavenumberAbsorbance } from './toWavenumberAbsorbance.js';
+import { transmittanceScale } from './transmittanceScale.js';
 import type { ParsedSpectrum, ParseWarning, XUnit, YUnit } from './types.js';
 
 export interface ReadDelimitedOptions {
@@ -113,10 +115,21 @@ export function readDelimited(text: string, options: ReadDelimitedOptions = {}):
   const converted = toWavenumberAbsorbance({ x, y }, { xUnit, yUnit, file, lines: pointLine });
   const { spectrum, warnings: pointWarnings } = spectrumFromPoints(converted, { file, lines: pointLine });
   warnings.push(...pointWarnings);
-  return { spectrum, meta: {}, source: { format: 'delimited', xUnit, yUnit }, warnings };
+  const parsed: ParsedSpectrum = {
+    spectrum,
+    meta: {},
+    source: { format: 'delimited', xUnit, yUnit },
+    warnings,
+  };
+  if (yUnit !== 'absorbance') {
+    const { saturated, warning } = markSaturated(spectrum);
+    if (saturated) parsed.saturated = saturated;
+    if (warning) warnings.push(warning);
+  }
+  return parsed;
 }
 
-const X_UNITS: readonly string[] = ['cm-1', 'um', 'nm'];
+const X_UNITS: readonly string[] = ['cm-1', 'um', 'nm', 'thz'];
 const Y_UNITS: readonly string[] = ['absorbance', 'transmittance', 'percent-transmittance'];
 
 type Delimiter = ';' | '\t' | ',' | ' ';
@@ -302,16 +315,16 @@ function detectYUnit(cell: string, y: Float64Array, warnings: ParseWarning[], wh
   refuseForeign(c, FOREIGN_Y, 'y', 'absorbance or transmittance', where);
   const { min, max } = range(y);
   const looksPercent = min >= 0 && max <= 100.5 && max > 3;
-  if (/%|percent/.test(c)) return 'percent-transmittance';
-  if (/transmittance|transmission/.test(c) || word(c, 't')) {
-    if (looksPercent) {
-      warnings.push({
-        line,
-        message: `the header says transmittance but values reach ${max}: read as percent transmittance (0–100)`,
-      });
-      return 'percent-transmittance';
-    }
-    return 'transmittance';
+  const percentWords = /%|percent/.test(c);
+  if (percentWords || /transmittance|transmission/.test(c) || word(c, 't')) {
+    const scale = transmittanceScale(y, {
+      stated: percentWords ? 'percent' : 'unstated',
+      file: where.file,
+      line,
+    });
+    if (scale.warning)
+      warnings.push({ ...scale.warning, message: `the header says transmittance: ${scale.warning.message}` });
+    return scale.unit;
   }
   if (/absorbance|optical density/.test(c) || word(c, 'a|abs|au|od')) return 'absorbance';
   warnings.push({

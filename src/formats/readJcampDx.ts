@@ -3,9 +3,11 @@ import { BandshelfError } from '../error.js';
 import { decodeAsdfLines } from './decodeAsdfLines.js';
 import { decodeXyPairs } from './decodeXyPairs.js';
 import type { JcampBlock, JcampRecord } from './jcampTypes.js';
+import { markSaturated } from './markSaturated.js';
 import { spectrumFromPoints } from './spectrumFromPoints.js';
 import { splitJcampRecords } from './splitJcampRecords.js';
 import { toWavenumberAbsorbance } from './toWavenumberAbsorbance.js';
+import { transmittanceScale } from './transmittanceScale.js';
 import type { ParsedSpectrum, ParseWarning, XUnit, YUnit } from './types.js';
 
 export interface ReadJcampDxOptions {
@@ -31,7 +33,7 @@ export interface ReadJcampDxOptions {
 export function readJcampDx(text: string, options: ReadJcampDxOptions = {}): ParsedSpectrum[] {
   const { file } = options;
   for (const [field, value, allowed] of [
-    ['xUnit', options.xUnit, ['cm-1', 'um', 'nm']],
+    ['xUnit', options.xUnit, ['cm-1', 'um', 'nm', 'thz']],
     ['yUnit', options.yUnit, ['absorbance', 'transmittance', 'percent-transmittance']],
   ] as const) {
     if (value !== undefined && !(allowed as readonly string[]).includes(value)) {
@@ -252,28 +254,37 @@ function readYUnit(
     return 'absorbance';
   }
   const v = rec.value.toUpperCase().replace(/\s+/g, ' ').trim();
-  if (
+  const percentWords =
     /^(%\s?T|%\s?TRANSMITTANCE|PERCENT ?TRANSMITTANCE|PERCENT ?TRANSMISSION|TRANSMITTANCE ?\(%\)|T ?\(%\)|TRANSMITTANCE ?%|%)$/.test(
       v,
-    )
-  ) {
-    if (max <= 1.0) {
+    );
+  if (percentWords || /^(TRANSMITTANCE|TRANSMISSION|T)$/.test(v)) {
+    const scale = transmittanceScale(y, {
+      stated: percentWords ? 'percent' : 'unstated',
+      file,
+      line: rec.line,
+    });
+    if (scale.warning) {
       warnings.push({
-        line: rec.line,
-        message: `##${rec.rawLabel} says percent but no value exceeds ${max}; read as percent all the same`,
+        ...scale.warning,
+        message: `##${rec.rawLabel}=${rec.value}: ${scale.warning.message}`,
       });
     }
-    return 'percent-transmittance';
+    return scale.unit;
   }
-  if (/^(TRANSMITTANCE|TRANSMISSION|T)$/.test(v)) {
-    if (looksPercent(y)) {
-      warnings.push({
-        line: rec.line,
-        message: `##${rec.rawLabel}=${rec.value} but values reach ${max}: read as percent transmittance (0–100)`,
-      });
-      return 'percent-transmittance';
-    }
-    return 'transmittance';
+  if (isAbsorbanceShaped(v)) {
+    warnings.push({
+      line: rec.line,
+      message: `##${rec.rawLabel}=${clip(rec.value)} is a decadic absorption coefficient; read as absorbance-shaped (the unit text is kept in the metadata)`,
+    });
+    return 'absorbance';
+  }
+  if (/^ARBITRARY/.test(v)) {
+    throw new BandshelfError(
+      'UNKNOWN_UNIT',
+      `##${rec.rawLabel}=${clip(rec.value)} does not say absorbance or transmittance; give the y unit (--y-unit absorbance|transmittance|percent-transmittance)`,
+      { file, line: rec.line, field: rec.rawLabel },
+    );
   }
   if (/^(ABSORBANCE|ABSORBANCE UNITS|A|AU|ABS|OPTICAL DENSITY|OD)$/.test(v)) return 'absorbance';
   throw new BandshelfError(
@@ -284,6 +295,14 @@ function readYUnit(
 }
 
 /** Transmittance on a 0–100 scale: every value inside it and some well above what a fraction or absorbance reaches. */
+/** Decadic absorptivity or absorption-coefficient units: absorbance per amount and length, shaped like absorbance. */
+function isAbsorbanceShaped(v: string): boolean {
+  return (
+    /BASE ?10|DECADIC|ABSORPTIVITY|ABSORPTION COEFFICIENT|EXTINCTION COEFFICIENT/.test(v) ||
+    /^\(?[A-ZΜµ/ ]+\)?-1 ?\(?[A-Z]+\)?-1$/.test(v)
+  );
+}
+
 function looksPercent(y: Float64Array): boolean {
   let min = Number.POSITIVE_INFINITY;
   let max = Number.NEGATIVE_INFINITY;
@@ -312,6 +331,14 @@ function readBlock(
   const meta = readMeta(block, lines);
   const dataType = (ownValue(block, 'DATATYPE') ?? '').toUpperCase();
   if (dataType !== '' && !/INFRARED|\bIR\b/.test(dataType)) {
+    // Another spectroscopy named outright is refused: its axis would be misread as an infrared one.
+    if (/UV|VIS|NMR|MASS|RAMAN|FLUORESCENCE|X-?RAY|CHROMATOGRAM/.test(dataType)) {
+      throw new BandshelfError(
+        'NOT_A_SPECTRUM',
+        `##DATA TYPE=${clip(dataType)} is not an infrared spectrum; bandshelf reads infrared absorbance or transmittance only`,
+        { file, line: ownRecord(block, 'DATATYPE')?.line, field: 'DATA TYPE' },
+      );
+    }
     warnings.push({
       line: ownRecord(block, 'DATATYPE')?.line,
       message: `##DATA TYPE=${clip(dataType)} is not an infrared spectrum; read all the same`,
@@ -336,12 +363,15 @@ function readBlock(
   let yRaw: Float64Array;
   let pointLine: Uint32Array;
   if (data.label === 'XYDATA' && /^\(X\+\+\((Y\.\.Y|R\.\.R)\)\)$/.test(form)) {
-    const decoded = decodeAsdfLines(body, {
-      file,
-      firstLine: data.bodyStart + 1,
-      maxPoints,
-      xHint: spacingHint(block, xFactor, file),
-    });
+    const asdf = { file, firstLine: data.bodyStart + 1, maxPoints, xHint: spacingHint(block, xFactor, file) };
+    let decoded = decodeAsdfLines(body, asdf);
+    // The line X misled the Y-check call when NPOINTS disagrees; a reading that repeats a value as the check
+    // and agrees with NPOINTS is the file's own (an extra point at the end is usually the last line's check).
+    const declared = numberLabel(block, 'NPOINTS', file);
+    if (declared !== undefined && decoded.y.length !== declared) {
+      const again = decodeAsdfLines(body, { ...asdf, matchingValueIsCheck: true });
+      if (again.y.length === declared) decoded = again;
+    }
     warnings.push(...decoded.warnings);
     yRaw = decoded.y;
     pointLine = decoded.pointLine;
@@ -432,7 +462,17 @@ function readBlock(
   const converted = toWavenumberAbsorbance({ x: xs, y: ys }, { xUnit, yUnit, file, lines: ls });
   const { spectrum, warnings: pointWarnings } = spectrumFromPoints(converted, { file, lines: ls });
   warnings.push(...pointWarnings);
-  return { spectrum, meta, source: { format: 'jcamp-dx', xUnit, yUnit }, warnings };
+  const yUnitsText = inheritedRecord(block, 'YUNITS')?.value;
+  if (yUnitsText && isAbsorbanceShaped(yUnitsText.toUpperCase().replace(/\s+/g, ' ').trim())) {
+    meta.yUnitsText = yUnitsText.trim();
+  }
+  const parsed: ParsedSpectrum = { spectrum, meta, source: { format: 'jcamp-dx', xUnit, yUnit }, warnings };
+  if (yUnit !== 'absorbance') {
+    const { saturated, warning } = markSaturated(spectrum);
+    if (saturated) parsed.saturated = saturated;
+    if (warning) warnings.push(warning);
+  }
+  return parsed;
 }
 
 /** FIRSTX and the header's step in line units, for telling a Y check from a new point; undefined if unknown. */
@@ -554,9 +594,25 @@ function abscissae(
   }
   if (firstOff) {
     if (off > 1) firstOff.message += ` (${off} lines disagree)`;
+    // Uneven x written one point per line is never spread evenly: each line gives its x outright.
+    if (onePointPerLine(decoded.lineFirstIndex, count)) {
+      warnings.push({
+        line: firstOff.line,
+        message: `${firstOff.message}: x is not evenly spaced, so the x written on each line was used`,
+      });
+      return lineXReal.slice();
+    }
+    // Several points per line: the header's spacing places them; real writers (and hand-edited files) write
+    // line X values that stray by steps, so this stays a warning.
     warnings.push(firstOff);
   }
   return x;
+}
+
+function onePointPerLine(lineFirstIndex: Int32Array, count: number): boolean {
+  if (lineFirstIndex.length !== count) return false;
+  for (let k = 0; k < count; k++) if (lineFirstIndex[k] !== k) return false;
+  return true;
 }
 
 const AFFN = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;

@@ -1,5 +1,7 @@
 // Converts a file's abscissa and ordinate from their stated units to cm⁻¹ and decadic absorbance.
+
 import { BandshelfError } from '../error.js';
+import { ABSORBANCE_CEILING } from '../spectrum/types.js';
 import { absorbanceFromPercentTransmittance } from '../spectrum/units/absorbanceFromPercentTransmittance.js';
 import { absorbanceFromTransmittance } from '../spectrum/units/absorbanceFromTransmittance.js';
 import { wavenumberFromMicrometres } from '../spectrum/units/wavenumberFromMicrometres.js';
@@ -15,10 +17,12 @@ export interface ToWavenumberAbsorbanceOptions {
   file?: string;
   /** 1-based source line of each point, for errors. @default undefined */
   lines?: ArrayLike<number>;
+  /** Absorbance ceiling: transmittance at or below 10^−ceiling (zero, negative noise) is clipped to it. @default 4 */
+  absorbanceCeiling?: number;
 }
 
 /**
- * Returns new arrays (inputs untouched); NaN/Infinity → NOT_FINITE, T ≤ 0 → BAD_TRANSMITTANCE,
+ * Returns new arrays (inputs untouched); NaN/Infinity → NOT_FINITE, T ≤ 10^−ceiling → the ceiling (saturated),
  * λ ≤ 0 → NOT_FINITE and a negative wavenumber → NOT_A_SPECTRUM (such an x is some other quantity), each
  * with its line. Zero is let through: the standard's own examples number their points from X = 0, and the
  * library's QC refuses a spectrum that covers none of its grid.
@@ -27,8 +31,15 @@ export function toWavenumberAbsorbance(
   points: { x: Float64Array; y: Float64Array },
   options: ToWavenumberAbsorbanceOptions = {},
 ): { x: Float64Array; y: Float64Array } {
-  const { xUnit = 'cm-1', yUnit = 'absorbance', file, lines } = options;
+  const {
+    xUnit = 'cm-1',
+    yUnit = 'absorbance',
+    file,
+    lines,
+    absorbanceCeiling = ABSORBANCE_CEILING,
+  } = options;
   const where = { file, lines };
+  const clip = { file, lines, ceiling: absorbanceCeiling };
   // Report NaN/Infinity as such before a unit conversion could word it as a bad wavelength or transmittance.
   const n = Math.min(points.x.length, points.y.length);
   for (let i = 0; i < n; i++) {
@@ -47,15 +58,20 @@ export function toWavenumberAbsorbance(
       ? wavenumberFromMicrometres(points.x, where)
       : xUnit === 'nm'
         ? wavenumberFromNanometres(points.x, where)
-        : positiveWavenumbers(points.x, file, lines);
+        : xUnit === 'thz'
+          ? positiveWavenumbers(points.x, file, lines).map((f) => f * CM_PER_THZ)
+          : positiveWavenumbers(points.x, file, lines);
   const y =
     yUnit === 'transmittance'
-      ? absorbanceFromTransmittance(points.y, where)
+      ? absorbanceFromTransmittance(points.y, clip)
       : yUnit === 'percent-transmittance'
-        ? absorbanceFromPercentTransmittance(points.y, where)
+        ? absorbanceFromPercentTransmittance(points.y, clip)
         : points.y.slice();
   return { x, y };
 }
+
+/** ν̃ = f / c: 1 THz is 10¹² s⁻¹ / 29 979 245 800 cm s⁻¹ (c exact, SI definition) = 33.356 409 52 cm⁻¹. */
+const CM_PER_THZ = 1e12 / 29_979_245_800;
 
 /** A copy of x in cm⁻¹; an infrared spectrum has no negative wavenumber. */
 function positiveWavenumbers(x: Float64Array, file?: string, lines?: ArrayLike<number>): Float64Array {

@@ -2,7 +2,7 @@
 import type { Spectrum } from '../spectrum/types.js';
 
 /** Abscissa unit of a source file; readers always convert to cm⁻¹. */
-export type XUnit = 'cm-1' | 'um' | 'nm';
+export type XUnit = 'cm-1' | 'um' | 'nm' | 'thz';
 
 /** Ordinate unit of a source file; readers always convert to decadic absorbance. */
 export type YUnit = 'absorbance' | 'transmittance' | 'percent-transmittance';
@@ -31,6 +31,32 @@ export interface ParsedSpectrum {
     yUnit: YUnit;
     /** 1-based position of this spectrum among the spectra of a JCAMP-DX file. */
     block?: number;
+    /** Header name of the y column this spectrum came from, in a delimited file with several. */
+    column?: string;
   };
+  /**
+   * 1 where the point (same index as spectrum.wavenumber) is saturated: its transmittance lay at or below the
+   * absorbance ceiling's floor and was clipped. Such points are not covered: kept out of scoring, peaks and fits.
+   */
+  saturated?: Uint8Array;
   warnings: ParseWarning[];
+}
+
+/**
+ * How to read a spectrum, given once by every command that reads one (see src/cli/readingOptions.ts): units that
+ * override the file's, the block or column to take, and time-domain traces with their reference.
+ */
+export interface SpectrumReadOptions {
+  xUnit?: XUnit;
+  yUnit?: YUnit;
+  /** 1-based block of a multi-block JCAMP-DX file. */
+  block?: number;
+  /** Header name or 1-based y-column number of a delimited file with several spectra. */
+  column?: string | number;
+  /** The files are field-resolved sample traces, each converted against `references`. */
+  timeDomain?: boolean;
+  /** Reference trace files for `timeDomain`, as the user named them. */
+  references?: string[];
+  /** Delay unit of time-domain traces, overriding their headers. */
+  timeUnit?: 'fs' | 'ps';
 }

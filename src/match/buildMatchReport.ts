@@ -10,9 +10,12 @@ import {
 import type { Grid, Recipe, WavenumberWindow } from '../schema/recipe.js';
 import { gridAxis } from '../spectrum/gridAxis.js';
 import { coveredSpan } from './coveredSpan.js';
+import { empiricalPValue } from './empiricalPValue.js';
+import { type ContributionRegion, scoreContributions } from './scoreContributions.js';
 import { scoringMask } from './scoringMask.js';
 import type { Hit, Metric } from './searchTypes.js';
 import type { IdentifiedBand, MixtureResult } from './types.js';
+import type { WrongHitNull } from './wrongHitNull.js';
 
 export interface MatchReportInput {
   query: {
@@ -47,6 +50,12 @@ export interface MatchReportInput {
   /** The mixture fit and how many candidates it chose from, or null without `--mixture`. */
   mixture: (MixtureResult & { candidates: number }) | null;
   bands: readonly IdentifiedBand[];
+  /** The library's best-wrong-hit null (pearson) for per-hit p-values; absent or null gives pValue null. */
+  wrongHitNull?: WrongHitNull | null;
+  /** A hit's processed reference vector on the grid by its search-set row, for the per-region contributions. */
+  referenceOf?: ((row: number) => ArrayLike<number>) | null;
+  /** Regions the contributions are split over. @default DEFAULT_CONTRIBUTION_REGIONS */
+  contributionRegions?: readonly ContributionRegion[];
 }
 
 export interface BuildMatchReportOptions {
@@ -65,43 +74,54 @@ function gridVector(values: ArrayLike<number>): (number | null)[] {
 }
 
 /**
- * Our own reading of how far the best hit stands out (correlation metrics; euclidean distances are read through
- * cos = 1 − d²/2): weak when the best score is below 0.90, or when it is neither 1.5 SD above the library's mean nor
- * 0.02 ahead of the next hit; distinct when it leads the next hit by at least 0.02 and either stands 3 SD or more above
- * the mean or scores 0.98 or more with a lead of 0.05 (a library full of one family, such as proteins, keeps the SD of
- * the scores small and the z of a near-perfect hit low); ambiguous otherwise. The SD tests apply from 20 entries on: in
- * a smaller library even a perfect hit cannot stand 3 SD out.
+ * How far the best hit stands out, read from its calibrated p-value against the library's best wrong hits:
+ * distinct at p ≤ 0.01, ambiguous at p ≤ 0.1 or at the p floor of a library too small to reach 0.01, weak above
+ * (our own cut-offs, stated in the text). Without a null
+ * (a metric other than pearson) the verdict is weak below a score of 0.90 and ambiguous otherwise: no claim of
+ * distinctness is made without a calibration.
  */
-function standingOf(metric: Metric, hits: readonly Hit[], entries: number): MatchReport['standing'] {
+function standingOf(metric: Metric, hits: readonly MatchHit[], floor: number): MatchReport['standing'] {
   const best = hits[0];
   if (best === undefined) return { metric, verdict: 'none', text: 'no library entry could be scored' };
-  const similarity = (h: Hit): number =>
-    metric === 'euclidean' ? 1 - (h.rawScore * h.rawScore) / 2 : h.rawScore;
-  const s = similarity(best);
-  const next = hits[1];
-  const gap = next === undefined ? Number.NaN : s - similarity(next);
-  const z = entries >= 20 ? best.z : null;
-  const zText =
-    best.z === null ? 'no spread to compare with' : `${best.z.toFixed(1)} SD above the library mean`;
-  const gapText = Number.isFinite(gap) ? `leads the next by ${gap.toFixed(3)}` : 'has no runner-up';
-  const head = `best hit '${best.id}' (${metric} ${best.score.toFixed(3)}) ${gapText}, ${zText}`;
-  const clearGap = !Number.isFinite(gap) || gap >= 0.02;
-  if (s < 0.9 || (z !== null && z < 1.5 && !clearGap)) {
-    return { metric, verdict: 'weak', text: `${head}: a weak match; treat every hit as a guess` };
+  const gapText =
+    best.gapToNext === null ? 'has no runner-up' : `leads the next by ${best.gapToNext.toFixed(3)}`;
+  const head = `best hit '${best.id}' (${metric} ${best.score.toFixed(3)}) ${gapText}`;
+  if (best.pValue === null) {
+    const similarity = metric === 'euclidean' ? 1 - (best.rawScore * best.rawScore) / 2 : best.rawScore;
+    return similarity < 0.9
+      ? { metric, verdict: 'weak', text: `${head}: a weak match; treat every hit as a guess` }
+      : {
+          metric,
+          verdict: 'ambiguous',
+          text: `${head}; no calibration for this metric, so no claim it stands out`,
+        };
   }
-  if (clearGap && (z === null || z >= 3 || (s >= 0.98 && gap >= 0.05))) {
-    return { metric, verdict: 'distinct', text: `${head}: stands out from the rest` };
-  }
+  const p = `p = ${best.pValue.toPrecision(2)} against the library's best wrong hits`;
+  // A small library cannot show p ≤ 0.01: at its floor 1/(n + 1) no wrong hit reached the score, and no more is known.
+  if (best.pValue === floor && floor > 0.01)
+    return {
+      metric,
+      verdict: 'ambiguous',
+      text: `${head}, ${p}: no wrong hit in the library scores this high, but ${Math.round(1 / floor) - 1} entries are too few to show p ≤ 0.01`,
+    };
+  if (best.pValue <= 0.01)
+    return { metric, verdict: 'distinct', text: `${head}, ${p}: stands out (p ≤ 0.01)` };
+  if (best.pValue <= 0.1)
+    return {
+      metric,
+      verdict: 'ambiguous',
+      text: `${head}, ${p}: wrong entries score this high now and then`,
+    };
   return {
     metric,
-    verdict: 'ambiguous',
-    text: clearGap
-      ? `${head}: ahead of the next hit but not far out of the library's spread`
-      : `${head}: several entries fit about as well`,
+    verdict: 'weak',
+    text: `${head}, ${p}: a wrong entry often scores this high; treat it as a guess`,
   };
 }
 
-function hitRows(hits: readonly Hit[]): MatchHit[] {
+type Explain = ((h: Hit) => MatchHit['contributions']) | null;
+
+function hitRows(hits: readonly Hit[], nullScores: ArrayLike<number> | null, explain: Explain): MatchHit[] {
   return hits.map((h, i) => ({
     rank: i + 1,
     id: h.id,
@@ -113,6 +133,8 @@ function hitRows(hits: readonly Hit[]): MatchHit[] {
     overlap: h.overlap,
     gapToNext: h.gapToNext === null ? null : finiteOrNull(h.gapToNext),
     z: h.z === null ? null : finiteOrNull(h.z),
+    pValue: nullScores === null ? null : empiricalPValue({ score: h.rawScore, nullScores }),
+    contributions: explain === null ? null : explain(h),
   }));
 }
 
@@ -138,7 +160,21 @@ export function buildMatchReport(
     points++;
   }
   const hitsByMetric: MatchReport['hitsByMetric'] = {};
-  for (const metric of input.metrics) hitsByMetric[metric] = hitRows(input.hitsByMetric[metric] ?? []);
+  const wrong = input.wrongHitNull ?? null;
+  const referenceOf = input.referenceOf ?? null;
+  for (const metric of input.metrics) {
+    const nullScores = wrong !== null && wrong.metric === metric ? wrong.scores : null;
+    // Contributions split Pearson r; the other metrics' scores are not sums of those products.
+    const explain: Explain =
+      referenceOf === null || metric !== 'pearson'
+        ? null
+        : (h) =>
+            scoreContributions(
+              { wavenumber: axis, unknown: query.processed, reference: referenceOf(h.row) },
+              { mask, ...(input.contributionRegions ? { regions: input.contributionRegions } : {}) },
+            ).map((c) => ({ ...c, min: finiteOrNull(c.min), max: finiteOrNull(c.max) }));
+    hitsByMetric[metric] = hitRows(input.hitsByMetric[metric] ?? [], nullScores, explain);
+  }
   const primary = input.metrics[0]!;
   const report = {
     kind: 'bandshelf-match-report' as const,
@@ -173,12 +209,33 @@ export function buildMatchReport(
     metrics: [...input.metrics],
     hits: hitsByMetric[primary] ?? [],
     hitsByMetric,
-    standing: standingOf(primary, input.hitsByMetric[primary] ?? [], library.entries.length),
+    standing: standingOf(primary, hitsByMetric[primary] ?? [], wrong === null ? 0 : 1 / (1 + wrong.sampled)),
+    confidence:
+      wrong === null
+        ? null
+        : {
+            metric: wrong.metric,
+            nullSize: wrong.sampled,
+            entries: wrong.entries,
+            text:
+              `pValue: the share of the library's own best wrong hits scoring at least as high, (1 + count) / ` +
+              `(1 + ${wrong.sampled}); the null matches ${wrong.sampled === wrong.entries ? `all ${wrong.entries} entries` : `${wrong.sampled} evenly spaced of the ${wrong.entries} entries`} ` +
+              `against the rest (its own id and name left out) by Pearson r over ` +
+              `the points both cover. A per-hit score calibration, not the probability that the identification is right.`,
+          },
     mixture:
       mixture === null
         ? null
         : {
-            components: mixture.components.map((c) => ({ ...c })),
+            components: mixture.components.map((c) => ({
+              ...c,
+              standardError: finiteOrNull(c.standardError),
+              interval95: [c.interval95[0], finiteOrNull(c.interval95[1])] as [number, number | null],
+              detectionLimit: {
+                weight: finiteOrNull(c.detectionLimit.weight),
+                share: c.detectionLimit.share,
+              },
+            })),
             r2: finiteOrNull(mixture.r2),
             rss: mixture.rss,
             baseline: mixture.baseline,
@@ -187,7 +244,22 @@ export function buildMatchReport(
             noise: Number.isFinite(mixture.noise) ? mixture.noise : 0,
             noiseSource: mixture.noiseSource,
             k: mixture.k,
-            residualBands: mixture.residualBands.map((b) => ({ ...b, fwhm: finiteOrNull(b.fwhm) })),
+            noiseLag1: mixture.noiseLag1,
+            effectivePoints: mixture.effectivePoints,
+            alpha: mixture.alpha,
+            rule: mixture.rule,
+            notSelected: mixture.notSelected.map((c) => ({
+              ...c,
+              detectionLimit: {
+                weight: finiteOrNull(c.detectionLimit.weight),
+                share: c.detectionLimit.share,
+              },
+            })),
+            residualBands: mixture.residualBands.map((b) => ({
+              ...b,
+              fwhm: finiteOrNull(b.fwhm),
+              width: finiteOrNull(b.width),
+            })),
             points: mixture.points,
             span: mixture.span,
             candidates: mixture.candidates,
@@ -201,6 +273,8 @@ export function buildMatchReport(
       fwhm: finiteOrNull(b.fwhm),
       kind: b.kind,
       assignments: b.assignments.map((a) => ({ ...a, class: [...a.class] })),
+      assignedTo: b.assignedTo === null ? null : { ...b.assignedTo },
+      flags: b.flags.map((f) => ({ ...f })),
       candidates: b.candidates.map((c) => ({ ...c })),
       explained: b.explained,
     })),

@@ -1,13 +1,23 @@
 // Mixture fit: the unknown as a non-negative sum of library spectra plus a free-sign polynomial baseline.
 import { BandshelfError } from '../error.js';
 import type { Grid, WavenumberWindow } from '../schema/recipe.js';
-import { findPeaks } from '../spectrum/findPeaks.js';
 import { gridAxis } from '../spectrum/gridAxis.js';
 import { gridLength } from '../spectrum/gridLength.js';
-import { noiseLevel } from '../spectrum/noiseLevel.js';
-import { savitzkyGolay } from '../spectrum/savitzkyGolay.js';
-import { nnlsNormal } from './nnlsNormal.js';
-import type { MixtureCandidate, MixtureComponent, MixtureResult, ResidualBand } from './types.js';
+import { detectionLimit } from './mixture/detectionLimit.js';
+import { forwardSelection } from './mixture/forwardSelection.js';
+import { invertSymmetric } from './mixture/invertSymmetric.js';
+import { polynomialBasis } from './mixture/polynomialBasis.js';
+import { residualBands } from './mixture/residualBands.js';
+import { residualNoise } from './mixture/residualNoise.js';
+import { weightUncertainty } from './mixture/weightUncertainty.js';
+import type { MixtureCandidate, MixtureComponent, MixtureResult, UnselectedCandidate } from './types.js';
+
+/**
+ * The fit's baseline degree when the caller states none: a quadratic absorbs the offset, slope and bow that differ
+ * between benches (a constant offset alone left cross-bench fits picking spurious broad components to mimic a
+ * slope), while a higher degree starts to mimic broad bands (liquid water's OH stretch spans ~600 cm⁻¹).
+ */
+export const DEFAULT_BASELINE_DEGREE = 2;
 
 export interface FitMixtureOptions {
   /**
@@ -29,13 +39,18 @@ export interface FitMixtureOptions {
   /**
    * Degree of the free-sign polynomial baseline, or null for none (when the recipe already removed the
    * baseline).
-   * @default 1
+   * @default DEFAULT_BASELINE_DEGREE (2)
    */
   baselineDegree?: number | null;
   /**
-   * A further component is kept only if it lowers the residual sum of squares by at least this fraction of
-   * the current one.
+   * Significance level of the partial F-test each further component must pass.
    * @default 0.01
+   */
+  alpha?: number;
+  /**
+   * An extra floor on the fractional drop of the residual sum of squares a further component must give (the F-test
+   * decides; this only adds a practical minimum).
+   * @default 0
    */
   minImprovement?: number;
   /**
@@ -44,25 +59,18 @@ export interface FitMixtureOptions {
    */
   ranges?: readonly WavenumberWindow[] | null;
   /**
-   * The band-free window the noise level is measured in.
-   * @default { min: 1900, max: 2000 }
-   */
-  noiseWindow?: WavenumberWindow;
-  /**
-   * A residual peak is an unexplained band when its height and its prominence both exceed k × noise.
+   * A residual peak is an unexplained band when its height and its prominence both exceed k × the local noise.
    * @default 3
    */
   k?: number;
   /**
-   * Narrowest residual peak (FWHM, cm⁻¹) that counts as a band: white noise makes one- or two-point maxima above
-   * 3σ every few hundred points, while an absorption band spans several grid points.
-   * @default 2 × grid step
+   * Instrument resolution, cm⁻¹: an unexplained band's FWHM must reach it.
+   * @default 4
    */
-  minBandWidth?: number;
+  resolution?: number;
   /**
    * Savitzky–Golay window (points, quadratic) the residual is smoothed with before its peaks are sought, or 0
-   * for none. A light smooth suppresses single-point noise maxima far more than bands several points wide, so a
-   * k × noise threshold (noise of the unsmoothed data) then rarely fires on noise alone.
+   * for none.
    * @default 7
    */
   smoothWindow?: number;
@@ -75,30 +83,6 @@ export interface FitMixtureOptions {
 }
 
 const DEFAULT_GRID: Grid = { start: 4000, stop: 600, step: 2 };
-
-/** Orthonormal basis (modified Gram–Schmidt) of 1, u, …, u^d over the fit points, and R with P = Q·R. */
-function polynomialBasis(u: Float64Array, degree: number): { q: Float64Array[]; r: Float64Array } {
-  const m = degree + 1;
-  const q: Float64Array[] = [];
-  const r = new Float64Array(m * m);
-  for (let j = 0; j < m; j++) {
-    const v = Float64Array.from(u, (x) => x ** j);
-    for (let i = 0; i < j; i++) {
-      const qi = q[i]!;
-      let dot = 0;
-      for (let t = 0; t < v.length; t++) dot += qi[t]! * v[t]!;
-      r[i * m + j] = dot;
-      for (let t = 0; t < v.length; t++) v[t] = v[t]! - dot * qi[t]!;
-    }
-    let norm = 0;
-    for (let t = 0; t < v.length; t++) norm += v[t]! * v[t]!;
-    norm = Math.sqrt(norm);
-    r[j * m + j] = norm;
-    for (let t = 0; t < v.length; t++) v[t] = v[t]! / norm;
-    q.push(v);
-  }
-  return { q, r };
-}
 
 function project(v: Float64Array, q: readonly Float64Array[]): Float64Array {
   const out = Float64Array.from(v);
@@ -118,23 +102,16 @@ function dot(a: Float64Array, b: Float64Array): number {
 
 /**
  * Forward selection over `candidates` (the caller passes its top correlation hits plus the forced ids), each
- * step adding the candidate whose non-negative least-squares fit leaves the smallest residual.
+ * step adding the candidate whose non-negative least-squares fit leaves the smallest residual, kept only if a
+ * nested-model partial F-test at level `alpha` says it lowers the residual more than noise would (see `rule`).
  *
- * Stop criterion: a candidate is kept only if its weight is > 0 and it lowers the residual sum of squares by at
- * least `minImprovement` (1 %) of the previous value; selection also stops at `maxComponents`.
- *
- * The polynomial baseline has free sign. It is not split into ± columns; it is projected out instead (variable
- * projection): the query and every candidate are made orthogonal to the polynomial basis over the fit points,
- * NNLS runs on the projected vectors, and the baseline is then the least-squares polynomial of what the
- * components leave. This gives exactly the minimum of the joint problem (a free-sign block separates), with
- * fewer unknowns for NNLS.
+ * The polynomial baseline has free sign and is projected out (variable projection): the query and every candidate
+ * are made orthogonal to the polynomial basis over the fit points, NNLS runs on the projected vectors, and the
+ * baseline is the least-squares polynomial of what the components leave — exactly the joint minimum.
  *
  * Candidate vectors must be finite wherever the fit runs: the fit points are those where the query and every
  * forced candidate are covered (inside `ranges`), less the few points some candidate covering at least
  * `minCoverage` of them lacks; candidates covering less are skipped and listed.
- * Unexplained bands: maxima of the lightly smoothed residual (`smoothWindow`) whose height and prominence exceed
- * k × noise and whose FWHM is at least `minBandWidth`. Noise: RMS after linear detrend of the residual inside `noiseWindow` (H1's noiseLevel); when the fit does not
- * reach that window, the robust σ of the residual's second differences (median |Δ²r| / (0.6745 √6)) instead.
  */
 export function fitMixture(
   query: ArrayLike<number>,
@@ -144,12 +121,12 @@ export function fitMixture(
   const grid = options.grid ?? DEFAULT_GRID;
   const forcedIds = [...new Set(options.with ?? [])];
   const maxComponents = options.maxComponents ?? 6;
-  const degree = options.baselineDegree === undefined ? 1 : options.baselineDegree;
-  const minImprovement = options.minImprovement ?? 0.01;
+  const degree = options.baselineDegree === undefined ? DEFAULT_BASELINE_DEGREE : options.baselineDegree;
+  const alpha = options.alpha ?? 0.01;
+  const minImprovement = options.minImprovement ?? 0;
   const ranges = options.ranges ?? null;
-  const noiseWindow = options.noiseWindow ?? { min: 1900, max: 2000 };
   const k = options.k ?? 3;
-  const minBandWidth = options.minBandWidth ?? 2 * grid.step;
+  const resolution = options.resolution ?? 4;
   const smoothWindow = options.smoothWindow ?? 7;
   const minCoverage = options.minCoverage ?? 0.95;
   const cols = gridLength(grid);
@@ -166,6 +143,11 @@ export function fitMixture(
         field: 'maxComponents',
       },
     );
+  }
+  if (!(alpha > 0 && alpha < 1)) {
+    throw new BandshelfError('BAD_OPTION', `the significance level must lie between 0 and 1, not ${alpha}`, {
+      field: 'alpha',
+    });
   }
   if (degree !== null && !(Number.isInteger(degree) && degree >= 0 && degree <= 6)) {
     throw new BandshelfError('BAD_OPTION', `the baseline degree must be 0–6 or none, not ${degree}`, {
@@ -250,76 +232,20 @@ export function fitMixture(
   const bp = project(b, q);
   const projected = usable.map((u) => project(u.raw, q));
   const c = usable.length;
-  const gram = new Float64Array(c * c);
-  const atb = new Float64Array(c);
-  for (let i = 0; i < c; i++) {
-    atb[i] = dot(projected[i]!, bp);
-    for (let j = 0; j <= i; j++) {
-      const g = dot(projected[i]!, projected[j]!);
-      gram[i * c + j] = g;
-      gram[j * c + i] = g;
-    }
-  }
-  const btb = dot(bp, bp);
-
-  /** NNLS over a subset of the usable candidates; RSS from the normal equations (cheap, for selection). */
-  const solve = (subset: readonly number[]): { x: Float64Array; rss: number } => {
-    const p = subset.length;
-    if (p === 0) return { x: new Float64Array(0), rss: btb };
-    const g = new Float64Array(p * p);
-    const r = new Float64Array(p);
-    for (let i = 0; i < p; i++) {
-      r[i] = atb[subset[i]!]!;
-      for (let j = 0; j < p; j++) g[i * p + j] = gram[subset[i]! * c + subset[j]!]!;
-    }
-    const { x } = nnlsNormal({ gram: g, atb: r });
-    let rss = btb;
-    for (let i = 0; i < p; i++) {
-      rss -= 2 * x[i]! * r[i]!;
-      for (let j = 0; j < p; j++) rss += x[i]! * g[i * p + j]! * x[j]!;
-    }
-    return { x, rss: Math.max(0, rss) };
-  };
-
-  const selected: number[] = [];
-  const improvementOf = new Map<number, number>();
-  for (let i = 0; i < c; i++) if (usable[i]!.forced) selected.push(i);
-  let current = solve(selected);
-  let stopReason = '';
-  while (true) {
-    if (selected.length >= maxComponents) {
-      stopReason = `reached the maximum of ${maxComponents} components`;
-      break;
-    }
-    if (current.rss <= 1e-24 * Math.max(btb, 1e-300)) {
-      stopReason = 'the fit is exact';
-      break;
-    }
-    let best = -1;
-    let bestFit: { x: Float64Array; rss: number } | null = null;
-    for (let i = 0; i < c; i++) {
-      if (selected.includes(i)) continue;
-      const trial = solve([...selected, i]);
-      if (!(trial.x[selected.length]! > 0)) continue;
-      if (bestFit === null || trial.rss < bestFit.rss) {
-        best = i;
-        bestFit = trial;
-      }
-    }
-    if (bestFit === null) {
-      stopReason =
-        c === selected.length ? 'no candidates left' : 'no further candidate gets a positive weight';
-      break;
-    }
-    const improvement = (current.rss - bestFit.rss) / current.rss;
-    if (improvement < minImprovement) {
-      stopReason = `the best further candidate ('${usable[best]!.candidate.id}') lowers the residual sum of squares by only ${(100 * improvement).toFixed(2)} % (< ${(100 * minImprovement).toFixed(2)} %)`;
-      break;
-    }
-    selected.push(best);
-    improvementOf.set(best, improvement);
-    current = bestFit;
-  }
+  const baselineTerms = degree === null ? 0 : degree + 1;
+  const selection = forwardSelection(
+    { columns: projected, query: bp, forced: usable.flatMap((u, i) => (u.forced ? [i] : [])), baselineTerms },
+    { alpha, maxComponents, minImprovement },
+  );
+  const { selected, gram } = selection;
+  const current = { x: selection.weights, rss: selection.rss };
+  const stopReason =
+    selection.rejected === null
+      ? selection.stopReason
+      : selection.stopReason.replace(
+          'candidate',
+          `candidate ('${usable[selection.rejected]!.candidate.id}')`,
+        );
 
   // Final vectors on the fit points from the original (unprojected) columns, so the reported residual is exact.
   const model = new Float64Array(n);
@@ -363,57 +289,90 @@ export function fitMixture(
     tss += (b[t]! - mean) ** 2;
   }
 
+  const absArea = (v: Float64Array): number => v.reduce((sum, x) => sum + Math.abs(x), 0);
+  const area = selected.map((s, j) => current.x[j]! * absArea(usable[s]!.raw));
+  const signal = area.reduce((sum, a) => sum + a, 0);
+  const parameters = selected.length + baselineTerms;
+  const noiseFigures = residualNoise(Float64Array.from(at, (i) => residual[i]!));
+  const inflation = noiseFigures.inflation;
+  const subGram = (subset: readonly number[]): Float64Array => {
+    const p = subset.length;
+    return Float64Array.from(
+      { length: p * p },
+      (_, e) => gram[subset[Math.floor(e / p)]! * c + subset[e % p]!]!,
+    );
+  };
+  const uncertainty = weightUncertainty(
+    { gram: subGram(selected), weights: current.x, rss, points: n, parameters },
+    { inflation },
+  );
+  // σ of one effective independent point, the σ of ICH's 3.3 σ/S (so the limit is 3.3 × the weight's SE).
+  const sigma = n > parameters ? Math.sqrt((rss / (n - parameters)) * inflation) : Number.POSITIVE_INFINITY;
   const components: MixtureComponent[] = [];
-  let signal = 0;
-  const area = selected.map((s, j) => {
-    const raw = usable[s]!.raw;
-    let sum = 0;
-    for (let t = 0; t < n; t++) sum += Math.abs(raw[t]!);
-    const a = current.x[j]! * sum;
-    signal += a;
-    return a;
-  });
   selected.forEach((s, j) => {
     const u = usable[s]!;
     const weight = current.x[j]!;
     // A non-forced component a later one made redundant (weight 0) explains nothing: leave it out.
     if (weight === 0 && !u.forced) return;
+    const w = uncertainty[j]!;
     const component: MixtureComponent = {
       id: u.candidate.id,
       revision: u.candidate.revision,
       weight,
       share: signal > 0 ? area[j]! / signal : 0,
       forced: u.forced,
-      improvement: improvementOf.get(s) ?? null,
+      improvement: selection.improvementOf.get(s) ?? null,
+      pValue: selection.pValueOf.get(s) ?? null,
+      standardError: w.standardError,
+      interval95: w.interval,
+      significant: w.significant,
+      detectionLimit: detectionLimit({ sigma, sensitivity: w.sensitivity, area: absArea(u.raw), signal }),
     };
     if (u.candidate.name !== undefined) component.name = u.candidate.name;
     if (u.candidate.class !== undefined) component.class = u.candidate.class;
     components.push(component);
   });
+  const notSelected: UnselectedCandidate[] = [];
+  const listed = new Set(selected.map((s) => usable[s]!.candidate.id));
+  usable.forEach((u, i) => {
+    if (listed.has(u.candidate.id)) return;
+    listed.add(u.candidate.id);
+    // Sensitivity of the candidate were it added to the final fit: what the others and the baseline cannot mimic.
+    const withIt = [...selected, i];
+    const p = withIt.length;
+    const inverse = invertSymmetric(subGram(withIt), p);
+    const diag = inverse === null ? Number.POSITIVE_INFINITY : inverse[p * p - 1]!;
+    const sensitivity = diag > 0 && Number.isFinite(diag) ? 1 / Math.sqrt(diag) : 0;
+    const entry: UnselectedCandidate = {
+      id: u.candidate.id,
+      revision: u.candidate.revision,
+      detectionLimit: detectionLimit({ sigma, sensitivity, area: absArea(u.raw), signal }),
+    };
+    if (u.candidate.name !== undefined) entry.name = u.candidate.name;
+    if (u.candidate.class !== undefined) entry.class = u.candidate.class;
+    notSelected.push(entry);
+  });
 
-  const residualSpectrum = { wavenumber: axis, absorbance: residual };
-  let noise = noiseLevel(residualSpectrum, noiseWindow);
-  let noiseSource: MixtureResult['noiseSource'] = 'band-free-window';
-  if (!(noise > 0)) {
-    noiseSource = 'residual-differences';
-    const d2: number[] = [];
-    for (let i = 1; i < cols - 1; i++) {
-      const v = residual[i - 1]! - 2 * residual[i]! + residual[i + 1]!;
-      if (Number.isFinite(v)) d2.push(Math.abs(v));
-    }
-    d2.sort((x, y) => x - y);
-    const median = d2.length === 0 ? 0 : d2[d2.length >> 1]!;
-    noise = median / (0.6745 * Math.sqrt(6));
-  }
-  const threshold = k * noise;
-  const searched =
-    smoothWindow >= 3 ? savitzkyGolay(residual, { window: smoothWindow, order: 2, derivative: 0 }) : residual;
-  const residualBands: ResidualBand[] =
-    threshold > 0
-      ? findPeaks({ wavenumber: axis, absorbance: searched }, { minProminence: threshold })
-          .filter((p) => p.height > threshold && p.fwhm >= minBandWidth)
-          .map((p) => ({ position: p.position, height: p.height, prominence: p.prominence, fwhm: p.fwhm }))
-      : [];
+  const bands = residualBands({ wavenumber: axis, absorbance: residual }, query, {
+    k,
+    resolution,
+    smoothWindow,
+  });
+  const baselineText =
+    degree === null
+      ? 'no baseline'
+      : `a free-sign polynomial baseline of degree ${degree}${options.baselineDegree === undefined ? ' (the default: it absorbs offset, slope and bow between benches without mimicking broad bands)' : ''}`;
+  const rule =
+    `forward selection from ${c} candidate(s) with ${baselineText}: a further component is kept only if a partial ` +
+    `F-test of its weight against the fit without it rejects at α = ${alpha} (F(1, n_eff − p); residuals taken as ` +
+    `Gaussian with one variance and AR(1) correlation, n_eff = n(1 − ρ)/(1 + ρ) from the residual's lag-1 ` +
+    `autocorrelation, here ρ = ${noiseFigures.lag1.toFixed(2)}, n_eff = ${(n / inflation).toFixed(0)} of ${n} points)` +
+    `${maxComponents < c ? `; at most ${maxComponents} components` : ''}. ` +
+    `Each weight has a standard error from s²·(1 + ρ)/(1 − ρ)·(AᵀA)⁻¹ of the final fit and a 95 % t interval; a ` +
+    `component whose interval reaches 0 is not significant. Detection limit 3.3 σ/S (ICH Q2(R1)), S the ` +
+    `component's sensitivity net of the others and the baseline. Unexplained bands: residual maxima above ` +
+    `${k} × the local noise (±100 cm⁻¹, robust σ of first differences) with FWHM ≥ ${resolution} cm⁻¹, ` +
+    `none at the fit's edges.`;
 
   return {
     components,
@@ -422,16 +381,18 @@ export function fitMixture(
     baseline,
     fitted,
     residual,
-    noise,
-    noiseSource,
+    noise: noiseFigures.sigma,
+    noiseSource: 'residual-differences',
+    noiseLag1: noiseFigures.lag1,
+    effectivePoints: n / inflation,
+    alpha,
+    rule,
+    notSelected,
     k,
-    residualBands,
+    residualBands: bands,
     points: n,
     span: { min: lo, max: hi },
-    criterion:
-      `forward selection from ${c} candidate(s): a component is kept only if its weight is > 0 and it lowers the ` +
-      `residual sum of squares by at least ${(100 * minImprovement).toFixed(2)} % of the previous value; ` +
-      `at most ${maxComponents} components; baseline ${degree === null ? 'none' : `polynomial of degree ${degree}, free sign`}`,
+    criterion: rule,
     stopReason,
     skipped,
   };

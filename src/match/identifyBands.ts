@@ -5,9 +5,11 @@ import { findPeaks } from '../spectrum/findPeaks.js';
 import { findShoulders } from '../spectrum/findShoulders.js';
 import type { Spectrum } from '../spectrum/types.js';
 import { buildBandIndex } from './buildBandIndex.js';
+import { componentAtBand } from './componentAtBand.js';
+import { rankAssignments } from './rankAssignments.js';
 import { searchBands } from './searchBands.js';
 import { shippedAssignments } from './shippedAssignments.js';
-import type { BandIndex, IdentifiedBand, MixtureResult, PeakTable } from './types.js';
+import type { BandIndex, IdentifiedBand, MixtureCandidate, MixtureResult, PeakTable } from './types.js';
 
 export interface IdentifyBandsOptions {
   /**
@@ -30,7 +32,16 @@ export interface IdentifyBandsOptions {
    * `tolerance` of it.
    * @default null (explained is then null)
    */
-  mixture?: Pick<MixtureResult, 'residualBands'> | null;
+  mixture?:
+    | (Pick<MixtureResult, 'residualBands'> & Partial<Pick<MixtureResult, 'components' | 'baseline'>>)
+    | null;
+  /**
+   * The vectors the mixture fit used (the candidates it was offered, on the unknown's grid): with them a band a
+   * fitted component carries (its weight × vector there is most of the band's height) is assigned to that
+   * component and no table row is offered for it.
+   * @default [] (no band is assigned to a component)
+   */
+  componentVectors?: readonly Pick<MixtureCandidate, 'id' | 'revision' | 'vector'>[];
   /**
    * cm⁻¹ for a library peak to count as the same band, and for a residual band to sit on it.
    * @default 4
@@ -57,8 +68,10 @@ export interface IdentifyBandsOptions {
 /**
  * Bands come from findPeaks and findShoulders on the spectrum as given (the CLI passes the unknown's processed
  * grid vector, the same basis the library's stored peaks were found on); findShoulders itself drops the noise
- * minima inside broad bands and the minima that are a peak's own curvature. A table row applies when its range
- * holds the band position; rows are listed nearest centre first. Bands are returned from high to low
+ * minima inside broad bands and the minima that are a peak's own curvature. A band a fitted component carries is
+ * assigned to that component first (see `componentAtBand`); for the others the table rows are offered within each
+ * row's own tolerance, ranked by `rankAssignments` (position, width, relative intensity). Region rows (water-vapour
+ * lines) only flag the band, they never assign it. Bands are returned from high to low
  * wavenumber, the way spectroscopists read a spectrum.
  */
 export function identifyBands(unknown: Spectrum, options: IdentifyBandsOptions = {}): IdentifiedBand[] {
@@ -83,22 +96,50 @@ export function identifyBands(unknown: Spectrum, options: IdentifyBandsOptions =
     ...shoulders.map((p) => ({ ...p, kind: 'shoulder' as const })),
   ].sort((a, b) => b.position - a.position);
 
+  const vectors = options.componentVectors ?? [];
+  const strongest = found.reduce((m, b) => Math.max(m, b.height), 0);
   return found.map((band): IdentifiedBand => {
-    const rows = assignments
-      .filter((row) => band.position >= row.min && band.position <= row.max)
-      .map((row) => ({ row, distance: Math.abs(band.position - (row.centre ?? (row.min + row.max) / 2)) }))
-      .sort((a, b) => a.distance - b.distance)
-      .map(({ row }) => ({
+    const assignedTo =
+      mixture?.components === undefined || vectors.length === 0
+        ? null
+        : componentAtBand({
+            wavenumber: unknown.wavenumber,
+            absorbance: unknown.absorbance,
+            position: band.position,
+            mixture: { components: mixture.components, baseline: mixture.baseline ?? null },
+            vectors,
+          });
+    const flags = assignments
+      .filter((row) => row.region && band.position >= row.min && band.position <= row.max)
+      .map((row) => ({
+        ...(row.id === undefined ? {} : { id: row.id }),
         label: row.label,
-        vibration: row.vibration,
-        group: row.group,
-        class: [...row.class],
         source: row.source,
-        basis: row.basis,
-        origin: row.origin,
-        min: row.min,
-        max: row.max,
       }));
+    const rows =
+      assignedTo !== null
+        ? []
+        : rankAssignments(
+            {
+              position: band.position,
+              fwhm: band.fwhm,
+              relative: strongest > 0 ? band.height / strongest : 0,
+            },
+            assignments,
+          ).map(({ row, score }) => ({
+            ...(row.id === undefined ? {} : { id: row.id }),
+            label: row.label,
+            vibration: row.vibration,
+            group: row.group,
+            class: [...row.class],
+            source: row.source,
+            basis: row.basis,
+            origin: row.origin,
+            min: row.min,
+            max: row.max,
+            tolerance: row.tolerance,
+            score,
+          }));
     const candidates =
       index === null || index.entries.length === 0 || maxCandidates <= 0
         ? []
@@ -120,6 +161,8 @@ export function identifyBands(unknown: Spectrum, options: IdentifyBandsOptions =
       fwhm: Number.isFinite(band.fwhm) ? band.fwhm : Number.NaN,
       kind: band.kind,
       assignments: rows,
+      assignedTo,
+      flags,
       candidates,
       explained,
     };

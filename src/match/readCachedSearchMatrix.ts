@@ -1,5 +1,6 @@
 // Reads a search matrix back from its disk cache file, or returns null when there is no current one.
 import { closeSync, fstatSync, openSync, readSync } from 'node:fs';
+import { crc32 } from 'node:zlib';
 import { allocateMatrixMemory } from './allocateMatrixMemory.js';
 import { searchMatrixCacheFormat as F, type SearchMatrixCacheHeader } from './searchMatrixCacheFormat.js';
 import { searchMatrixLayout } from './searchMatrixLayout.js';
@@ -11,6 +12,11 @@ export interface ReadCachedSearchMatrixOptions {
    * @default false
    */
   shared?: boolean;
+  /**
+   * Told when a current file's bytes fail their checksum (the caller then rebuilds).
+   * @default a warning line on stderr
+   */
+  onDamaged?: (message: string) => void;
 }
 
 const CHUNK = 64 * 1024 * 1024;
@@ -54,12 +60,19 @@ export function readCachedSearchMatrix(
     if (layout.stride !== header.stride || layout.end - layout.cached !== header.bytes) return null;
     if (size !== dataStart + header.bytes) return null;
     const memory = allocateMatrixMemory(layout, { shared: options.shared ?? false });
+    let sum = 0;
     for (let offset = 0; offset < header.bytes; ) {
       const length = Math.min(CHUNK, header.bytes - offset);
       const view = new Uint8Array(memory.buffer, layout.cached + offset, length);
       const got = readSync(fd, view, 0, length, dataStart + offset);
       if (got <= 0) return null;
+      sum = crc32(view.subarray(0, got), sum);
       offset += got;
+    }
+    if (sum !== header.crc32) {
+      const warn = options.onDamaged ?? ((m: string) => process.stderr.write(`bandshelf: warning: ${m}\n`));
+      warn(`the search cache ${path} fails its checksum (damaged on disk); rebuilding it`);
+      return null;
     }
     return {
       key: header.key,

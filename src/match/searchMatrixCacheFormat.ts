@@ -14,11 +14,13 @@ export interface SearchMatrixCacheHeader {
   overlap: number;
   /** Bytes of the cached region that follow the header. */
   bytes: number;
+  /** CRC-32 (ISO-HDLC, as zlib) of those bytes: flipped bytes of the same file size are caught before use. */
+  crc32: number;
 }
 
 export const searchMatrixCacheFormat = {
   magic: 'BNDSHLF-SEARCH-MATRIX\n',
-  version: 1,
+  version: 2,
   /** The data start at a multiple of this, after magic, header length (uint32 LE) and header. */
   alignment: 4096,
 } as const;

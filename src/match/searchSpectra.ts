@@ -11,15 +11,16 @@ import { metricPreparation } from './metricPreparation.js';
 import { rowStatus } from './rowStatus.js';
 import { scoringMask } from './scoringMask.js';
 import { searchMatrixKey } from './searchMatrixKey.js';
-import type {
-  Hit,
-  KernelRunner,
-  MatrixPreparation,
-  MatrixSource,
-  Metric,
-  QuerySummary,
-  ScoringSet,
-  SearchMatrix,
+import {
+  type Hit,
+  type KernelRunner,
+  type MatrixPreparation,
+  type MatrixSource,
+  type Metric,
+  MIN_OVERLAP_DEFAULT,
+  type QuerySummary,
+  type ScoringSet,
+  type SearchMatrix,
 } from './searchTypes.js';
 import { topK } from './topK.js';
 
@@ -43,7 +44,7 @@ export interface SearchSpectraOptions {
   /**
    * Least wavenumber range, cm⁻¹, a query must cover inside the ranges (else SMALL_OVERLAP), and a reference
    * must share with it (else the reference is left out of the ranking).
-   * @default 200
+   * @default MIN_OVERLAP_DEFAULT (200)
    */
   minOverlap?: number;
   /**
@@ -127,7 +128,7 @@ export function searchSpectra(
       field: 'k',
     });
   }
-  const minOverlap = options.minOverlap ?? 200;
+  const minOverlap = options.minOverlap ?? MIN_OVERLAP_DEFAULT;
   if (!Number.isFinite(minOverlap) || minOverlap < 0) {
     throw new BandshelfError('BAD_OPTION', `the minimum overlap must be ≥ 0 cm⁻¹, not ${minOverlap}`, {
       field: 'minOverlap',
@@ -342,7 +343,12 @@ function rankHits(
     const value = reported(r);
     const next = order[j + 1];
     const gap = next === undefined ? null : Math.abs(value - reported(next));
-    const z = n > 1 && sd > 0 ? ((euclidean ? -1 : 1) * (value - mean)) / sd : null;
+    // The hit's own score is left out of the spread it is measured against, else a clear best hit inflates the
+    // sd and caps its own z near √(n − 1)·…; mean and sd are those of the other n − 1 scores.
+    const m1 = n > 2 ? (sum - value) / (n - 1) : Number.NaN;
+    const sd1 =
+      n > 2 ? Math.sqrt(Math.max(0, (sum2 - value * value - (sum - value) * m1) / (n - 2))) : Number.NaN;
+    const z = n > 2 && sd1 > 0 ? ((euclidean ? -1 : 1) * (value - m1)) / sd1 : null;
     hits.push({
       id: entry.id,
       revision: entry.revision,

@@ -6,6 +6,9 @@ import type { Grid, WavenumberWindow } from '../schema/recipe.js';
  * (blind to offsets and slow baselines); `cosine`: cosine of the uncentred vectors; `euclidean`: distance between
  * the unit-normalised vectors (0 = same shape, at most 2).
  */
+/** The least wavenumber range, cm⁻¹, unknown and reference must share by default: the one owner of that default. */
+export const MIN_OVERLAP_DEFAULT = 200;
+
 export type Metric = 'pearson' | 'derivative' | 'cosine' | 'euclidean';
 
 /** One library row as the search reports it. A library `SearchSetEntry` satisfies it. */
@@ -51,8 +54,9 @@ export interface Hit {
   /** How far this hit leads the next one in the ranking, in rawScore units (≥ 0); null for the last scored row. */
   gapToNext: number | null;
   /**
-   * Standing among all library scores of this query: (rawScore − mean) / sd, sign-flipped for euclidean so that
-   * larger always means better; null when fewer than two rows were scored or all scored alike. After an int8 scan
+   * Standing among the other library scores of this query: (rawScore − mean) / sd with mean and sd over every
+   * scored row except this one, sign-flipped for euclidean so that larger always means better; null when fewer
+   * than three rows were scored or the others all scored alike. After an int8 scan
    * the rows not rescored enter the mean and sd with their int8 estimates (within about 1e-3 of the exact value).
    */
   z: number | null;

@@ -3,11 +3,13 @@ import { type BandAssignment, bandAssignmentTableSchema } from '../schema/bandAs
 import table from './bandAssignments.json' with { type: 'json' };
 
 /**
- * How the shipped rows were built: only from the band table of the project's outside-reference notes. A single
- * published value (`~1650`) becomes a window of ±10 cm⁻¹ around it (`centre` keeps the value), because a measured
- * band of a film or a biofluid sits within a few cm⁻¹ of the tabulated one; a published range (`1648–1657`) is
- * kept as given. Rows whose table line names no single source cite the table's sources together; small-molecule
- * and gas-phase rows without a source say "common practice".
+ * How the shipped rows were built: from the published band tables (Barth 2007, Movasaghi et al. 2008, Bertie & Lan
+ * 1996). A single published value (`~1650`) becomes a window of ±10 cm⁻¹ around it (`centre` keeps the value); a
+ * published range (`1648–1657`) is kept as given. Each row carries its own `tolerance` beyond that range: 3–4 cm⁻¹
+ * for narrow bands, wider for broad ones (O–H stretch 60, amide A 30, water combination and libration 40). Rows of
+ * dissolved metabolites recalled without a checked source say "from memory"; water vapour is a `region` flag over
+ * 2000–1300 and 3900–3500 cm⁻¹, because its many narrow rotational lines are no single band of a condensed-phase
+ * spectrum.
  *
  * Returns a fresh copy of the shipped rows, each with `origin: 'shipped'`, sorted by descending wavenumber.
  */

@@ -86,6 +86,25 @@ export interface MixtureComponent {
   forced: boolean;
   /** Fractional drop of the residual sum of squares when it was added (null for forced components). */
   improvement: number | null;
+  /** p-value of the partial F-test that admitted it (null for forced components). */
+  pValue: number | null;
+  /** Standard error of the weight (covariance of the final least-squares fit, effective-dof corrected). */
+  standardError: number;
+  /** 95 % interval of the weight, lower end clipped at 0. */
+  interval95: [number, number];
+  /** The interval's unclipped lower end is above 0; a component that is not is not reported as found. */
+  significant: boolean;
+  /** ICH Q2(R1) detection limit 3.3 σ/S, as a weight and as a share of the signal. */
+  detectionLimit: { weight: number; share: number };
+}
+
+/** A candidate the fit was offered but did not keep, with the smallest amount this spectrum could have shown. */
+export interface UnselectedCandidate {
+  id: string;
+  revision: number;
+  name?: string;
+  class?: string;
+  detectionLimit: { weight: number; share: number };
 }
 
 /** A residual peak above k × noise: absorption the fitted components do not explain. */
@@ -95,6 +114,12 @@ export interface ResidualBand {
   height: number;
   prominence: number;
   fwhm: number;
+  /** FWHM of the residual band, cm⁻¹ (the width the resolution test used). */
+  width: number;
+  /** Residual height over the unknown's value at that position (0–1). */
+  share: number;
+  /** Local noise σ the k × threshold was built on. */
+  localNoise: number;
 }
 
 export interface MixtureResult {
@@ -108,10 +133,19 @@ export interface MixtureResult {
   fitted: Float64Array;
   /** Query minus fitted on the grid, NaN outside the fitted points. */
   residual: Float64Array;
-  /** Noise level (RMS after linear detrend) the unexplained-band threshold is built on. */
+  /** Robust noise σ of the residual (MAD of first differences, AR(1)-corrected). */
   noise: number;
   /** Where the noise figure came from. */
   noiseSource: 'band-free-window' | 'residual-differences';
+  /** Lag-1 autocorrelation of the residual noise and the effective number of independent points it implies. */
+  noiseLag1: number;
+  effectivePoints: number;
+  /** Significance level of the selection test. */
+  alpha: number;
+  /** The selection, uncertainty, detection-limit and residual-band rules in words, for reports. */
+  rule: string;
+  /** Offered candidates the fit did not keep, each with its detection limit. */
+  notSelected: UnselectedCandidate[];
   /** Multiple of the noise a residual peak must exceed. */
   k: number;
   residualBands: ResidualBand[];
@@ -133,7 +167,10 @@ export interface IdentifiedBand {
   /** Full width at half prominence, cm⁻¹ (NaN where it could not be measured). */
   fwhm: number;
   kind: 'peak' | 'shoulder';
+  /** Table rows offered for a band no fitted component carries, best first (empty when `assignedTo` is set). */
   assignments: {
+    /** The matched row's id (shipped rows carry one). */
+    id?: string;
     label: string;
     vibration: string;
     group: string;
@@ -143,7 +180,15 @@ export interface IdentifiedBand {
     origin: string;
     min: number;
     max: number;
+    /** The row's own tolerance beyond min–max, cm⁻¹. */
+    tolerance: number;
+    /** 0–1 ranking score: position agreement × width agreement × relative intensity weight. */
+    score: number;
   }[];
+  /** The fitted component that carries the band (most of its height), or null. */
+  assignedTo: { id: string; revision: number; name?: string; share: number } | null;
+  /** Region rows the band lies in (e.g. water-vapour lines may disturb it): a caution, not an assignment. */
+  flags: { id?: string; label: string; source: string }[];
   /** Library entries with a stored peak within tolerance, closest first. */
   candidates: {
     id: string;

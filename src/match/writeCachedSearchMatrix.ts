@@ -10,6 +10,7 @@ import {
   writeSync,
 } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
+import { crc32 } from 'node:zlib';
 import { searchMatrixCacheFormat as F, type SearchMatrixCacheHeader } from './searchMatrixCacheFormat.js';
 import type { SearchMatrix } from './searchTypes.js';
 
@@ -44,7 +45,12 @@ export function writeCachedSearchMatrix(
     points: matrix.points,
     overlap: matrix.overlap,
     bytes: layout.end - layout.cached,
+    crc32: 0,
   };
+  for (let offset = 0; offset < header.bytes; offset += CHUNK) {
+    const length = Math.min(CHUNK, header.bytes - offset);
+    header.crc32 = crc32(new Uint8Array(matrix.memory.buffer, layout.cached + offset, length), header.crc32);
+  }
   const json = Buffer.from(JSON.stringify(header), 'utf8');
   const magic = Buffer.from(F.magic, 'ascii');
   const headLength = Math.ceil((magic.length + 4 + json.length) / F.alignment) * F.alignment;

@@ -10,12 +10,27 @@ export type AssignmentBasis = z.output<typeof assignmentBasisSchema>;
 
 export const bandAssignmentSchema = z
   .object({
+    /** Stable short name of the row (shipped rows carry one; a lab row may), shown with every match. */
+    id: z
+      .string()
+      .regex(/^[a-z0-9][a-z0-9-]*$/)
+      .optional(),
     /** Lowest wavenumber of the range, cm⁻¹ (inclusive). */
     min: z.number().finite().positive(),
     /** Highest wavenumber of the range, cm⁻¹ (inclusive). */
     max: z.number().finite().positive(),
     /** Where the published value sits inside the range, cm⁻¹, when the source gives one value. */
     centre: z.number().finite().positive().optional(),
+    /**
+     * How far outside min–max a measured band may sit and still match, cm⁻¹: the row's own allowance for shifts
+     * with environment and resolution (broad bands such as the O–H stretch wider).
+     */
+    tolerance: z.number().finite().nonnegative().default(4),
+    /**
+     * A region flag rather than a band: the range marks where something (such as the many narrow water-vapour lines)
+     * may disturb the spectrum; it never claims a single band as an assignment.
+     */
+    region: z.boolean().default(false),
     /** Short name of the band, e.g. `amide I`. */
     label: z.string().trim().min(1),
     /** The vibration, e.g. `C=O stretch`. */

@@ -32,8 +32,33 @@ export const matchHitSchema = z
     overlap: z.number().finite().nonnegative(),
     /** Lead over the next hit in rawScore units; null for the last scored row. */
     gapToNext: z.number().finite().nullable(),
-    /** (rawScore − mean) / sd over every library score of this query (sign-flipped for euclidean). */
+    /** (rawScore − mean) / sd over every other library score of this query (sign-flipped for euclidean). */
     z: z.number().finite().nullable(),
+    /**
+     * Empirical p-value of this score against the library's own best wrong hits (see `confidence`): how often an
+     * entry's best match to a different substance scores at least this high. A per-hit score calibration, not the
+     * probability that the identification is right. Null for metrics without a null (only pearson has one).
+     */
+    pValue: z.number().finite().min(0).max(1).nullable().default(null),
+    /**
+     * Why this hit: each spectral region's share of the Pearson r (Σ over the region of the products of the
+     * centred, unit-norm vectors over the scored points); the shares sum to r. Null where not computed.
+     */
+    contributions: z
+      .array(
+        z
+          .object({
+            label: z.string().min(1),
+            /** Region bounds, cm⁻¹; null for the `elsewhere` row (points in no named region). */
+            min: z.number().finite().nullable(),
+            max: z.number().finite().nullable(),
+            share: z.number().finite(),
+            points: z.number().int().positive(),
+          })
+          .strict(),
+      )
+      .nullable()
+      .default(null),
   })
   .strict();
 export type MatchHit = z.output<typeof matchHitSchema>;
@@ -44,6 +69,14 @@ export const standingSchema = z
     metric: metricSchema,
     verdict: z.enum(['distinct', 'ambiguous', 'weak', 'none']),
     text: z.string().min(1),
+  })
+  .strict();
+
+/** ICH Q2(R1) detection limit 3.3 σ/S: as a weight (null if not detectable at all) and as a share of the signal. */
+export const detectionLimitSchema = z
+  .object({
+    weight: z.number().finite().nonnegative().nullable(),
+    share: z.number().finite().min(0).max(1),
   })
   .strict();
 
@@ -59,6 +92,26 @@ export const mixtureComponentSchema = z
     forced: z.boolean(),
     /** Fractional drop of the residual sum of squares when forward selection added it; null when forced. */
     improvement: z.number().finite().nullable(),
+    /** p-value of the partial F-test that admitted it; null when forced. */
+    pValue: z.number().min(0).max(1).nullable(),
+    /** Standard error of the weight (final least-squares covariance, effective-dof corrected); null if infinite. */
+    standardError: z.number().finite().nonnegative().nullable(),
+    /** 95 % interval of the weight [low, high], low clipped at 0; high null if unbounded. */
+    interval95: z.tuple([z.number().finite().nonnegative(), z.number().finite().nullable()]),
+    /** The interval's lower end is above 0; a component that is not significant is not reported as found. */
+    significant: z.boolean(),
+    detectionLimit: detectionLimitSchema,
+  })
+  .strict();
+
+/** An offered candidate the fit did not keep, with what this spectrum could have shown of it. */
+export const unselectedCandidateSchema = z
+  .object({
+    id: z.string().min(1),
+    revision: z.number().int().positive(),
+    name: z.string().optional(),
+    class: z.string().optional(),
+    detectionLimit: detectionLimitSchema,
   })
   .strict();
 
@@ -68,6 +121,12 @@ export const residualBandSchema = z
     height: z.number().finite(),
     prominence: z.number().finite(),
     fwhm: z.number().finite().nullable(),
+    /** FWHM of the residual band, cm⁻¹ (at least the instrument resolution). */
+    width: z.number().finite().nullable(),
+    /** Residual height over the unknown's value at that position, 0–1. */
+    share: z.number().finite().min(0).max(1),
+    /** Local noise σ the k × threshold was built on. */
+    localNoise: z.number().finite().nonnegative(),
   })
   .strict();
 
@@ -90,6 +149,14 @@ export const mixtureReportSchema = z
     residual: gridVectorSchema,
     noise: z.number().finite().nonnegative(),
     noiseSource: z.enum(['band-free-window', 'residual-differences']),
+    /** Lag-1 autocorrelation of the residual noise and the effective independent points it implies. */
+    noiseLag1: z.number().finite(),
+    effectivePoints: z.number().finite().nonnegative(),
+    /** Significance level of the selection test. */
+    alpha: z.number().gt(0).lt(1),
+    /** The selection, uncertainty, detection-limit and residual-band rules in words. */
+    rule: z.string().min(1),
+    notSelected: z.array(unselectedCandidateSchema),
     k: z.number().finite().positive(),
     /** Peaks of the residual above k × noise: the bands the fitted components do not explain. */
     residualBands: z.array(residualBandSchema),
@@ -113,6 +180,8 @@ export const identifiedBandSchema = z
     assignments: z.array(
       z
         .object({
+          /** The matched table row's id. */
+          id: z.string().optional(),
           label: z.string().min(1),
           vibration: z.string(),
           group: z.string(),
@@ -122,9 +191,30 @@ export const identifiedBandSchema = z
           origin: z.string(),
           min: z.number().finite(),
           max: z.number().finite(),
+          /** The row's own tolerance beyond min–max, cm⁻¹. */
+          tolerance: z.number().finite().nonnegative(),
+          /** 0–1: position agreement × width agreement × relative-intensity weight. */
+          score: z.number().finite().min(0).max(1),
         })
         .strict(),
     ),
+    /** The fitted mixture component that carries most of the band's height; table rows are then not offered. */
+    assignedTo: z
+      .object({
+        id: z.string().min(1),
+        revision: z.number().int().positive(),
+        name: z.string().optional(),
+        share: z.number().finite(),
+      })
+      .strict()
+      .nullable()
+      .default(null),
+    /** Region rows the band lies in (e.g. among water-vapour lines): a caution, not an assignment. */
+    flags: z
+      .array(
+        z.object({ id: z.string().optional(), label: z.string().min(1), source: z.string().min(1) }).strict(),
+      )
+      .default([]),
     candidates: z.array(
       z
         .object({
@@ -218,6 +308,18 @@ export const matchReportSchema = z
       })
       .strict(),
     standing: standingSchema,
+    /** How `pValue` was calibrated: the null, its size, and what it means. Null when no null was computed. */
+    confidence: z
+      .object({
+        metric: metricSchema,
+        /** Best-wrong-hit scores in the null, and entries in the library. */
+        nullSize: z.number().int().nonnegative(),
+        entries: z.number().int().nonnegative(),
+        text: z.string().min(1),
+      })
+      .strict()
+      .nullable()
+      .default(null),
     mixture: mixtureReportSchema.nullable(),
     bands: z.array(identifiedBandSchema),
   })

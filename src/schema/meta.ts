@@ -66,8 +66,9 @@ export const entryIdSchema = z
   })
   .meta({
     description:
-      'Slug: lowercase letters, digits, "-", "_", "."; starts with a letter or digit; no ".."; ≤ 80.',
-    pattern: '^(?!.*\\.\\.)[a-z0-9][a-z0-9._-]{0,79}$',
+      'Slug: lowercase letters, digits, "-", "_", "."; starts with a letter or digit; no ".."; not ending in "."; not a Windows device name (con, nul, com1…); ≤ 80.',
+    pattern:
+      '^(?!.*\\.\\.)(?!.*\\.$)(?!(?:con|prn|aux|nul|com[0-9]|lpt[0-9])(?:\\.|$))[a-z0-9][a-z0-9._-]{0,79}$',
   });
 
 function entryIdProblem(id: string): string | undefined {
@@ -81,6 +82,10 @@ function entryIdProblem(id: string): string | undefined {
   const bad = /[^a-z0-9._-]/.exec(id);
   if (bad)
     return `must use only lowercase letters, digits, "-", "_" and "." (found ${JSON.stringify(bad[0])})`;
+  // Windows reserves these device names, with any extension, so export and site files could not be copied there.
+  if (/^(con|prn|aux|nul|com[0-9]|lpt[0-9])(\..*)?$/i.test(id))
+    return 'is a name Windows reserves for a device';
+  if (id.endsWith('.')) return 'must not end with "." (Windows drops it from file names)';
   return undefined;
 }
 
@@ -138,13 +143,18 @@ const sourceSchema = text(1000)
 
 const tagSchema = line(60).refine((t) => !t.includes(';'), { message: 'must not contain ";"' });
 
+/** An enum whose values are lower case, accepting any case (`Biofluid`, `ATR`) and stray spaces around. */
+function caseInsensitiveEnum<const T extends readonly [string, ...string[]]>(values: T) {
+  return z.preprocess((v) => (typeof v === 'string' ? v.trim().toLowerCase() : v), z.enum(values));
+}
+
 /** Metadata of one entry. Only `id` and `name` are required. */
 export const entryMetaSchema = z
   .object({
     id: entryIdSchema,
     name: line(300),
     synonyms: z.array(line(300)).max(100),
-    class: z.enum(entryClasses),
+    class: caseInsensitiveEnum(entryClasses),
     formula: formulaSchema,
     inchiKey: inchiKeySchema,
     cas: casSchema,
@@ -158,7 +168,7 @@ export const entryMetaSchema = z
         unit: line(40),
       })
       .strict(),
-    technique: z.enum(techniques),
+    technique: caseInsensitiveEnum(techniques),
     /** Spectral resolution in cm⁻¹. */
     resolution: z.number().finite().positive(),
     /** Sample temperature in °C. */

@@ -41,7 +41,10 @@ export const baselineSchema = z.discriminatedUnion('method', [
   z.object({ method: z.literal('none') }).strict(),
   /** Lower convex hull, anchored on the spectrum's ends. */
   z.object({ method: z.literal('rubberband') }).strict(),
-  /** Asymmetric least squares (Eilers & Boelens 2005). */
+  /**
+   * Asymmetric least squares (Eilers & Boelens 2005). λ: per point in a version-1 recipe; in cm⁴ (second
+   * differences) in version 2, i.e. the per-point λ of a 1 cm⁻¹ spectrum, rescaled to each file's spacing.
+   */
   z
     .object({
       method: z.literal('als'),
@@ -50,7 +53,10 @@ export const baselineSchema = z.discriminatedUnion('method', [
       iterations: z.number().int().min(1).max(100).default(10),
     })
     .strict(),
-  /** Adaptive iteratively reweighted penalised least squares (Zhang et al. 2010). */
+  /**
+   * Adaptive iteratively reweighted penalised least squares (Zhang et al. 2010). λ: per point in a version-1
+   * recipe; in cm² (first differences) in version 2, rescaled to each file's spacing.
+   */
   z
     .object({
       method: z.literal('airpls'),
@@ -92,7 +98,12 @@ export type TimeDomainStep = z.output<typeof timeDomainSchema>;
 
 export const recipeSchema = z
   .object({
-    version: z.literal(1).default(1),
+    /**
+     * What the parameters mean. 1: smoothing and baseline parameters in points of each file (libraries made
+     * before version 2; kept so their stored vectors recompute identically). 2: every smoothing and baseline
+     * parameter in wavenumbers, so a spectrum gives the same processed vector at any point spacing.
+     */
+    version: z.union([z.literal(1), z.literal(2)]).default(2),
     crop: windowSchema.nullable().default(null),
     /** Windows removed before anything else; default the atmospheric CO₂ stretch. */
     exclude: z.array(windowSchema).default([{ min: 2280, max: 2400 }]),
@@ -118,25 +129,40 @@ export const recipeSchema = z
       .strict()
       .nullable()
       .default(null),
+    /**
+     * Savitzky–Golay smoothing. Version 2 takes `width`, the window in cm⁻¹ (turned into the nearest odd
+     * number of points at each file's spacing); version 1 takes `window` in points.
+     */
     smooth: z
       .object({
+        /** Window in points (version-1 recipes only); odd. @default 9 */
         window: z
           .number()
           .int()
           .min(3)
           .max(101)
           .refine((w) => w % 2 === 1, { message: 'the window must be odd' })
-          .default(9),
+          .optional(),
+        /** Window in cm⁻¹ (version 2). @default 9 */
+        width: z.number().finite().positive().optional(),
         order: z.number().int().min(0).max(6).default(2),
       })
       .strict()
-      .refine((s) => s.order < s.window, { message: 'order must be below the window' })
+      .refine((s) => s.window === undefined || s.order < s.window, {
+        message: 'order must be below the window',
+      })
       .nullable()
       .default(null),
     resample: z
       .object({
         /** Source points further apart than this (cm⁻¹) leave the grid between them not covered. */
         maxGap: z.number().positive().default(16),
+        /**
+         * 'area' conserves band area (each grid cell the mean of the source curve over it); 'cell-or-interpolate'
+         * is the version-1 rule (bin-average dense cells, interpolate sparse ones).
+         * @default 'area' in version 2, 'cell-or-interpolate' in version 1
+         */
+        method: z.enum(['area', 'cell-or-interpolate']).optional(),
       })
       .strict()
       .default({ maxGap: 16 }),
@@ -144,6 +170,10 @@ export const recipeSchema = z
     /** Present only for entries ingested from field-resolved time-domain traces. */
     timeDomain: timeDomainSchema.nullable().default(null),
   })
-  .strict();
+  .strict()
+  .refine((r) => r.version === 1 || r.smooth === null || r.smooth.window === undefined, {
+    message: 'a version-2 recipe gives the smoothing window in cm⁻¹ (smooth.width), not in points',
+    path: ['smooth', 'window'],
+  });
 export type Recipe = z.output<typeof recipeSchema>;
 export type RecipeInput = z.input<typeof recipeSchema>;

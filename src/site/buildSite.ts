@@ -1,8 +1,9 @@
 // Builds the static site: entry downloads, the search index, the matcher's binary matrix, the Eleventy pages and
 // the copied scripts and styles, then records what it wrote so a later build knows its own files.
-import { mkdirSync, writeFileSync } from 'node:fs';
-import { dirname, join, resolve } from 'node:path';
+import { existsSync, mkdirSync, realpathSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { basename, dirname, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
+import { buildManifestPath } from './buildManifestPath.js';
 import { buildSearchIndex, type SearchIndexEntry } from './buildSearchIndex.js';
 import { copySiteAssets } from './copySiteAssets.js';
 import { dataScript } from './dataScript.js';
@@ -104,17 +105,48 @@ export async function buildSite(source: SiteSource, options: BuildSiteOptions): 
   const templates = join(root, 'site');
   // Everything that can be missing is checked before the output folder is touched.
   copySiteAssets(root, out, { checkOnly: true });
-  prepareOutDir(out, { clean: options.clean, protect: [...(options.protect ?? []), templates, root], cwd });
-
+  prepareOutDir(out, {
+    clean: options.clean,
+    protect: [...(options.protect ?? []), templates, root],
+    cwd,
+    checkOnly: true,
+  });
+  // The new site is written beside the old one and swapped in only when complete, so a build that fails or is
+  // killed half-way leaves the old site as it was. Links are resolved so the swap replaces the real folder.
+  const target = existsSync(out) ? realpathSync(out) : out;
+  const building = join(dirname(target), `.${basename(target)}.bandshelf-building`);
+  const retired = join(dirname(target), `.${basename(target)}.bandshelf-old`);
+  // Leftovers of a killed build carry our marker; anything else by those names is not ours to remove.
+  for (const stale of [building, retired]) {
+    if (existsSync(stale)) {
+      if (!existsSync(join(stale, BUILDING_MARKER)) && !existsSync(buildManifestPath(stale))) {
+        throw new BandshelfError('OUT_NOT_EMPTY', `${stale} is in the way and was not made by bandshelf`, {
+          file: stale,
+          field: '--out',
+        });
+      }
+      rmSync(stale, { recursive: true, force: true });
+    }
+  }
+  mkdirSync(building, { recursive: true });
+  writeFileSync(join(building, BUILDING_MARKER), '');
+  let built: BuiltSite;
   try {
-    return await writeSite(source, options, { out, root, templates, pathPrefix });
+    built = await writeSite(source, options, { out: building, root, templates, pathPrefix });
   } catch (error) {
-    // Everything in the folder now is this build's (prepareOutDir left nothing else): list it, so the next build
-    // may replace it instead of refusing a folder of "unknown" files.
-    writeBuildManifest(out);
+    rmSync(building, { recursive: true, force: true });
     throw error;
   }
+  rmSync(join(building, BUILDING_MARKER), { force: true });
+  const hadOld = existsSync(target);
+  if (hadOld) renameSync(target, retired);
+  renameSync(building, target);
+  if (hadOld) rmSync(retired, { recursive: true, force: true });
+  return { ...built, out };
 }
+
+/** Written first into a folder being built, so a later build knows a leftover of a killed one as its own. */
+const BUILDING_MARKER = '.bandshelf-building';
 
 async function writeSite(
   source: SiteSource,
@@ -178,11 +210,21 @@ async function writeSite(
     recipe: source.recipe,
     stateKey: source.stateKey,
     at: source.at,
+    name: source.name,
+    peaks: {
+      entry: Array.from(source.matrix.peaks.entry),
+      position: Array.from(source.matrix.peaks.position),
+      height: Array.from(source.matrix.peaks.height),
+      prominence: Array.from(source.matrix.peaks.prominence),
+    },
+    assignments: source.matrix.assignments,
+    wrongHitNull: source.matrix.wrongHitNull,
     entries: source.matrix.ids.map((id, i) => {
       const summary = summaries.get(id);
       return {
         id,
         revision: source.matrix.revisions[i],
+        hash: source.matrix.hashes[i],
         name: summary?.name ?? id,
         class: summary?.class ?? 'other',
         path: slugs.has(id) ? `entries/${slugs.get(id)}/` : null,
@@ -196,6 +238,7 @@ async function writeSite(
     ),
   })}\n`;
   write('assets/search-matrix.json', matrixMeta);
+  // The same metadata and matrix as one script file, for a page opened from disk (fetch is refused there).
   write(
     'assets/search-matrix.js',
     dataScript('search-matrix', null, {

@@ -10,7 +10,9 @@ import { readEntry } from '../library/store/readEntry.js';
 import { readRelease } from '../library/store/readRelease.js';
 import { readSearchSet } from '../library/store/readSearchSet.js';
 import type { EntrySummary, Library } from '../library/types.js';
+import { cachedWrongHitNull } from '../match/cachedWrongHitNull.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
+import type { WrongHitNull } from '../match/wrongHitNull.js';
 import type { Spectrum } from '../spectrum/types.js';
 import type { SiteAssignment, SiteEntrySummary, SiteRelease, SiteSource } from './types.js';
 
@@ -55,6 +57,12 @@ function summaryOf(e: EntrySummary): SiteEntrySummary {
     meta,
   };
 }
+
+const publishedNull = (n: WrongHitNull) => ({
+  scores: Array.from(n.scores),
+  entries: n.entries,
+  sampled: n.sampled,
+});
 
 export function collectSiteData(library: Library, options: CollectSiteDataOptions = {}): SiteSource {
   const at = options.at === undefined || options.at === null || options.at === 'current' ? null : options.at;
@@ -120,6 +128,10 @@ export function collectSiteData(library: Library, options: CollectSiteDataOption
       cols: set.cols,
       ids: set.entries.map((e) => e.id),
       revisions: set.entries.map((e) => e.revision),
+      hashes: set.entries.map((e) => e.hash),
+      peaks: set.peaks,
+      assignments: [...shippedAssignments(), ...listAssignments(library)],
+      wrongHitNull: publishedNull(cachedWrongHitNull({ libraryPath: library.path, set })),
     },
     references,
     loadEntry(id) {

@@ -1,8 +1,8 @@
 // Makes the output folder ready for a build without ever deleting a file the build did not make, unless asked to.
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, realpathSync, rmSync, statSync } from 'node:fs';
 import { homedir } from 'node:os';
-import { basename, join, parse, relative, resolve, sep } from 'node:path';
+import { basename, dirname, join, parse, relative, resolve, sep } from 'node:path';
 import { BandshelfError } from '../error.js';
 import { buildManifestPath } from './buildManifestPath.js';
 
@@ -16,6 +16,27 @@ export interface PrepareOutDirOptions {
   /** The working directory, which --clean never empties.
    * @default process.cwd() */
   cwd?: string;
+  /** Check everything but delete nothing (the build then writes a sibling folder and swaps it in).
+   * @default false */
+  checkOnly?: boolean;
+}
+
+/** The real path of `p`, or of its nearest existing ancestor joined with the rest, so links cannot hide a target. */
+function realOf(p: string): string {
+  const abs = resolve(p);
+  let head = abs;
+  const rest: string[] = [];
+  while (!existsSync(head)) {
+    const up = dirname(head);
+    if (up === head) return abs;
+    rest.unshift(basename(head));
+    head = up;
+  }
+  try {
+    return join(realpathSync(head), ...rest);
+  } catch {
+    return abs;
+  }
 }
 
 interface BuildManifest {
@@ -58,32 +79,36 @@ function isInside(child: string, parent: string): boolean {
  * - A folder holding exactly what an earlier build wrote (its manifest lists every file with the same bytes) has
  *   those files removed, so pages of entries that left the library do not linger.
  * - Anything else (a file the build did not make, or a built file someone changed) is refused with OUT_NOT_EMPTY
- *   unless `clean`; even then the root, the home folder, the working directory, any of their ancestors and any
- *   folder holding a protected path are refused.
+ *   unless `clean`, and `clean` empties only a folder an earlier build marked as its own (its manifest is there).
+ * - Whatever the options, a folder that holds (after resolving links) a protected path, the working directory,
+ *   the home folder or the root, or is one of them, is refused.
  */
 export function prepareOutDir(out: string, options: PrepareOutDirOptions = {}): void {
-  const dir = resolve(out);
-  const cwd = resolve(options.cwd ?? process.cwd());
+  const dir = realOf(out);
+  const cwd = realOf(options.cwd ?? process.cwd());
   if (existsSync(dir) && !statSync(dir).isDirectory()) {
     throw new BandshelfError('OUT_NOT_EMPTY', 'the output path exists and is not a folder', {
       file: out,
       field: '--out',
     });
   }
+  const refuse = (what: string) =>
+    new BandshelfError('OUT_NOT_EMPTY', `the output folder would contain ${what}; choose another folder`, {
+      file: out,
+      field: '--out',
+    });
   for (const p of options.protect ?? []) {
-    if (isInside(resolve(p), dir)) {
-      throw new BandshelfError(
-        'OUT_NOT_EMPTY',
-        `the output folder would contain ${p}; choose another folder`,
-        {
-          file: out,
-          field: '--out',
-        },
-      );
-    }
+    if (isInside(realOf(p), dir) || isInside(resolve(p), dir)) throw refuse(p);
+  }
+  for (const [p, what] of [
+    [cwd, 'the working folder'],
+    [realOf(homedir()), 'the home folder'],
+    [parse(dir).root, 'the root folder'],
+  ] as const) {
+    if (isInside(p, dir)) throw refuse(what);
   }
   if (!existsSync(dir)) {
-    mkdirSync(dir, { recursive: true });
+    if (!options.checkOnly) mkdirSync(dir, { recursive: true });
     return;
   }
   const top = readdirSync(dir).sort();
@@ -103,24 +128,19 @@ export function prepareOutDir(out: string, options: PrepareOutDirOptions = {}): 
               .digest('hex') !== expected
           );
         });
-  if (foreign.length > 0 && !options.clean) {
+  if (foreign.length > 0 && !(options.clean && manifest !== undefined)) {
     const shown =
       foreign.slice(0, 3).join(', ') + (foreign.length > 3 ? ` and ${foreign.length - 3} more` : '');
     throw new BandshelfError(
       'OUT_NOT_EMPTY',
-      `the output folder holds files this build did not make (${shown}); choose an empty folder or pass --clean to empty it`,
+      manifest === undefined
+        ? `the output folder holds files no bandshelf site build made (${shown}); --clean empties only a folder an earlier \`site\` wrote: choose an empty or new folder`
+        : `the output folder holds files this build did not make (${shown}); choose an empty folder or pass --clean to empty it`,
       { file: out, field: '--out' },
     );
   }
+  if (options.checkOnly) return;
   if (foreign.length > 0) {
-    const home = resolve(homedir());
-    if ([parse(dir).root, home, cwd].some((p) => isInside(p, dir))) {
-      throw new BandshelfError(
-        'OUT_NOT_EMPTY',
-        '--clean refuses to empty the root, home or working folder or one holding them',
-        { file: out, field: '--out' },
-      );
-    }
     for (const name of top) rmSync(join(dir, name), { recursive: true, force: true });
     return;
   }

@@ -57,7 +57,9 @@ export function recipeRows(recipe: Recipe, options: RecipeRowsOptions = {}): Sit
   );
   add(
     'Smoothing',
-    recipe.smooth ? `Savitzky–Golay, ${recipe.smooth.window} points, order ${recipe.smooth.order}` : null,
+    recipe.smooth
+      ? `Savitzky–Golay, ${recipe.smooth.width === undefined ? `${recipe.smooth.window ?? 9} points` : `${recipe.smooth.width} cm⁻¹`}, order ${recipe.smooth.order}`
+      : null,
   );
   add(
     'Resampling',

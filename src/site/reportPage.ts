@@ -1,4 +1,5 @@
 // Builds the page model of one match report: the unknown, the library state, hits, mixture, bands and plot data.
+import type { MatchReport } from '../schema/matchReport.js';
 import { gridAxis } from '../spectrum/gridAxis.js';
 import { formatNumber } from './formatNumber.js';
 import { jsonForScript } from './jsonForScript.js';
@@ -83,6 +84,19 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
     ? r.library.revisions.map((v) => `${v.id}@${v.revision}`).join(', ')
     : '';
 
+  const whyBar = (
+    c: MatchReport['hits'][number]['contributions'],
+  ): ReportPage['hits'][number]['rows'][number]['why'] => {
+    const total = (c ?? []).reduce((sum, x) => sum + Math.abs(x.share), 0);
+    return total > 0
+      ? c!.map((x) => ({
+          label: x.label,
+          percent: Math.round((1000 * Math.abs(x.share)) / total) / 10,
+          negative: x.share < 0,
+          title: `${x.label}: ${formatNumber(x.share, { significant: 2 })} of r`,
+        }))
+      : [];
+  };
   const metrics = r.metrics.length > 0 ? r.metrics : ['pearson' as const];
   const hits: ReportPage['hits'] = metrics.map((metric, i) => {
     const list = r.hitsByMetric[metric] ?? (i === 0 ? r.hits : []);
@@ -90,6 +104,7 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
       metric,
       rows: list.map((h) => {
         const extras: string[] = [];
+        if (h.pValue !== null) extras.push(`p = ${formatNumber(h.pValue, { significant: 2 })}`);
         if (h.z !== null) extras.push(`z = ${formatNumber(h.z, { significant: 3 })}`);
         if (h.gapToNext !== null)
           extras.push(`lead over next ${formatNumber(h.gapToNext, { significant: 3 })}`);
@@ -101,6 +116,7 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
           name: h.name,
           score: formatNumber(h.score, { decimals: 4 }),
           extra: extras.join(', '),
+          why: whyBar(h.contributions),
         };
       }),
     };

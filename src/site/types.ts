@@ -1,6 +1,7 @@
 // Shapes of the site's data layer: what is gathered from the library and the reports, and the page models the
 // templates print. Page models hold display-ready strings only, so templates stay free of logic and every string
 // reaches the page through the template engine's escaping.
+import type { BandAssignment } from '../schema/bandAssignment.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import type { Grid, Recipe } from '../schema/recipe.js';
 import type { Peak, QcFlag, Spectrum } from '../spectrum/types.js';
@@ -119,7 +120,21 @@ export interface SiteSource {
   releases: SiteRelease[];
   assignments: SiteAssignment[];
   /** The processed vectors of the state shown, rows in `entries` order. */
-  matrix: { processed: Float32Array; rows: number; cols: number; ids: string[]; revisions: number[] };
+  matrix: {
+    processed: Float32Array;
+    rows: number;
+    cols: number;
+    ids: string[];
+    revisions: number[];
+    /** Each revision's content hash, rows in `ids` order. */
+    hashes: string[];
+    /** Every stored peak of the state (`entry[k]` a row), for the in-browser match pipeline's band index. */
+    peaks: { entry: Uint32Array; position: Float64Array; height: Float64Array; prominence: Float64Array };
+    /** The assignment table `bandshelf match` uses (shipped rows plus the library's own). */
+    assignments: BandAssignment[];
+    /** The library's best-wrong-hit null, so the in-browser p-values equal `bandshelf match`'s. */
+    wrongHitNull: { scores: number[]; entries: number; sampled: number };
+  };
   /** Library spectra the recipe subtracts or corrects against, by id, for the in-browser matcher. */
   references: Record<string, Spectrum>;
   loadEntry: (id: string) => SiteEntryDetail;
@@ -271,7 +286,16 @@ export interface ReportPage {
   revisions: string;
   hits: {
     metric: string;
-    rows: { rank: number; id: string; path: string | null; name: string; score: string; extra: string }[];
+    rows: {
+      rank: number;
+      id: string;
+      path: string | null;
+      name: string;
+      score: string;
+      extra: string;
+      /** Why this hit: each region's share of r as a bar segment (percent of Σ|share|), empty when not computed. */
+      why: { label: string; percent: number; negative: boolean; title: string }[];
+    }[];
   }[];
   mixture: {
     r2: string;

@@ -1,5 +1,6 @@
 // The airPLS baseline (Zhang, Chen & Liang 2010): penalised least squares, adaptively reweighted.
 import { BandshelfError } from '../error.js';
+import { lambdaPerPoint } from './lambdaPerPoint.js';
 import type { Spectrum } from './types.js';
 import { whittakerSmooth } from './whittakerSmooth.js';
 
@@ -26,6 +27,13 @@ export interface AirplsBaselineOptions {
    */
   tolerance?: number;
   /**
+   * Point spacing h in cm⁻¹. When given, λ is a physical stiffness in cm^(2d) (d the difference order) and
+   * the per-point penalty is λ·h^(−2d), so the same λ gives the same baseline at any spacing; when absent, λ
+   * is per point (as published).
+   * @default undefined
+   */
+  spacing?: number;
+  /**
    * The file the spectrum came from, for error messages.
    * @default undefined
    */
@@ -43,9 +51,9 @@ export interface AirplsBaselineOptions {
 export function airplsBaseline(spectrum: Spectrum, options: AirplsBaselineOptions = {}): Float64Array {
   const y = spectrum.absorbance;
   const n = y.length;
-  const lambda = options.lambda ?? 100;
   const iterations = options.iterations ?? 20;
   const differences = options.differences ?? 1;
+  const lambda = lambdaPerPoint(options.lambda ?? 100, { differences, spacing: options.spacing });
   const tolerance = options.tolerance ?? 0.001;
   const file = options.file;
   if (n < 3)

@@ -1,5 +1,6 @@
 // The asymmetric least squares baseline (Eilers & Boelens 2005): a smooth curve hugging the spectrum below.
 import { BandshelfError } from '../error.js';
+import { lambdaPerPoint } from './lambdaPerPoint.js';
 import type { Spectrum } from './types.js';
 import { whittakerSmooth } from './whittakerSmooth.js';
 
@@ -20,6 +21,13 @@ export interface AlsBaselineOptions {
    */
   iterations?: number;
   /**
+   * Point spacing h in cm⁻¹. When given, λ is a physical stiffness in cm^(2d) (d the difference order) and
+   * the per-point penalty is λ·h^(−2d), so the same λ gives the same baseline at any spacing; when absent, λ
+   * is per point (as published).
+   * @default undefined
+   */
+  spacing?: number;
+  /**
    * The file the spectrum came from, for error messages.
    * @default undefined
    */
@@ -33,7 +41,7 @@ export interface AlsBaselineOptions {
 export function alsBaseline(spectrum: Spectrum, options: AlsBaselineOptions = {}): Float64Array {
   const y = spectrum.absorbance;
   const n = y.length;
-  const lambda = options.lambda ?? 1e5;
+  const lambda = lambdaPerPoint(options.lambda ?? 1e5, { differences: 2, spacing: options.spacing });
   const p = options.p ?? 0.01;
   const iterations = options.iterations ?? 10;
   const file = options.file;

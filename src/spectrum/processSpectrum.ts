@@ -7,6 +7,7 @@ import { excludeWindows } from './excludeWindows.js';
 import { gridAxis } from './gridAxis.js';
 import { normaliseVector } from './normaliseVector.js';
 import { resampleToGrid } from './resampleToGrid.js';
+import { saturatedRanges } from './saturatedRanges.js';
 import { savitzkyGolay } from './savitzkyGolay.js';
 import { sortAndMerge } from './sortAndMerge.js';
 import { subtractBaseline } from './subtractBaseline.js';
@@ -25,6 +26,11 @@ export interface ProcessSpectrumOptions {
    * @default undefined
    */
   file?: string;
+  /**
+   * 1 per saturated point of `original` (clipped at the absorbance ceiling): grid cells nearer those points
+   * are set NaN (not covered), like exclusion windows. @default undefined (none)
+   */
+  saturated?: Uint8Array;
 }
 
 export interface ProcessedSpectrum {
@@ -69,7 +75,13 @@ export function processSpectrum(
     let s = sortAndMerge(spectrum, at);
     s = cropToWindow(s, recipe.crop, at);
     s = excludeWindows(s, recipe.exclude, at);
-    return subtractBaseline(s, recipe.baseline, at);
+    // Version 2 reads λ in wavenumber units, so each file's own spacing sets the per-point penalty.
+    const spacing = recipe.version === 1 ? undefined : medianSpacing(s.wavenumber);
+    return subtractBaseline(
+      s,
+      recipe.baseline,
+      spacing === undefined || !(spacing > 0) ? at : { ...at, spacing },
+    );
   };
   const lookUp = (id: string, field: string): Spectrum => {
     const found = references.get(id);
@@ -102,13 +114,19 @@ export function processSpectrum(
     result.emscCoefficients = Array.from(corrected.coefficients);
   }
   if (recipe.smooth !== null) {
-    spectrum = smoothBetweenGaps(spectrum, recipe.smooth.window, recipe.smooth.order, maxGap);
+    const window = smoothingWindowPoints(recipe, spectrum.wavenumber);
+    spectrum = smoothBetweenGaps(spectrum, window, recipe.smooth.order, maxGap);
   }
 
-  const vector = resampleToGrid(spectrum, grid, { maxGap });
-  if (recipe.exclude.length > 0) {
+  const method = recipe.resample.method ?? (recipe.version === 1 ? 'cell-or-interpolate' : 'area');
+  const vector = resampleToGrid(spectrum, grid, { maxGap, method });
+  const masked = [
+    ...recipe.exclude,
+    ...saturatedRanges(original, { saturated: options.saturated }).map(([min, max]) => ({ min, max })),
+  ];
+  if (masked.length > 0) {
     const axis = gridAxis(grid);
-    for (const w of recipe.exclude) {
+    for (const w of masked) {
       const lo = Math.min(w.min, w.max);
       const hi = Math.max(w.min, w.max);
       for (let i = 0; i < axis.length; i++) {
@@ -137,6 +155,22 @@ function smoothBetweenGaps(spectrum: Spectrum, window: number, order: number, ma
     start = end + 1;
   }
   return { wavenumber: x.slice(), absorbance: out };
+}
+
+/**
+ * The Savitzky–Golay window in points: version 1 takes it as given (default 9 points); version 2 turns the
+ * width in cm⁻¹ (default 9 cm⁻¹) into the nearest odd count at the file's median spacing, at least order + 2
+ * points (and 3) so the local fit stays a smoother.
+ */
+function smoothingWindowPoints(recipe: Recipe, wavenumber: Float64Array): number {
+  const smooth = recipe.smooth!;
+  if (recipe.version === 1) return smooth.window ?? 9;
+  const spacing = medianSpacing(wavenumber);
+  const points = spacing > 0 ? (smooth.width ?? 9) / spacing : 1;
+  let odd = 2 * Math.round((points - 1) / 2) + 1;
+  const least = Math.max(3, smooth.order + 2 + ((smooth.order + 1) % 2));
+  if (odd < least) odd = least % 2 === 1 ? least : least + 1;
+  return Math.min(odd, 101);
 }
 
 function medianSpacing(x: Float64Array): number {

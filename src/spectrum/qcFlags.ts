@@ -13,6 +13,11 @@ export interface QcFlagsOptions {
    */
   saturationLimit?: number;
   /**
+   * The recipe's crop window: saturation is judged only inside it (a saturated band the recipe cuts away does no
+   * harm). @default null (the whole spectrum)
+   */
+  crop?: { min: number; max: number } | null;
+  /**
    * A flat top needs at least this many consecutive points within `flatTolerance` of the maximum …
    * @default 5
    */
@@ -91,7 +96,9 @@ export interface QcFlagsOptions {
 export type QcOptions = QcFlagsOptions;
 
 /**
- * Checks, in this order: saturation (error above the limit; warning for a flat top), negative absorbance
+ * Checks, in this order: saturation inside the crop window (a warning above the limit, and for a flat top: points
+ * clipped at the absorbance ceiling are already kept out of the processed vector, and a spectrum with nothing usable
+ * left is refused by the coverage check), negative absorbance
  * after the baseline, low SNR in the noise window (no flag when the window is not covered), single-point
  * spikes (narrower than any band: y(i) far from the line through its neighbours two and three points away
  * while y(i±1) stay within a third of that excursion; two adjacent bad points are missed, and bands narrower
@@ -121,15 +128,21 @@ export function qcFlags(
 
   // Saturation.
   const limit = options.saturationLimit ?? 2.0;
+  const crop = options.crop ?? null;
+  const lo = crop === null ? Number.NEGATIVE_INFINITY : Math.min(crop.min, crop.max);
+  const hi = crop === null ? Number.POSITIVE_INFINITY : Math.max(crop.min, crop.max);
   let iMax = -1;
-  for (let i = 0; i < n; i++) if (Number.isFinite(y[i]!) && (iMax < 0 || y[i]! > y[iMax]!)) iMax = i;
+  for (let i = 0; i < n; i++) {
+    if (x[i]! < lo || x[i]! > hi) continue;
+    if (Number.isFinite(y[i]!) && (iMax < 0 || y[i]! > y[iMax]!)) iMax = i;
+  }
   if (iMax >= 0) {
     const max = y[iMax]!;
     if (max > limit) {
       flags.push({
         code: 'saturation',
-        level: 'error',
-        message: `The maximum absorbance ${num(max)} at ${wn(x[iMax]!)} exceeds the saturation limit of ${num(limit)}.`,
+        level: 'warning',
+        message: `The maximum absorbance ${num(max)} at ${wn(x[iMax]!)} exceeds the saturation limit of ${num(limit)}: band heights there are not linear in concentration.`,
         value: max,
       });
     }

@@ -2,6 +2,7 @@
 import { BandshelfError } from '../error.js';
 import type { Grid } from '../schema/recipe.js';
 import { gridLength } from './gridLength.js';
+import { resampleByArea } from './resampleByArea.js';
 import type { Spectrum } from './types.js';
 
 export interface ResampleToGridOptions {
@@ -12,6 +13,12 @@ export interface ResampleToGridOptions {
    * @default 16
    */
   maxGap?: number;
+  /**
+   * 'area': the cell mean of the source's piecewise-linear curve (resampleByArea; recipe version 2).
+   * 'cell-or-interpolate': bin-average dense cells, interpolate sparse ones (recipe version 1).
+   * @default 'cell-or-interpolate'
+   */
+  method?: 'area' | 'cell-or-interpolate';
 }
 
 /**
@@ -63,6 +70,7 @@ export function resampleToGrid(
     }
   }
 
+  if (options.method === 'area') return resampleByArea(spectrum, grid, { maxGap });
   const n = gridLength(grid);
   const out = new Float64Array(n).fill(Number.NaN);
   if (m === 0) return out;

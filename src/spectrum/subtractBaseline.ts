@@ -7,6 +7,12 @@ import type { Spectrum } from './types.js';
 
 export interface SubtractBaselineOptions {
   /**
+   * Point spacing in cm⁻¹: when given, ALS/airPLS λ are read in wavenumber units (recipe version 2) and
+   * rescaled to it; when absent, per point (version 1).
+   * @default undefined
+   */
+  spacing?: number;
+  /**
    * The file the spectrum came from, for error messages.
    * @default undefined
    */
@@ -21,6 +27,7 @@ export function subtractBaseline(
 ): Spectrum {
   const y = spectrum.absorbance;
   const file = options.file;
+  const spacing = options.spacing;
   let baseline: Float64Array | undefined;
   switch (step.method) {
     case 'none':
@@ -29,10 +36,21 @@ export function subtractBaseline(
       baseline = rubberbandBaseline(spectrum, { file });
       break;
     case 'als':
-      baseline = alsBaseline(spectrum, { lambda: step.lambda, p: step.p, iterations: step.iterations, file });
+      baseline = alsBaseline(spectrum, {
+        lambda: step.lambda,
+        p: step.p,
+        iterations: step.iterations,
+        spacing,
+        file,
+      });
       break;
     case 'airpls':
-      baseline = airplsBaseline(spectrum, { lambda: step.lambda, iterations: step.iterations, file });
+      baseline = airplsBaseline(spectrum, {
+        lambda: step.lambda,
+        iterations: step.iterations,
+        spacing,
+        file,
+      });
       break;
   }
   const corrected = new Float64Array(y.length);

@@ -6,6 +6,13 @@ export interface Spectrum {
   readonly absorbance: Float64Array;
 }
 
+/**
+ * The absorbance ceiling (A = 4, T = 10⁻⁴): a transmittance at or below it is the noise of a saturated band, clipped
+ * to it on reading and kept out of scoring, peaks and the fit (common practice: a bench's photometric range ends near
+ * A = 3–4).
+ */
+export const ABSORBANCE_CEILING = 4;
+
 /** A band maximum found in a spectrum. Positions in cm⁻¹ with sub-point precision. */
 export interface Peak {
   position: number;

@@ -126,14 +126,14 @@ describe('bad input to add', () => {
       /DUPLICATE_X/,
     ],
     [
-      'transmittance at or below zero',
+      'a transmittance header over single-beam counts',
       () => ({
         file: csv(
-          'zero-t.csv',
-          `wavenumber_cm-1,%T\n${rows(20, (i) => `${1000 + i},${i === 4 ? 0 : 50}`)}\n`,
+          'counts-t.csv',
+          `wavenumber_cm-1,%T\n${rows(20, (i) => `${1000 + i},${i === 4 ? 28000000 : 50000}`)}\n`,
         ),
       }),
-      /BAD_TRANSMITTANCE/,
+      /single-beam/,
     ],
     [
       'an unknown unit',

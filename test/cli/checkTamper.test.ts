@@ -1,6 +1,6 @@
 // `bandshelf check` finds what was changed behind bandshelf's back: a processed blob, file bytes, metadata, a
 // missing immutability trigger; each run names the entry and revision (or the file) and exits non-zero.
-import { copyFileSync, mkdirSync } from 'node:fs';
+import { copyFileSync, mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
 import { beforeAll, describe, expect, it } from 'vitest';
@@ -108,7 +108,10 @@ describe('bandshelf check on a tampered library', () => {
       );
     });
     expect(r.jsonCode).toBe(1);
-    expect(new Set(r.json.problems.map((p) => p.where))).toEqual(new Set(['s1 revision 2']));
+    // The seal names the table; the revision's own hashes name the revision.
+    expect(new Set(r.json.problems.map((p) => p.where))).toEqual(
+      new Set(['s1 revision 2', 'table revisions']),
+    );
     expect(r.json.problems.map((p) => p.problem)).toContain(
       'the content hash does not match data, recipe and metadata',
     );
@@ -120,5 +123,117 @@ describe('bandshelf check on a tampered library', () => {
     expect(r.json.problems).toEqual([
       { where: 'database', problem: 'the immutability trigger reviews_no_delete is missing' },
     ]);
+  });
+});
+
+describe('every table of record refuses or check finds each row-level tamper', () => {
+  const dir = tempDir();
+  const pristine = join(dir, 'pristine.sqlite');
+  const lib = ['--library', pristine];
+  const tables = [
+    'settings',
+    'entries',
+    'revisions',
+    'files',
+    'revision_files',
+    'reviews',
+    'releases',
+    'release_members',
+    'band_assignments',
+  ];
+
+  beforeAll(() => {
+    expect(bandshelf(['init', ...lib]).code).toBe(0);
+    const data = join(dir, 'data');
+    mkdirSync(data);
+    for (let k = 0; k < 2; k++) writeSpectrumCsv(join(data, `s${k}.csv`), bandsFor(k + 10));
+    expect(bandshelf(['add', data, ...lib]).code).toBe(0);
+    expect(bandshelf(['review', 's0', ...lib, '--approve', '--reviewer', 'ann']).code).toBe(0);
+    expect(bandshelf(['release', 'v1', ...lib, '--message', 'first']).code).toBe(0);
+    const rows = join(dir, 'rows.json');
+    // Band position of the ester carbonyl stretch, ~1740 cm⁻¹ (common practice).
+    writeFileSync(
+      rows,
+      JSON.stringify([
+        {
+          min: 1740,
+          max: 1745,
+          label: 'ester C=O',
+          vibration: 'C=O stretch',
+          group: 'ester',
+          class: ['lipid'],
+          source: 'synthetic test row',
+        },
+      ]),
+    );
+    const a = bandshelf(['assignments', '--add', rows, ...lib]);
+    expect(a.code, a.stderr).toBe(0);
+    expect(bandshelf(['check', ...lib]).code).toBe(0);
+  });
+
+  /** Each tamper on one row, as the sqlite3 tool would run it: a plain connection, recursive_triggers off. */
+  function tamper(db: Database.Database, table: string, how: 'update' | 'delete' | 'replace'): void {
+    const row = db.prepare(`SELECT rowid AS __rowid, * FROM ${table} ORDER BY rowid LIMIT 1`).get() as Record<
+      string,
+      unknown
+    >;
+    expect(row, `${table} has a row`).toBeDefined();
+    const { __rowid, ...cols } = row;
+    const names = Object.keys(cols);
+    // A column outside the key gets a changed value (a text one when there is one), so REPLACE collides.
+    const info = db.prepare(`PRAGMA table_info(${table})`).all() as { name: string; pk: number }[];
+    const free = names.filter((n) => info.find((c) => c.name === n)?.pk === 0);
+    const target = free.find((n) => typeof cols[n] === 'string') ?? free[0]!;
+    const changed = typeof cols[target] === 'string' ? `${cols[target]}x` : Number(cols[target]) + 1;
+    if (how === 'update')
+      db.prepare(`UPDATE ${table} SET ${target} = ? WHERE rowid = ?`).run(changed, __rowid);
+    else if (how === 'delete') db.prepare(`DELETE FROM ${table} WHERE rowid = ?`).run(__rowid);
+    else {
+      const values = names.map((n) => (n === target ? changed : cols[n]));
+      db.prepare(
+        `INSERT OR REPLACE INTO ${table} (${names.join(', ')}) VALUES (${names.map(() => '?').join(', ')})`,
+      ).run(...values);
+    }
+  }
+
+  for (const table of tables) {
+    for (const how of ['update', 'delete', 'replace'] as const) {
+      it(`${how} on ${table}`, () => {
+        const path = join(dir, `${table}-${how}.sqlite`);
+        copyFileSync(pristine, path);
+        const db = new Database(path);
+        db.pragma('foreign_keys = OFF');
+        let refused = false;
+        try {
+          tamper(db, table, how);
+        } catch (error) {
+          refused = /immutable/.test((error as Error).message);
+        }
+        db.close();
+        if (refused) return;
+        const r = bandshelf(['check', '--library', path, '--json']);
+        expect(r.code, `${table} ${how} was neither refused nor found`).toBe(1);
+        expect(parseJson<CheckJson>(r.stdout).ok).toBe(false);
+      });
+    }
+  }
+
+  it('with recursive triggers on, INSERT OR REPLACE is refused by the delete trigger even without the insert guard', () => {
+    const path = join(dir, 'recursive.sqlite');
+    copyFileSync(pristine, path);
+    const db = new Database(path);
+    db.exec('DROP TRIGGER entries_no_replace_id');
+    db.pragma('recursive_triggers = ON');
+    const row = db.prepare('SELECT id, created_at FROM entries LIMIT 1').get() as {
+      id: string;
+      created_at: string;
+    };
+    expect(() =>
+      db.prepare('INSERT OR REPLACE INTO entries (id, created_at) VALUES (?, ?)').run(row.id, 'x'),
+    ).toThrow(/immutable/);
+    db.pragma('recursive_triggers = OFF');
+    // Without it (the sqlite3 tool's default) the same statement deletes the old row silently: the insert guard is needed.
+    db.prepare('INSERT OR REPLACE INTO entries (id, created_at) VALUES (?, ?)').run(row.id, 'x');
+    db.close();
   });
 });

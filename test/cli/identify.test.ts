@@ -16,7 +16,8 @@ beforeAll(() => {
 interface IdentifyJson {
   bands: {
     position: number;
-    assignments: { label: string; class: string[]; source: string }[];
+    assignments: { id?: string; label: string; class: string[]; source: string }[];
+    assignedTo: { id: string; share: number } | null;
     candidates: { id: string }[];
     explained: boolean | null;
   }[];
@@ -38,16 +39,23 @@ describe('bandshelf identify', () => {
     expect(r.code).toBe(0);
     const out = parseJson<IdentifyJson>(r.stdout);
     matchReportSchema.parse(out);
-    // Barth, Biochim. Biophys. Acta 1767 (2007): amide I and amide II are protein bands.
-    expect(
-      near(out, 1652).assignments.some((a) => a.label.startsWith('amide I') && a.class.includes('protein')),
-    ).toBe(true);
-    expect(near(out, 1545).assignments.map((a) => a.class)).toEqual([['protein']]);
-    // Movasaghi, Rehman & Rehman (2008): the CH₂ stretches are lipid.
-    expect(near(out, 2922).assignments[0]!.class).toEqual(['lipid']);
-    expect(near(out, 2852).assignments[0]!.class).toEqual(['lipid']);
+    // The fit holds albumin: the bands albumin carries are assigned to it first, not offered table rows.
+    expect(near(out, 1652).assignedTo?.id).toBe('albumin');
+    expect(near(out, 1652).assignments).toEqual([]);
     for (const band of out.bands)
       for (const a of band.assignments) expect(a.source.length).toBeGreaterThan(3);
+    // Without the fit every band is offered table rows.
+    const table = parseJson<IdentifyJson>(
+      identify([without.unknowns.mixture, '--json', '--no-mixture'], without.library).stdout,
+    );
+    // Barth, Biochim. Biophys. Acta 1767 (2007): amide I and amide II are protein bands.
+    expect(
+      near(table, 1652).assignments.some((a) => a.label.startsWith('amide I') && a.class.includes('protein')),
+    ).toBe(true);
+    expect(near(table, 1545).assignments[0]!.class).toContain('protein');
+    // Movasaghi, Rehman & Rehman (2008): the CH₂ stretches are lipid (and protein side-chain) bands.
+    expect(near(table, 2922).assignments[0]!.class).toContain('lipid');
+    expect(near(table, 2852).assignments[0]!.class).toContain('lipid');
     // Library entries with a band within tolerance.
     expect(near(out, 1652).candidates.map((c) => c.id)).toContain('albumin');
     // Lactate is not in this library: its 1417 band is unexplained, and nothing in the library has it.
@@ -63,17 +71,22 @@ describe('bandshelf identify', () => {
     const r = identify(['refs-lib.sqlite/rna.csv', '--json', '--no-mixture']);
     expect(r.code).toBe(0);
     const out = parseJson<IdentifyJson>(r.stdout);
-    // PO₂⁻ asymmetric stretch 1230–1240 (Movasaghi 2008): nucleic acid / phospholipid.
-    expect(near(out, 1236).assignments[0]!.class).toEqual(['nucleic-acid', 'phospholipid']);
+    // PO₂⁻ asymmetric stretch 1220–1250 (Movasaghi 2008): nucleic acid / phospholipid.
+    const phosphate = near(out, 1236).assignments.find((a) => a.id === 'phosphate-asymmetric-stretch');
+    expect(phosphate?.class).toEqual(['nucleic-acid', 'phospholipid']);
     expect(near(out, 1236).candidates.map((c) => c.id)).toEqual(['rna']);
     expect(out.bands.every((b) => b.explained === null)).toBe(true);
   });
 
   it('prints a readable band table with numbered sources and the caution', () => {
-    const r = identify([fx.unknowns.mixture]);
+    const r = identify([fx.unknowns.mixture, '--no-mixture']);
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/CM⁻¹\s+KIND\s+HEIGHT\s+FWHM\s+ASSIGNMENTS/);
-    expect(r.stdout).toMatch(/^\s*1652\.\d\s+peak\s.*amide I.*\(protein\) \[\d\]/m);
+    expect(r.stdout).toMatch(/^\s*1652\.\d\s+peak\s.*amide I.*\(protein\) \[\d+ amide-i[a-z-]*\]/m);
+    // With the fit, albumin's amide I is shown as the fitted component's band.
+    expect(identify([fx.unknowns.mixture]).stdout).toMatch(
+      /^\s*1652\.\d\s+peak\s.*fitted albumin \(\d+ % of the band\)/m,
+    );
     expect(r.stdout).toMatch(/Sources:\n\s+\[1\] /);
     expect(r.stdout).toMatch(/Research use only/);
   });

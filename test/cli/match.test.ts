@@ -32,7 +32,10 @@ describe('bandshelf match', () => {
     expect(r.hits[0]).toMatchObject({ id: 'urea', revision: 1, rank: 1 });
     expect(r.hits[0]!.score).toBeGreaterThan(0.99);
     expect(r.hits.length).toBe(7);
-    expect(r.standing.verdict).toBe('distinct');
+    // The fixture library is small: no wrong hit reaches the score, so p sits at its floor 1/(n + 1) > 0.01.
+    expect(r.standing.verdict).toBe('ambiguous');
+    expect(r.standing.text).toMatch(/no wrong hit in the library scores this high/);
+    expect(r.hits[0]!.pValue).toBeCloseTo(1 / (1 + r.confidence!.nullSize), 12);
     expect(r.query.hash).toMatch(/^[0-9a-f]{64}$/);
     expect(r.query.recipeSource).toBe('library');
     expect(r.library.revisions).toHaveLength(7);
@@ -40,12 +43,25 @@ describe('bandshelf match', () => {
     expect(r.caution).toMatch(/^Research use only: candidates, not identifications/);
   });
 
+  it('explains each pearson hit by region with --explain; the shares add up to its r', () => {
+    const r = bandshelf(['match', fx.unknowns.urea, '--library', fx.library, '--json'], { cwd: fx.dir });
+    const report = parseJson<MatchReport>(r.stdout);
+    for (const h of report.hits) {
+      // Issue 12 §3: the region shares are the pieces of Pearson r itself.
+      expect(h.contributions!.reduce((s, c) => s + c.share, 0)).toBeCloseTo(h.rawScore, 4);
+    }
+    const text = bandshelf(['match', fx.unknowns.urea, '--library', fx.library, '--explain'], {
+      cwd: fx.dir,
+    });
+    expect(text.stdout).toMatch(/why #1 \S+: r [\d.]+ = .+ [+-]\d\.\d{3}/);
+  });
+
   it('prints a readable table with the standing and the caution line by default', () => {
     const r = run(['match', fx.unknowns.urea, '--top', '3']);
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/#\s+ID\s+REV\s+NAME\s+CLASS\s+SCORE/);
     expect(r.stdout).toMatch(/^1\s+urea\s+1/m);
-    expect(r.stdout).toMatch(/Standing \(pearson\): DISTINCT/);
+    expect(r.stdout).toMatch(/Standing \(pearson\): AMBIGUOUS: .*p = /);
     expect(r.stdout.trim().split('\n').at(-1)).toBe(
       'Research use only: candidates, not identifications; confirm by orthogonal methods; defer to local ' +
         'regulations and licensed clinical practice.',
@@ -59,7 +75,7 @@ describe('bandshelf match', () => {
     for (const c of m.components) expect(Math.abs(c.share - MIXTURE_SHARES[c.id]!)).toBeLessThan(0.02);
     expect(m.r2).toBeGreaterThan(0.999);
     expect(m.residualBands).toEqual([]);
-    expect(m.criterion).toMatch(/at least 1\.00 %/);
+    expect(m.criterion).toMatch(/partial F-test .* rejects at α = 0\.01/);
     // The single best hit of a mixture is weak: the report says so.
     expect(r.standing.verdict).not.toBe('distinct');
   });

@@ -84,7 +84,7 @@ describe('readDelimited: units', () => {
   it('reads a transmittance header on a 0–100 scale as percent, with a warning', () => {
     const p = readDelimited('cm-1,transmittance\n1000,100\n1002,10\n');
     expect(Array.from(p.spectrum.absorbance)).toEqual([0, 1]);
-    expect(p.warnings[0]?.message).toMatch(/read as percent transmittance/);
+    expect(p.warnings[0]?.message).toMatch(/read as percent/);
   });
 
   it('lets xUnit and yUnit override header and range', () => {
@@ -124,7 +124,6 @@ describe('readDelimited: bad input is a typed error naming file and line', () =>
     ['an overflowing number', 'cm-1,A\n1000,1\n1001,1e400\n', 'NOT_FINITE', 3],
     ['one x twice with different y', 'cm-1,A\n1000,1\n1001,2\n1001,3\n', 'DUPLICATE_X', 4],
     ['a zig-zag x', 'cm-1,A\n1000,1\n1002,2\n1001,3\n1003,4\n1000.5,5\n', 'NOT_MONOTONIC', 4],
-    ['a zero transmittance', 'cm-1,%T\n1000,50\n1001,0\n', 'BAD_TRANSMITTANCE', 3],
     ['a negative wavelength', 'um,A\n-3,1\n5,2\n', 'NOT_FINITE', 2],
     ['a negative wavenumber', 'cm-1,A\n1000,1\n-1000,2\n', 'NOT_A_SPECTRUM', 3],
     ['an x header in Hz', 'frequency_hz,absorbance\n1000,1\n1002,2\n', 'UNKNOWN_UNIT', 1],
@@ -171,5 +170,26 @@ describe('readDelimited: bad input is a typed error naming file and line', () =>
   it('refuses a unit option it does not know', () => {
     const err = bandshelfErrorOf(() => readDelimited('1000,1\n1001,2', { xUnit: 'furlong' as 'nm' }));
     expect(err.code).toBe('BAD_OPTION');
+  });
+});
+
+describe('readDelimited: saturated transmittance', () => {
+  it('clips T ≤ 0 to the absorbance ceiling (A = 4), marks the points saturated and warns with their range', () => {
+    // A = −log10(T) (common practice); %T 50 → A = 2 − log10 50 ≈ 0.30103.
+    const p = readDelimited('cm-1,%T\n1000,50\n1001,0\n1002,-0.3\n1003,40\n', { file: 's.csv' });
+    expect(Array.from(p.spectrum.absorbance.slice(1, 3))).toEqual([4, 4]);
+    expect(p.spectrum.absorbance[0]).toBeCloseTo(0.30103, 5);
+    expect(Array.from(p.saturated!)).toEqual([0, 1, 1, 0]);
+    expect(p.warnings.map((w) => w.message).join()).toMatch(
+      /2 points at or beyond the absorbance ceiling 4.*1001–1002 cm⁻¹/,
+    );
+  });
+
+  it('refuses values that fit neither a fraction nor a percentage, suggesting a single-beam spectrum', () => {
+    const error = bandshelfErrorOf(() =>
+      readDelimited('cm-1,T\n1000,20000\n1001,28000000\n', { file: 's.csv' }),
+    );
+    expect(error.code).toBe('NOT_A_SPECTRUM');
+    expect(error.message).toMatch(/single-beam/);
   });
 });

@@ -146,7 +146,7 @@ describe('readJcampDx: abscissae, factors and units', () => {
   it('detects a 0–100 scale under YUNITS=TRANSMITTANCE and warns', () => {
     const [p] = readJcampDx(jdx(['0 100 10 1'], { YUNITS: 'TRANSMITTANCE', LASTX: '2', NPOINTS: '3' }));
     expect(Array.from(p!.spectrum.absorbance)).toEqual([0, 1, 2]);
-    expect(p!.warnings.map((w) => w.message).join()).toMatch(/read as percent transmittance/);
+    expect(p!.warnings.map((w) => w.message).join()).toMatch(/read as percent/);
   });
 
   it('refuses a unit option it does not know', () => {
@@ -257,6 +257,25 @@ describe('readJcampDx: real files bend the rules (read and warn)', () => {
     expect(w?.message).toMatch(/x is 8 where FIRSTX and the spacing put 5/);
   });
 
+  it('uses the x written on each line when every line holds one point and x is uneven', () => {
+    // One (X, Y) per line, unevenly spaced (as text/manarom_transmittance.txt in ../shared/real-spectra).
+    const text = [
+      '##TITLE=t',
+      '##JCAMP-DX=4.24',
+      '##XUNITS=1/CM',
+      '##YUNITS=ABSORBANCE',
+      '##XYDATA=(X++(Y..Y))',
+      '1000 0.1',
+      '1001 0.2',
+      '1002 0.3',
+      '1010 0.4',
+      '1011 0.5',
+      '##END=',
+    ].join('\n');
+    const [p] = readJcampDx(text);
+    expect(Array.from(p!.spectrum.wavenumber)).toEqual([1000, 1001, 1002, 1010, 1011]);
+  });
+
   it('reads JCAMP-DX 5.01 headers, CRLF line endings and a missing ##END', () => {
     const text = [
       '##TITLE=five-oh-one',
@@ -332,12 +351,6 @@ describe('readJcampDx: bad input is a typed error naming file and line', () => {
     ['a DIF before any value', jdx(['0 J']), 'BAD_FORMAT', 12],
     ['a single point', jdx(['0 5'], { LASTX: '0', NPOINTS: '1' }), 'TOO_FEW_POINTS', 12],
     ['an XYDATA without lines', jdx([]), 'EMPTY_FILE', 11],
-    [
-      'a zero transmittance',
-      jdx(['0 1 0.5 0'], { YUNITS: 'TRANSMITTANCE', LASTX: '2', NPOINTS: '3' }),
-      'BAD_TRANSMITTANCE',
-      12,
-    ],
     [
       'XYPOINTS with one x twice, different y',
       jdx(['1000, 1', '1002, 2', '1002, 3'], { NPOINTS: '3' }, '##XYPOINTS=(XY..XY)'),

@@ -57,32 +57,27 @@ describe('buildMatchReport', () => {
     expect(report.library.revisions).toHaveLength(40);
   });
 
-  it('reads the best hit as distinct, ambiguous or weak', () => {
-    expect(buildMatchReport(input([hit('a', 0.99, 5, 0.05), hit('b', 0.94, 3, 0.1)])).standing.verdict).toBe(
-      'distinct',
-    );
-    expect(
-      buildMatchReport(input([hit('a', 0.99, 5, 0.005), hit('b', 0.985, 4.9, 0.1)])).standing.verdict,
-    ).toBe('ambiguous');
-    expect(
-      buildMatchReport(input([hit('a', 0.96, 2.5, 0.08), hit('b', 0.88, 2, 0.1)])).standing.text,
-    ).toMatch(/not far out of the library's spread/);
-    expect(
-      buildMatchReport(input([hit('a', 0.93, 4.9, 0.55), hit('b', 0.38, 2, 0.1)])).standing.verdict,
-    ).toBe('distinct');
+  it('reads the best hit from its p-value against the wrong-hit null, and z and gap stay as given', () => {
+    // A null of 9 best-wrong scores 0.1 … 0.9: p = (1 + count ≥ score) / 10 (add-one empirical p-value).
+    const wrongHitNull = {
+      metric: 'pearson' as const,
+      scores: Float64Array.from([0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9]),
+      entries: 9,
+      sampled: 9,
+    };
+    const run = (hits: Hit[]) => buildMatchReport({ ...input(hits), wrongHitNull });
+    const r = run([hit('a', 0.95, 5, 0.1), hit('b', 0.85, 3, 0.2), hit('c', 0.35, 1, null)]);
+    expect(r.hits.map((h) => h.pValue)).toEqual([0.1, 0.2, 0.7].map((v) => expect.closeTo(v, 12)));
+    expect(r.standing.verdict).toBe('ambiguous');
+    expect(r.confidence).toMatchObject({ metric: 'pearson', nullSize: 9, entries: 9 });
+    expect(r.confidence!.text).toMatch(/not the probability that the identification is right/);
+    expect(run([hit('a', 0.5, 5, 0.1)]).standing.verdict).toBe('weak');
+    // Above every null score: p at its floor 1/10, too coarse to call it distinct.
+    expect(run([hit('a', 0.99, 5, 0.1)]).standing.text).toMatch(/9 entries are too few to show p ≤ 0.01/);
+    // Without a null nothing is called distinct.
+    expect(buildMatchReport(input([hit('a', 0.99, 5, 0.05)])).standing.verdict).toBe('ambiguous');
     expect(buildMatchReport(input([hit('a', 0.85, 4, 0.3)])).standing.verdict).toBe('weak');
-    // Neither 1.5 SD out nor 0.02 ahead: weak even at a high score.
-    expect(
-      buildMatchReport(input([hit('a', 0.95, 1.2, 0.005), hit('b', 0.945, 1.1, 0.1)])).standing.verdict,
-    ).toBe('weak');
-    // A near-perfect hit in a library of one family (low z) with a clear lead is still distinct.
-    expect(
-      buildMatchReport(input([hit('a', 0.9996, 1.98, 0.072), hit('b', 0.9277, 1.7, 0.1)])).standing.verdict,
-    ).toBe('distinct');
-    // Under 20 entries the z-score cannot reach 3, so it is not used.
-    expect(
-      buildMatchReport(input([hit('a', 0.99, 1.9, 0.5), hit('b', 0.49, 0, null)], 6)).standing.verdict,
-    ).toBe('distinct');
+    expect(buildMatchReport(input([hit('a', 0.99, 5, 0.05)])).hits[0]!.pValue).toBeNull();
     expect(buildMatchReport(input([])).standing.verdict).toBe('none');
   });
 

@@ -107,8 +107,8 @@ describe('fitMixture', () => {
     expect(at(4000)).toBeCloseTo(0.002, 4);
     expect(at(600)).toBeCloseTo(0.006, 4);
     expect(result.r2).toBeGreaterThan(0.999);
-    // The noise estimate comes from the band-free window and is close to the σ that was added.
-    expect(result.noiseSource).toBe('band-free-window');
+    // The noise is now estimated from the residual's own first differences (no fixed window), close to the added σ.
+    expect(result.noiseSource).toBe('residual-differences');
     expect(result.noise / noiseSigma).toBeGreaterThan(0.7);
     expect(result.noise / noiseSigma).toBeLessThan(1.3);
     expect(result.residualBands).toEqual([]);

@@ -1,9 +1,18 @@
 // The Node search of a real library file: built with the real CLI, matrices cached beside it and reused.
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, rmSync, truncateSync, writeFileSync } from 'node:fs';
+import {
+  existsSync,
+  mkdtempSync,
+  readdirSync,
+  readFileSync,
+  rmSync,
+  truncateSync,
+  writeFileSync,
+} from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { crc32 } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeLibrary } from '../../src/library/store/closeLibrary.js';
 import { openLibrary } from '../../src/library/store/openLibrary.js';
@@ -15,6 +24,7 @@ import { readCachedSearchMatrix } from '../../src/match/readCachedSearchMatrix.j
 import { searchLibrary } from '../../src/match/searchLibrary.js';
 import { searchMatrixCachePath } from '../../src/match/searchMatrixCachePath.js';
 import { searchMatrixKey } from '../../src/match/searchMatrixKey.js';
+import { verifySearchMatrixCache } from '../../src/match/verifySearchMatrixCache.js';
 import { writeCachedSearchMatrix } from '../../src/match/writeCachedSearchMatrix.js';
 import { seeded } from './searchFixtures.js';
 
@@ -158,6 +168,30 @@ describe('searchLibrary', () => {
       expect(searchMatrixCachePath({ libraryPath: path, key })).toMatch(
         /lib\.sqlite\.cache\/search-[0-9a-f]{32}\.bin$/,
       );
+    });
+  });
+
+  it('rebuilds, with a warning, a cache file whose bytes were flipped in place, and check-side verify names it', () => {
+    // CRC-32 check value of the ASCII string "123456789" is 0xCBF43926 (the published catalogue value of CRC-32/ISO-HDLC).
+    expect(crc32(Buffer.from('123456789', 'ascii'))).toBe(0xcbf43926);
+    withLibrary((library) => {
+      const set = readSearchSet(library);
+      const matrix = buildSearchMatrix(set, { preparation: metricPreparation('pearson') });
+      const file = searchMatrixCachePath({ libraryPath: path, key: matrix.key });
+      expect(writeCachedSearchMatrix(file, matrix)).toBe(true);
+      expect(verifySearchMatrixCache(path).filter((p) => file.endsWith(p.where.split(' ')[2]!))).toEqual([]);
+      const bytes = readFileSync(file);
+      const at = bytes.length - 17;
+      bytes[at] = bytes[at]! ^ 0xff;
+      writeFileSync(file, bytes);
+      const warnings: string[] = [];
+      const expect0 = { key: matrix.key, rows: set.rows, cols: set.cols };
+      expect(readCachedSearchMatrix(file, expect0, { onDamaged: (m) => warnings.push(m) })).toBeNull();
+      expect(warnings).toHaveLength(1);
+      expect(warnings[0]).toMatch(/checksum/);
+      const found = verifySearchMatrixCache(path);
+      expect(found.some((p) => file.endsWith(p.where.split(' ')[2]!) && /CRC-32/.test(p.problem))).toBe(true);
+      rmSync(file);
     });
   });
 

@@ -13,6 +13,19 @@ function issuesOf(input: unknown): { path: string; message: string }[] {
 }
 
 describe('entryMetaSchema', () => {
+  it('refuses Windows reserved device names as ids, with or without an extension', () => {
+    // Reserved names CON, PRN, AUX, NUL, COM0–9, LPT0–9: Microsoft, "Naming Files, Paths, and Namespaces" (from memory).
+    for (const id of ['con', 'nul', 'aux.txt', 'com1', 'lpt9', 'prn.tar.gz', 'trailing.']) {
+      expect(
+        issuesOf({ ...base, id }).map((i) => i.path),
+        id,
+      ).toEqual(['id']);
+    }
+    for (const id of ['console', 'nullable', 'com10', 'aux-serum', 'lpt']) {
+      expect(issuesOf({ ...base, id }), id).toEqual([]);
+    }
+  });
+
   it('needs only id and name', () => {
     expect(entryMetaSchema.parse(base)).toEqual(base);
     expect(issuesOf({ name: 'x' }).map((i) => i.path)).toEqual(['id']);
@@ -77,7 +90,11 @@ describe('entryMetaSchema', () => {
       'other',
     ]);
     expect(issuesOf({ ...base, class: 'sugar' })[0]?.path).toBe('class');
-    expect(issuesOf({ ...base, technique: 'ATR' })[0]?.path).toBe('technique');
+    expect(entryMetaSchema.parse({ ...base, technique: 'ATR', class: 'Biofluid' })).toMatchObject({
+      technique: 'atr',
+      class: 'biofluid',
+    });
+    expect(issuesOf({ ...base, technique: 'laser-x' })[0]?.path).toBe('technique');
   });
 
   it.each([
@@ -206,7 +223,7 @@ describe('entryMetaSchema', () => {
         fc.oneof(
           fc.string({ maxLength: 90 }),
           fc.stringMatching(/^[a-z0-9._\-/]{0,85}$/),
-          fc.constantFrom('..', 'a..b', 'a/b', '-a', '.a'),
+          fc.constantFrom('..', 'a..b', 'a/b', '-a', '.a', 'con', 'nul.x', 'com1', 'console', 'a.'),
         ),
         (id) => {
           const accepted = entryMetaSchema.safeParse({ ...base, id }).success;

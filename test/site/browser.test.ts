@@ -341,6 +341,16 @@ describe.skipIf(!available && !required)('the site in a browser', () => {
     expect(hits[0]!.id).toBe(expected);
     // Same reader, recipe and kernels as the CLI; only the published vectors are int16-quantised.
     expect(Math.abs(hits[0]!.score - cli.hits[0]!.score)).toBeLessThan(1e-3);
+    // The same pipeline as `bandshelf match --mixture`: the page shows the mixture's components and the bands.
+    const cliMixture = parseJson<{ mixture: { components: { id: string }[] } }>(
+      bandshelf(['match', file, '--library', fx.library, '--json', '--mixture']).stdout,
+    );
+    const components = await page.$$eval('#match-mixture tbody tr', (trs) =>
+      trs.map((tr) => tr.querySelector('td')?.textContent ?? ''),
+    );
+    expect(components.length).toBe(cliMixture.mixture.components.length);
+    expect(components[0]).toContain(cliMixture.mixture.components[0]!.id);
+    expect(await page.$$('#match-bands tbody tr')).not.toHaveLength(0);
     await page.screenshot({ path: join(SHOTS, 'matcher-u01.png'), fullPage: true });
 
     // A file that is not a spectrum gives one clear line, not a crash.

@@ -75,7 +75,7 @@ const published: PublishedSearchSet = {
 };
 
 describe('matchSpectrumFile', () => {
-  it('ranks a noisy glucose spectrum from a CSV file first as glucose, with the scores searchSpectra gives', () => {
+  it('ranks a noisy glucose spectrum from a CSV file first as glucose, with the scores searchSpectra gives', async () => {
     const unknown = detail(
       'u',
       [
@@ -88,7 +88,7 @@ describe('matchSpectrumFile', () => {
       77,
     );
     const bytes = new TextEncoder().encode(writeCsv(unknown.original));
-    const result = matchSpectrumFile(bytes, 'unknown.csv', published, { k: 4 });
+    const result = await matchSpectrumFile(bytes, 'unknown.csv', published, { k: 4 });
     expect(result.title).toBe('unknown.csv');
     expect(result.hits[0]!.id).toBe('glucose');
     expect(result.hits[0]!.path).toBe('entries/glucose/');
@@ -101,9 +101,9 @@ describe('matchSpectrumFile', () => {
     for (let i = 0; i < 4; i++) expect(Math.abs(result.hits[i]!.score - exact![i]!.score)).toBeLessThan(1e-4);
   });
 
-  it('reports a file that is not a spectrum as the reader’s typed error', () => {
+  it('reports a file that is not a spectrum as the reader’s typed error', async () => {
     try {
-      matchSpectrumFile(new TextEncoder().encode('hello\nworld\n'), 'notes.csv', published);
+      await matchSpectrumFile(new TextEncoder().encode('hello\nworld\n'), 'notes.csv', published);
       expect.unreachable();
     } catch (error) {
       expect(error).toBeInstanceOf(BandshelfError);

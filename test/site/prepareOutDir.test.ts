@@ -1,7 +1,7 @@
 // The output folder rule: create or reuse what an earlier build made; refuse anything else unless --clean, and
 // never empty the root, the home or the working folder.
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readdirSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, symlinkSync, writeFileSync } from 'node:fs';
 import { homedir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
@@ -60,8 +60,13 @@ describe('prepareOutDir', () => {
     expect(code(() => prepareOutDir(bare))).toBe('OUT_NOT_EMPTY');
   });
 
-  it('empties such a folder with clean', () => {
+  it('empties with clean only a folder an earlier build marked as its own', () => {
+    const bare = tempDir();
+    writeFileSync(join(bare, 'mine.txt'), 'x');
+    expect(code(() => prepareOutDir(bare, { clean: true, cwd: tempDir() }))).toBe('OUT_NOT_EMPTY');
+    expect(existsSync(join(bare, 'mine.txt'))).toBe(true);
     const dir = tempDir();
+    built(dir, { 'index.html': 'a' });
     writeFileSync(join(dir, 'mine.txt'), 'x');
     mkdirSync(join(dir, 'sub'));
     writeFileSync(join(dir, 'sub', 'deep.txt'), 'y');
@@ -82,6 +87,17 @@ describe('prepareOutDir', () => {
     if (existsSync(homedir())) {
       expect(code(() => prepareOutDir(homedir(), { clean: true, cwd: dir }))).toBe('OUT_NOT_EMPTY');
     }
+    // A link to the library's folder is the folder itself once resolved: never emptied, marker or not.
+    const libDir = tempDir();
+    built(libDir, { 'index.html': 'a' });
+    writeFileSync(join(libDir, 'lib.sqlite'), 'x');
+    const link = join(tempDir(), 'out');
+    symlinkSync(libDir, link);
+    expect(
+      code(() => prepareOutDir(link, { clean: true, protect: [join(libDir, 'lib.sqlite')], cwd: tempDir() })),
+    ).toBe('OUT_NOT_EMPTY');
+    expect(code(() => prepareOutDir(join(link, '..'), { clean: true, cwd: libDir }))).toBe('OUT_NOT_EMPTY');
+    expect(existsSync(join(libDir, 'lib.sqlite'))).toBe(true);
     const file = join(dir, 'mine.txt');
     expect(code(() => prepareOutDir(file))).toBe('OUT_NOT_EMPTY');
   });

@@ -1,8 +1,8 @@
 // The `bandshelf site` build end to end with the real CLI: offline (nothing from another host), byte-identical
 // rebuilds, escaped metadata, the Content-Security-Policy, the path prefix, empty libraries, bad reports and
 // output folders holding other files.
-import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { existsSync, mkdirSync, readdirSync, readFileSync, symlinkSync, writeFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { bandshelf, parseJson, tempDir } from '../cli/bandshelfCli.js';
 import { buildTestLibrary, listFiles, type SiteFixture, TEST_ENTRIES, XSS_NAME } from './siteFixture.js';
@@ -223,10 +223,28 @@ describe('the output folder', () => {
     expect(refused.stderr).toContain('notes.txt');
     expect(readFileSync(join(dir, 'notes.txt'), 'utf8')).toBe('mine');
     expect(existsSync(join(dir, 'index.html'))).toBe(false);
-    const cleaned = bandshelf(['site', '--library', fx.library, '--out', dir, '--clean']);
+    // --clean empties only a folder an earlier site build marked as its own.
+    const unmarked = bandshelf(['site', '--library', fx.library, '--out', dir, '--clean']);
+    expect(unmarked.code).toBe(1);
+    expect(readFileSync(join(dir, 'notes.txt'), 'utf8')).toBe('mine');
+    const ours = join(fx.dir, 'ours');
+    expect(bandshelf(['site', '--library', fx.library, '--out', ours]).code).toBe(0);
+    writeFileSync(join(ours, 'notes.txt'), 'mine');
+    const cleaned = bandshelf(['site', '--library', fx.library, '--out', ours, '--clean']);
     expect(cleaned.code, cleaned.stderr).toBe(0);
-    expect(existsSync(join(dir, 'notes.txt'))).toBe(false);
-    expect(existsSync(join(dir, 'index.html'))).toBe(true);
+    expect(existsSync(join(ours, 'notes.txt'))).toBe(false);
+    expect(existsSync(join(ours, 'index.html'))).toBe(true);
+    expect(readdirSync(fx.dir).filter((n) => n.includes('bandshelf-'))).toEqual([]);
+  });
+
+  it('--clean through a link to the library folder is refused and deletes nothing', () => {
+    const link = join(tempDir(), 'out');
+    symlinkSync(dirname(fx.library), link);
+    const before = readdirSync(dirname(fx.library)).sort();
+    const r = bandshelf(['site', '--library', fx.library, '--out', link, '--clean']);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/OUT_NOT_EMPTY/);
+    expect(readdirSync(dirname(fx.library)).sort()).toEqual(before);
   });
 
   it('is refused when a built file was changed afterwards', () => {

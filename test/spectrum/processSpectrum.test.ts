@@ -11,9 +11,18 @@ const spectrum = (x: ArrayLike<number>, y: ArrayLike<number>): Spectrum => ({
   wavenumber: Float64Array.from(x),
   absorbance: Float64Array.from(y),
 });
-/** Every step off unless the case turns it on, so each hand value follows from the steps named. */
+/**
+ * Every step off unless the case turns it on, so each hand value follows from the steps named; the hand values
+ * use the bin-average-or-interpolate resampling (resampleByArea has its own tests).
+ */
 const plain = (extra: RecipeInput = {}) =>
-  recipeSchema.parse({ exclude: [], baseline: { method: 'none' }, normalise: { method: 'none' }, ...extra });
+  recipeSchema.parse({
+    exclude: [],
+    baseline: { method: 'none' },
+    normalise: { method: 'none' },
+    resample: { method: 'cell-or-interpolate' },
+    ...extra,
+  });
 const grid = { start: 1010, stop: 1000, step: 2 };
 const values = (v: Float64Array) =>
   Array.from(v, (a) => (Number.isNaN(a) ? null : Math.round(a * 1e9) / 1e9));
@@ -54,7 +63,7 @@ describe('processSpectrum', () => {
     const recipe = recipeSchema.parse({
       baseline: { method: 'none' },
       normalise: { method: 'none' },
-      smooth: { window: 9, order: 2 },
+      smooth: { width: 9, order: 2 },
     });
     const g = { start: 2500, stop: 2200, step: 2 };
     const { processed } = processSpectrum(original, recipe, g);
@@ -66,9 +75,9 @@ describe('processSpectrum', () => {
     }
   });
 
-  it('leaves a stretch shorter than the smoothing window unsmoothed', () => {
+  it('leaves a stretch shorter than the smoothing window unsmoothed (18 cm⁻¹ is 9 points at 2 cm⁻¹)', () => {
     const original = spectrum([1000, 1002, 1004, 1006, 1008, 1010], [0, 3, 1, 4, 1, 5]);
-    const { processed } = processSpectrum(original, plain({ smooth: { window: 9, order: 2 } }), grid);
+    const { processed } = processSpectrum(original, plain({ smooth: { width: 18, order: 2 } }), grid);
     expect(values(processed)).toEqual([0, 3, 1, 4, 1, 5]);
   });
 
@@ -172,11 +181,13 @@ describe('processSpectrum on spectra computed from time-domain traces', () => {
     }
     const grid = { start: 2200, stop: 900, step: 2 };
     const plain = recipeSchema.parse({
+      resample: { method: 'cell-or-interpolate' },
       baseline: { method: 'none' },
       exclude: [],
       normalise: { method: 'none' },
     });
     const fromTraces = recipeSchema.parse({
+      resample: { method: 'cell-or-interpolate' },
       baseline: { method: 'none' },
       exclude: [],
       normalise: { method: 'none' },
@@ -189,5 +200,88 @@ describe('processSpectrum on spectra computed from time-domain traces', () => {
     expect(covered(result)).toBe(591);
     // Linear interpolation between bins at 1600 (the band centre, a bin) returns the bin value exactly.
     expect(result[(1600 - 900) / 2]).toBeCloseTo(1, 12);
+  });
+});
+
+describe('processSpectrum: parameters in wavenumbers (recipe version 2)', () => {
+  // An invented two-band spectrum on a curved baseline, sampled at spacing h over 3990–1010 cm⁻¹.
+  const sampled = (h: number): Spectrum => {
+    const n = Math.round(2980 / h) + 1;
+    const x = new Float64Array(n);
+    const y = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const v = 1010 + i * h;
+      x[i] = v;
+      y[i] =
+        0.1 +
+        2e-8 * (v - 2500) ** 2 +
+        Math.exp(-0.5 * ((v - 1650) / 14) ** 2) +
+        0.6 * Math.exp(-0.5 * ((v - 2920) / 18) ** 2);
+    }
+    return spectrum(x, y);
+  };
+  const grid4 = { start: 4000, stop: 1000, step: 4 };
+
+  for (const baseline of [
+    { method: 'als' as const, lambda: 1e9, p: 0.001, iterations: 20 },
+    { method: 'airpls' as const, lambda: 1e5, iterations: 20 },
+  ]) {
+    it(`${baseline.method}: 0.5, 1, 2 and 4 cm⁻¹ spacing agree within 1 % of the largest band`, () => {
+      // The issue's target; λ in cm^(2d) per Eilers, Anal. Chem. 75:3631 (2003).
+      const recipe = recipeSchema.parse({
+        exclude: [],
+        baseline,
+        smooth: { width: 12, order: 2 },
+        normalise: { method: 'none' },
+      });
+      const vectors = [0.5, 1, 2, 4].map((h) => processSpectrum(sampled(h), recipe, grid4).processed);
+      const ref = vectors[0]!;
+      let peak = 0;
+      for (const v of ref) if (Number.isFinite(v)) peak = Math.max(peak, Math.abs(v));
+      for (const v of vectors.slice(1)) {
+        let worst = 0;
+        for (let i = 0; i < v.length; i++) {
+          if (Number.isFinite(v[i]!) && Number.isFinite(ref[i]!))
+            worst = Math.max(worst, Math.abs(v[i]! - ref[i]!));
+        }
+        expect(worst / peak).toBeLessThan(0.01);
+      }
+    });
+  }
+
+  it('a version-2 recipe refuses a smoothing window in points', () => {
+    expect(recipeSchema.safeParse({ smooth: { window: 9 } }).success).toBe(false);
+    expect(recipeSchema.safeParse({ version: 1, smooth: { window: 9 } }).success).toBe(true);
+  });
+});
+
+describe('processSpectrum: version-1 recipes keep their meaning', () => {
+  it('recomputes the vectors the per-point code gave, byte for byte', async () => {
+    // The sha-256 of the processed bytes were recorded by running this input through the code before the
+    // unit change (λ and window per point); a stored version-1 recipe must reproduce them for `check`.
+    const { createHash } = await import('node:crypto');
+    const n = 1500;
+    const x = new Float64Array(n);
+    const y = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      x[i] = 600 + i * 2.3;
+      y[i] =
+        0.3 * Math.exp(-(((x[i]! - 1650) / 15) ** 2)) +
+        0.2 * Math.exp(-(((x[i]! - 2920) / 25) ** 2)) +
+        1e-4 * x[i]! +
+        0.01 * Math.sin(i * 1.7);
+    }
+    const expected = {
+      als: 'edf95007bc64309486c87430d8835cfae54437dd84848686ba7e38b4ed8d37b1',
+      airpls: 'c20aa2dee1532cb7c79e31c613ff46695fc3786bde62813cbfe7132bf256d148',
+    };
+    for (const b of [
+      { method: 'als' as const, lambda: 1e5, p: 0.01, iterations: 10 },
+      { method: 'airpls' as const, lambda: 100, iterations: 20 },
+    ]) {
+      const r = recipeSchema.parse({ version: 1, baseline: b, smooth: { window: 9, order: 2 } });
+      const out = processSpectrum(spectrum(x, y), r, { start: 4000, stop: 600, step: 2 }).processed;
+      expect(createHash('sha256').update(Buffer.from(out.buffer)).digest('hex')).toBe(expected[b.method]);
+    }
   });
 });

@@ -76,15 +76,17 @@ describe('qcFlags', () => {
     expect(qcFlags(reversed, processedOf(s), grid, { exclude })).toEqual(flagsOf(s));
   });
 
-  it('blocks an absorbance above the saturation limit', () => {
+  it('warns (does not block) about an absorbance above the saturation limit, judged inside the crop window', () => {
     const flags = flagsOf(film({ scale: 2.4 }));
     expect(flags).toHaveLength(1);
-    expect(flags[0]).toMatchObject({ code: 'saturation', level: 'error' });
+    expect(flags[0]).toMatchObject({ code: 'saturation', level: 'warning' });
     expect(flags[0]!.value).toBeCloseTo(2.4 + 0.02 + 1e-5 * 1052, 2);
     expect(flags[0]!.message).toMatch(
-      /^The maximum absorbance 2\.4\d at 165\d\.0 cm⁻¹ exceeds the saturation limit of 2\.$/,
+      /^The maximum absorbance 2\.4\d at 165\d\.0 cm⁻¹ exceeds the saturation limit of 2: band heights/,
     );
     expect(codes(film({ scale: 2.4 }), { saturationLimit: 3 })).toEqual([]);
+    // A crop window that leaves the 165x cm⁻¹ band out leaves nothing to warn about.
+    expect(codes(film({ scale: 2.4 }), { crop: { min: 1800, max: 3000 } })).not.toContain('saturation');
   });
 
   it('warns about a clipped, flat-topped band but not about the round top of a broad one', () => {

@@ -1,35 +1,25 @@
-// `bandshelf add`: ingests spectrum files, folders or time-domain traces into the library, one transaction per file
-// (or one for all with --atomic).
+// `bandshelf add`: parses the flags, calls the ingest pipeline and prints its outcome (table or --json).
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
 import { metaErrorFromIssues } from '../../formats/metaErrorFromIssues.js';
-import { buildRevisionInputs } from '../../library/ingest/buildRevisionInputs.js';
-import type { CommitOutcome, PreparedRevision } from '../../library/ingest/ingestTypes.js';
+import { type IngestOutcome, ingest } from '../../library/ingest/ingest.js';
+import type { CommitOutcome } from '../../library/ingest/ingestTypes.js';
 import { type LoadedSidecar, loadSidecar } from '../../library/ingest/loadSidecar.js';
-import type { NearDuplicatePool } from '../../library/ingest/nearDuplicateFlag.js';
-import { type IngestJob, planIngest } from '../../library/ingest/planIngest.js';
-import { prepareRevision } from '../../library/ingest/prepareRevision.js';
 import { closeLibrary } from '../../library/store/closeLibrary.js';
-import { commitRevisions } from '../../library/store/commitRevisions.js';
 import { defaultAuthor } from '../../library/store/defaultAuthor.js';
 import { libraryPath } from '../../library/store/libraryPath.js';
 import { openLibrary } from '../../library/store/openLibrary.js';
 import { readRecipeFile } from '../../library/store/readRecipeFile.js';
-import { readSearchSet } from '../../library/store/readSearchSet.js';
 import { readTextFile } from '../../library/store/readTextFile.js';
-import type { Library, ReadOptions } from '../../library/types.js';
+import type { ReadOptions } from '../../library/types.js';
 import { entryMetaPatchSchema } from '../../schema/meta.js';
 import { collectRepeated } from '../collectRepeated.js';
 import type { CommandSpec } from '../command.js';
+import { flagWording } from '../flagWording.js';
 import { textTable } from '../textTable.js';
 
 const X_UNITS = ['cm-1', 'um', 'nm'] as const;
 const Y_UNITS = ['absorbance', 'transmittance', 'percent-transmittance'] as const;
-
-function oneLine(error: unknown): string {
-  if (error instanceof BandshelfError) return error.oneLine();
-  return `internal error: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`;
-}
 
 function choice<T extends string>(value: unknown, allowed: readonly T[], field: string): T | undefined {
   if (value === undefined) return undefined;
@@ -43,22 +33,14 @@ function choice<T extends string>(value: unknown, allowed: readonly T[], field: 
   );
 }
 
-/** A NOT_FOUND on a recipe's reference or EMSC id may only mean that entry comes later in the same add. */
-function waitsForAnotherEntry(error: unknown): boolean {
-  return (
-    error instanceof BandshelfError &&
-    error.code === 'NOT_FOUND' &&
-    (error.field === 'reference.id' || error.field === 'emsc.id')
-  );
-}
-
-function poolOf(library: Library): { pool: NearDuplicatePool; index: Map<string, number> } {
-  const set = readSearchSet(library);
-  const rows = set.entries.map((_, i) => set.processed.subarray(i * set.cols, (i + 1) * set.cols));
-  return {
-    pool: { ids: set.entries.map((e) => e.id), rows },
-    index: new Map(set.entries.map((e, i) => [e.id, i])),
-  };
+/** The same error, its message speaking of flags instead of API option names. */
+function inFlagWords(error: BandshelfError): BandshelfError {
+  return new BandshelfError(error.code, flagWording(error.message), {
+    file: error.file,
+    line: error.line,
+    field: error.field,
+    cause: error,
+  });
 }
 
 export const addCommand: CommandSpec = {
@@ -150,119 +132,29 @@ export const addCommand: CommandSpec = {
 
     const library = openLibrary(libraryPath(options.library, context.cwd));
     try {
-      const plan = planIngest(paths, {
-        cwd: context.cwd,
-        manifest: typeof options.manifest === 'string' ? options.manifest : undefined,
-        timeDomain: Boolean(options.timeDomain),
-        references: (options.reference as string[] | undefined) ?? [],
-      });
-      if (flags.id !== undefined && plan.jobs.length > 1) {
-        throw new BandshelfError(
-          'BAD_OPTION',
-          `--id names one entry but ${plan.jobs.length} files are being added`,
-          {
-            field: 'id',
-          },
-        );
-      }
-      const { pool, index } = poolOf(library);
-      const owners = new Map<string, string>();
-      const added: CommitOutcome[] = [];
-      const unchanged: CommitOutcome[] = [];
-      const failed: { file: string; error: string }[] = [];
-      const notes: string[] = [...plan.warnings];
-
-      const prepare = (job: IngestJob): PreparedRevision[] => {
-        const inputs = buildRevisionInputs(library, job, {
-          flags: checkedFlags.data,
+      let outcome: IngestOutcome;
+      try {
+        outcome = ingest(library, paths, {
+          cwd: context.cwd,
+          manifest: typeof options.manifest === 'string' ? options.manifest : undefined,
+          timeDomain: Boolean(options.timeDomain),
+          references: (options.reference as string[] | undefined) ?? [],
+          meta: checkedFlags.data,
           metaFile,
           recipe,
           read,
+          force: Boolean(options.force),
+          atomic: Boolean(options.atomic),
+          author,
+          message,
+          progress: context.progress,
         });
-        for (const input of inputs) {
-          const owner = owners.get(input.meta.id);
-          if (owner !== undefined && owner !== job.label) {
-            throw new BandshelfError(
-              'ALREADY_EXISTS',
-              `entry id '${input.meta.id}' is also given to ${owner} in this add`,
-              {
-                file: job.label,
-                field: 'id',
-              },
-            );
-          }
-        }
-        const prepared = inputs.map((input) =>
-          prepareRevision(library, input, { force: Boolean(options.force), pool }),
-        );
-        for (const p of prepared) owners.set(p.id, job.label);
-        return prepared;
-      };
-      const record = (prepared: PreparedRevision[], outcomes: CommitOutcome[]) => {
-        outcomes.forEach((o, i) => {
-          (o.status === 'added' ? added : unchanged).push(o);
-          for (const flag of o.qc)
-            notes.push(`${o.label}: ${o.id}: ${flag.level} ${flag.code}: ${flag.message}`);
-          const p = prepared[i]!;
-          if (o.status !== 'added') return;
-          // What the reader bent to read the file (no unit in a header …) is said now, not only by show.
-          for (const w of p.extras.warnings ?? [])
-            notes.push(
-              `${o.label}${w.line === undefined ? '' : `:${w.line}`}: ${o.id}: warning: ${w.message}`,
-            );
-          const at = index.get(o.id);
-          if (at === undefined) {
-            index.set(o.id, pool.ids.length);
-            pool.ids.push(o.id);
-            pool.rows.push(p.processed);
-          } else pool.rows[at] = p.processed;
-        });
-      };
-
-      const jobs = plan.jobs;
-      let done = 0;
-      if (options.atomic) {
-        const all: PreparedRevision[] = [];
-        for (const job of jobs) {
-          try {
-            all.push(...prepare(job));
-          } catch (error) {
-            failed.push({ file: job.label, error: oneLine(error) });
-          }
-          context.progress(++done, jobs.length, job.label);
-        }
-        if (failed.length === 0) {
-          try {
-            record(all, commitRevisions(library, all, { author, message }));
-          } catch (error) {
-            failed.push({ file: all[0]?.label ?? String(paths[0]), error: oneLine(error) });
-          }
-        }
-      } else {
-        let pending = jobs;
-        for (;;) {
-          const waiting: { job: IngestJob; error: unknown }[] = [];
-          for (const job of pending) {
-            try {
-              const prepared = prepare(job);
-              record(prepared, commitRevisions(library, prepared, { author, message }));
-            } catch (error) {
-              if (waitsForAnotherEntry(error)) waiting.push({ job, error });
-              else failed.push({ file: job.label, error: oneLine(error) });
-            }
-            if (!waiting.some((w) => w.job === job)) context.progress(++done, jobs.length, job.label);
-          }
-          // Retry files whose recipe names an entry while another pass still adds entries.
-          if (waiting.length === 0 || waiting.length === pending.length) {
-            for (const w of waiting) {
-              failed.push({ file: w.job.label, error: oneLine(w.error) });
-              context.progress(++done, jobs.length, w.job.label);
-            }
-            break;
-          }
-          pending = waiting.map((w) => w.job);
-        }
+      } catch (error) {
+        throw error instanceof BandshelfError ? inFlagWords(error) : error;
       }
+      const { added, unchanged } = outcome;
+      const failed = outcome.failed.map((f) => ({ file: f.file, error: flagWording(f.error) }));
+      const notes = outcome.notes.map(flagWording);
 
       const exitCode = failed.length > 0 ? 1 : 0;
       const stderrLines = [...notes, ...failed.map((f) => `bandshelf: ${f.error}`)];

@@ -23,9 +23,9 @@ function positiveNumber(value: unknown, flag: string, integer: boolean): number 
   return n;
 }
 
-/** `1652`, `1652.5` or `1652:s` (strong), `:m`, `:w`. */
+/** `1652`, `1652.5`, `1652cm-1` (any cm⁻¹ spelling) or `1652:s` (strong), `:m`, `:w`. */
 function parseBand(text: string): BandQuery {
-  const m = /^\s*(\d+(?:\.\d+)?)(?::([smw]))?\s*$/i.exec(text);
+  const m = /^\s*(\d+(?:\.\d+)?)\s*(?:cm-1|cm\^-1|cm⁻¹|1\/cm)?(?::([smw]))?\s*$/i.exec(text);
   if (!m) {
     throw new BandshelfError(
       'BAD_OPTION',

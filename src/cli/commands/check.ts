@@ -4,6 +4,7 @@ import { checkLibrary } from '../../library/store/checkLibrary.js';
 import { closeLibrary } from '../../library/store/closeLibrary.js';
 import { libraryPath } from '../../library/store/libraryPath.js';
 import { openLibrary } from '../../library/store/openLibrary.js';
+import { verifySearchMatrixCache } from '../../match/verifySearchMatrixCache.js';
 import type { CommandSpec } from '../command.js';
 
 export const checkCommand: CommandSpec = {
@@ -26,7 +27,10 @@ export const checkCommand: CommandSpec = {
     const library = openLibrary(path, { readonly: true });
     try {
       const revisions = library.db.prepare('SELECT count(*) FROM revisions').pluck().get() as number;
-      const problems = checkLibrary(library, { progress: context.progress });
+      const problems = [
+        ...checkLibrary(library, { progress: context.progress }),
+        ...verifySearchMatrixCache(path),
+      ];
       if (options.json) {
         return {
           stdout: JSON.stringify({ ok: problems.length === 0, revisions, problems }),

@@ -1,5 +1,6 @@
 // `bandshelf identify`: every band of an unknown with its table assignments, library candidates and fit status.
 import { BandshelfError } from '../../error.js';
+import { MIN_OVERLAP_DEFAULT } from '../../match/searchTypes.js';
 import type { CommandSpec } from '../command.js';
 import { configureMixtureOptions } from '../configureMixtureOptions.js';
 import { formatBandTable } from '../formatBandTable.js';
@@ -22,13 +23,18 @@ export const identifyCommand: CommandSpec = {
     command
       .argument('<file>', 'the unknown spectrum file')
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
+      .option('--keep-path', 'keep the unknown’s folder in the report (default: file name and SHA-256 only)')
       .option('--at <tag>', 'use a release instead of the working state')
       .option('--recipe <file>', 'process the unknown with this recipe instead of the library’s')
       .option('--tolerance <cm-1>', 'a library peak this close is the same band', '4')
       .option('--no-mixture', 'skip the mixture fit (explained is then unknown)');
     configureMixtureOptions(command);
     command
-      .option('--min-overlap <cm-1>', 'least wavenumber range unknown and reference must share', '200')
+      .option(
+        '--min-overlap <cm-1>',
+        'least wavenumber range unknown and reference must share',
+        String(MIN_OVERLAP_DEFAULT),
+      )
       .option('--report <dir>', 'write the JSON report into this folder')
       .option('--json', 'print the report as JSON');
   },
@@ -36,7 +42,7 @@ export const identifyCommand: CommandSpec = {
     const file = args[0];
     if (typeof file !== 'string') throw new BandshelfError('BAD_OPTION', 'name the unknown spectrum file');
     const parsed = parseMatchOptions({ ...options, metric: 'pearson', top: '5' }, { mixtureByDefault: true });
-    const run = matchUnknowns([file], parsed, context);
+    const run = await matchUnknowns([file], parsed, context);
     const notes = [...run.warnings];
     if (run.batch) {
       notes.push(

@@ -2,6 +2,7 @@
 import type { CommandSpec } from '../command.js';
 import { addCommand } from './add.js';
 import { assignmentsCommand } from './assignments.js';
+import { backupCommand } from './backup.js';
 import { bandsCommand } from './bands.js';
 import { checkCommand } from './check.js';
 import { diffCommand } from './diff.js';
@@ -30,6 +31,7 @@ export const commands: CommandSpec[] = [
   releaseCommand,
   diffCommand,
   checkCommand,
+  backupCommand,
   exportCommand,
   assignmentsCommand,
   matchCommand,

@@ -3,6 +3,7 @@ import { writeFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
 import { describeIoError } from '../../library/store/describeIoError.js';
+import { MIN_OVERLAP_DEFAULT } from '../../match/searchTypes.js';
 import { MATCH_CAUTION } from '../../schema/matchReport.js';
 import { collectRepeated } from '../collectRepeated.js';
 import type { CommandSpec } from '../command.js';
@@ -32,24 +33,30 @@ export const matchCommand: CommandSpec = {
     command
       .argument('<files...>', 'unknown spectrum files or folders')
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
+      .option('--keep-path', 'keep the unknown’s folder in the report (default: file name and SHA-256 only)')
       .option('--at <tag>', 'match against a release instead of the working state')
       .option('--recipe <file>', 'process the unknown with this recipe instead of the library’s')
       .option('--range <high:low>', 'score only inside this window (repeatable)', collectRepeated, [])
       .option('--metric <name>', 'pearson, derivative, cosine, euclidean or all', 'pearson')
       .option('--top <n>', 'hits per metric', '10')
-      .option('--min-overlap <cm-1>', 'least wavenumber range unknown and reference must share', '200')
+      .option(
+        '--min-overlap <cm-1>',
+        'least wavenumber range unknown and reference must share',
+        String(MIN_OVERLAP_DEFAULT),
+      )
       .option('--mixture', 'fit the unknown as a non-negative mixture of library spectra');
     configureMixtureOptions(command);
     command
       .option('--tolerance <cm-1>', 'band tolerance for the band identification', '4')
       .option('--report <dir>', 'write one JSON report per unknown into this folder')
       .option('--csv <file>', 'write one CSV row per unknown into this file')
-      .option('--json', 'print the report (batch: {reports, failed}) as JSON');
+      .option('--json', 'print the report (batch: {reports, failed}) as JSON')
+      .option('--explain', 'under each pearson hit, print the share of its score each spectral region gives');
   },
   async run(args, options, context) {
     const targets = (args[0] as string[] | undefined) ?? [];
     const parsed = parseMatchOptions(options);
-    const run = matchUnknowns(targets, parsed, context);
+    const run = await matchUnknowns(targets, parsed, context);
     const notes: string[] = [...run.warnings];
     if (typeof options.report === 'string') {
       const written = writeMatchReports(run.outcomes, options.report, { cwd: context.cwd });
@@ -83,7 +90,10 @@ export const matchCommand: CommandSpec = {
         : JSON.stringify(run.outcomes[0]!.report);
       return { stdout, stderr, exitCode };
     }
-    if (!run.batch) return { stdout: formatMatchTable(run.outcomes[0]!.report!), stderr, exitCode };
+    if (!run.batch) {
+      const stdout = formatMatchTable(run.outcomes[0]!.report!, { explain: options.explain === true });
+      return { stdout, stderr, exitCode };
+    }
     if (typeof options.csv !== 'string') {
       // Batch without a CSV file: the CSV is the output.
       return {

@@ -80,7 +80,7 @@ function asText(view: EntryView): string {
   );
   const r = view.recipe;
   lines.push(
-    `recipe: baseline ${r.baseline.method}, normalise ${r.normalise.method}, smooth ${r.smooth ? `SG ${r.smooth.window}/${r.smooth.order}` : 'none'}` +
+    `recipe: baseline ${r.baseline.method}, normalise ${r.normalise.method}, smooth ${r.smooth ? `SG ${r.smooth.width === undefined ? `${r.smooth.window ?? 9} points` : `${r.smooth.width} cm⁻¹`}/${r.smooth.order}` : 'none'}` +
       `${r.reference ? `, subtract ${r.reference.id} r${r.reference.revision}` : ''}${r.emsc ? `, EMSC ${r.emsc.id} r${r.emsc.revision}` : ''}` +
       `${r.timeDomain ? `, time-domain (${r.timeDomain.apodisation}, zero-fill ×${r.timeDomain.zeroFill})` : ''}`,
   );

@@ -61,7 +61,7 @@ export const siteCommand: CommandSpec = {
         base: typeof options.base === 'string' ? options.base : '/',
         clean: options.clean === true,
         reports,
-        protect: [path],
+        protect: [path, `${path}.cache`],
         cwd: context.cwd,
         caution: CAUTION,
         version: 'bandshelf 0.1.0',

@@ -173,7 +173,7 @@ export function buildRevisionInputs(
   if (several && given.id !== undefined) {
     throw new BandshelfError(
       'BAD_OPTION',
-      `the file holds ${originals.length} spectra but its metadata names one id ('${String(given.id)}'); choose one with --block N`,
+      `the file holds ${originals.length} spectra but its metadata names one id ('${String(given.id)}'); choose one with \`block\``,
       { file: job.label, field: 'id' },
     );
   }
@@ -216,6 +216,7 @@ export function buildRevisionInputs(
       files,
       read: entryRead,
       original: o.spectrum,
+      ...(o.saturated === undefined ? {} : { saturated: o.saturated }),
       meta: checked.data as RevisionInput['meta'],
       recipe,
       extras,

@@ -19,6 +19,8 @@ export interface RevisionInput {
   files: SourceFile[];
   read: ReadOptions;
   original: Spectrum;
+  /** 1 per point of `original` the reader clipped at the absorbance ceiling (kept out of the processed vector). */
+  saturated?: Uint8Array;
   /** Validated by entryMetaSchema. */
   meta: Record<string, unknown> & { id: string; name: string };
   /** Validated; a reference or EMSC spectrum may still lack its revision (prepareRevision pins it). */

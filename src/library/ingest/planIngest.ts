@@ -143,13 +143,13 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
     for (const abs of [...samples, ...references]) {
       exists(abs, labelOf(abs));
       if (statSync(abs).isDirectory()) {
-        throw new BandshelfError('BAD_OPTION', 'with --time-domain name trace files, not folders', {
+        throw new BandshelfError('BAD_OPTION', 'with `timeDomain` name trace files, not folders', {
           file: labelOf(abs),
         });
       }
     }
     if (references.length === 0) {
-      throw new BandshelfError('BAD_OPTION', '--time-domain needs at least one --reference trace file', {
+      throw new BandshelfError('BAD_OPTION', '`timeDomain` needs at least one trace file in `references`', {
         field: 'reference',
       });
     }
@@ -162,7 +162,7 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
     return { jobs: [job], warnings };
   }
   if ((options.references ?? []).length > 0) {
-    throw new BandshelfError('BAD_OPTION', '--reference goes with --time-domain', { field: 'reference' });
+    throw new BandshelfError('BAD_OPTION', '`references` go with `timeDomain`', { field: 'reference' });
   }
 
   const consumed = new Set<string>();

@@ -20,6 +20,9 @@ export interface PrepareRevisionOptions {
   /** Current processed vectors to look for near-duplicates in; none means no near-duplicate check.
    * @default undefined */
   pool?: NearDuplicatePool;
+  /** Correlation above which another entry is reported as a near-duplicate.
+   * @default 0.999 */
+  nearDuplicateThreshold?: number;
   /** @default 'data' */
   kind?: RevisionKind;
 }
@@ -36,6 +39,7 @@ export function prepareRevision(
   const base = { ...input, id, kind: options.kind ?? 'data', recipe, hashes };
   const { processed, peaks, referenceScale } = processOriginal(library, input.original, recipe, {
     file: input.label,
+    ...(input.saturated === undefined ? {} : { saturated: input.saturated }),
   });
   // The negative-absorbance check looks at the spectrum after the baseline step, before normalisation.
   const sorted = sortAndMerge(input.original, { file: input.label });
@@ -47,12 +51,16 @@ export function prepareRevision(
     baselineCorrected,
     maxGap: recipe.resample.maxGap,
     exclude: recipe.exclude,
+    crop: recipe.crop,
     ...(input.extras.dynamicRangeOrders !== undefined
       ? { dynamicRangeOrders: input.extras.dynamicRangeOrders }
       : {}),
   });
   if (options.pool) {
-    const duplicate = nearDuplicateFlag(processed, options.pool, { exclude: id });
+    const duplicate = nearDuplicateFlag(processed, options.pool, {
+      exclude: id,
+      ...(options.nearDuplicateThreshold === undefined ? {} : { threshold: options.nearDuplicateThreshold }),
+    });
     if (duplicate) qc.push(duplicate);
   }
   const errors = qc.filter((f) => f.level === 'error');
@@ -60,7 +68,7 @@ export function prepareRevision(
     errors.length > 0 && !options.force
       ? new BandshelfError(
           'QC_FAILED',
-          `quality check failed for '${id}': ${errors.map((f) => `${f.code} (${f.message})`).join('; ')}; add --force to store it anyway`,
+          `quality check failed for '${id}': ${errors.map((f) => `${f.code} (${f.message})`).join('; ')}; set \`force\` to store it anyway`,
           { file: input.label },
         )
       : undefined;

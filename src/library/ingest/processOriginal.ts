@@ -11,6 +11,8 @@ import { processedPeaks } from './processedPeaks.js';
 export interface ProcessOriginalOptions {
   /** The file named in errors. */
   file?: string;
+  /** Points the reader clipped at the absorbance ceiling. @default undefined (none) */
+  saturated?: Uint8Array;
 }
 
 export interface ProcessedOriginal {
@@ -43,7 +45,11 @@ export function processOriginal(
       absorbance: blobFloat64(row.original_y),
     });
   }
-  const result = processSpectrum(original, recipe, library.grid, { references, file: options.file });
+  const result = processSpectrum(original, recipe, library.grid, {
+    references,
+    file: options.file,
+    ...(options.saturated === undefined ? {} : { saturated: options.saturated }),
+  });
   const out: ProcessedOriginal = {
     processed: result.processed,
     peaks: processedPeaks(result.processed, library.grid),

@@ -17,6 +17,7 @@ import { readOriginals } from './readOriginals.js';
 import { recordHash } from './recordHash.js';
 import type { RevisionFileRow, RevisionRow } from './rowTypes.js';
 import { sha256Hex } from './sha256Hex.js';
+import { TABLES_OF_RECORD, tableDigests } from './tableDigests.js';
 
 export interface CheckLibraryOptions {
   /** Largest difference allowed between a stored and a recomputed processed value, relative to the vector's
@@ -64,6 +65,24 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
   );
   for (const name of IMMUTABILITY_TRIGGERS) {
     if (!triggers.has(name)) add('database', `the immutability trigger ${name} is missing`);
+  }
+
+  const seal = db.prepare('SELECT digests, created_at FROM seals ORDER BY key DESC LIMIT 1').get() as
+    | { digests: string; created_at: string }
+    | undefined;
+  if (seal === undefined)
+    add('database', 'the library has no seal (its tables cannot be verified as a whole)');
+  else {
+    const sealed = JSON.parse(seal.digests) as Record<string, string>;
+    const now = tableDigests(db);
+    for (const table of TABLES_OF_RECORD) {
+      if (sealed[table] !== now[table]) {
+        add(
+          `table ${table}`,
+          `rows were changed, deleted or replaced outside bandshelf since its last write (${seal.created_at})`,
+        );
+      }
+    }
   }
 
   for (const f of db.prepare('SELECT sha256, bytes FROM files').iterate() as Iterable<{
@@ -189,7 +208,10 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
       add(where, `the processed vector has ${stored.length} values; the grid has ${cols}`);
       return;
     }
-    const recomputed = processOriginal(library, { wavenumber: x, absorbance: y }, recipe, { file: where });
+    const recomputed = processOriginal(library, { wavenumber: x, absorbance: y }, recipe, {
+      file: where,
+      ...(again?.saturated === undefined ? {} : { saturated: again.saturated }),
+    });
     let scale = 0;
     for (const v of recomputed.processed) if (Number.isFinite(v) && Math.abs(v) > scale) scale = Math.abs(v);
     let covered = 0;

@@ -32,8 +32,12 @@ export function commitRevisions(
   const head = db.prepare(
     'SELECT revision, kind, content_hash FROM revisions WHERE entry_id = ? ORDER BY revision DESC LIMIT 1',
   );
-  const insertEntry = db.prepare('INSERT OR IGNORE INTO entries (id, created_at) VALUES (?, ?)');
-  const insertFile = db.prepare('INSERT OR IGNORE INTO files (sha256, bytes) VALUES (?, ?)');
+  const insertEntry = db.prepare(
+    'INSERT INTO entries (id, created_at) SELECT ?, ? WHERE NOT EXISTS (SELECT 1 FROM entries WHERE id = ?)',
+  );
+  const insertFile = db.prepare(
+    'INSERT INTO files (sha256, bytes) SELECT ?, ? WHERE NOT EXISTS (SELECT 1 FROM files WHERE sha256 = ?)',
+  );
   const insertRevision = db.prepare(`INSERT INTO revisions (entry_id, revision, kind, content_hash, data_hash,
     read_options, recipe, meta, original_x, original_y, processed, covered_points, coverage_min, coverage_max,
     peaks, qc, extras, author, message, created_at, record_hash)
@@ -109,9 +113,13 @@ export function commitRevisions(
           message: options.message ?? '',
           created_at: createdAt,
         };
-        insertEntry.run(p.id, createdAt);
+        insertEntry.run(p.id, createdAt, p.id);
         for (const f of files)
-          insertFile.run(f.sha256, Buffer.from(f.bytes.buffer, f.bytes.byteOffset, f.bytes.byteLength));
+          insertFile.run(
+            f.sha256,
+            Buffer.from(f.bytes.buffer, f.bytes.byteOffset, f.bytes.byteLength),
+            f.sha256,
+          );
         const { lastInsertRowid } = insertRevision.run({ ...row, record_hash: recordHash(row, files) });
         for (const f of files) insertRevisionFile.run(lastInsertRowid, f.position, f.role, f.name, f.sha256);
         outcomes.push({ ...outcome, revision, status: 'added', qc: p.qc });

@@ -34,6 +34,8 @@ export function connectLibrary(path: string, options: ConnectLibraryOptions = {}
   try {
     db.pragma(`busy_timeout = ${Math.max(0, Math.round(options.busyTimeoutMs ?? 10_000))}`);
     db.pragma('foreign_keys = ON');
+    // With recursive triggers, INSERT OR REPLACE fires the delete triggers too: a second guard beside the insert ones.
+    db.pragma('recursive_triggers = ON');
     db.pragma(`mmap_size = ${Math.max(0, Math.round(options.mmapBytes ?? 2 ** 30))}`);
     // Only a file without content takes a page size; it must come before WAL is switched on.
     if (options.create) db.pragma(`page_size = ${options.pageSize ?? 16384}`);

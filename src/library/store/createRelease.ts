@@ -1,6 +1,7 @@
 // Freezes the current revision of every entry (or the newest reviewed one) under a tag.
 import { BandshelfError } from '../../error.js';
 import type { Library, Release } from '../types.js';
+import { damagedLibraryAdvice } from './damagedLibraryAdvice.js';
 import { readRelease } from './readRelease.js';
 import { stateSelect } from './stateSelect.js';
 import { writeTransaction } from './writeTransaction.js';
@@ -30,6 +31,12 @@ export function createRelease(library: Library, tag: string, options: CreateRele
     );
   }
   const db = library.db;
+  const quick = db.prepare('PRAGMA quick_check').pluck().all() as string[];
+  if (!(quick.length === 1 && quick[0] === 'ok')) {
+    throw new BandshelfError('DAMAGED_LIBRARY', damagedLibraryAdvice(quick[0] ?? 'quick_check failed'), {
+      file: library.path,
+    });
+  }
   writeTransaction(
     library,
     () => {

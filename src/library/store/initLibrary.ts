@@ -3,6 +3,7 @@ import { existsSync } from 'node:fs';
 import { BandshelfError } from '../../error.js';
 import { type Grid, gridSchema, type RecipeInput, recipeSchema } from '../../schema/recipe.js';
 import type { Library } from '../types.js';
+import { appendSeal } from './appendSeal.js';
 import { connectLibrary } from './connectLibrary.js';
 import { migrateLibrary } from './migrateLibrary.js';
 import { openLibrary } from './openLibrary.js';
@@ -64,6 +65,7 @@ export function initLibrary(path: string, options: InitLibraryOptions = {}): Lib
       insert.run('grid', JSON.stringify(grid.data));
       insert.run('recipe', JSON.stringify(recipe.data));
       insert.run('created_at', (options.now ?? new Date()).toISOString());
+      appendSeal(db);
     }).immediate();
   } finally {
     db.close();

@@ -1,6 +1,7 @@
 // Brings a library file's tables up to the current layout, one step per PRAGMA user_version.
 import type Database from 'better-sqlite3';
 import { BandshelfError } from '../../error.js';
+import { appendSeal } from './appendSeal.js';
 
 /** Immutable tables: rows are only ever inserted; triggers refuse UPDATE and DELETE so history stays honest. */
 const IMMUTABLE = [
@@ -102,24 +103,70 @@ CREATE TABLE band_assignments (
 ) STRICT;
 `;
 
-function immutabilityTriggers(): string {
-  return IMMUTABLE.map(
-    (table) => `
+function immutabilityTriggers(tables: string[]): string {
+  return tables
+    .map(
+      (table) => `
 CREATE TRIGGER ${table}_no_update BEFORE UPDATE ON ${table}
 BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END;
 CREATE TRIGGER ${table}_no_delete BEFORE DELETE ON ${table}
 BEGIN SELECT RAISE(ABORT, '${table} rows are immutable'); END;`,
+    )
+    .join('\n');
+}
+
+/** Tables made immutable in layout 2 (settings never change after init; lab assignment rows are appended). */
+const IMMUTABLE_V2 = ['settings', 'band_assignments', 'seals'];
+
+/** Every unique key of every table of record: INSERT OR REPLACE deletes the row holding it without firing the
+ * delete triggers (unless recursive_triggers is on, which the sqlite3 tool leaves off), so a BEFORE INSERT
+ * trigger refuses any insert that collides. */
+const UNIQUE_KEYS: [string, string[]][] = [
+  ['settings', ['key']],
+  ['entries', ['id']],
+  ['revisions', ['key']],
+  ['revisions', ['entry_id', 'revision']],
+  ['files', ['sha256']],
+  ['revision_files', ['revision_key', 'position']],
+  ['reviews', ['key']],
+  ['releases', ['tag']],
+  ['release_members', ['tag', 'entry_id']],
+  ['band_assignments', ['key']],
+  ['seals', ['key']],
+];
+
+function noReplaceTriggers(): string {
+  return UNIQUE_KEYS.map(
+    ([table, cols]) => `
+CREATE TRIGGER ${table}_no_replace_${cols.join('_')} BEFORE INSERT ON ${table}
+WHEN EXISTS (SELECT 1 FROM ${table} WHERE ${cols.map((c) => `${c} = NEW.${c}`).join(' AND ')})
+BEGIN SELECT RAISE(ABORT, '${table} rows are immutable (a row with this key exists)'); END;`,
   ).join('\n');
 }
 
+// Layout 2: seals (a digest of every table of record after each write), and no update, delete or replace anywhere.
+const V2 = `
+CREATE TABLE seals (
+  key INTEGER PRIMARY KEY,
+  digests TEXT NOT NULL,
+  created_at TEXT NOT NULL
+) STRICT;
+`;
+
 /** Migrations in order: index i takes user_version i to i + 1. */
-const STEPS: string[] = [V1 + immutabilityTriggers()];
+const STEPS: string[] = [
+  V1 + immutabilityTriggers(IMMUTABLE),
+  V2 + immutabilityTriggers(IMMUTABLE_V2) + noReplaceTriggers(),
+];
 
 /** The user_version a library written by this code has. */
 export const LIBRARY_VERSION = STEPS.length;
 
 /** Names of the triggers that keep history immutable (checked by `check`). */
-export const IMMUTABILITY_TRIGGERS = IMMUTABLE.flatMap((t) => [`${t}_no_update`, `${t}_no_delete`]);
+export const IMMUTABILITY_TRIGGERS = [
+  ...[...IMMUTABLE, ...IMMUTABLE_V2].flatMap((t) => [`${t}_no_update`, `${t}_no_delete`]),
+  ...UNIQUE_KEYS.map(([t, cols]) => `${t}_no_replace_${cols.join('_')}`),
+];
 
 export interface MigrateLibraryOptions {
   /** The library file, named in errors.
@@ -140,6 +187,8 @@ export function migrateLibrary(db: Database.Database, options: MigrateLibraryOpt
     const step = STEPS[v]!;
     db.transaction(() => {
       db.exec(step);
+      // A library from before seals gets its first one: later changes behind its back are then named.
+      if (v + 1 === 2) appendSeal(db);
       db.pragma(`user_version = ${v + 1}`);
     }).immediate();
   }

@@ -33,6 +33,8 @@ export interface OriginalRead {
   /** How many spectra the file holds in all. */
   blocks: number;
   extras: RevisionExtras;
+  /** 1 per point clipped at the absorbance ceiling on reading (a saturated band), when any is. */
+  saturated?: Uint8Array;
 }
 
 export function readOriginals(input: ReadOriginalsInput, options: ReadOriginalsOptions = {}): OriginalRead[] {
@@ -96,6 +98,7 @@ export function readOriginals(input: ReadOriginalsInput, options: ReadOriginalsO
     if (p.warnings.length > 0) extras.warnings = p.warnings;
     const out: OriginalRead = { spectrum: p.spectrum, labels: p.meta, blocks: parsed.length, extras };
     if (p.source.block !== undefined) out.block = p.source.block;
+    if (p.saturated !== undefined) out.saturated = p.saturated;
     return out;
   });
 }

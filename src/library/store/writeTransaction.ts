@@ -2,6 +2,7 @@
 // corrupt) into one clear BandshelfError naming the library file.
 import { BandshelfError } from '../../error.js';
 import type { Library } from '../types.js';
+import { appendSeal } from './appendSeal.js';
 
 export interface WriteTransactionOptions {
   /** What is being written, for the error message.
@@ -15,7 +16,13 @@ export function writeTransaction<T>(
   options: WriteTransactionOptions = {},
 ): T {
   try {
-    return library.db.transaction(body).immediate();
+    return library.db
+      .transaction(() => {
+        const result = body();
+        appendSeal(library.db);
+        return result;
+      })
+      .immediate();
   } catch (error) {
     if (error instanceof BandshelfError) throw error;
     const code = (error as { code?: unknown }).code;

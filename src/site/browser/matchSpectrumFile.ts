@@ -1,23 +1,49 @@
-// Matches a dropped spectrum file against the published vectors with the project's own reader, recipe and
-// scoring code (browser-safe: the same functions `bandshelf match` runs, bundled for the page).
+// Matches a dropped spectrum file against the published data with the one match pipeline `bandshelf match` runs
+// (browser-safe: the same reader, recipe, search, mixture fit and band identification, bundled for the page).
 import { readSpectrumFile } from '../../formats/readSpectrumFile.js';
+import { instantiateScoreKernels } from '../../match/instantiateScoreKernels.js';
 import { jsScoreKernels } from '../../match/jsScoreKernels.js';
+import { runMatchPipeline } from '../../match/pipeline/runMatchPipeline.js';
+import type { MatchScorer, MatchSource } from '../../match/pipeline/types.js';
 import { searchSpectra } from '../../match/searchSpectra.js';
-import type { Hit } from '../../match/searchTypes.js';
+import { MIN_OVERLAP_DEFAULT } from '../../match/searchTypes.js';
+import { shippedAssignments } from '../../match/shippedAssignments.js';
 import { singleThreadRunner } from '../../match/singleThreadRunner.js';
+import type { BandAssignment } from '../../schema/bandAssignment.js';
+import type { MatchHit, MatchReport } from '../../schema/matchReport.js';
 import type { Grid, Recipe } from '../../schema/recipe.js';
-import { processSpectrum } from '../../spectrum/processSpectrum.js';
-import type { Spectrum } from '../../spectrum/types.js';
+import { publishedMatchSource } from './publishedMatchSource.js';
 
 /** What the build writes beside the binary matrix (`assets/search-matrix.json`), plus the decoded matrix. */
 export interface PublishedSearchSet {
   grid: Grid;
   recipe: Recipe;
   stateKey: string;
-  entries: { id: string; revision: number; name: string; class: string; path: string | null }[];
+  /** The library's name. @default 'published library' */
+  name?: string;
+  at?: string | null;
+  entries: {
+    id: string;
+    revision: number;
+    hash?: string;
+    name: string;
+    class: string;
+    path: string | null;
+  }[];
   /** rows × gridLength(grid), NaN where not covered. */
   processed: Float32Array;
-  references: Record<string, { wavenumber: number[]; absorbance: number[] }>;
+  references: Record<string, { wavenumber: ArrayLike<number>; absorbance: ArrayLike<number> }>;
+  /** Every stored peak, `entry[k]` a row (older sites publish none: no library candidates per band). */
+  peaks?: {
+    entry: ArrayLike<number>;
+    position: ArrayLike<number>;
+    height: ArrayLike<number>;
+    prominence: ArrayLike<number>;
+  };
+  /** The library's best-wrong-hit null, as `bandshelf match` computes it. @default none (no p-values) */
+  wrongHitNull?: { scores: number[]; entries: number; sampled: number };
+  /** The assignment table of `bandshelf match`. @default the shipped table */
+  assignments?: BandAssignment[];
 }
 
 export interface MatchSpectrumFileOptions {
@@ -25,8 +51,12 @@ export interface MatchSpectrumFileOptions {
    * @default 10 */
   k?: number;
   /** Least shared coverage, cm⁻¹ (as `bandshelf match --min-overlap`).
-   * @default 200 */
+   * @default MIN_OVERLAP_DEFAULT (200) */
   minOverlap?: number;
+  /** Run the mixture fit, as `bandshelf match --mixture`. @default true */
+  mixture?: boolean;
+  /** The published source already built from `set` (keeps loaded entries across files). @default built from set */
+  source?: MatchSource;
 }
 
 export interface FileMatch {
@@ -35,40 +65,69 @@ export interface FileMatch {
   /** Spectra in the file; only the first is matched. */
   spectra: number;
   warnings: string[];
-  hits: (Hit & { path: string | null })[];
+  hits: (MatchHit & { path: string | null })[];
+  /** The full report, as `bandshelf match --json --mixture` writes it. */
+  report: MatchReport;
 }
 
 /**
- * Scores run on plain JavaScript kernels: compiling WebAssembly would need 'wasm-unsafe-eval' in the page's
- * Content-Security-Policy, and one query against a published release is fast enough without it.
+ * The WebAssembly kernels `bandshelf match` runs, so scores agree to the last bit; where the engine or the page's
+ * Content-Security-Policy (no 'wasm-unsafe-eval') refuses WebAssembly, the JavaScript kernels serve.
  */
-export function matchSpectrumFile(
+export const pageScorer: MatchScorer = (source, queries, options) =>
+  searchSpectra(source, queries, {
+    ...options,
+    precision: 'exact',
+    runner: (matrix) =>
+      singleThreadRunner(instantiateScoreKernels(matrix.memory) ?? jsScoreKernels(matrix.memory)),
+  });
+
+/** The file's SHA-256 (Web Crypto, in the browser and in Node alike). */
+async function sha256(bytes: Uint8Array): Promise<string> {
+  const digest = await globalThis.crypto.subtle.digest('SHA-256', new Uint8Array(bytes));
+  return Array.from(new Uint8Array(digest), (b) => b.toString(16).padStart(2, '0')).join('');
+}
+
+export async function matchSpectrumFile(
   bytes: Uint8Array,
   file: string,
   set: PublishedSearchSet,
   options: MatchSpectrumFileOptions = {},
-): FileMatch {
+): Promise<FileMatch> {
   const parsed = readSpectrumFile(bytes, { file });
   const first = parsed[0]!;
-  const references = new Map<string, Spectrum>(
-    Object.entries(set.references).map(([id, s]) => [
-      id,
-      { wavenumber: Float64Array.from(s.wavenumber), absorbance: Float64Array.from(s.absorbance) },
-    ]),
+  const title = typeof first.meta.title === 'string' ? first.meta.title : undefined;
+  const warnings = first.warnings.map((w) =>
+    w.line === undefined ? w.message : `line ${w.line}: ${w.message}`,
   );
-  const { processed } = processSpectrum(first.spectrum, set.recipe, set.grid, { references, file });
-  const [hits] = searchSpectra(set, [processed], {
-    metric: 'pearson',
-    k: options.k ?? 10,
-    minOverlap: options.minOverlap ?? 200,
-    precision: 'exact',
-    runner: (matrix) => singleThreadRunner(jsScoreKernels(matrix.memory)),
-  });
+  const source = options.source ?? publishedMatchSource(set);
+  const report = await runMatchPipeline(
+    {
+      unknown: {
+        file,
+        ...(parsed.length > 1 && first.source.block !== undefined ? { block: first.source.block } : {}),
+        hash: await sha256(bytes),
+        ...(title === undefined ? {} : { title }),
+        spectrum: first.spectrum,
+        ...(first.saturated === undefined ? {} : { saturated: first.saturated }),
+        warnings,
+      },
+      source,
+      scorer: pageScorer,
+      assignments: set.assignments ?? shippedAssignments(),
+    },
+    {
+      top: options.k ?? 10,
+      minOverlap: options.minOverlap ?? MIN_OVERLAP_DEFAULT,
+      mixture: options.mixture ?? true,
+    },
+  );
   const paths = new Map(set.entries.map((e) => [e.id, e.path]));
   return {
-    title: typeof first.meta.title === 'string' && first.meta.title !== '' ? first.meta.title : file,
+    title: title !== undefined && title !== '' ? title : file,
     spectra: parsed.length,
-    warnings: first.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
-    hits: (hits ?? []).map((h) => ({ ...h, path: paths.get(h.id) ?? null })),
+    warnings,
+    hits: (report.hitsByMetric.pearson ?? []).map((h) => ({ ...h, path: paths.get(h.id) ?? null })),
+    report,
   };
 }

@@ -1,8 +1,12 @@
-// The in-browser matcher page: loads the published vectors, takes a dropped or chosen file, lists the top hits.
+// The in-browser matcher page: loads the published data, takes a dropped or chosen file, and shows the match
+// pipeline's report: top hits, the mixture (components, unexplained bands) and the identified bands.
 import { BandshelfError } from '../../error.js';
+import type { MatchSource } from '../../match/pipeline/types.js';
+import type { MatchReport } from '../../schema/matchReport.js';
 import { decodeSearchMatrix } from '../decodeSearchMatrix.js';
 import { formatNumber } from '../formatNumber.js';
 import { matchSpectrumFile, type PublishedSearchSet } from './matchSpectrumFile.js';
+import { type PublishedEntryDocument, publishedMatchSource } from './publishedMatchSource.js';
 
 export interface MountMatcherOptions {
   /** Hits listed.
@@ -18,6 +22,79 @@ async function fetchOk(url: string): Promise<Response> {
   return response;
 }
 
+/** A small table of header labels and rows of cell texts. */
+function tableOf(doc: Document, head: string[], rows: string[][]): HTMLTableElement {
+  const table = doc.createElement('table');
+  const tr = table.createTHead().insertRow();
+  for (const h of head) {
+    const th = doc.createElement('th');
+    th.textContent = h;
+    tr.append(th);
+  }
+  const body = table.createTBody();
+  for (const cells of rows) {
+    const row = body.insertRow();
+    for (const c of cells) row.insertCell().textContent = c;
+  }
+  return table;
+}
+
+/** The mixture and band sections of a report, as the report pages show them. */
+function reportSections(doc: Document, report: MatchReport): HTMLElement[] {
+  const out: HTMLElement[] = [];
+  const mixture = report.mixture;
+  if (mixture) {
+    const section = doc.createElement('section');
+    section.id = 'match-mixture';
+    const h = doc.createElement('h2');
+    h.textContent = 'Mixture fit';
+    const note = doc.createElement('p');
+    note.className = 'muted';
+    note.textContent = `R² ${mixture.r2 === null ? '–' : formatNumber(mixture.r2, { decimals: 4 })}; ${mixture.criterion}`;
+    section.append(
+      h,
+      note,
+      tableOf(
+        doc,
+        ['Component', 'Class', 'Share', 'Forced'],
+        mixture.components.map((c) => [
+          `${c.name ?? c.id} ${c.id}`,
+          c.class ?? '',
+          formatNumber(c.share, { decimals: 3 }),
+          c.forced ? 'yes' : 'no',
+        ]),
+      ),
+    );
+    const residual = doc.createElement('p');
+    residual.className = 'match-residual-bands';
+    residual.textContent =
+      mixture.residualBands.length === 0
+        ? 'Unexplained bands: none above the noise.'
+        : `Unexplained bands (cm⁻¹): ${mixture.residualBands.map((b) => formatNumber(b.position, { decimals: 1 })).join(', ')}`;
+    section.append(residual);
+    out.push(section);
+  }
+  const bands = doc.createElement('section');
+  bands.id = 'match-bands';
+  const h = doc.createElement('h2');
+  h.textContent = 'Band identification';
+  bands.append(
+    h,
+    tableOf(
+      doc,
+      ['Band (cm⁻¹)', 'Assignments', 'Library candidates', 'Explained by the fit'],
+      report.bands.map((b) => [
+        formatNumber(b.position, { decimals: 1 }),
+        b.assignments.map((a) => a.label).join('; '),
+        b.candidates.map((c) => c.id).join(', '),
+        b.explained === null ? '–' : b.explained ? 'yes' : 'no',
+      ]),
+    ),
+  );
+  out.push(bands);
+  return out;
+}
+
 export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): void {
   const zone = doc.getElementById('match-drop');
   const input = doc.getElementById('match-file') as HTMLInputElement | null;
@@ -26,6 +103,10 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
   const base = doc.body.dataset.base ?? '/';
   if (!zone || !input || !status || !table) return;
   let set: PublishedSearchSet | undefined;
+  let source: MatchSource | undefined;
+  const sections = doc.createElement('div');
+  sections.id = 'match-report';
+  table.after(sections);
   const ready = Promise.all([
     fetchOk(zone.dataset.meta ?? `${base}assets/search-matrix.json`).then(
       (r) => r.json() as Promise<MatrixMeta>,
@@ -37,6 +118,12 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
       throw new Error('the matrix and its description disagree; rebuild the site');
     }
     set = { ...meta, processed: decoded.matrix };
+    // An entry's JSON sits in its folder under the folder's own name.
+    const loadEntry = (path: string): Promise<PublishedEntryDocument> => {
+      const slug = path.replace(/\/$/, '').split('/').pop() ?? '';
+      return fetchOk(`${base}${path}${slug}.json`).then((r) => r.json() as Promise<PublishedEntryDocument>);
+    };
+    source = publishedMatchSource(set, { loadEntry });
     status.textContent = `Ready: ${meta.rows} reference spectra loaded.`;
     zone.dataset.ready = 'true';
   });
@@ -47,10 +134,11 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
   const show = async (file: File): Promise<void> => {
     status.textContent = `Reading ${file.name} …`;
     table.hidden = true;
+    sections.replaceChildren();
     try {
       await ready;
       const bytes = new Uint8Array(await file.arrayBuffer());
-      const result = matchSpectrumFile(bytes, file.name, set!, { k: options.k ?? 10 });
+      const result = await matchSpectrumFile(bytes, file.name, set!, { k: options.k ?? 10, source: source! });
       const body = table.tBodies[0]!;
       body.replaceChildren();
       result.hits.forEach((hit, i) => {
@@ -76,6 +164,7 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
         overlap.textContent = formatNumber(hit.overlap, { decimals: 0 });
       });
       table.hidden = result.hits.length === 0;
+      sections.replaceChildren(...reportSections(doc, result.report));
       const notes = [
         result.spectra > 1 ? `the file holds ${result.spectra} spectra; the first was matched` : '',
         ...result.warnings,

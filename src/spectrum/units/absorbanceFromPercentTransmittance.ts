@@ -6,6 +6,11 @@ export interface AbsorbanceFromPercentTransmittanceOptions {
   file?: string;
   /** Line number of each element (same length as the input), so an error can point at the line. @default undefined */
   lines?: ArrayLike<number>;
+  /**
+   * Absorbance ceiling: a transmittance at or below 10^−ceiling (zero and negative noise included) is clipped
+   * to it instead of refused, as a saturated band's noise demands. @default undefined (refuse T ≤ 0)
+   */
+  ceiling?: number;
 }
 
 /**
@@ -25,12 +30,18 @@ export function absorbanceFromPercentTransmittance(
   options: AbsorbanceFromPercentTransmittanceOptions = {},
 ): number | Float64Array {
   if (typeof percent === 'number') {
+    if (options.ceiling !== undefined && percent <= 100 * 10 ** -options.ceiling) return options.ceiling;
     if (!(percent > 0) || !Number.isFinite(percent)) throw badPercent(percent, 0, options);
     return 2 - Math.log10(percent);
   }
   const out = new Float64Array(percent.length);
+  const floor = options.ceiling === undefined ? Number.NEGATIVE_INFINITY : 100 * 10 ** -options.ceiling;
   for (let i = 0; i < percent.length; i++) {
     const p = percent[i]!;
+    if (p <= floor) {
+      out[i] = options.ceiling!;
+      continue;
+    }
     if (!(p > 0) || !Number.isFinite(p)) throw badPercent(p, i, options);
     // 2 − log10(%T) rather than −log10(%T/100): one rounding fewer, and exact for %T = 1, 10, 100.
     out[i] = 2 - Math.log10(p);

@@ -6,6 +6,11 @@ export interface AbsorbanceFromTransmittanceOptions {
   file?: string;
   /** Line number of each element (same length as the input), so an error can point at the line. @default undefined */
   lines?: ArrayLike<number>;
+  /**
+   * Absorbance ceiling: a transmittance at or below 10^−ceiling (zero and negative noise included) is clipped
+   * to it instead of refused, as a saturated band's noise demands. @default undefined (refuse T ≤ 0)
+   */
+  ceiling?: number;
 }
 
 /**
@@ -26,13 +31,19 @@ export function absorbanceFromTransmittance(
   options: AbsorbanceFromTransmittanceOptions = {},
 ): number | Float64Array {
   if (typeof transmittance === 'number') {
+    if (options.ceiling !== undefined && transmittance <= 10 ** -options.ceiling) return options.ceiling;
     if (!(transmittance > 0) || !Number.isFinite(transmittance))
       throw badTransmittance(transmittance, 0, options);
     return -Math.log10(transmittance);
   }
   const out = new Float64Array(transmittance.length);
+  const floor = options.ceiling === undefined ? Number.NEGATIVE_INFINITY : 10 ** -options.ceiling;
   for (let i = 0; i < transmittance.length; i++) {
     const t = transmittance[i]!;
+    if (t <= floor) {
+      out[i] = options.ceiling!;
+      continue;
+    }
     if (!(t > 0) || !Number.isFinite(t)) throw badTransmittance(t, i, options);
     out[i] = -Math.log10(t);
   }

@@ -198,21 +198,22 @@ describe('bandshelf add', () => {
   });
 
   it('an error-level QC flag blocks the add unless --force, and nothing is written', () => {
-    const saturated = join(dir, 'saturated.csv');
-    writeSpectrumCsv(saturated, [{ position: 1650, height: 3.5, fwhm: 40 }]);
+    // A spectrum wholly above the grid's 4000 cm⁻¹ end covers none of it: an error-level flag.
+    const saturated = join(dir, 'outside.csv');
+    writeSpectrumCsv(saturated, [{ position: 4300, height: 0.5, fwhm: 40 }], { start: 4500, stop: 4100 });
     const before = parseJson<unknown[]>(bandshelf(['list', ...lib, '--json']).stdout).length;
     const blocked = bandshelf(['add', saturated, ...lib, '--json']);
     expect(blocked.code).toBe(1);
     const out = parseJson<AddJson>(blocked.stdout);
     expect(out.added).toEqual([]);
     expect(out.failed).toHaveLength(1);
-    expect(out.failed[0]!.file).toContain('saturated.csv');
+    expect(out.failed[0]!.file).toContain('outside.csv');
     expect(out.failed[0]!.error).toContain('QC_FAILED');
     expect(parseJson<unknown[]>(bandshelf(['list', ...lib, '--json']).stdout).length).toBe(before);
     const forced = bandshelf(['add', saturated, ...lib, '--force', '--json']);
     expect(forced.code).toBe(0);
-    const show = parseJson<ShowJson>(bandshelf(['show', 'saturated', ...lib, '--json']).stdout);
-    expect(show.qc.some((f) => f.code === 'saturation' && f.level === 'error')).toBe(true);
+    const show = parseJson<ShowJson>(bandshelf(['show', 'outside', ...lib, '--json']).stdout);
+    expect(show.qc.some((f) => f.code === 'narrow-coverage' && f.level === 'error')).toBe(true);
   });
 
   it('pins a recipe reference to its revision, waiting for the referenced entry when it comes later in the folder', () => {

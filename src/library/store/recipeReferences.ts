@@ -1,8 +1,9 @@
 // The original spectra a recipe's reference subtraction or EMSC step needs, read from the library.
-import { readEntry } from '../library/store/readEntry.js';
-import type { Library } from '../library/types.js';
-import type { Recipe } from '../schema/recipe.js';
-import type { Spectrum } from '../spectrum/types.js';
+
+import type { Recipe } from '../../schema/recipe.js';
+import type { Spectrum } from '../../spectrum/types.js';
+import type { Library } from '../types.js';
+import { readEntry } from './readEntry.js';
 
 export interface RecipeReferencesOptions {
   /**

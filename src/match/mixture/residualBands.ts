@@ -1,0 +1,82 @@
+// Unexplained bands: residual maxima above k × the local noise over at least the instrument resolution.
+
+import { findPeaks } from '../../spectrum/findPeaks.js';
+import { savitzkyGolay } from '../../spectrum/savitzkyGolay.js';
+import type { Spectrum } from '../../spectrum/types.js';
+import type { ResidualBand } from '../types.js';
+import { residualNoise } from './residualNoise.js';
+
+export interface ResidualBandsOptions {
+  /** Multiple of the local noise a band's height and prominence must exceed. @default 3 */
+  k?: number;
+  /** Instrument resolution, cm⁻¹: a band's FWHM must reach it (a one-point spike is not a band). @default 4 */
+  resolution?: number;
+  /** Half-width of the window the local noise is measured in around each band, cm⁻¹. @default 100 */
+  noiseHalfWidth?: number;
+  /** Savitzky–Golay window (points, quadratic) the residual is smoothed with before peaks are sought. @default 7 */
+  smoothWindow?: number;
+  /** A band this many points or fewer from the fit's edge (grid end, excluded window) is dropped. @default 4 */
+  edgePoints?: number;
+}
+
+/**
+ * `spectrum` is the residual on the grid (NaN outside the fit); `query` the unknown on the same grid, for each band's
+ * share (residual height over the unknown's value there). Local noise: residualNoise over ±noiseHalfWidth.
+ */
+export function residualBands(
+  spectrum: Spectrum,
+  query: ArrayLike<number>,
+  options: ResidualBandsOptions = {},
+): ResidualBand[] {
+  const k = options.k ?? 3;
+  const resolution = options.resolution ?? 4;
+  const noiseHalfWidth = options.noiseHalfWidth ?? 100;
+  const smoothWindow = options.smoothWindow ?? 7;
+  const edgePoints = options.edgePoints ?? 4;
+  const { wavenumber: axis, absorbance: residual } = spectrum;
+  const global = residualNoise(residual).sigma;
+  if (!(global > 0)) return [];
+  const searched =
+    smoothWindow >= 3 ? savitzkyGolay(residual, { window: smoothWindow, order: 2, derivative: 0 }) : residual;
+  const step = axis.length > 1 ? Math.abs(axis[1]! - axis[0]!) : 1;
+  const span = Math.max(3, Math.round(noiseHalfWidth / step));
+  const bands: ResidualBand[] = [];
+  for (const p of findPeaks(
+    { wavenumber: axis, absorbance: searched },
+    { minProminence: k * global * 0.5 },
+  )) {
+    const at = nearestIndex(axis, p.position);
+    if (nearEdge(residual, at, edgePoints)) continue;
+    if (!(p.fwhm >= resolution)) continue;
+    const local = residualNoise(
+      residual.subarray(Math.max(0, at - span), Math.min(residual.length, at + span + 1)),
+    );
+    const sigma = local.sigma > 0 ? local.sigma : global;
+    if (!(p.height > k * sigma && p.prominence > k * sigma)) continue;
+    const there = Math.abs(query[at]!);
+    bands.push({
+      position: p.position,
+      height: p.height,
+      prominence: p.prominence,
+      fwhm: p.fwhm,
+      width: p.fwhm,
+      share: Number.isFinite(there) ? Math.min(1, p.height / Math.max(there, p.height)) : 1,
+      localNoise: sigma,
+    });
+  }
+  return bands;
+}
+
+function nearestIndex(axis: ArrayLike<number>, x: number): number {
+  let best = 0;
+  for (let i = 1; i < axis.length; i++) if (Math.abs(axis[i]! - x) < Math.abs(axis[best]! - x)) best = i;
+  return best;
+}
+
+function nearEdge(residual: ArrayLike<number>, at: number, edge: number): boolean {
+  for (let d = -edge; d <= edge; d++) {
+    const i = at + d;
+    if (i < 0 || i >= residual.length || !Number.isFinite(residual[i]!)) return true;
+  }
+  return false;
+}

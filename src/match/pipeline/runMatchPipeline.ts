@@ -1,0 +1,230 @@
+// The one match pipeline (browser-safe): process the unknown, score it, fit the mixture, identify bands, report.
+import { BandshelfError } from '../../error.js';
+import type { MatchReport } from '../../schema/matchReport.js';
+import type { Recipe, WavenumberWindow } from '../../schema/recipe.js';
+import { gridAxis } from '../../spectrum/gridAxis.js';
+import { processSpectrum } from '../../spectrum/processSpectrum.js';
+import { buildBandIndex } from '../buildBandIndex.js';
+import { buildMatchReport } from '../buildMatchReport.js';
+import { coveredSpan } from '../coveredSpan.js';
+import { fitMixture } from '../fitMixture.js';
+import { identifyBands } from '../identifyBands.js';
+import { scoringMask } from '../scoringMask.js';
+import { type Hit, type Metric, MIN_OVERLAP_DEFAULT } from '../searchTypes.js';
+import type { BandIndex, MixtureCandidate, MixtureResult } from '../types.js';
+import { offerMixtureCandidates } from './offerMixtureCandidates.js';
+import type { MatchPipelineInput } from './types.js';
+
+export interface RunMatchPipelineOptions {
+  /** A recipe overriding the source's default (e.g. `--recipe FILE`). @default source.recipe */
+  recipe?: Recipe;
+  /** Where `recipe` came from, as the report records it. @default 'library' */
+  recipeSource?: 'library' | 'file';
+  /** The reference spectra `recipe` names when it is not the source's own. @default source.references */
+  references?: ReadonlyMap<string, import('../../spectrum/types.js').Spectrum>;
+  /** Scoring windows, cm⁻¹. @default [] (whole grid) */
+  ranges?: readonly WavenumberWindow[];
+  /** @default ['pearson'] */
+  metrics?: readonly Metric[];
+  /** Hits reported per metric. @default 10 */
+  top?: number;
+  /** Least shared coverage, cm⁻¹. @default MIN_OVERLAP_DEFAULT (200) */
+  minOverlap?: number;
+  /** Run the mixture fit. @default false */
+  mixture?: boolean;
+  /** Entry ids forced into the mixture. @default [] */
+  with?: readonly string[];
+  /** @default 6 */
+  maxComponents?: number;
+  /** Top pearson hits offered to forward selection. @default 30 */
+  candidates?: number;
+  /** Baseline polynomial degree of the fit (null: no baseline). @default 0 when the recipe removes the baseline, else 2 */
+  baselineDegree?: number | null;
+  /** Band tolerance for identification, cm⁻¹. @default 4 */
+  tolerance?: number;
+  /** Classes left out of the hit lists and the fit. @default [] */
+  excludeClass?: readonly string[];
+  /** Entry ids left out of the hit lists and the fit. @default [] */
+  exclude?: readonly string[];
+  /** Only entries of these classes in the hit lists and the fit. @default [] (every class) */
+  onlyClass?: readonly string[];
+  /**
+   * Classes the mixture fit never draws on unless forced with `with`: composites are not components.
+   * @default COMPOSITE_CLASSES (['biofluid', 'mixture'])
+   */
+  fitExcludeClass?: readonly string[];
+  /** The source's band index, when the caller keeps one across unknowns. @default built from the source's peaks */
+  index?: BandIndex;
+}
+
+/** Classes of composite references (a serum film, a calibration mixture) that are not pure-substance components. */
+export const COMPOSITE_CLASSES: readonly string[] = ['biofluid', 'mixture'];
+
+/** Whether an entry may appear in the hit lists and the fit under the class and id options. */
+function admits(options: RunMatchPipelineOptions): (e: { id: string; class: string }) => boolean {
+  const excludeClass = new Set(options.excludeClass ?? []);
+  const exclude = new Set(options.exclude ?? []);
+  const only = new Set(options.onlyClass ?? []);
+  return (e) => !exclude.has(e.id) && !excludeClass.has(e.class) && (only.size === 0 || only.has(e.class));
+}
+
+/** The unknown processed with the recipe, after checking that it covers enough of the grid to be scored. */
+function processUnknown(
+  input: MatchPipelineInput,
+  recipe: Recipe,
+  options: RunMatchPipelineOptions,
+): Float64Array {
+  const { unknown, source } = input;
+  const references = options.references ?? source.references;
+  const { processed } = processSpectrum(unknown.spectrum, recipe, source.grid, {
+    references: new Map(references),
+    file: unknown.file,
+    ...(unknown.saturated === undefined ? {} : { saturated: unknown.saturated }),
+  });
+  const minOverlap = options.minOverlap ?? MIN_OVERLAP_DEFAULT;
+  const mask = scoringMask(processed, source.grid, { ranges: options.ranges ?? [], exclude: recipe.exclude });
+  const overlap = coveredSpan(mask, source.grid.step);
+  if (overlap < minOverlap || overlap === 0) {
+    throw new BandshelfError(
+      'SMALL_OVERLAP',
+      `the unknown covers only ${overlap} cm⁻¹ of the library grid inside the scoring ranges; at least ` +
+        `${minOverlap} cm⁻¹ are needed (lower minOverlap or widen the ranges)`,
+      { file: unknown.file, field: 'minOverlap' },
+    );
+  }
+  return processed;
+}
+
+/** The mixture fit over the forced ids and the best pearson hits, with how many candidates it chose from. */
+async function fitOffered(
+  input: MatchPipelineInput,
+  processed: Float64Array,
+  poolHits: readonly Hit[],
+  recipe: Recipe,
+  options: RunMatchPipelineOptions,
+): Promise<{ mixture: MixtureResult & { candidates: number }; offered: MixtureCandidate[] }> {
+  const { source } = input;
+  const forced = [...new Set(options.with ?? [])];
+  const rowOf = new Map(source.entries.map((e, i) => [e.id, i]));
+  const composite = new Set(options.fitExcludeClass ?? COMPOSITE_CLASSES);
+  const leftOut = [...new Set(poolHits.filter((h) => composite.has(h.class)).map((h) => h.class))].sort();
+  const rows = [
+    ...forced.map((id) => rowOf.get(id)!),
+    ...poolHits.filter((h) => !composite.has(h.class)).map((h) => h.row),
+  ];
+  const offered = await offerMixtureCandidates({ source, rows, unknown: input.unknown.spectrum }, { recipe });
+  const ranges = options.ranges ?? [];
+  const fit = fitMixture(processed, offered.candidates, {
+    grid: source.grid,
+    with: forced,
+    maxComponents: options.maxComponents ?? 6,
+    ...(options.baselineDegree === undefined ? {} : { baselineDegree: options.baselineDegree }),
+    ranges: ranges.length === 0 ? null : ranges,
+  });
+  const window = offered.window;
+  const classNote =
+    leftOut.length === 0
+      ? ''
+      : `; references of class ${leftOut.join(', ')} were left out (composites, not components)`;
+  const criterion =
+    window === null || offered.reprocessed.length === 0
+      ? `${fit.criterion}${classNote}`
+      : `${fit.criterion}${classNote}; the unknown covers only ${window.max.toFixed(0)}–${window.min.toFixed(0)} cm⁻¹, so ` +
+        `${offered.reprocessed.length} reference(s) reaching beyond it were processed again over that span ` +
+        `with their own recipes (baseline and normalisation over the same span as the unknown's)`;
+  return {
+    mixture: { ...fit, criterion, candidates: new Set(offered.candidates.map((c) => c.id)).size },
+    offered: offered.candidates,
+  };
+}
+
+/**
+ * One unknown → one validated `MatchReport`: hits per metric, standing, mixture (with `mixture`), residual and
+ * identified bands. Node and the browser differ only in the source and scorer they pass.
+ */
+export async function runMatchPipeline(
+  input: MatchPipelineInput,
+  options: RunMatchPipelineOptions = {},
+): Promise<MatchReport> {
+  const { unknown, source, scorer } = input;
+  if (source.entries.length === 0) {
+    throw new BandshelfError(
+      'EMPTY_LIBRARY',
+      source.at === null
+        ? 'the library has no entries to match against'
+        : `release '${source.at}' holds no entries to match against`,
+    );
+  }
+  const forced = [...new Set(options.with ?? [])];
+  const ids = new Set(source.entries.map((e) => e.id));
+  for (const id of forced) {
+    if (!ids.has(id)) {
+      throw new BandshelfError(
+        'NOT_FOUND',
+        `'with' names '${id}', which is not an entry of ${source.at === null ? 'the library' : `release '${source.at}'`}`,
+        { field: 'with' },
+      );
+    }
+  }
+  const recipe = options.recipe ?? source.recipe;
+  const metrics = options.metrics ?? ['pearson'];
+  const top = options.top ?? 10;
+  const minOverlap = options.minOverlap ?? MIN_OVERLAP_DEFAULT;
+  const ranges = options.ranges ?? [];
+  const poolSize = options.candidates ?? 30;
+  const tolerance = options.tolerance ?? 4;
+  const maxComponents = options.maxComponents ?? 6;
+  const processed = processUnknown(input, recipe, options);
+
+  const withMixture = options.mixture === true;
+  const searchMetrics: Metric[] = [...metrics];
+  if (withMixture && !searchMetrics.includes('pearson')) searchMetrics.push('pearson');
+  const hitsByMetric = new Map<Metric, Hit[]>();
+  const admitted = admits(options);
+  // The scorer ranks every row; ask for as many more hits as rows are left out, then drop those.
+  const leftOut = source.entries.filter((e) => !admitted(e)).length;
+  for (const metric of searchMetrics) {
+    const wanted = metric === 'pearson' && withMixture ? Math.max(top, poolSize) : top;
+    const k = Math.min(source.entries.length, wanted + leftOut);
+    const [hits] = await scorer(source, [processed], { metric, ranges, k, minOverlap });
+    hitsByMetric.set(metric, (hits ?? []).filter((h) => admitted(h)).slice(0, wanted));
+  }
+  const fitted = withMixture
+    ? await fitOffered(input, processed, hitsByMetric.get('pearson')!.slice(0, poolSize), recipe, options)
+    : null;
+  const mixture = fitted === null ? null : fitted.mixture;
+  const bands = identifyBands(
+    { wavenumber: gridAxis(source.grid), absorbance: processed },
+    {
+      assignments: input.assignments,
+      index: options.index ?? buildBandIndex(source),
+      mixture,
+      tolerance,
+      componentVectors: fitted === null ? [] : fitted.offered,
+    },
+  );
+  const byMetric: Partial<Record<Metric, Hit[]>> = {};
+  for (const metric of metrics) byMetric[metric] = hitsByMetric.get(metric)!.slice(0, top);
+  return buildMatchReport({
+    query: {
+      file: unknown.file,
+      ...(unknown.block === undefined ? {} : { block: unknown.block }),
+      hash: unknown.hash,
+      ...(unknown.title === undefined ? {} : { title: unknown.title }),
+      recipe,
+      recipeSource: options.recipeSource ?? 'library',
+      grid: source.grid,
+      ranges,
+      processed,
+      warnings: unknown.warnings,
+    },
+    library: { name: source.name, release: source.at, stateKey: source.stateKey, entries: source.entries },
+    settings: { top, minOverlap, tolerance, maxComponents, with: forced },
+    metrics,
+    hitsByMetric: byMetric,
+    mixture,
+    bands,
+    wrongHitNull: source.wrongHitNull ?? null,
+    referenceOf: (row) => source.processed.subarray(row * source.cols, (row + 1) * source.cols),
+  });
+}

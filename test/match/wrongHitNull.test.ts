@@ -1,0 +1,49 @@
+// The best-wrong-hit null and its empirical p-value on a literal four-row library, worked by hand.
+import { sampleCorrelation } from 'simple-statistics';
+import { describe, expect, it } from 'vitest';
+import { empiricalPValue } from '../../src/match/empiricalPValue.js';
+import { wrongHitNull } from '../../src/match/wrongHitNull.js';
+
+// Rows 0 and 3 are the same substance (same name), so neither may be the other's wrong hit.
+const entries = [
+  { id: 'a', name: 'Alpha' },
+  { id: 'b', name: 'Beta' },
+  { id: 'c', name: 'Gamma' },
+  { id: 'a-film', name: 'alpha' },
+];
+const processed = Float64Array.from([1, 2, 3, 1, 2, 4, 3, 2, 1, 1, 2, 3]);
+// By hand: r([1,2,3],[1,2,4]) = 3 / √(2 · 42/9) = 0.981981; r([1,2,3],[3,2,1]) = −1; r([1,2,4],[3,2,1]) = −0.981981.
+const R = 3 / Math.sqrt((2 * 42) / 9);
+
+describe('wrongHitNull', () => {
+  it('gives each entry its best r against other substances, ascending', () => {
+    // simple-statistics' sampleCorrelation agrees with the hand value.
+    expect(sampleCorrelation([1, 2, 3], [1, 2, 4])).toBeCloseTo(R, 12);
+    const n = wrongHitNull({ cols: 3, processed, entries }, { minPoints: 3 });
+    // Row 0 → row 1 (row 3 is Alpha too); row 1 → 0 or 3; row 2 → row 1 (−R beats −1); row 3 → row 1.
+    expect(Array.from(n.scores)).toEqual([-R, R, R, R].map((v) => expect.closeTo(v, 12)));
+    expect([n.entries, n.sampled]).toEqual([4, 4]);
+  });
+
+  it('samples evenly spaced rows when the library is larger than maxRows', () => {
+    const n = wrongHitNull({ cols: 3, processed, entries }, { minPoints: 3, maxRows: 2 });
+    // Rows 0 and 2 by the even spacing 4 / 2: best wrong hits R and −R.
+    expect(Array.from(n.scores)).toEqual([expect.closeTo(-R, 12), expect.closeTo(R, 12)]);
+  });
+});
+
+describe('empiricalPValue', () => {
+  const nullScores = Float64Array.from([-R, R, R, R]);
+  it('is (1 + count at least as good) / (1 + n)', () => {
+    // By hand with n = 4: above every null score → 1/5; tied with the three R's → 4/5; below all → 5/5.
+    expect(empiricalPValue({ score: 0.99, nullScores })).toBeCloseTo(0.2, 12);
+    expect(empiricalPValue({ score: R, nullScores })).toBeCloseTo(0.8, 12);
+    expect(empiricalPValue({ score: 0.5, nullScores })).toBeCloseTo(0.8, 12);
+    expect(empiricalPValue({ score: -1, nullScores })).toBeCloseTo(1, 12);
+    // Distances: lower is better; 0.1 is beaten or tied by none of [0.2, 0.3] → 1/3.
+    expect(empiricalPValue({ score: 0.1, nullScores: [0.2, 0.3] }, { higherIsBetter: false })).toBeCloseTo(
+      1 / 3,
+    );
+    expect(empiricalPValue({ score: 0.5, nullScores: [] })).toBeNull();
+  });
+});
