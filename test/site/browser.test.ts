@@ -285,7 +285,8 @@ describe.skipIf(!available && !required)('the site in a browser', () => {
   it('a match report page shows the overlay, the residual with the unexplained bands, and the band table', async () => {
     const index = await open('reports/');
     const link = await index.$$eval('.report-list a', (as) =>
-      as.map((a) => a.getAttribute('href') ?? '').find((h) => h.includes('unknown-mixture')),
+      // Links are relative to their page now; resolve against it, then open as a site path.
+      as.map((a) => new URL(a.href).pathname.slice(1)).find((h) => h.includes('unknown-mixture')),
     );
     expect(link).toBeTruthy();
     await index.close();
