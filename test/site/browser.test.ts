@@ -286,7 +286,9 @@ describe.skipIf(!available && !required)('the site in a browser', () => {
     const index = await open('reports/');
     const link = await index.$$eval('.report-list a', (as) =>
       // Links are relative to their page now; resolve against it, then open as a site path.
-      as.map((a) => new URL(a.href).pathname.slice(1)).find((h) => h.includes('unknown-mixture')),
+      as
+        .map((a) => new URL((a as HTMLAnchorElement).href).pathname.slice(1))
+        .find((h) => h.includes('unknown-mixture')),
     );
     expect(link).toBeTruthy();
     await index.close();
