@@ -32,5 +32,8 @@ export function configureMixtureOptions(command: Command): Command {
       collectRepeated,
       [],
     )
-    .option('--baseline-degree <n>', 'mixture baseline polynomial: none or 0–6 (default 2, a smooth residue of any baseline correction)');
+    .option(
+      '--baseline-degree <n>',
+      'mixture baseline polynomial: none or 0–6 (default 2, a smooth residue of any baseline correction)',
+    );
 }

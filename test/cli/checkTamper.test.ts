@@ -4,6 +4,7 @@ import { copyFileSync, mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { TABLES_OF_RECORD } from '../../src/library/store/tableDigests.js';
 import { bandsFor, bandshelf, parseJson, tempDir, writeSpectrumCsv } from './bandshelfCli.js';
 
 interface CheckJson {
@@ -130,17 +131,7 @@ describe('every table of record refuses or check finds each row-level tamper', (
   const dir = tempDir();
   const pristine = join(dir, 'pristine.sqlite');
   const lib = ['--library', pristine];
-  const tables = [
-    'settings',
-    'entries',
-    'revisions',
-    'files',
-    'revision_files',
-    'reviews',
-    'releases',
-    'release_members',
-    'band_assignments',
-  ];
+  const tables = [...TABLES_OF_RECORD];
 
   beforeAll(() => {
     expect(bandshelf(['init', ...lib]).code).toBe(0);

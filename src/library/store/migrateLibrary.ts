@@ -2,17 +2,10 @@
 import type Database from 'better-sqlite3';
 import { BandshelfError } from '../../error.js';
 import { appendSeal } from './appendSeal.js';
+import { TABLES_OF_RECORD } from './tableDigests.js';
 
 /** Immutable tables: rows are only ever inserted; triggers refuse UPDATE and DELETE so history stays honest. */
-const IMMUTABLE = [
-  'entries',
-  'revisions',
-  'files',
-  'revision_files',
-  'reviews',
-  'releases',
-  'release_members',
-];
+const IMMUTABLE = TABLES_OF_RECORD.filter((t) => t !== 'settings' && t !== 'band_assignments');
 
 const V1 = `
 CREATE TABLE settings (

@@ -15,17 +15,12 @@ export const TABLES_OF_RECORD = [
   'band_assignments',
 ] as const;
 
-export type TableDigestsOptions = Record<string, never>;
-
 /**
  * SHA-256 per table over its rows in rowid order. Blobs are left out where a hash column stands for them
  * (`files.sha256`, `revisions.record_hash`), which `check` verifies separately: a write then costs a pass over
  * small columns, not over every stored byte.
  */
-export function tableDigests(
-  db: Database.Database,
-  _options: TableDigestsOptions = {},
-): Record<string, string> {
+export function tableDigests(db: Database.Database): Record<string, string> {
   const out: Record<string, string> = {};
   for (const table of TABLES_OF_RECORD) {
     const columns = (db.prepare(`PRAGMA table_info(${table})`).all() as { name: string; type: string }[])
