@@ -18,45 +18,23 @@ import { buildBandIndex } from '../match/buildBandIndex.js';
 import { libraryMatchSource } from '../match/libraryMatchSource.js';
 import { type RunMatchPipelineOptions, runMatchPipeline } from '../match/pipeline/runMatchPipeline.js';
 import type { MatchUnknown } from '../match/pipeline/types.js';
-import { type Metric, MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
+import { MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
-import type { WavenumberWindow } from '../schema/recipe.js';
 import type { CommandContext } from './command.js';
 
-export interface MatchUnknownsOptions {
+/** The pipeline's settings as the CLI takes them, plus where the library, release and recipe file are. */
+export interface MatchUnknownsOptions
+  extends Omit<
+    RunMatchPipelineOptions,
+    'recipe' | 'recipeSource' | 'references' | 'fitExcludeClass' | 'index'
+  > {
   /** --library as given. @default './bandshelf.sqlite' */
   library?: unknown;
   /** A release tag. @default undefined (working state) */
   at?: string;
   /** A recipe JSON file overriding the library's default recipe. @default undefined */
   recipe?: string;
-  /** Scoring windows. @default [] (whole grid) */
-  ranges?: readonly WavenumberWindow[];
-  /** @default ['pearson'] */
-  metrics?: readonly Metric[];
-  /** Hits reported per metric. @default 10 */
-  top?: number;
-  /** @default MIN_OVERLAP_DEFAULT (200) */
-  minOverlap?: number;
-  /** Run the mixture fit. @default false */
-  mixture?: boolean;
-  /** Entry ids forced into the mixture. @default [] */
-  with?: readonly string[];
-  /** @default 6 */
-  maxComponents?: number;
-  /** Top pearson hits offered to forward selection. @default 30 */
-  candidates?: number;
-  /** Baseline polynomial degree of the fit (null: none). @default the pipeline's rule (from the recipe) */
-  baselineDegree?: number | null;
-  /** Band tolerance for identification, cm⁻¹. @default 4 */
-  tolerance?: number;
-  /** Classes left out of the hits and the fit. @default [] */
-  excludeClass?: readonly string[];
-  /** Entry ids left out of the hits and the fit. @default [] */
-  exclude?: readonly string[];
-  /** Only these classes in the hits and the fit. @default [] (all) */
-  onlyClass?: readonly string[];
   /** Keep the unknown's path as given in the report (else its file name only). @default false */
   keepPath?: boolean;
 }

@@ -38,7 +38,7 @@ export interface RunMatchPipelineOptions {
   maxComponents?: number;
   /** Top pearson hits offered to forward selection. @default 30 */
   candidates?: number;
-  /** Baseline polynomial degree of the fit (null: no baseline). @default 0 when the recipe removes the baseline, else 2 */
+  /** Baseline polynomial degree of the fit (null: no baseline). @default fitMixture's DEFAULT_BASELINE_DEGREE (2) */
   baselineDegree?: number | null;
   /** Band tolerance for identification, cm⁻¹. @default 4 */
   tolerance?: number;
