@@ -58,6 +58,15 @@ export interface StoredFileInfo {
 export interface RevisionExtras {
   /** Least-squares scale of the subtracted reference spectrum, where the recipe subtracts one. */
   referenceScale?: number;
+  /**
+   * The recipe's multi-reference subtraction: each reference's fitted scale and its standard error (OLS,
+   * independent residuals assumed, so a lower bound on correlated spectra).
+   */
+  subtracted?: { id: string; scale: number; standardError: number }[];
+  /**
+   * Spectral resolution in cm⁻¹: from the metadata, or estimated from the spectrum (`estimated: true`).
+   */
+  resolution?: { value: number; estimated: boolean };
   /** Time-domain entries: the reference's spectral dynamic range, orders of magnitude (log10 peak/noise power). */
   dynamicRangeOrders?: number;
   /** Time-domain entries: residual timing spread of the aligned repeated traces, attoseconds. */

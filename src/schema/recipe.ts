@@ -143,6 +143,26 @@ export const recipeSchema = z
       .strict()
       .nullable()
       .default(null),
+    /**
+     * Subtract several library spectra at once (liquid water, water vapour), fitted with an offset and a slope
+     * inside `windows` and run before the baseline step; each scale and its standard error are recorded with the
+     * revision. An entry named here is not subtracted from itself. Absent: no such step (recipes written before it).
+     */
+    subtract: z
+      .object({
+        references: z
+          .array(
+            z.object({ id: z.string().min(1), revision: z.number().int().positive().optional() }).strict(),
+          )
+          .min(1)
+          .max(6),
+        windows: z
+          .array(windowSchema)
+          .min(1)
+          .default([{ min: 1900, max: 2300 }]),
+      })
+      .strict()
+      .optional(),
     /** Extended multiplicative scatter correction against a library spectrum (Martens & Stark 1991). */
     emsc: z
       .object({

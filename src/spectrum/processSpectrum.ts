@@ -5,6 +5,7 @@ import { atrCorrect } from './atrCorrect.js';
 import { cropToWindow } from './cropToWindow.js';
 import { emscCorrect } from './emscCorrect.js';
 import { excludeWindows } from './excludeWindows.js';
+import { fitReferences } from './fitReferences.js';
 import { gridAxis } from './gridAxis.js';
 import { normaliseVector } from './normaliseVector.js';
 import { resampleToGrid } from './resampleToGrid.js';
@@ -39,13 +40,16 @@ export interface ProcessedSpectrum {
   processed: Float64Array;
   /** The fitted scale of the subtracted reference, when the recipe has one. */
   referenceScale?: number;
+  /** Each reference of the `subtract` step with its fitted scale and standard error, in recipe order. */
+  subtracted?: { id: string; scale: number; standardError: number }[];
   /** The EMSC model coefficients, when the recipe has the step. */
   emscCoefficients?: number[];
 }
 
 /**
  * Applies the recipe in its fixed order: sortAndMerge → crop → exclude → ATR correction (sample only, when the
- * recipe has an explicit step; 'auto' is resolved at ingest) → baseline → reference subtraction →
+ * recipe has an explicit step; 'auto' is resolved at ingest) → multi-reference subtraction (scale, offset
+ * and slope; references sorted, cropped and excluded but not baseline-corrected) → baseline → reference subtraction →
  * EMSC → Savitzky–Golay smoothing → resample onto the grid → exclusion windows set NaN on the grid →
  * normalise. Pure and deterministic: the same inputs always give the same bytes, which is what lets the
  * library re-check every stored vector. The input spectrum is not modified.
@@ -72,7 +76,7 @@ export function processSpectrum(
     recipe.timeDomain === null
       ? recipe.resample.maxGap
       : Math.max(recipe.resample.maxGap, 1.5 * medianSpacing(original.wavenumber));
-  const prepare = (spectrum: Spectrum, label: string | undefined, sample = false): Spectrum => {
+  const raw = (spectrum: Spectrum, label: string | undefined, sample = false): Spectrum => {
     const at = label === undefined ? {} : { file: label };
     let s = sortAndMerge(spectrum, at);
     s = cropToWindow(s, recipe.crop, at);
@@ -88,6 +92,10 @@ export function processSpectrum(
         referenceWavenumber: atr.referenceWavenumber,
       });
     }
+    return s;
+  };
+  const baseline = (s: Spectrum, label: string | undefined): Spectrum => {
+    const at = label === undefined ? {} : { file: label };
     // Version 2 reads λ in wavenumber units, so each file's own spacing sets the per-point penalty.
     const spacing = recipe.version === 1 ? undefined : medianSpacing(s.wavenumber);
     return subtractBaseline(
@@ -96,23 +104,37 @@ export function processSpectrum(
       spacing === undefined || !(spacing > 0) ? at : { ...at, spacing },
     );
   };
-  const lookUp = (id: string, field: string): Spectrum => {
-    const found = references.get(id);
-    if (found === undefined) {
+  const prepare = (spectrum: Spectrum, label: string | undefined): Spectrum =>
+    baseline(raw(spectrum, label), label);
+  const found = (id: string, field: string): Spectrum => {
+    const spectrum = references.get(id);
+    if (spectrum === undefined) {
       throw new BandshelfError(
         'NOT_FOUND',
         `the recipe names library entry "${id}", which was not supplied`,
-        {
-          ...where,
-          field,
-        },
+        { ...where, field },
       );
     }
-    return prepare(found, `reference ${id}`);
+    return spectrum;
   };
+  const lookUp = (id: string, field: string): Spectrum => prepare(found(id, field), `reference ${id}`);
 
-  let spectrum = prepare(original, file, true);
+  let spectrum = raw(original, file, true);
   const result: ProcessedSpectrum = { processed: new Float64Array(0) };
+  if (recipe.subtract !== undefined) {
+    const subtract = recipe.subtract;
+    const refs = subtract.references.map((r, k) =>
+      raw(found(r.id, `subtract.references.${k}.id`), `reference ${r.id}`),
+    );
+    const fitted = fitReferences(spectrum, refs, subtract.windows, { maxGap, ...where });
+    spectrum = fitted.spectrum;
+    result.subtracted = subtract.references.map((r, k) => ({
+      id: r.id,
+      scale: fitted.scales[k]!,
+      standardError: fitted.standardErrors[k]!,
+    }));
+  }
+  spectrum = baseline(spectrum, file);
 
   if (recipe.reference !== null) {
     const reference = lookUp(recipe.reference.id, 'reference.id');

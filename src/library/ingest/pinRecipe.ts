@@ -27,6 +27,26 @@ function pinAtr(recipe: Recipe, technique: string | undefined): Recipe {
   };
 }
 
+/**
+ * The subtraction step with each reference pinned; an entry named among the references is left out of its own
+ * step (adding the water entry under a liquid-biofluid recipe), and a step left with no reference is dropped.
+ */
+function pinSubtract(
+  recipe: Recipe,
+  entryId: string | undefined,
+  pin: <T extends { id: string; revision?: number | undefined }>(step: T, field: string) => T,
+): { subtract?: NonNullable<Recipe['subtract']> } {
+  if (recipe.subtract === undefined) return {};
+  const others = recipe.subtract.references.filter((r) => r.id !== entryId);
+  if (others.length === 0) return {};
+  return {
+    subtract: {
+      ...recipe.subtract,
+      references: others.map((r, k) => pin(r, `subtract.references.${k}`)),
+    },
+  };
+}
+
 export function pinRecipe(library: Library, recipe: Recipe, options: PinRecipeOptions = {}): Recipe {
   const pin = <T extends { id: string; revision?: number | undefined }>(step: T, field: string): T => {
     if (step.id === options.entryId) {
@@ -60,9 +80,11 @@ export function pinRecipe(library: Library, recipe: Recipe, options: PinRecipeOp
     }
     return { ...step, revision: head.revision };
   };
+  const { subtract: _subtract, ...rest } = pinAtr(recipe, options.technique);
   return {
-    ...pinAtr(recipe, options.technique),
+    ...rest,
     reference: recipe.reference === null ? null : pin(recipe.reference, 'reference'),
     emsc: recipe.emsc === null ? null : pin(recipe.emsc, 'emsc'),
+    ...pinSubtract(recipe, options.entryId, pin),
   };
 }

@@ -41,7 +41,7 @@ export function prepareRevision(
   const files = input.files.map((f) => ({ ...f, sha256: sha256Hex(f.bytes) }));
   const hashes = contentHashes({ files, read: input.read, recipe, meta: input.meta });
   const base = { ...input, id, kind: options.kind ?? 'data', recipe, hashes };
-  const { processed, peaks, referenceScale } = processOriginal(library, input.original, recipe, {
+  const { processed, peaks, referenceScale, subtracted } = processOriginal(library, input.original, recipe, {
     file: input.label,
     ...(input.saturated === undefined ? {} : { saturated: input.saturated }),
   });
@@ -84,7 +84,11 @@ export function prepareRevision(
   const unchanged = head !== undefined && head.kind !== 'retire' && head.content_hash === hashes.content;
   // Identical content re-added is a no-op even when QC would block it (it was forced the first time).
   if (blocked && !unchanged) throw blocked;
-  const extras = referenceScale === undefined ? input.extras : { ...input.extras, referenceScale };
+  const extras = {
+    ...input.extras,
+    ...(referenceScale === undefined ? {} : { referenceScale }),
+    ...(subtracted === undefined ? {} : { subtracted }),
+  };
   return {
     ...base,
     extras,

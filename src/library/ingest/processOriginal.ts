@@ -19,6 +19,7 @@ export interface ProcessedOriginal {
   processed: Float64Array;
   peaks: Peak[];
   referenceScale?: number;
+  subtracted?: { id: string; scale: number; standardError: number }[];
 }
 
 export function processOriginal(
@@ -28,7 +29,7 @@ export function processOriginal(
   options: ProcessOriginalOptions = {},
 ): ProcessedOriginal {
   const references = new Map<string, Spectrum>();
-  for (const step of [recipe.reference, recipe.emsc]) {
+  for (const step of [recipe.reference, recipe.emsc, ...(recipe.subtract?.references ?? [])]) {
     if (step === null || references.has(step.id)) continue;
     const row = library.db
       .prepare('SELECT original_x, original_y FROM revisions WHERE entry_id = ? AND revision = ?')
@@ -55,5 +56,6 @@ export function processOriginal(
     peaks: processedPeaks(result.processed, library.grid),
   };
   if (result.referenceScale !== undefined) out.referenceScale = result.referenceScale;
+  if (result.subtracted !== undefined) out.subtracted = result.subtracted;
   return out;
 }

@@ -20,7 +20,7 @@ export function recipeReferences(
   options: RecipeReferencesOptions = {},
 ): Map<string, Spectrum> {
   const map = new Map<string, Spectrum>();
-  for (const step of [recipe.reference, recipe.emsc]) {
+  for (const step of [recipe.reference, recipe.emsc, ...(recipe.subtract?.references ?? [])]) {
     if (step === null || map.has(step.id)) continue;
     const view = readEntry(library, step.id, {
       ...(options.at === undefined ? {} : { at: options.at }),

@@ -1,0 +1,26 @@
+// Named starting recipes for `init --preset`: the sample forms whose processing differs most.
+import type { RecipeInput } from './recipe.js';
+
+/**
+ * `liquid-biofluid`: a liquid serum, plasma, urine or saliva spectrum is mostly water. Liquid water (library entry
+ * `water-liquid`, to be added first) is fitted with an offset and a slope on the 2300–1900 cm⁻¹ combination band,
+ * where the solutes hardly absorb (common practice), and subtracted before the baseline step; a water-vapour entry can
+ * be appended to `subtract.references`. `dried-film`: a dried film has little water left; no subtraction, a
+ * rubber-band baseline and amide I band normalisation, which takes out the film's thickness.
+ */
+export const RECIPE_PRESETS = {
+  'liquid-biofluid': {
+    version: 2,
+    subtract: { references: [{ id: 'water-liquid' }], windows: [{ min: 1900, max: 2300 }] },
+    baseline: { method: 'rubberband' },
+    smooth: { width: 9, order: 2 },
+    normalise: { method: 'vector' },
+  },
+  'dried-film': {
+    version: 2,
+    baseline: { method: 'rubberband' },
+    smooth: { width: 9, order: 2 },
+    normalise: { method: 'band', window: { min: 1600, max: 1700 } },
+  },
+} as const satisfies Record<string, RecipeInput>;
+export type RecipePresetName = keyof typeof RECIPE_PRESETS;
