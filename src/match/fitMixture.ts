@@ -258,7 +258,7 @@ export function fitMixture(
   const c = usable.length;
   const baselineTerms = degree === null ? 0 : degree + 1;
   const selection = forwardSelection(
-    { columns: projected, query: bp, forced: usable.flatMap((u, i) => (u.forced ? [i] : [])), baselineTerms },
+    { columns: projected, query: bp, forced: usable.flatMap((u, i) => (u.forced ? [i] : [])) },
     { alpha, maxComponents, minImprovement, bandwidth: Math.round(correlationWidth / grid.step) },
   );
   const { selected, gram } = selection;

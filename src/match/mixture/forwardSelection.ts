@@ -12,8 +12,6 @@ export interface ForwardSelectionInput {
   query: Float64Array;
   /** Indices of columns forced in. */
   forced: readonly number[];
-  /** Baseline terms already projected out (they count as fitted parameters). */
-  baselineTerms: number;
 }
 
 export interface ForwardSelectionOptions {
@@ -71,7 +69,7 @@ export function forwardSelection(
   const minImprovement = options.minImprovement ?? 0;
   const bandwidth = options.bandwidth ?? 0;
   const minOwnShare = options.minOwnShare ?? 0.5;
-  const { columns, query, baselineTerms } = input;
+  const { columns, query } = input;
   const c = columns.length;
   const n = query.length;
   const gram = new Float64Array(c * c);
