@@ -1,5 +1,6 @@
 // Makes every file of the synthetic demo collection in library/ from the compound table, reproducibly from one seed.
 import { writeJcampDx } from '../formats/writeJcampDx.js';
+import { penetrationDepth } from '../spectrum/penetrationDepth.js';
 import { type Band, bandProfile } from './bandProfile.js';
 import { type DemoCompound, demoCompounds } from './demoCompounds.js';
 import { type SeededRandom, seededRandom } from './seededRandom.js';
@@ -51,6 +52,12 @@ function measure(x: Float64Array, clean: Float64Array, rng: SeededRandom, noise:
     y[i] = clean[i]! + offset + slope * t + curve * t * t + noise * rng.normal();
   }
   return y;
+}
+
+/** The transmission absorbance as a single-reflection diamond ATR at 45° would weight it (sample index 1.5). */
+function atrWeighted(x: Float64Array, absorbance: Float64Array): Float64Array {
+  const atReference = penetrationDepth(1000);
+  return absorbance.map((a, i) => (a * penetrationDepth(x[i]!)) / atReference);
 }
 
 function fmt(v: number, digits: number): string {
@@ -118,7 +125,10 @@ function referenceFile(compound: DemoCompound, index: number, rng: SeededRandom)
   const lo = index % 3 === 0 ? 400 : 600;
   const x = axis(4000, lo, step);
   const scale = 0.35 + 0.6 * rng.uniform();
-  const clean = bandProfile(x, compound.bands, { scale, lorentzianFraction: 0.4 + 0.3 * rng.uniform() });
+  const profile = bandProfile(x, compound.bands, { scale, lorentzianFraction: 0.4 + 0.3 * rng.uniform() });
+  // The sidecar says ATR for every style but one: those spectra carry the diamond crystal's penetration-depth
+  // weighting (Harrick's d_p ∝ λ, 1 at 1000 cm⁻¹), so the recipe's ATR step has something to undo.
+  const clean = style === 'csv-micrometres' ? profile : atrWeighted(x, profile);
   const y = measure(x, clean, rng, 0.0015);
   const base = `${String(index + 1).padStart(2, '0')}-${compound.id}`;
   const title = `${compound.name} (synthetic)`;

@@ -108,6 +108,30 @@ export const recipeSchema = z
     /** Windows removed before anything else; default the atmospheric CO₂ stretch. */
     exclude: z.array(windowSchema).default([{ min: 2280, max: 2400 }]),
     baseline: baselineSchema.default({ method: 'rubberband' }),
+    /**
+     * ATR correction to transmission-equivalent absorbance (Harrick's penetration depth), applied to the sample
+     * after crop and exclusion, before the baseline. 'auto' (or absent in a recipe given to `add`): corrected
+     * with the diamond preset when the entry's metadata says `technique: atr`, not otherwise; ingest pins the
+     * choice, so a stored recipe holds an explicit step or none. A stored recipe without the key (written before
+     * the step existed) or with null is not corrected.
+     */
+    atr: z
+      .union([
+        z.literal('auto'),
+        z.null(),
+        z
+          .object({
+            crystal: z.enum(['diamond', 'znse', 'ge']).default('diamond'),
+            /** Overrides the preset's refractive index. */
+            crystalIndex: z.number().gt(1).optional(),
+            sampleIndex: z.number().gt(1).default(1.5),
+            angle: z.number().gt(0).lt(90).default(45),
+            /** Wavenumber (cm⁻¹) where corrected and measured absorbance agree. */
+            referenceWavenumber: z.number().positive().default(1000),
+          })
+          .strict(),
+      ])
+      .optional(),
     /** Subtract a library spectrum (water, buffer) scaled by least squares inside `window`. */
     reference: z
       .object({
@@ -177,3 +201,4 @@ export const recipeSchema = z
   });
 export type Recipe = z.output<typeof recipeSchema>;
 export type RecipeInput = z.input<typeof recipeSchema>;
+export type AtrStep = Exclude<NonNullable<Recipe['atr']>, 'auto'>;

@@ -1,6 +1,7 @@
 // The whole processing recipe, from a parsed original spectrum to the library's processed grid vector.
 import { BandshelfError } from '../error.js';
 import type { Grid, Recipe } from '../schema/recipe.js';
+import { atrCorrect } from './atrCorrect.js';
 import { cropToWindow } from './cropToWindow.js';
 import { emscCorrect } from './emscCorrect.js';
 import { excludeWindows } from './excludeWindows.js';
@@ -43,7 +44,8 @@ export interface ProcessedSpectrum {
 }
 
 /**
- * Applies the recipe in its fixed order: sortAndMerge → crop → exclude → baseline → reference subtraction →
+ * Applies the recipe in its fixed order: sortAndMerge → crop → exclude → ATR correction (sample only, when the
+ * recipe has an explicit step; 'auto' is resolved at ingest) → baseline → reference subtraction →
  * EMSC → Savitzky–Golay smoothing → resample onto the grid → exclusion windows set NaN on the grid →
  * normalise. Pure and deterministic: the same inputs always give the same bytes, which is what lets the
  * library re-check every stored vector. The input spectrum is not modified.
@@ -70,11 +72,22 @@ export function processSpectrum(
     recipe.timeDomain === null
       ? recipe.resample.maxGap
       : Math.max(recipe.resample.maxGap, 1.5 * medianSpacing(original.wavenumber));
-  const prepare = (spectrum: Spectrum, label: string | undefined): Spectrum => {
+  const prepare = (spectrum: Spectrum, label: string | undefined, sample = false): Spectrum => {
     const at = label === undefined ? {} : { file: label };
     let s = sortAndMerge(spectrum, at);
     s = cropToWindow(s, recipe.crop, at);
     s = excludeWindows(s, recipe.exclude, at);
+    // Only the sample is ATR-corrected: a reference entry was measured its own way.
+    const atr = recipe.atr;
+    if (sample && atr !== undefined && atr !== null && atr !== 'auto') {
+      s = atrCorrect(s, {
+        crystal: atr.crystal,
+        ...(atr.crystalIndex === undefined ? {} : { crystalIndex: atr.crystalIndex }),
+        sampleIndex: atr.sampleIndex,
+        angle: atr.angle,
+        referenceWavenumber: atr.referenceWavenumber,
+      });
+    }
     // Version 2 reads λ in wavenumber units, so each file's own spacing sets the per-point penalty.
     const spacing = recipe.version === 1 ? undefined : medianSpacing(s.wavenumber);
     return subtractBaseline(
@@ -98,7 +111,7 @@ export function processSpectrum(
     return prepare(found, `reference ${id}`);
   };
 
-  let spectrum = prepare(original, file);
+  let spectrum = prepare(original, file, true);
   const result: ProcessedSpectrum = { processed: new Float64Array(0) };
 
   if (recipe.reference !== null) {

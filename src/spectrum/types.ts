@@ -41,3 +41,14 @@ export interface QcFlag {
   /** The measured figure behind the flag (SNR, maximum absorbance, gap width …), where there is one. */
   value?: number;
 }
+
+/**
+ * Refractive indices of the common ATR crystals in the mid-infrared (near 1000 cm⁻¹; Harrick, Internal Reflection
+ * Spectroscopy, 1967, and common practice): each preset is used at 45° incidence unless the recipe gives an angle.
+ */
+export const ATR_CRYSTALS = {
+  diamond: 2.4,
+  znse: 2.4,
+  ge: 4.0,
+} as const;
+export type AtrCrystal = keyof typeof ATR_CRYSTALS;

@@ -284,4 +284,15 @@ describe('processSpectrum: version-1 recipes keep their meaning', () => {
       expect(createHash('sha256').update(Buffer.from(out.buffer)).digest('hex')).toBe(expected[b.method]);
     }
   });
+
+  it('applies an explicit ATR step to the sample, and none for auto or a recipe without the key (Harrick 1967)', () => {
+    // Flat absorbance 1 over 1000–1010 cm⁻¹: the correction multiplies by ν̃/1000 (d_p ∝ λ), by hand.
+    const original = spectrum([1000, 1002, 1004, 1006, 1008, 1010], [1, 1, 1, 1, 1, 1]);
+    const corrected = processSpectrum(original, plain({ atr: { crystal: 'ge' } }), grid);
+    expect(values(corrected.processed)).toEqual([1, 1.002, 1.004, 1.006, 1.008, 1.01]);
+    for (const atr of ['auto', null, undefined] as const) {
+      const kept = processSpectrum(original, plain(atr === undefined ? {} : { atr }), grid);
+      expect(values(kept.processed)).toEqual([1, 1, 1, 1, 1, 1]);
+    }
+  });
 });

@@ -9,6 +9,22 @@ export interface PinRecipeOptions {
   entryId?: string;
   /** The file named in errors. */
   file?: string;
+  /** The entry's metadata technique, for the technique-aware ATR default. @default undefined (not ATR) */
+  technique?: string;
+}
+
+/**
+ * The recipe's ATR step made explicit: 'auto' or absent → the diamond preset at 45° for an entry measured by ATR,
+ * no step otherwise (the key left out, as in recipes written before the step existed).
+ */
+function pinAtr(recipe: Recipe, technique: string | undefined): Recipe {
+  const { atr, ...rest } = recipe;
+  if (atr === null || (atr !== undefined && atr !== 'auto')) return recipe;
+  if (technique !== 'atr') return rest;
+  return {
+    ...rest,
+    atr: { crystal: 'diamond', sampleIndex: 1.5, angle: 45, referenceWavenumber: 1000 },
+  };
 }
 
 export function pinRecipe(library: Library, recipe: Recipe, options: PinRecipeOptions = {}): Recipe {
@@ -45,7 +61,7 @@ export function pinRecipe(library: Library, recipe: Recipe, options: PinRecipeOp
     return { ...step, revision: head.revision };
   };
   return {
-    ...recipe,
+    ...pinAtr(recipe, options.technique),
     reference: recipe.reference === null ? null : pin(recipe.reference, 'reference'),
     emsc: recipe.emsc === null ? null : pin(recipe.emsc, 'emsc'),
   };

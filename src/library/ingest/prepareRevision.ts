@@ -33,7 +33,11 @@ export function prepareRevision(
   options: PrepareRevisionOptions = {},
 ): PreparedRevision {
   const id = input.meta.id;
-  const recipe = pinRecipe(library, input.recipe, { entryId: id, file: input.label });
+  const recipe = pinRecipe(library, input.recipe, {
+    entryId: id,
+    file: input.label,
+    ...(typeof input.meta.technique === 'string' ? { technique: input.meta.technique } : {}),
+  });
   const files = input.files.map((f) => ({ ...f, sha256: sha256Hex(f.bytes) }));
   const hashes = contentHashes({ files, read: input.read, recipe, meta: input.meta });
   const base = { ...input, id, kind: options.kind ?? 'data', recipe, hashes };
