@@ -18,6 +18,7 @@ const nodeEntries = {
   'bench-site': 'scripts/benchSite.ts',
   'bench-ingest': 'scripts/benchIngest.ts',
   'bench-cli': 'scripts/benchCli.ts',
+  validate: 'scripts/validateMixture.ts',
   'scores-worker': 'src/match/scoresWorker.ts',
 };
 

@@ -61,6 +61,12 @@ export interface FitMixtureOptions {
    */
   minImprovement?: number;
   /**
+   * Least share of what the fit without a candidate leaves at the candidate's own bands, beyond the noise, that it
+   * must explain to be taken in (and to stay in).
+   * @default 0.5
+   */
+  minOwnShare?: number;
+  /**
    * Width (cm⁻¹) over which residuals are taken as correlated: the Bartlett bandwidth of the HAC standard error in
    * each selection step.
    * @default DEFAULT_CORRELATION_WIDTH (30)
@@ -153,6 +159,7 @@ export function fitMixture(
   const smoothWindow = options.smoothWindow ?? 7;
   const minCoverage = options.minCoverage ?? 0.95;
   const correlationWidth = options.correlationWidth ?? DEFAULT_CORRELATION_WIDTH;
+  const minOwnShare = options.minOwnShare ?? 0.5;
   const cols = gridLength(grid);
   if (query.length !== cols) {
     throw new BandshelfError('BAD_OPTION', `the query has ${query.length} points; the grid has ${cols}`, {
@@ -259,7 +266,13 @@ export function fitMixture(
   const baselineTerms = degree === null ? 0 : degree + 1;
   const selection = forwardSelection(
     { columns: projected, query: bp, forced: usable.flatMap((u, i) => (u.forced ? [i] : [])) },
-    { alpha, maxComponents, minImprovement, bandwidth: Math.round(correlationWidth / grid.step) },
+    {
+      alpha,
+      maxComponents,
+      minImprovement,
+      minOwnShare,
+      bandwidth: Math.round(correlationWidth / grid.step),
+    },
   );
   const { selected, gram } = selection;
   const current = { x: selection.weights, rss: selection.rss };
@@ -389,7 +402,7 @@ export function fitMixture(
       : `a free-sign polynomial baseline of degree ${degree}${options.baselineDegree === undefined ? ' (the default: it absorbs offset, slope and bow between benches without mimicking broad bands)' : ''}`;
   const rule =
     `stepwise selection from ${c} candidate(s) with ${baselineText}: at each step every remaining candidate is ` +
-    `tried; one is taken in only if (1) it explains at least half of what the fit without it leaves at its own ` +
+    `tried; one is taken in only if (1) it explains at least ${(100 * minOwnShare).toFixed(0)} % of what the fit without it leaves at its own ` +
     `bands beyond the noise (a compound present accounts for its bands; one that only trims another component's ` +
     `misfit does not), and (2) a one-sided z-test of its weight, with a Newey–West (HAC, Bartlett, ` +
     `${correlationWidth} cm⁻¹) standard error robust to correlated and unequal residuals, rejects 0 at α = ${alpha} ` +
