@@ -1,4 +1,6 @@
 // Times band-position search on a synthetic peak table, for the benchmark script (not a test).
+
+import { seededRandom } from '../src/demo/seededRandom.js';
 import { buildBandIndex } from '../src/match/buildBandIndex.js';
 import { searchBands } from '../src/match/searchBands.js';
 import type { BandQuery, PeakTable } from '../src/match/types.js';
@@ -57,15 +59,7 @@ export function benchBandSearch(options: BenchBandSearchOptions = {}): BenchBand
   const queries = options.queries ?? 200;
   const bandsPerQuery = options.bandsPerQuery ?? 3;
   const tolerance = options.tolerance ?? 4;
-  let state = (options.seed ?? 1) >>> 0;
-  // mulberry32: small, seeded, and identical on every machine.
-  const uniform = (): number => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const { uniform } = seededRandom(options.seed ?? 1);
   const draw = (): number => {
     const u = uniform();
     if (u < 0.7) return 900 + uniform() * 900;

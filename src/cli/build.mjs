@@ -16,6 +16,9 @@ const nodeEntries = {
   schema: 'scripts/writeSchemas.ts',
   bench: 'scripts/bench.ts',
   'bench-site': 'scripts/benchSite.ts',
+  'bench-ingest': 'scripts/benchIngest.ts',
+  'bench-cli': 'scripts/benchCli.ts',
+  validate: 'scripts/validateMixture.ts',
   'scores-worker': 'src/match/scoresWorker.ts',
 };
 

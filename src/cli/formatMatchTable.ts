@@ -96,17 +96,18 @@ export function formatMatchTable(report: MatchReport, options: FormatMatchTableO
       out.push(
         textTable(
           [
-            ['ID', 'REV', 'NAME', 'WEIGHT', 'SHARE', 'HOW'],
+            ['ID', 'REV', 'NAME', 'WEIGHT', '95 % INTERVAL', 'SHARE', 'HOW'],
             ...m.components.map((c) => [
               c.id,
               String(c.revision),
               c.name ?? '',
               c.weight.toPrecision(4),
+              `${c.interval95[0].toPrecision(3)} – ${c.interval95[1] === null ? '∞' : c.interval95[1].toPrecision(3)}`,
               `${(100 * c.share).toFixed(1)} %`,
               c.forced ? 'forced (--with)' : `added, −${(100 * (c.improvement ?? 0)).toFixed(1)} % RSS`,
             ]),
           ],
-          { right: [1, 3, 4] },
+          { right: [1, 3, 5] },
         ),
       );
     }
@@ -121,6 +122,12 @@ export function formatMatchTable(report: MatchReport, options: FormatMatchTableO
             .sort((a, b) => b.position - a.position)
             .map((b) => `${b.position.toFixed(1)} cm⁻¹ (${b.height.toPrecision(2)})`)
             .join(', '),
+      );
+    }
+    if (m.misfitBands.length > 0) {
+      out.push(
+        'On fitted bands (shape or position differs from the reference; not unexplained): ' +
+          m.misfitBands.map((b) => `${b.position.toFixed(1)} cm⁻¹ (${b.component})`).join(', '),
       );
     }
   }

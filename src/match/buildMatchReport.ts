@@ -260,6 +260,7 @@ export function buildMatchReport(
               fwhm: finiteOrNull(b.fwhm),
               width: finiteOrNull(b.width),
             })),
+            misfitBands: mixture.misfitBands.map((b) => ({ ...b })),
             points: mixture.points,
             span: mixture.span,
             candidates: mixture.candidates,

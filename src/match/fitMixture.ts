@@ -10,7 +10,14 @@ import { polynomialBasis } from './mixture/polynomialBasis.js';
 import { residualBands } from './mixture/residualBands.js';
 import { residualNoise } from './mixture/residualNoise.js';
 import { weightUncertainty } from './mixture/weightUncertainty.js';
-import type { MixtureCandidate, MixtureComponent, MixtureResult, UnselectedCandidate } from './types.js';
+import type {
+  MisfitBand,
+  MixtureCandidate,
+  MixtureComponent,
+  MixtureResult,
+  ResidualBand,
+  UnselectedCandidate,
+} from './types.js';
 
 /**
  * The fit's baseline degree when the caller states none: a quadratic absorbs the offset, slope and bow that differ
@@ -54,6 +61,18 @@ export interface FitMixtureOptions {
    */
   minImprovement?: number;
   /**
+   * Least share of what the fit without a candidate leaves at the candidate's own bands, beyond the noise, that it
+   * must explain to be taken in (and to stay in).
+   * @default 0.5
+   */
+  minOwnShare?: number;
+  /**
+   * Width (cm⁻¹) over which residuals are taken as correlated: the Bartlett bandwidth of the HAC standard error in
+   * each selection step.
+   * @default DEFAULT_CORRELATION_WIDTH (30)
+   */
+  correlationWidth?: number;
+  /**
    * Fit only inside these windows (cm⁻¹); null fits every point the query covers.
    * @default null
    */
@@ -81,6 +100,16 @@ export interface FitMixtureOptions {
    */
   minCoverage?: number;
 }
+
+/**
+ * Residual correlation the selection test allows for, cm⁻¹: wider than a condensed-phase band, so that the misfit
+ * a band leaves when unknown and reference come from different benches (shifted, broadened) counts as one
+ * correlated stretch rather than as many independent points.
+ */
+export const DEFAULT_CORRELATION_WIDTH = 30;
+
+/** A residual peak is a fitted component's misfit when that component gives at least this multiple of it there. */
+const MISFIT_RATIO = 2;
 
 const DEFAULT_GRID: Grid = { start: 4000, stop: 600, step: 2 };
 
@@ -129,6 +158,8 @@ export function fitMixture(
   const resolution = options.resolution ?? 4;
   const smoothWindow = options.smoothWindow ?? 7;
   const minCoverage = options.minCoverage ?? 0.95;
+  const correlationWidth = options.correlationWidth ?? DEFAULT_CORRELATION_WIDTH;
+  const minOwnShare = options.minOwnShare ?? 0.5;
   const cols = gridLength(grid);
   if (query.length !== cols) {
     throw new BandshelfError('BAD_OPTION', `the query has ${query.length} points; the grid has ${cols}`, {
@@ -234,8 +265,14 @@ export function fitMixture(
   const c = usable.length;
   const baselineTerms = degree === null ? 0 : degree + 1;
   const selection = forwardSelection(
-    { columns: projected, query: bp, forced: usable.flatMap((u, i) => (u.forced ? [i] : [])), baselineTerms },
-    { alpha, maxComponents, minImprovement },
+    { columns: projected, query: bp, forced: usable.flatMap((u, i) => (u.forced ? [i] : [])) },
+    {
+      alpha,
+      maxComponents,
+      minImprovement,
+      minOwnShare,
+      bandwidth: Math.round(correlationWidth / grid.step),
+    },
   );
   const { selected, gram } = selection;
   const current = { x: selection.weights, rss: selection.rss };
@@ -353,26 +390,31 @@ export function fitMixture(
     notSelected.push(entry);
   });
 
-  const bands = residualBands({ wavenumber: axis, absorbance: residual }, query, {
+  const peaks = residualBands({ wavenumber: axis, absorbance: residual }, query, {
     k,
     resolution,
     smoothWindow,
   });
+  const { bands, misfitBands } = separateMisfits(peaks, components, usable, selected, current.x, at, axis);
   const baselineText =
     degree === null
       ? 'no baseline'
       : `a free-sign polynomial baseline of degree ${degree}${options.baselineDegree === undefined ? ' (the default: it absorbs offset, slope and bow between benches without mimicking broad bands)' : ''}`;
   const rule =
-    `forward selection from ${c} candidate(s) with ${baselineText}: a further component is kept only if a partial ` +
-    `F-test of its weight against the fit without it rejects at α = ${alpha} (F(1, n_eff − p); residuals taken as ` +
-    `Gaussian with one variance and AR(1) correlation, n_eff = n(1 − ρ)/(1 + ρ) from the residual's lag-1 ` +
-    `autocorrelation, here ρ = ${noiseFigures.lag1.toFixed(2)}, n_eff = ${(n / inflation).toFixed(0)} of ${n} points)` +
+    `stepwise selection from ${c} candidate(s) with ${baselineText}: at each step every remaining candidate is ` +
+    `tried; one is taken in only if (1) it explains at least ${(100 * minOwnShare).toFixed(0)} % of what the fit without it leaves at its own ` +
+    `bands beyond the noise (a compound present accounts for its bands; one that only trims another component's ` +
+    `misfit does not), and (2) a one-sided z-test of its weight, with a Newey–West (HAC, Bartlett, ` +
+    `${correlationWidth} cm⁻¹) standard error robust to correlated and unequal residuals, rejects 0 at α = ${alpha} ` +
+    `after a Bonferroni correction for the number of candidates tried; a component a later one makes fail (1) is ` +
+    `left out again` +
     `${maxComponents < c ? `; at most ${maxComponents} components` : ''}. ` +
     `Each weight has a standard error from s²·(1 + ρ)/(1 − ρ)·(AᵀA)⁻¹ of the final fit and a 95 % t interval; a ` +
     `component whose interval reaches 0 is not significant. Detection limit 3.3 σ/S (ICH Q2(R1)), S the ` +
     `component's sensitivity net of the others and the baseline. Unexplained bands: residual maxima above ` +
     `${k} × the local noise (±100 cm⁻¹, robust σ of first differences) with FWHM ≥ ${resolution} cm⁻¹, ` +
-    `none at the fit's edges.`;
+    `none at the fit's edges; a residual peak where a fitted component gives at least ${MISFIT_RATIO} × the residual ` +
+    `is that component's band differing in shape or position between benches, listed apart, not as unexplained.`;
 
   return {
     components,
@@ -390,10 +432,50 @@ export function fitMixture(
     notSelected,
     k,
     residualBands: bands,
+    misfitBands,
     points: n,
     span: { min: lo, max: hi },
     criterion: rule,
     stopReason,
     skipped,
   };
+}
+
+/** Splits residual peaks into unexplained bands and misfits of the fitted components' own bands. */
+function separateMisfits(
+  peaks: readonly ResidualBand[],
+  components: readonly MixtureComponent[],
+  usable: readonly { candidate: MixtureCandidate; raw: Float64Array }[],
+  selected: readonly number[],
+  weights: Float64Array,
+  at: readonly number[],
+  axis: ArrayLike<number>,
+): { bands: ResidualBand[]; misfitBands: MisfitBand[] } {
+  const kept = new Set(components.map((c) => c.id));
+  const bands: ResidualBand[] = [];
+  const misfitBands: MisfitBand[] = [];
+  for (const peak of peaks) {
+    let t = 0;
+    for (let j = 1; j < at.length; j++) {
+      if (Math.abs(axis[at[j]!]! - peak.position) < Math.abs(axis[at[t]!]! - peak.position)) t = j;
+    }
+    let owner: { id: string; contribution: number } | null = null;
+    selected.forEach((s, j) => {
+      const id = usable[s]!.candidate.id;
+      const contribution = weights[j]! * usable[s]!.raw[t]!;
+      if (!kept.has(id) || !(contribution >= MISFIT_RATIO * Math.abs(peak.height))) return;
+      if (owner === null || contribution > owner.contribution) owner = { id, contribution };
+    });
+    const found = owner as { id: string; contribution: number } | null;
+    if (found === null) bands.push(peak);
+    else {
+      misfitBands.push({
+        position: peak.position,
+        height: peak.height,
+        component: found.id,
+        contribution: found.contribution,
+      });
+    }
+  }
+  return { bands, misfitBands };
 }

@@ -1,11 +1,12 @@
 // Band-position search: entries with stored peaks near the given positions, by binary search over the band index.
 import { BandshelfError } from '../error.js';
+import { BAND_TOLERANCE_CM1 } from './bandTolerance.js';
 import type { BandHit, BandIndex, BandMatch, BandQuery, BandStrength } from './types.js';
 
 export interface SearchBandsOptions {
   /**
    * A stored peak matches a query band when |peak − band| ≤ tolerance, cm⁻¹.
-   * @default 4
+   * @default BAND_TOLERANCE_CM1 (4)
    */
   tolerance?: number;
   /**
@@ -107,7 +108,7 @@ export function searchBands(
   bands: readonly BandQuery[],
   options: SearchBandsOptions = {},
 ): BandHit[] {
-  const tolerance = options.tolerance ?? 4;
+  const tolerance = options.tolerance ?? BAND_TOLERANCE_CM1;
   const requireAll = options.requireAll ?? false;
   const top = options.top ?? 20;
   if (!(Number.isFinite(tolerance) && tolerance > 0)) {

@@ -122,6 +122,14 @@ export interface ResidualBand {
   localNoise: number;
 }
 
+/** A residual peak on a fitted component's band, where that component gives at least twice the residual. */
+export interface MisfitBand {
+  position: number;
+  height: number;
+  component: string;
+  contribution: number;
+}
+
 export interface MixtureResult {
   components: MixtureComponent[];
   /** 1 − RSS/TSS over the fitted points. */
@@ -149,6 +157,8 @@ export interface MixtureResult {
   /** Multiple of the noise a residual peak must exceed. */
   k: number;
   residualBands: ResidualBand[];
+  /** Residual peaks on fitted components' bands: band shape or position differing between benches, not new absorbers. */
+  misfitBands: MisfitBand[];
   /** Fitted points and their span. */
   points: number;
   span: { min: number; max: number } | null;

@@ -130,6 +130,18 @@ export const residualBandSchema = z
   })
   .strict();
 
+/** A residual peak on a band of a fitted component that gives at least twice the residual there: a shape mismatch. */
+export const misfitBandSchema = z
+  .object({
+    position: z.number().finite(),
+    height: z.number().finite(),
+    /** The fitted component whose band it sits on. */
+    component: z.string().min(1),
+    /** That component's fitted absorbance at the position (processed units). */
+    contribution: z.number().finite(),
+  })
+  .strict();
+
 export const mixtureReportSchema = z
   .object({
     components: z.array(mixtureComponentSchema),
@@ -160,6 +172,8 @@ export const mixtureReportSchema = z
     k: z.number().finite().positive(),
     /** Peaks of the residual above k × noise: the bands the fitted components do not explain. */
     residualBands: z.array(residualBandSchema),
+    /** Residual peaks above k × noise that sit on a fitted component's band (not unexplained; see misfitBandSchema). */
+    misfitBands: z.array(misfitBandSchema),
     points: z.number().int().nonnegative(),
     span: z.object({ min: z.number().finite(), max: z.number().finite() }).strict().nullable(),
     /** How many candidates forward selection chose from. */

@@ -3,6 +3,7 @@
 import { existsSync, mkdirSync, realpathSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
+import { BAND_TOLERANCE_CM1 } from '../match/bandTolerance.js';
 import { buildManifestPath } from './buildManifestPath.js';
 import { buildSearchIndex, type SearchIndexEntry } from './buildSearchIndex.js';
 import { copySiteAssets } from './copySiteAssets.js';
@@ -243,6 +244,30 @@ async function writeSite(
     'assets/search-matrix.js',
     dataScript('search-matrix', null, {
       json: `{"meta":${matrixMeta.trim()},"matrix":${JSON.stringify(Buffer.from(matrixBytes).toString('base64'))}}`,
+    }),
+  );
+
+  // The band search of the search page: the same peaks and entry rows `bandshelf bands` indexes, as a script file.
+  write(
+    'assets/band-index.js',
+    dataScript('band-index', {
+      grid: source.grid,
+      tolerance: BAND_TOLERANCE_CM1,
+      entries: source.matrix.ids.map((id, i) => {
+        const summary = summaries.get(id);
+        return {
+          id,
+          revision: source.matrix.revisions[i],
+          name: summary?.name ?? id,
+          class: summary?.class ?? 'other',
+          path: slugs.has(id) ? `entries/${slugs.get(id)}/` : null,
+        };
+      }),
+      peaks: {
+        entry: Array.from(source.matrix.peaks.entry),
+        position: Array.from(source.matrix.peaks.position),
+        height: Array.from(source.matrix.peaks.height),
+      },
     }),
   );
 

@@ -1,4 +1,5 @@
 // Assembles the global data the templates read: counts, browse rows, releases with diffs, the assignment table.
+import { BAND_TOLERANCE_CM1 } from '../match/bandTolerance.js';
 import type { Grid } from '../schema/recipe.js';
 import { gridLength } from '../spectrum/gridLength.js';
 import { formatNumber } from './formatNumber.js';
@@ -94,6 +95,7 @@ export function siteView(source: SiteSource, options: SiteViewOptions = {}): Sit
       newestRelease,
     },
     grid: gridText(source.grid),
+    bandTolerance: BAND_TOLERANCE_CM1,
     counts: {
       total: entries.length,
       byClass: counted(entries.map((e) => e.class)),

@@ -330,6 +330,8 @@ export interface SiteView {
     newestRelease: string | null;
   };
   grid: string;
+  /** The band search's default tolerance, cm⁻¹ (the CLI's). */
+  bandTolerance: number;
   counts: {
     total: number;
     byClass: { label: string; count: number }[];

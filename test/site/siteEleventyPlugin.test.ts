@@ -26,6 +26,7 @@ const view = (): SiteView =>
     empty: true,
     state: { label: 'working state', at: null, stateKey: 'k', shortKey: 'k', newestRelease: null },
     grid: '',
+    bandTolerance: 4,
     counts: { total: 0, byClass: [], byTechnique: [] },
     newest: [],
     browse: { rows: [], classes: [], techniques: [], tags: [], sampleForms: [] },

@@ -4,9 +4,10 @@ import { closeLibrary } from '../../library/store/closeLibrary.js';
 import { libraryPath } from '../../library/store/libraryPath.js';
 import { openLibrary } from '../../library/store/openLibrary.js';
 import { readPeakSet } from '../../library/store/readPeakSet.js';
+import { BAND_TOLERANCE_CM1 } from '../../match/bandTolerance.js';
 import { buildBandIndex } from '../../match/buildBandIndex.js';
+import { parseBandQuery } from '../../match/parseBandQuery.js';
 import { searchBands } from '../../match/searchBands.js';
-import type { BandQuery, BandStrength } from '../../match/types.js';
 import { MATCH_CAUTION } from '../../schema/matchReport.js';
 import type { CommandSpec } from '../command.js';
 import { textTable } from '../textTable.js';
@@ -21,21 +22,6 @@ function positiveNumber(value: unknown, flag: string, integer: boolean): number 
     );
   }
   return n;
-}
-
-/** `1652`, `1652.5`, `1652cm-1` (any cm⁻¹ spelling) or `1652:s` (strong), `:m`, `:w`. */
-function parseBand(text: string): BandQuery {
-  const m = /^\s*(\d+(?:\.\d+)?)\s*(?:cm-1|cm\^-1|cm⁻¹|1\/cm)?(?::([smw]))?\s*$/i.exec(text);
-  if (!m) {
-    throw new BandshelfError(
-      'BAD_OPTION',
-      `'${text}' is not a band position: give wavenumbers in cm⁻¹, optionally with :s, :m or :w (e.g. 1652:s)`,
-      { field: 'bands' },
-    );
-  }
-  const band: BandQuery = { position: Number(m[1]) };
-  if (m[2] !== undefined) band.strength = m[2].toLowerCase() as BandStrength;
-  return band;
 }
 
 export const bandsCommand: CommandSpec = {
@@ -54,7 +40,11 @@ export const bandsCommand: CommandSpec = {
       .argument('<positions...>', 'band positions in cm⁻¹, e.g. 1652 or 1652:s')
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
       .option('--at <tag>', 'search a release instead of the working state')
-      .option('--tolerance <cm-1>', 'largest position difference that still matches', '4')
+      .option(
+        '--tolerance <cm-1>',
+        'largest position difference that still matches',
+        String(BAND_TOLERANCE_CM1),
+      )
       .option('--require-all', 'only entries that match every band')
       .option('--top <n>', 'hits to list', '20')
       .option('--json', 'print {hits:[{id,revision,name,class,matched,score,meanError,matches}]} as JSON');
@@ -63,8 +53,8 @@ export const bandsCommand: CommandSpec = {
     const texts = (args[0] as string[] | undefined) ?? [];
     if (texts.length === 0)
       throw new BandshelfError('BAD_OPTION', 'give at least one band position', { field: 'bands' });
-    const bands = texts.map(parseBand);
-    const tolerance = positiveNumber(options.tolerance ?? '4', 'tolerance', false);
+    const bands = texts.map((t) => parseBandQuery(t));
+    const tolerance = positiveNumber(options.tolerance ?? BAND_TOLERANCE_CM1, 'tolerance', false);
     const top = positiveNumber(options.top ?? '20', 'top', true);
     const library = openLibrary(libraryPath(options.library, context.cwd), { readonly: true });
     try {

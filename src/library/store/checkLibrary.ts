@@ -16,6 +16,7 @@ import { IMMUTABILITY_TRIGGERS } from './migrateLibrary.js';
 import { readOriginals } from './readOriginals.js';
 import { recordHash } from './recordHash.js';
 import type { RevisionFileRow, RevisionRow } from './rowTypes.js';
+import { type SealChains, sealChains } from './sealChains.js';
 import { sha256Hex } from './sha256Hex.js';
 import { TABLES_OF_RECORD, tableDigests } from './tableDigests.js';
 
@@ -73,8 +74,14 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
   if (seal === undefined)
     add('database', 'the library has no seal (its tables cannot be verified as a whole)');
   else {
-    const sealed = JSON.parse(seal.digests) as Record<string, string>;
-    const now = tableDigests(db);
+    // A chained seal is checked against chains recomputed over every row; an older seal holds whole-table digests.
+    const parsed = JSON.parse(seal.digests) as { chains?: SealChains } & Record<string, unknown>;
+    const sealed = parsed.chains
+      ? Object.fromEntries(Object.entries(parsed.chains).map(([t, c]) => [t, c.digest]))
+      : (parsed as Record<string, unknown>);
+    const now = parsed.chains
+      ? Object.fromEntries(Object.entries(sealChains(db)).map(([t, c]) => [t, c.digest]))
+      : tableDigests(db);
     for (const table of TABLES_OF_RECORD) {
       if (sealed[table] !== now[table]) {
         add(

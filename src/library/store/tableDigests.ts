@@ -1,4 +1,5 @@
-// Digests every table of record, so `check` can name a table changed behind bandshelf's back.
+// Digests every table of record whole: how seals were made before running chains (sealChains); `check` still
+// verifies such a seal, and the list of tables of record lives here.
 import type Database from 'better-sqlite3';
 import { sha256Hex } from './sha256Hex.js';
 

@@ -21,7 +21,8 @@ export interface ResidualBandsOptions {
 
 /**
  * `spectrum` is the residual on the grid (NaN outside the fit); `query` the unknown on the same grid, for each band's
- * share (residual height over the unknown's value there). Local noise: residualNoise over ±noiseHalfWidth.
+ * share (residual height over the unknown's value there). Local noise: residualNoise over ±noiseHalfWidth, the band's
+ * own ± 2 FWHM left out.
  */
 export function residualBands(
   spectrum: Spectrum,
@@ -48,9 +49,15 @@ export function residualBands(
     const at = nearestIndex(axis, p.position);
     if (nearEdge(residual, at, edgePoints)) continue;
     if (!(p.fwhm >= resolution)) continue;
-    const local = residualNoise(
+    // The band itself (± 2 FWHM) is left out of its noise window: its own slope would read as correlated noise.
+    const window = Float64Array.from(
       residual.subarray(Math.max(0, at - span), Math.min(residual.length, at + span + 1)),
     );
+    const own = Math.ceil((2 * p.fwhm) / step);
+    const centre = at - Math.max(0, at - span);
+    for (let d = -own; d <= own; d++)
+      if (centre + d >= 0 && centre + d < window.length) window[centre + d] = Number.NaN;
+    const local = residualNoise(window);
     const sigma = local.sigma > 0 ? local.sigma : global;
     if (!(p.height > k * sigma && p.prominence > k * sigma)) continue;
     const there = Math.abs(query[at]!);

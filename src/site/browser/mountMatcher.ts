@@ -5,8 +5,10 @@ import type { MatchSource } from '../../match/pipeline/types.js';
 import type { MatchReport } from '../../schema/matchReport.js';
 import { decodeSearchMatrix } from '../decodeSearchMatrix.js';
 import { formatNumber } from '../formatNumber.js';
+import { base64Bytes } from './base64Bytes.js';
 import { matchSpectrumFile, type PublishedSearchSet } from './matchSpectrumFile.js';
 import { type PublishedEntryDocument, publishedMatchSource } from './publishedMatchSource.js';
+import { siteData } from './siteData.js';
 
 export interface MountMatcherOptions {
   /** Hits listed.
@@ -15,12 +17,6 @@ export interface MountMatcherOptions {
 }
 
 type MatrixMeta = Omit<PublishedSearchSet, 'processed'> & { rows: number; cols: number };
-
-async function fetchOk(url: string): Promise<Response> {
-  const response = await fetch(url);
-  if (!response.ok) throw new Error(`${url}: HTTP ${response.status}`);
-  return response;
-}
 
 /** A small table of header labels and rows of cell texts. */
 function tableOf(doc: Document, head: string[], rows: string[][]): HTMLTableElement {
@@ -107,21 +103,27 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
   const sections = doc.createElement('div');
   sections.id = 'match-report';
   table.after(sections);
-  const ready = Promise.all([
-    fetchOk(zone.dataset.meta ?? `${base}assets/search-matrix.json`).then(
-      (r) => r.json() as Promise<MatrixMeta>,
-    ),
-    fetchOk(zone.dataset.matrix ?? `${base}assets/search-matrix.bin`).then((r) => r.arrayBuffer()),
-  ]).then(([meta, buffer]) => {
-    const decoded = decodeSearchMatrix(new Uint8Array(buffer));
+  // Script files, not fetch: a browser refuses fetch from file:// but loads scripts (the page lists the matrix's).
+  const ready = siteData<{ meta: MatrixMeta; matrix: string }>(
+    zone.dataset.script ?? `${base}assets/search-matrix.js`,
+    'search-matrix',
+    { doc },
+  ).then(({ meta, matrix }) => {
+    const decoded = decodeSearchMatrix(base64Bytes(matrix));
     if (decoded.rows !== meta.rows || decoded.cols !== meta.cols) {
       throw new Error('the matrix and its description disagree; rebuild the site');
     }
     set = { ...meta, processed: decoded.matrix };
-    // An entry's JSON sits in its folder under the folder's own name.
+    // An entry's data script sits in its folder under the folder's own name.
     const loadEntry = (path: string): Promise<PublishedEntryDocument> => {
       const slug = path.replace(/\/$/, '').split('/').pop() ?? '';
-      return fetchOk(`${base}${path}${slug}.json`).then((r) => r.json() as Promise<PublishedEntryDocument>);
+      return siteData<{ document: PublishedEntryDocument }>(
+        `${base}${path}${slug}.data.js`,
+        `entry:${slug}`,
+        {
+          doc,
+        },
+      ).then((d) => d.document);
     };
     source = publishedMatchSource(set, { loadEntry });
     status.textContent = `Ready: ${meta.rows} reference spectra loaded.`;
