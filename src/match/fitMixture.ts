@@ -1,15 +1,15 @@
 // Mixture fit: the unknown as a non-negative sum of library spectra plus a free-sign polynomial baseline.
+import jStatModule from 'jstat';
 import { BandshelfError } from '../error.js';
 import type { Grid, WavenumberWindow } from '../schema/recipe.js';
 import { gridAxis } from '../spectrum/gridAxis.js';
 import { gridLength } from '../spectrum/gridLength.js';
 import { detectionLimit } from './mixture/detectionLimit.js';
 import { forwardSelection } from './mixture/forwardSelection.js';
-import { invertSymmetric } from './mixture/invertSymmetric.js';
+import { lineShapeTerms } from './mixture/lineShapeTerms.js';
 import { polynomialBasis } from './mixture/polynomialBasis.js';
 import { residualBands } from './mixture/residualBands.js';
 import { residualNoise } from './mixture/residualNoise.js';
-import { weightUncertainty } from './mixture/weightUncertainty.js';
 import type {
   MisfitBand,
   MixtureCandidate,
@@ -73,6 +73,13 @@ export interface FitMixtureOptions {
    */
   correlationWidth?: number;
   /**
+   * Let each selected component shift and broaden a little between benches: its first and second derivatives join
+   * the fit as free-sign terms (they leave its area, and so its share, unchanged), so a band whose shape differs
+   * from the reference's leaves no structured residual for another candidate to fill.
+   * @default true
+   */
+  lineShapeTerms?: boolean;
+  /**
    * Fit only inside these windows (cm⁻¹); null fits every point the query covers.
    * @default null
    */
@@ -110,6 +117,8 @@ export const DEFAULT_CORRELATION_WIDTH = 30;
 
 /** A residual peak is a fitted component's misfit when that component gives at least this multiple of it there. */
 const MISFIT_RATIO = 2;
+
+const { jStat } = jStatModule;
 
 const DEFAULT_GRID: Grid = { start: 4000, stop: 600, step: 2 };
 
@@ -160,6 +169,7 @@ export function fitMixture(
   const minCoverage = options.minCoverage ?? 0.95;
   const correlationWidth = options.correlationWidth ?? DEFAULT_CORRELATION_WIDTH;
   const minOwnShare = options.minOwnShare ?? 0.5;
+  const withShapes = options.lineShapeTerms ?? true;
   const cols = gridLength(grid);
   if (query.length !== cols) {
     throw new BandshelfError('BAD_OPTION', `the query has ${query.length} points; the grid has ${cols}`, {
@@ -262,10 +272,23 @@ export function fitMixture(
   const q = basis?.q ?? [];
   const bp = project(b, q);
   const projected = usable.map((u) => project(u.raw, q));
+  // Line-shape terms on the whole grid (so a gap in the fit points is not differentiated across), then taken at them.
+  const shapesRaw = usable.map((u) =>
+    withShapes
+      ? lineShapeTerms(u.candidate.vector, { step: grid.step }).map((v) =>
+          Float64Array.from(at, (i) => v[i]!),
+        )
+      : [],
+  );
   const c = usable.length;
   const baselineTerms = degree === null ? 0 : degree + 1;
   const selection = forwardSelection(
-    { columns: projected, query: bp, forced: usable.flatMap((u, i) => (u.forced ? [i] : [])) },
+    {
+      columns: projected,
+      query: bp,
+      forced: usable.flatMap((u, i) => (u.forced ? [i] : [])),
+      shapes: shapesRaw.map((list) => list.map((v) => project(v, q))),
+    },
     {
       alpha,
       maxComponents,
@@ -274,7 +297,7 @@ export function fitMixture(
       bandwidth: Math.round(correlationWidth / grid.step),
     },
   );
-  const { selected, gram } = selection;
+  const { selected } = selection;
   const current = { x: selection.weights, rss: selection.rss };
   const stopReason =
     selection.rejected === null
@@ -291,6 +314,10 @@ export function fitMixture(
     if (w === 0) continue;
     const raw = usable[selected[s]!]!.raw;
     for (let t = 0; t < n; t++) model[t] = model[t]! + w * raw[t]!;
+  }
+  for (const term of selection.shapeTerms) {
+    const raw = shapesRaw[term.column]![term.term]!;
+    for (let t = 0; t < n; t++) model[t] = model[t]! + term.weight * raw[t]!;
   }
   let baseline: MixtureResult['baseline'] = null;
   if (basis !== null && degree !== null) {
@@ -329,29 +356,31 @@ export function fitMixture(
   const absArea = (v: Float64Array): number => v.reduce((sum, x) => sum + Math.abs(x), 0);
   const area = selected.map((s, j) => current.x[j]! * absArea(usable[s]!.raw));
   const signal = area.reduce((sum, a) => sum + a, 0);
-  const parameters = selected.length + baselineTerms;
   const noiseFigures = residualNoise(Float64Array.from(at, (i) => residual[i]!));
-  const inflation = noiseFigures.inflation;
-  const subGram = (subset: readonly number[]): Float64Array => {
-    const p = subset.length;
-    return Float64Array.from(
-      { length: p * p },
-      (_, e) => gram[subset[Math.floor(e / p)]! * c + subset[e % p]!]!,
-    );
+  // Weight ± z₀.₉₇₅ × its HAC standard error (normal reference, many points); ICH's σ/S of a weight is that error.
+  const z975 = jStat.normal.inv(0.975, 0, 1);
+  const uncertaintyOf = (s: number, weight: number) => {
+    const noiseError = selection.standardErrorOf.get(s) ?? Number.POSITIVE_INFINITY;
+    const shift = selection.modelShiftOf.get(s) ?? 0;
+    // The model part as a rectangular distribution of half-width |shift| (u = shift/√3, GUM JCGM 100:2008 §4.3.7).
+    const standardError = Math.sqrt(noiseError * noiseError + (shift * shift) / 3);
+    const sensitivity = selection.sensitivityOf.get(s) ?? 0;
+    const low = weight - z975 * standardError;
+    return {
+      standardError,
+      interval: [Math.max(0, low), weight + z975 * standardError] as [number, number],
+      significant: Number.isFinite(low) && low > 0,
+      sensitivity,
+      sigma: noiseError * sensitivity,
+    };
   };
-  const uncertainty = weightUncertainty(
-    { gram: subGram(selected), weights: current.x, rss, points: n, parameters },
-    { inflation },
-  );
-  // σ of one effective independent point, the σ of ICH's 3.3 σ/S (so the limit is 3.3 × the weight's SE).
-  const sigma = n > parameters ? Math.sqrt((rss / (n - parameters)) * inflation) : Number.POSITIVE_INFINITY;
   const components: MixtureComponent[] = [];
   selected.forEach((s, j) => {
     const u = usable[s]!;
     const weight = current.x[j]!;
     // A non-forced component a later one made redundant (weight 0) explains nothing: leave it out.
     if (weight === 0 && !u.forced) return;
-    const w = uncertainty[j]!;
+    const w = uncertaintyOf(s, weight);
     const component: MixtureComponent = {
       id: u.candidate.id,
       revision: u.candidate.revision,
@@ -363,7 +392,12 @@ export function fitMixture(
       standardError: w.standardError,
       interval95: w.interval,
       significant: w.significant,
-      detectionLimit: detectionLimit({ sigma, sensitivity: w.sensitivity, area: absArea(u.raw), signal }),
+      detectionLimit: detectionLimit({
+        sigma: w.sigma,
+        sensitivity: w.sensitivity,
+        area: absArea(u.raw),
+        signal,
+      }),
     };
     if (u.candidate.name !== undefined) component.name = u.candidate.name;
     if (u.candidate.class !== undefined) component.class = u.candidate.class;
@@ -374,16 +408,18 @@ export function fitMixture(
   usable.forEach((u, i) => {
     if (listed.has(u.candidate.id)) return;
     listed.add(u.candidate.id);
-    // Sensitivity of the candidate were it added to the final fit: what the others and the baseline cannot mimic.
-    const withIt = [...selected, i];
-    const p = withIt.length;
-    const inverse = invertSymmetric(subGram(withIt), p);
-    const diag = inverse === null ? Number.POSITIVE_INFINITY : inverse[p * p - 1]!;
-    const sensitivity = diag > 0 && Number.isFinite(diag) ? 1 / Math.sqrt(diag) : 0;
+    // Its detection limit were it added to the final fit: what the others, their line-shape terms and the baseline
+    // cannot mimic, against the final residual.
+    const w = uncertaintyOf(i, 0);
     const entry: UnselectedCandidate = {
       id: u.candidate.id,
       revision: u.candidate.revision,
-      detectionLimit: detectionLimit({ sigma, sensitivity, area: absArea(u.raw), signal }),
+      detectionLimit: detectionLimit({
+        sigma: w.sigma,
+        sensitivity: w.sensitivity,
+        area: absArea(u.raw),
+        signal,
+      }),
     };
     if (u.candidate.name !== undefined) entry.name = u.candidate.name;
     if (u.candidate.class !== undefined) entry.class = u.candidate.class;
@@ -409,9 +445,12 @@ export function fitMixture(
     `after a Bonferroni correction for the number of candidates tried; a component a later one makes fail (1) is ` +
     `left out again` +
     `${maxComponents < c ? `; at most ${maxComponents} components` : ''}. ` +
-    `Each weight has a standard error from s²·(1 + ρ)/(1 − ρ)·(AᵀA)⁻¹ of the final fit and a 95 % t interval; a ` +
-    `component whose interval reaches 0 is not significant. Detection limit 3.3 σ/S (ICH Q2(R1)), S the ` +
-    `component's sensitivity net of the others and the baseline. Unexplained bands: residual maxima above ` +
+    `${withShapes ? "Each selected component's first and second derivatives join the fit as free-sign terms, so its bands may shift and broaden a little between benches without leaving a residual for another candidate (they leave its area unchanged). " : ''}` +
+    `Each weight's standard error combines a Newey–West (HAC, Bartlett, ${correlationWidth} cm⁻¹) error from the final ` +
+    `residual (structure the model leaves widens it)${withShapes ? " with the model's part: the weight's change when the line-shape terms are left out, taken as the half-width of a rectangular distribution (÷√3, GUM)" : ''}; ` +
+    `the 95 % interval is ± 1.96 of it (normal reference); a component whose interval reaches 0 is not ` +
+    `significant. Detection limit 3.3 σ/S (ICH Q2(R1)) with σ/S that standard error, S the ` +
+    `component's sensitivity net of the others, their line-shape terms and the baseline. Unexplained bands: residual maxima above ` +
     `${k} × the local noise (±100 cm⁻¹, robust σ of first differences) with FWHM ≥ ${resolution} cm⁻¹, ` +
     `none at the fit's edges; a residual peak where a fitted component gives at least ${MISFIT_RATIO} × the residual ` +
     `is that component's band differing in shape or position between benches, listed apart, not as unexplained.`;
@@ -426,7 +465,7 @@ export function fitMixture(
     noise: noiseFigures.sigma,
     noiseSource: 'residual-differences',
     noiseLag1: noiseFigures.lag1,
-    effectivePoints: n / inflation,
+    effectivePoints: n / noiseFigures.inflation,
     alpha,
     rule,
     notSelected,

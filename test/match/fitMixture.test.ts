@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { seededRandom } from '../../src/demo/seededRandom.js';
 import { BandshelfError } from '../../src/error.js';
 import { fitMixture } from '../../src/match/fitMixture.js';
+import { lineShapeTerms } from '../../src/match/mixture/lineShapeTerms.js';
 import type { MixtureCandidate } from '../../src/match/types.js';
 import type { Grid } from '../../src/schema/recipe.js';
 import { correlation } from '../../src/spectrum/correlation.js';
@@ -134,13 +135,21 @@ describe('fitMixture', () => {
     }
   });
 
-  it('reaches the same minimum as ml-fcnnls with the baseline split into ± columns', () => {
+  it('reaches the same minimum as ml-fcnnls with the baseline and line-shape terms split into ± columns', () => {
     // ml-fcnnls is a general-purpose NNLS implementation; a free-sign term t equals t⁺ − t⁻ with t± ≥ 0.
     const pool = rankedPool();
     const result = fitMixture(mixture, pool, { grid, baselineDegree: 1, maxComponents: 4 });
     const chosen = result.components.map((c) => vectors.get(c.id)!);
+    const shapes = chosen.flatMap((v) => lineShapeTerms(v, { step: grid.step }));
     const u = Array.from(axis, (x) => (x - 2300) / 1700);
-    const rows = Array.from(axis, (_, i) => [...chosen.map((v) => v[i]!), 1, -1, u[i]!, -u[i]!]);
+    const rows = Array.from(axis, (_, i) => [
+      ...chosen.map((v) => v[i]!),
+      1,
+      -1,
+      u[i]!,
+      -u[i]!,
+      ...shapes.flatMap((d) => [d[i]!, -d[i]!]),
+    ]);
     const k = fcnnlsVector(rows, Array.from(mixture), { gradientTolerance: 1e-14 }).K.to1DArray();
     result.components.forEach((c, j) => {
       expect(c.weight).toBeCloseTo(k[j]!, 7);

@@ -12,6 +12,11 @@ export interface ForwardSelectionInput {
   query: Float64Array;
   /** Indices of columns forced in. */
   forced: readonly number[];
+  /**
+   * Per column, free-sign nuisance columns (baseline-projected, over the same points) that join the fit once the
+   * column is in it: its line-shape terms (see lineShapeTerms). Absent: none.
+   */
+  shapes?: readonly (readonly Float64Array[])[];
 }
 
 export interface ForwardSelectionOptions {
@@ -35,8 +40,18 @@ export interface ForwardSelection {
   /** NNLS weights in the order of `selected`. */
   weights: Float64Array;
   rss: number;
-  /** Gram matrix and AᵀB of all columns (row-major), for the uncertainty of the final fit. */
-  gram: Float64Array;
+  /**
+   * Per column, the HAC (Newey–West, Bartlett, `bandwidth`) standard error of its weight in the final model (with it
+   * added, for a column not selected), from the final residual: robust to correlated and unequal residuals, so
+   * structure the model leaves (a band shape differing between benches) widens it.
+   */
+  standardErrorOf: Map<number, number>;
+  /** Per selected column, |its weight with − without the line-shape terms| (0 without them). */
+  modelShiftOf: Map<number, number>;
+  /** Per column, the norm of its part that the rest of the final model (components, line-shape terms) cannot mimic. */
+  sensitivityOf: Map<number, number>;
+  /** The selected columns' nuisance columns in the final fit, as [column, term] pairs, and their free-sign weights. */
+  shapeTerms: { column: number; term: number; weight: number }[];
   /** Bonferroni-adjusted one-sided p-value of each selected column's step. */
   pValueOf: Map<number, number>;
   improvementOf: Map<number, number>;
@@ -72,86 +87,177 @@ export function forwardSelection(
   const { columns, query } = input;
   const c = columns.length;
   const n = query.length;
-  const gram = new Float64Array(c * c);
-  const atb = new Float64Array(c);
-  for (let i = 0; i < c; i++) {
-    atb[i] = dot(columns[i]!, query);
+  // Every column the fit can use: the candidates, then each candidate's nuisance (line-shape) columns.
+  const all: Float64Array[] = [...columns];
+  const shapeIndex: number[][] = columns.map((_, i) =>
+    (input.shapes?.[i] ?? []).map((v) => {
+      all.push(Float64Array.from(v));
+      return all.length - 1;
+    }),
+  );
+  const m = all.length;
+  const gram = new Float64Array(m * m);
+  const atb = new Float64Array(m);
+  for (let i = 0; i < m; i++) {
+    atb[i] = dot(all[i]!, query);
     for (let j = 0; j <= i; j++) {
-      const g = dot(columns[i]!, columns[j]!);
-      gram[i * c + j] = g;
-      gram[j * c + i] = g;
+      const g = dot(all[i]!, all[j]!);
+      gram[i * m + j] = g;
+      gram[j * m + i] = g;
     }
   }
   const btb = dot(query, query);
-  const solve = (subset: readonly number[]): { x: Float64Array; rss: number } => {
-    const p = subset.length;
-    if (p === 0) return { x: new Float64Array(0), rss: btb };
+  const freeOf = (mains: readonly number[]): number[] => mains.flatMap((i) => shapeIndex[i] ?? []);
+
+  interface SubsetFit {
+    mains: number[];
+    free: number[];
+    /** Non-negative weights of `mains`. */
+    x: Float64Array;
+    /** Free-sign weights of `free`. */
+    z: Float64Array;
+    rss: number;
+  }
+  // (Gram net of `free`, A'b net of `free`, b'b net of `free`, (G_FF)⁻¹) — the Schur complement: least squares over
+  // the free columns first, then NNLS of what they leave (the joint minimum, as for the baseline).
+  const netOf = (mains: readonly number[], free: readonly number[]) => {
+    const p = mains.length;
+    const f = free.length;
     const g = new Float64Array(p * p);
     const r = new Float64Array(p);
-    for (let i = 0; i < p; i++) {
-      r[i] = atb[subset[i]!]!;
-      for (let j = 0; j < p; j++) g[i * p + j] = gram[subset[i]! * c + subset[j]!]!;
+    for (let a = 0; a < p; a++) {
+      r[a] = atb[mains[a]!]!;
+      for (let z = 0; z < p; z++) g[a * p + z] = gram[mains[a]! * m + mains[z]!]!;
     }
-    const { x } = nnlsNormal({ gram: g, atb: r });
-    let rss = btb;
-    for (let i = 0; i < p; i++) {
-      rss -= 2 * x[i]! * r[i]!;
-      for (let j = 0; j < p; j++) rss += x[i]! * g[i * p + j]! * x[j]!;
+    let bb = btb;
+    if (f === 0) return { g, r, bb, inverse: null as Float64Array | null };
+    const gff = new Float64Array(f * f);
+    for (let u = 0; u < f; u++) for (let v = 0; v < f; v++) gff[u * f + v] = gram[free[u]! * m + free[v]!]!;
+    let inverse = invertSymmetric(gff, f);
+    if (inverse === null) {
+      // Nearly collinear nuisance columns (two references' derivatives alike): a vanishing ridge keeps them usable.
+      let trace = 0;
+      for (let u = 0; u < f; u++) trace += gff[u * f + u]!;
+      for (let u = 0; u < f; u++) gff[u * f + u] = gff[u * f + u]! + 1e-9 * (trace / f);
+      inverse = invertSymmetric(gff, f);
     }
-    return { x, rss: Math.max(0, rss) };
+    if (inverse === null) return { g, r, bb, inverse: null };
+    // K·G_F· for each main and for b.
+    const kfb = new Float64Array(f);
+    for (let u = 0; u < f; u++) {
+      for (let v = 0; v < f; v++) kfb[u] = kfb[u]! + inverse[u * f + v]! * atb[free[v]!]!;
+    }
+    for (let u = 0; u < f; u++) bb -= atb[free[u]!]! * kfb[u]!;
+    const kfa = mains.map((ma) => {
+      const k = new Float64Array(f);
+      for (let u = 0; u < f; u++) {
+        for (let v = 0; v < f; v++) k[u] = k[u]! + inverse[u * f + v]! * gram[free[v]! * m + ma]!;
+      }
+      return k;
+    });
+    for (let a = 0; a < p; a++) {
+      for (let u = 0; u < f; u++) r[a] = r[a]! - gram[mains[a]! * m + free[u]!]! * kfb[u]!;
+      for (let z = 0; z < p; z++) {
+        let s = 0;
+        for (let u = 0; u < f; u++) s += gram[mains[a]! * m + free[u]!]! * kfa[z]![u]!;
+        g[a * p + z] = g[a * p + z]! - s;
+      }
+    }
+    return { g, r, bb, inverse };
   };
-  const residualOf = (subset: readonly number[], x: Float64Array): Float64Array => {
+  const fitSubset = (mains: readonly number[], freeWanted: readonly number[]): SubsetFit => {
+    const p = mains.length;
+    let net = netOf(mains, freeWanted);
+    // Collinear nuisance columns (a flat reference has none to speak of): fit without them.
+    const free = net.inverse === null && freeWanted.length > 0 ? [] : [...freeWanted];
+    if (free.length === 0 && freeWanted.length > 0) net = netOf(mains, []);
+    const x = p === 0 ? new Float64Array(0) : nnlsNormal({ gram: net.g, atb: net.r }).x;
+    let rss = net.bb;
+    for (let a = 0; a < p; a++) {
+      rss -= 2 * x[a]! * net.r[a]!;
+      for (let z = 0; z < p; z++) rss += x[a]! * net.g[a * p + z]! * x[z]!;
+    }
+    const f = free.length;
+    const z = new Float64Array(f);
+    if (f > 0 && net.inverse !== null) {
+      const left = new Float64Array(f);
+      for (let u = 0; u < f; u++) {
+        let s = atb[free[u]!]!;
+        for (let a = 0; a < p; a++) s -= gram[free[u]! * m + mains[a]!]! * x[a]!;
+        left[u] = s;
+      }
+      for (let u = 0; u < f; u++)
+        for (let v = 0; v < f; v++) z[u] = z[u]! + net.inverse[u * f + v]! * left[v]!;
+    }
+    return { mains: [...mains], free, x, z, rss: Math.max(0, rss) };
+  };
+  const residualOf = (fit: SubsetFit): Float64Array => {
     const r = Float64Array.from(query);
-    subset.forEach((s, j) => {
-      const col = columns[s]!;
-      for (let t = 0; t < n; t++) r[t] = r[t]! - x[j]! * col[t]!;
+    const take = (col: Float64Array, w: number): void => {
+      if (w === 0) return;
+      for (let t = 0; t < n; t++) r[t] = r[t]! - w * col[t]!;
+    };
+    fit.mains.forEach((s, j) => {
+      take(all[s]!, fit.x[j]!);
+    });
+    fit.free.forEach((s, j) => {
+      take(all[s]!, fit.z[j]!);
     });
     return r;
   };
 
-  // The part of column i that the columns of `subset` cannot mimic (least squares over the fit points).
+  // The part of column i that the columns of `subset` (indices into all columns) cannot mimic: modified Gram–Schmidt,
+  // skipping a column whose own unmimicked part is lost to rounding (it adds nothing the others do not span).
   const unmimicked = (i: number, subset: readonly number[]): Float64Array => {
-    const d = Float64Array.from(columns[i]!);
-    const p = subset.length;
-    if (p === 0) return d;
-    const g = new Float64Array(p * p);
-    for (let a = 0; a < p; a++) for (let z = 0; z < p; z++) g[a * p + z] = gram[subset[a]! * c + subset[z]!]!;
-    const inverse = invertSymmetric(g, p);
-    if (inverse === null) return new Float64Array(n);
-    for (let a = 0; a < p; a++) {
-      let coef = 0;
-      for (let z = 0; z < p; z++) coef += inverse[a * p + z]! * gram[subset[z]! * c + i]!;
-      const col = columns[subset[a]!]!;
-      for (let t = 0; t < n; t++) d[t] = d[t]! - coef * col[t]!;
+    const basis: Float64Array[] = [];
+    for (const s of subset) {
+      const v = Float64Array.from(all[s]!);
+      const before = Math.sqrt(dot(v, v));
+      for (const q of basis) {
+        const k = dot(q, v);
+        for (let t = 0; t < n; t++) v[t] = v[t]! - k * q[t]!;
+      }
+      const after = Math.sqrt(dot(v, v));
+      if (!(after > 1e-8 * before)) continue;
+      for (let t = 0; t < n; t++) v[t] = v[t]! / after;
+      basis.push(v);
+    }
+    const d = Float64Array.from(all[i]!);
+    for (const q of basis) {
+      const k = dot(q, d);
+      for (let t = 0; t < n; t++) d[t] = d[t]! - k * q[t]!;
     }
     return d;
   };
 
   interface Trial {
     index: number;
-    fit: { x: Float64Array; rss: number };
+    fit: SubsetFit;
     z: number;
     pValue: number;
     share: number;
   }
-  // Column i added to `base` (whose fit is `baseFit`): its NNLS fit, HAC z and own-band share; null without a
-  // positive weight.
-  const evaluate = (i: number, base: readonly number[], baseFit: { x: Float64Array }): Trial | null => {
-    const set = [...base, i];
-    const fit = solve(set);
+  // Column i added to `base` (whose fit, with base's line-shape terms, is `baseFit`): its NNLS fit, HAC z and own-band
+  // share; null without a positive weight. The newcomer's own line-shape terms join only once it is taken in.
+  const evaluate = (i: number, base: readonly number[], baseFit: SubsetFit): Trial | null => {
+    const fit = fitSubset([...base, i], baseFit.free);
     if (!(fit.x[base.length]! > 0)) return null;
     const active = base.filter((_, j) => fit.x[j]! > 0);
-    const after = residualOf(set, fit.x);
-    const test = hacScoreTest({ direction: unmimicked(i, active), query, residual: after }, { bandwidth });
+    const after = residualOf(fit);
+    const test = hacScoreTest(
+      { direction: unmimicked(i, [...active, ...fit.free]), query, residual: after },
+      { bandwidth },
+    );
     if (!(test.estimate > 0)) return null;
     const share = ownBandShare({
       column: columns[i]!,
-      without: residualOf(base, baseFit.x),
+      without: residualOf(baseFit),
       with: after,
       noiseSigma: residualNoise(after).sigma,
     });
     return { index: i, fit, z: test.z, pValue: test.pValue, share };
   };
+  const fitWithShapes = (mains: readonly number[]): SubsetFit => fitSubset(mains, freeOf(mains));
 
   const forcedSet = new Set(input.forced);
   const selected = [...input.forced];
@@ -160,7 +266,7 @@ export function forwardSelection(
   const improvementOf = new Map<number, number>();
   const shareOf = new Map<number, number>();
   const dropped: { index: number; share: number }[] = [];
-  let current = solve(selected);
+  let current = fitWithShapes(selected);
   let stopReason = '';
   let rejected: number | null = null;
   while (true) {
@@ -208,7 +314,7 @@ export function forwardSelection(
     pValueOf.set(best.index, adjusted);
     improvementOf.set(best.index, improvement);
     shareOf.set(best.index, best.share);
-    current = best.fit;
+    current = fitWithShapes(selected);
     // Backward check: an earlier component the newcomer makes a misfit-trimmer (a protein standing in for another
     // protein) leaves, and does not come back.
     while (true) {
@@ -216,7 +322,7 @@ export function forwardSelection(
       for (const j of selected) {
         if (forcedSet.has(j) || j === best.index) continue;
         const base = selected.filter((s) => s !== j);
-        const trial = evaluate(j, base, solve(base));
+        const trial = evaluate(j, base, fitWithShapes(base));
         const share = trial === null ? 0 : trial.share;
         shareOf.set(j, share);
         if (share < minOwnShare && (worst === null || share < worst.share)) worst = { index: j, share };
@@ -229,14 +335,42 @@ export function forwardSelection(
       improvementOf.delete(w);
       shareOf.delete(w);
       dropped.push(worst);
-      current = solve(selected);
+      current = fitWithShapes(selected);
     }
   }
+  const finalFree = current.free;
+  // The final fit's figures per column: the HAC standard error of each selected weight and the sensitivity (norm of
+  // the part the rest of the final model cannot mimic) of every column, selected or not.
+  const finalResidual = residualOf(current);
+  // How far each weight moves when the line-shape terms are left out: the part of its uncertainty that comes from
+  // the model (how the bench changed the band shapes), not from the noise.
+  const plain = finalFree.length > 0 ? fitSubset(selected, []) : current;
+  const modelShiftOf = new Map<number, number>(
+    selected.map((s, j) => [s, Math.abs(current.x[j]! - plain.x[j]!)]),
+  );
+  const standardErrorOf = new Map<number, number>();
+  const sensitivityOf = new Map<number, number>();
+  for (let i = 0; i < c; i++) {
+    const others = selected.filter((s) => s !== i);
+    const d = unmimicked(i, [...others, ...finalFree]);
+    sensitivityOf.set(i, Math.sqrt(dot(d, d)));
+    const test = hacScoreTest({ direction: d, query, residual: finalResidual }, { bandwidth });
+    standardErrorOf.set(i, test.standardError);
+  }
+  const termOf = new Map<number, { column: number; term: number }>();
+  shapeIndex.forEach((list, column) => {
+    list.forEach((at, term) => {
+      termOf.set(at, { column, term });
+    });
+  });
   return {
     selected,
     weights: current.x,
     rss: current.rss,
-    gram,
+    standardErrorOf,
+    sensitivityOf,
+    modelShiftOf,
+    shapeTerms: finalFree.map((at, j) => ({ ...termOf.get(at)!, weight: current.z[j]! })),
     pValueOf,
     improvementOf,
     shareOf,

@@ -34,9 +34,18 @@ export function residualBands(
   const noiseHalfWidth = options.noiseHalfWidth ?? 100;
   const smoothWindow = options.smoothWindow ?? 7;
   const edgePoints = options.edgePoints ?? 4;
-  const { wavenumber: axis, absorbance: residual } = spectrum;
+  // findPeaks reads widths and interpolated positions on an ascending axis; the library grid may run high to low.
+  const descending = spectrum.wavenumber.length > 1 && spectrum.wavenumber[0]! > spectrum.wavenumber[1]!;
+  const ascending = (v: ArrayLike<number>): Float64Array =>
+    descending ? Float64Array.from(v).reverse() : Float64Array.from(v);
+  const axis = ascending(spectrum.wavenumber);
+  const residual = ascending(spectrum.absorbance);
+  const unknown = ascending(query);
   const global = residualNoise(residual).sigma;
   if (!(global > 0)) return [];
+  // Peaks are proposed against the noise of independent points (no correlation allowance): smooth misfit elsewhere
+  // in the residual must not raise the bar a narrow band far from it has to clear. Each is then judged locally.
+  const white = residualNoise(residual, { maxLag1: 0 }).sigma;
   const searched =
     smoothWindow >= 3 ? savitzkyGolay(residual, { window: smoothWindow, order: 2, derivative: 0 }) : residual;
   const step = axis.length > 1 ? Math.abs(axis[1]! - axis[0]!) : 1;
@@ -44,7 +53,7 @@ export function residualBands(
   const bands: ResidualBand[] = [];
   for (const p of findPeaks(
     { wavenumber: axis, absorbance: searched },
-    { minProminence: k * global * 0.5 },
+    { minProminence: k * Math.min(global, white) * 0.5 },
   )) {
     const at = nearestIndex(axis, p.position);
     if (nearEdge(residual, at, edgePoints)) continue;
@@ -60,7 +69,7 @@ export function residualBands(
     const local = residualNoise(window);
     const sigma = local.sigma > 0 ? local.sigma : global;
     if (!(p.height > k * sigma && p.prominence > k * sigma)) continue;
-    const there = Math.abs(query[at]!);
+    const there = Math.abs(unknown[at]!);
     bands.push({
       position: p.position,
       height: p.height,
