@@ -111,6 +111,14 @@ export function formatMatchTable(report: MatchReport, options: FormatMatchTableO
         ),
       );
     }
+    for (const c of m.components) {
+      if (c.alternatives !== undefined && c.alternatives.length > 0) {
+        out.push(
+          `Not told apart from ${c.id} by this spectrum (fit as well in its place): ${c.alternatives.join(', ')}`,
+        );
+      }
+      if (!c.significant) out.push(`${c.id}: its interval reaches 0 — not significant, not found`);
+    }
     out.push(`Stopped: ${m.stopReason}`);
     out.push(`Rule: ${m.criterion}`);
     const noise = `${m.noise.toPrecision(2)} (${m.noiseSource === 'band-free-window' ? 'band-free window' : 'residual differences'})`;

@@ -401,6 +401,8 @@ export function fitMixture(
     };
     if (u.candidate.name !== undefined) component.name = u.candidate.name;
     if (u.candidate.class !== undefined) component.class = u.candidate.class;
+    const alternatives = selection.alternativesOf.get(s);
+    if (alternatives !== undefined) component.alternatives = alternatives.map((i) => usable[i]!.candidate.id);
     components.push(component);
   });
   const notSelected: UnselectedCandidate[] = [];

@@ -88,7 +88,7 @@ export interface MixtureComponent {
   improvement: number | null;
   /** p-value of the partial F-test that admitted it (null for forced components). */
   pValue: number | null;
-  /** Standard error of the weight (covariance of the final least-squares fit, effective-dof corrected). */
+  /** Standard error of the weight: HAC error from the final residual combined with the line-shape model part. */
   standardError: number;
   /** 95 % interval of the weight, lower end clipped at 0. */
   interval95: [number, number];
@@ -96,6 +96,8 @@ export interface MixtureComponent {
   significant: boolean;
   /** ICH Q2(R1) detection limit 3.3 σ/S, as a weight and as a share of the signal. */
   detectionLimit: { weight: number; share: number };
+  /** Offered candidates that fit as well in its place at the fit's level: not told apart by this spectrum. */
+  alternatives?: string[];
 }
 
 /** A candidate the fit was offered but did not keep, with the smallest amount this spectrum could have shown. */

@@ -94,13 +94,21 @@ export const mixtureComponentSchema = z
     improvement: z.number().finite().nullable(),
     /** p-value of the partial F-test that admitted it; null when forced. */
     pValue: z.number().min(0).max(1).nullable(),
-    /** Standard error of the weight (final least-squares covariance, effective-dof corrected); null if infinite. */
+    /**
+     * Standard error of the weight (HAC error from the final residual combined with the line-shape model part); null if
+     * infinite.
+     */
     standardError: z.number().finite().nonnegative().nullable(),
     /** 95 % interval of the weight [low, high], low clipped at 0; high null if unbounded. */
     interval95: z.tuple([z.number().finite().nonnegative(), z.number().finite().nullable()]),
     /** The interval's lower end is above 0; a component that is not significant is not reported as found. */
     significant: z.boolean(),
     detectionLimit: detectionLimitSchema,
+    /**
+     * Ids of offered candidates that, put in its place, fit this spectrum as well at the fit's level (a likelihood-
+     * ratio comparison against χ²₁): this spectrum cannot tell them apart (proteins, often). Absent when none.
+     */
+    alternatives: z.array(z.string().min(1)).optional(),
   })
   .strict();
 

@@ -1,4 +1,5 @@
 // Forward selection of mixture components by a nested-model partial F-test against the fit's own residual.
+import jStatModule from 'jstat';
 import { nnlsNormal } from '../nnlsNormal.js';
 import { hacScoreTest } from './hacScoreTest.js';
 import { invertSymmetric } from './invertSymmetric.js';
@@ -46,6 +47,8 @@ export interface ForwardSelection {
    * structure the model leaves (a band shape differing between benches) widens it.
    */
   standardErrorOf: Map<number, number>;
+  /** Per selected column, the columns that fit as well in its place (see the swap test above the return). */
+  alternativesOf: Map<number, number[]>;
   /** Per selected column, |its weight with − without the line-shape terms| (0 without them). */
   modelShiftOf: Map<number, number>;
   /** Per column, the norm of its part that the rest of the final model (components, line-shape terms) cannot mimic. */
@@ -63,6 +66,8 @@ export interface ForwardSelection {
   /** The column the last test turned down, or null. */
   rejected: number | null;
 }
+
+const { jStat } = jStatModule;
 
 const dot = (a: Float64Array, b: Float64Array): number => {
   let s = 0;
@@ -363,8 +368,27 @@ export function forwardSelection(
       termOf.set(at, { column, term });
     });
   });
+  // Indistinguishable swaps: a candidate that, in place of a selected one, leaves a residual sum of squares within the
+  // χ²₁(1 − α) bound of the final one, in units of the residual variance per effective independent point.
+  const alternativesOf = new Map<number, number[]>();
+  const residualPoints = n - selected.length - finalFree.length;
+  const perPoint = residualPoints > 0 ? current.rss / residualPoints : Number.POSITIVE_INFINITY;
+  const noiseVariance = perPoint * residualNoise(finalResidual).inflation;
+  const bound = jStat.chisquare.inv(1 - alpha, 1) * noiseVariance;
+  for (const j of selected) {
+    if (forcedSet.has(j)) continue;
+    const list: number[] = [];
+    for (let i = 0; i < c; i++) {
+      if (selected.includes(i)) continue;
+      const swapped = selected.map((s) => (s === j ? i : s));
+      const fit = fitWithShapes(swapped);
+      if (fit.x[swapped.indexOf(i)]! > 0 && fit.rss - current.rss < bound) list.push(i);
+    }
+    if (list.length > 0) alternativesOf.set(j, list);
+  }
   return {
     selected,
+    alternativesOf,
     weights: current.x,
     rss: current.rss,
     standardErrorOf,
