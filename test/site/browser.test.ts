@@ -2,89 +2,38 @@
 // → low), escaped metadata with no dialog, a match report's unexplained bands, the in-browser matcher, the derived
 // downloads, and no request to any other host and no console error (a Content-Security-Policy violation is one).
 // Screenshots go to test-output/screenshots/.
-import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
-import { createServer, type Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
-import { extname, join, normalize, resolve } from 'node:path';
+import { mkdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bandshelf, parseJson, ROOT } from '../cli/bandshelfCli.js';
+import { browserTestsRun, launchChromium, type StaticSite, serveFolder } from './browserHarness.js';
 import { buildTestLibrary, DEMO_LIBRARY, type SiteFixture, XSS_NAME, XSS_NOTES } from './siteFixture.js';
 
-const CHROMIUM = '/usr/bin/chromium';
-const required = process.env.BANDSHELF_REQUIRE_BROWSER === '1';
-const available = existsSync(CHROMIUM);
-if (!available && !required) {
-  process.stdout.write(
-    `browser tests skipped: ${CHROMIUM} is not installed (set BANDSHELF_REQUIRE_BROWSER=1 to fail instead)\n`,
-  );
-}
 const SHOTS = join(ROOT, 'test-output', 'screenshots');
 
-const TYPES: Record<string, string> = {
-  '.html': 'text/html; charset=utf-8',
-  '.css': 'text/css; charset=utf-8',
-  '.js': 'text/javascript; charset=utf-8',
-  '.json': 'application/json',
-  '.bin': 'application/octet-stream',
-  '.f32': 'application/octet-stream',
-  '.txt': 'text/plain; charset=utf-8',
-};
-
-/** A tiny static server, as a lab's intranet server would be: files only, index.html for folders. */
-function serve(root: string): Promise<Server> {
-  const server = createServer((req, res) => {
-    const path = decodeURIComponent(new URL(req.url ?? '/', 'http://127.0.0.1').pathname);
-    let file = normalize(join(root, path));
-    if (!file.startsWith(resolve(root))) {
-      res.writeHead(403).end();
-      return;
-    }
-    if (existsSync(file) && statSync(file).isDirectory()) file = join(file, 'index.html');
-    if (!existsSync(file)) {
-      res.writeHead(404).end('not found');
-      return;
-    }
-    res.writeHead(200, { 'content-type': TYPES[extname(file)] ?? 'application/octet-stream' });
-    res.end(readFileSync(file));
-  });
-  return new Promise((ok) => server.listen(0, '127.0.0.1', () => ok(server)));
-}
-
-describe.skipIf(!available && !required)('the site in a browser', () => {
+describe.skipIf(!browserTestsRun())('the site in a browser', () => {
   let fx: SiteFixture;
-  let server: Server;
+  let server: StaticSite;
   let browser: Browser;
   let base: string;
   const problems: string[] = [];
   const dialogs: string[] = [];
 
   beforeAll(async () => {
-    if (!available) throw new Error(`${CHROMIUM} is missing and BANDSHELF_REQUIRE_BROWSER=1`);
     mkdirSync(SHOTS, { recursive: true });
     fx = buildTestLibrary({ demo: true });
     const out = join(fx.dir, 'site');
     const r = bandshelf(['site', '--library', fx.library, '--reports', fx.reports, '--out', out]);
     expect(r.code, r.stderr).toBe(0);
-    server = await serve(out);
-    base = `http://127.0.0.1:${(server.address() as AddressInfo).port}/`;
-    const { chromium } = await import('playwright-core');
-    browser = await chromium.launch({
-      executablePath: CHROMIUM,
-      args: [
-        '--no-sandbox',
-        '--disable-gpu',
-        '--disable-background-networking',
-        '--disable-component-update',
-        '--disable-sync',
-        '--no-first-run',
-      ],
-    });
+    server = await serveFolder(out);
+    base = server.url;
+    browser = await launchChromium();
   });
 
   afterAll(async () => {
     await browser?.close();
-    await new Promise<void>((ok) => (server ? server.close(() => ok()) : ok()));
+    await server?.close();
   });
 
   async function open(path: string, viewport = { width: 1280, height: 900 }): Promise<Page> {
