@@ -15,6 +15,7 @@ import { findPackageRoot } from './findPackageRoot.js';
 import { float32Bytes } from './float32Bytes.js';
 import { jsonForScript } from './jsonForScript.js';
 import { prepareOutDir } from './prepareOutDir.js';
+import { redactReport } from './redactReport.js';
 import { reportPage } from './reportPage.js';
 import { siteEleventyPlugin } from './siteEleventyPlugin.js';
 import { siteView } from './siteView.js';
@@ -33,6 +34,9 @@ export interface BuildSiteOptions {
   /** Validated match reports to publish.
    * @default [] */
   reports?: SiteReport[];
+  /** Withhold the unknowns' file names and titles from the published reports: each is named by its SHA-256.
+   * @default false */
+  redact?: boolean;
   /** Paths the output folder must not contain (the library file).
    * @default [] */
   protect?: string[];
@@ -278,7 +282,8 @@ async function writeSite(
     return source.matrix.processed.subarray(row * source.matrix.cols, (row + 1) * source.matrix.cols);
   };
   const reportTaken = new Set<string>();
-  const reportPages = (options.reports ?? []).map((r) =>
+  const published = (options.reports ?? []).map((r) => (options.redact ? redactReport(r) : r));
+  const reportPages = published.map((r) =>
     reportPage(r, { slugs, slug: slugFor(r.slug, reportTaken), vector }),
   );
   const view = siteView(source, {

@@ -53,7 +53,14 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
   const slug = options.slug ?? site.slug;
   const q = r.query;
 
-  const rows: SiteRow[] = [{ label: 'File', value: q.file }];
+  const rows: SiteRow[] = [
+    {
+      label: 'File',
+      value: site.redacted
+        ? `name withheld (site --redact); shown as ${q.file}, known by its SHA-256`
+        : q.file,
+    },
+  ];
   if (q.title) rows.push({ label: 'Title', value: q.title });
   if (q.block !== undefined) rows.push({ label: 'Block', value: String(q.block) });
   rows.push({ label: 'SHA-256', value: q.hash });

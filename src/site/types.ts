@@ -102,6 +102,9 @@ export interface SiteReport {
   file: string;
   /** The report as `matchReportSchema` parsed it. */
   report: MatchReport;
+  /** The unknown's file name and title were withheld (`site --redact`); the report names it by its hash.
+   * @default false */
+  redacted?: boolean;
 }
 
 /** Everything one site build reads, gathered once; entry vectors are loaded one entry at a time. */

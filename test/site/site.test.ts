@@ -315,6 +315,67 @@ describe('reports', () => {
   });
 });
 
+describe('privacy of the unknown', () => {
+  // Every text file of a built site (pages, scripts, JSON), for a search of what must not appear anywhere.
+  const textOf = (dir: string) =>
+    listFiles(dir)
+      .filter((f) => /\.(html|js|json|css|txt)$/.test(f))
+      .map((f) => ({ f, text: readFileSync(join(dir, f), 'utf8') }));
+
+  it('reports of unknowns given by absolute path publish the file name only, no folder of this machine', () => {
+    // The fixture matched the mixture unknown by its absolute path inside fx.dir.
+    expect(fx.mixtureUnknown.startsWith(fx.dir)).toBe(true);
+    for (const { f, text } of textOf(out)) expect(text.includes(fx.dir), f).toBe(false);
+    const page = html().find((f) => f.startsWith('reports/') && f !== 'reports/index.html')!;
+    expect(read(page)).toContain('<td>unknown-mixture.csv</td>');
+  });
+
+  it('a report made with --keep-path shows the path it holds; --redact withholds name and path (hash only)', () => {
+    const reports = join(fx.dir, 'kept-reports');
+    mkdirSync(reports);
+    const m = bandshelf([
+      'match',
+      fx.mixtureUnknown,
+      '--library',
+      fx.library,
+      '--mixture',
+      '--keep-path',
+      '--report',
+      reports,
+    ]);
+    expect(m.code, m.stderr).toBe(0);
+    const kept = join(fx.dir, 'site-kept');
+    expect(bandshelf(['site', '--library', fx.library, '--reports', reports, '--out', kept]).code).toBe(0);
+    expect(textOf(kept).some(({ text }) => text.includes(fx.mixtureUnknown))).toBe(true);
+
+    const redacted = join(fx.dir, 'site-redacted');
+    const r = bandshelf([
+      'site',
+      '--library',
+      fx.library,
+      '--reports',
+      reports,
+      '--out',
+      redacted,
+      '--redact',
+    ]);
+    expect(r.code, r.stderr).toBe(0);
+    for (const { f, text } of textOf(redacted)) {
+      expect(text.includes(fx.dir), f).toBe(false);
+      expect(text.includes('unknown-mixture'), f).toBe(false);
+    }
+    const [json] = listFiles(reports);
+    const hash = parseJson<{ query: { hash: string } }>(readFileSync(join(reports, json!), 'utf8')).query
+      .hash;
+    // SHA-256 of the file's bytes, as sha256sum prints it (FIPS 180-4), names the report page and its address.
+    const name = `unknown-${hash.slice(0, 12)}`;
+    const page = readFileSync(join(redacted, 'reports', name, 'index.html'), 'utf8');
+    expect(page).toContain(hash);
+    expect(page).toContain('name withheld');
+    expect(page).toMatch(/research use/i);
+  });
+});
+
 describe('an empty library', () => {
   it('builds a site that says so', () => {
     const dir = tempDir('bandshelf-site-empty-');
