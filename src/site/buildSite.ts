@@ -283,9 +283,12 @@ async function writeSite(
   };
   const reportTaken = new Set<string>();
   const published = (options.reports ?? []).map((r) => (options.redact ? redactReport(r) : r));
-  const reportPages = published.map((r) =>
-    reportPage(r, { slugs, slug: slugFor(r.slug, reportTaken), vector }),
-  );
+  const reportPages = published.map((r) => {
+    const slug = slugFor(r.slug, reportTaken);
+    // The report as published (redacted where asked), beside its page, for the page's download link.
+    const jsonBytes = write(`reports/${slug}/${slug}.json`, `${JSON.stringify(r.report, null, 2)}\n`);
+    return reportPage(r, { slugs, slug, vector, jsonBytes });
+  });
   const view = siteView(source, {
     entryPages,
     reportPages,

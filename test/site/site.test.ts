@@ -390,3 +390,77 @@ describe('an empty library', () => {
     expect(readFileSync(join(dir, 'site', 'search', 'index.html'), 'utf8')).toContain('no entries yet');
   });
 });
+
+// Last: reviews change the fixture library's state, which the byte-identical rebuilds above rely on.
+describe('browse columns and report details', () => {
+  const unescape = (html: string) =>
+    html
+      .replace(/&lt;/g, '<')
+      .replace(/&gt;/g, '>')
+      .replace(/&quot;/g, '"')
+      .replace(/&#39;/g, "'")
+      .replace(/&amp;/g, '&');
+
+  it('browse shows review state and coverage; a report shows forced components, stop reason, rules, intervals, its JSON', () => {
+    const ok = (args: string[]) => {
+      const r = bandshelf(args);
+      expect(r.code, r.stderr).toBe(0);
+      return r;
+    };
+    ok(['review', 'albumin-test', '--approve', '--reviewer', 'second person', '--library', fx.library]);
+    ok(['review', 'xss-test', '--reject', '--reviewer', 'second person', '--library', fx.library]);
+    const reports = join(fx.dir, 'forced-reports');
+    mkdirSync(reports);
+    ok([
+      'match',
+      fx.mixtureUnknown,
+      '--library',
+      fx.library,
+      '--mixture',
+      '--with',
+      'water-test',
+      '--report',
+      reports,
+    ]);
+    const site = join(fx.dir, 'site-details');
+    ok(['site', '--library', fx.library, '--reports', reports, '--out', site]);
+
+    const browse = readFileSync(join(site, 'browse', 'index.html'), 'utf8');
+    const rowOf = (id: string) => browse.split('<tr ').find((r) => r.includes(`<code>${id}</code>`)) ?? '';
+    const shown = parseJson<{ coverage: { min: number; max: number } }>(
+      ok(['show', 'albumin-test', '--library', fx.library, '--json']).stdout,
+    );
+    expect(rowOf('albumin-test')).toContain('data-review-state="reviewed"');
+    expect(rowOf('albumin-test')).toContain(
+      `<td class="num">${shown.coverage.max}–${shown.coverage.min}</td>`,
+    );
+    expect(rowOf('xss-test')).toContain('data-review-state="rejected"');
+    expect(rowOf('glucose-test')).toContain('data-review-state="draft"');
+    expect(browse).toMatch(/<select name="reviewState">.*<option value="rejected">/s);
+
+    const [file] = listFiles(reports);
+    const report = parseJson<{
+      mixture: {
+        stopReason: string;
+        criterion: string;
+        rule: string;
+        components: { id: string; forced: boolean }[];
+      };
+    }>(readFileSync(join(reports, file!), 'utf8'));
+    const slug = file!.replace(/\.json$/, '');
+    const page = unescape(readFileSync(join(site, 'reports', slug, 'index.html'), 'utf8'));
+    expect(report.mixture.components.find((c) => c.id === 'water-test')?.forced).toBe(true);
+    expect(page).toMatch(/<th scope="row">Forced in<\/th><td>water-test \(<code>--with<\/code>\)<\/td>/);
+    expect(page).toContain(`<td>${report.mixture.stopReason}</td>`);
+    expect(page).toContain(`<td>${report.mixture.criterion}</td>`);
+    expect(page).toContain(`<p>${report.mixture.rule}</p>`);
+    expect(page).toContain('95 % interval');
+    expect(page).toContain('forced in (match --with)');
+    expect(page).toMatch(/research use/i);
+    // The download is the report document itself, beside the page.
+    expect(page).toContain(`href="${slug}.json" download="${slug}.json"`);
+    expect(parseJson(readFileSync(join(site, 'reports', slug, `${slug}.json`), 'utf8'))).toEqual(
+      parseJson(readFileSync(join(reports, file!), 'utf8')),
+    );
+  });
+});
