@@ -393,7 +393,7 @@ describe('an empty library', () => {
 
 // Last: reviews change the fixture library's state, which the byte-identical rebuilds above rely on.
 describe('browse columns and report details', () => {
-  const unescape = (html: string) =>
+  const htmlText = (html: string) =>
     html
       .replace(/&lt;/g, '<')
       .replace(/&gt;/g, '>')
@@ -448,7 +448,7 @@ describe('browse columns and report details', () => {
       };
     }>(readFileSync(join(reports, file!), 'utf8'));
     const slug = file!.replace(/\.json$/, '');
-    const page = unescape(readFileSync(join(site, 'reports', slug, 'index.html'), 'utf8'));
+    const page = htmlText(readFileSync(join(site, 'reports', slug, 'index.html'), 'utf8'));
     expect(report.mixture.components.find((c) => c.id === 'water-test')?.forced).toBe(true);
     expect(page).toMatch(/<th scope="row">Forced in<\/th><td>water-test \(<code>--with<\/code>\)<\/td>/);
     expect(page).toContain(`<td>${report.mixture.stopReason}</td>`);
