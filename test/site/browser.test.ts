@@ -154,7 +154,41 @@ describe.skipIf(!browserTestsRun())('the site in a browser', () => {
     await page.waitForTimeout(200);
     await page.screenshot({ path: join(SHOTS, 'entry-albumin-tablet.png'), fullPage: true });
     await page.emulateMedia({ media: 'print' });
+    // Printed: no navigation, controls or export links; the caution and the plot stay.
+    expect(await page.isVisible('.site-header')).toBe(false);
+    expect(await page.isVisible('#plot-controls')).toBe(false);
+    expect(await page.isVisible('.vega-actions')).toBe(false);
+    expect(await page.isVisible('.caution')).toBe(true);
+    expect(await page.isVisible('#entry-plot svg')).toBe(true);
     await page.screenshot({ path: join(SHOTS, 'entry-albumin-print.png'), fullPage: true });
+    await page.close();
+  });
+
+  it("saves a plot as SVG and as PNG with vega-embed's export links", async () => {
+    const page = await open('entries/albumin-test/');
+    await page.waitForSelector('#entry-plot[data-rendered="true"] svg');
+    const save = async (label: string) => {
+      const link = page.locator(`#entry-plot .vega-actions a:text-is("${label}")`);
+      // vega-embed renders the image on mousedown and points the link at it; the click then downloads it.
+      await link.dispatchEvent('mousedown');
+      await page.waitForFunction(
+        (l) =>
+          Array.from(document.querySelectorAll('#entry-plot .vega-actions a')).some(
+            (a) => a.textContent === l && a.getAttribute('href') !== '#',
+          ),
+        label,
+      );
+      const [download] = await Promise.all([page.waitForEvent('download'), link.click()]);
+      return { name: download.suggestedFilename(), bytes: readFileSync((await download.path())!) };
+    };
+    const svg = await save('Save as SVG');
+    expect(svg.name).toBe('albumin-test-spectrum.svg');
+    expect(svg.bytes.toString('utf8')).toMatch(/^<svg[^>]*xmlns="http:\/\/www\.w3\.org\/2000\/svg"/);
+    expect(svg.bytes.toString('utf8')).toContain('wavenumber');
+    const png = await save('Save as PNG');
+    expect(png.name).toBe('albumin-test-spectrum.png');
+    // The PNG signature, 89 50 4E 47 0D 0A 1A 0A (ISO/IEC 15948, PNG specification §5.2).
+    expect([...png.bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
     await page.close();
   });
 
@@ -258,6 +292,33 @@ describe.skipIf(!browserTestsRun())('the site in a browser', () => {
     expect(rules.length).toBe(2 * rows.length + 1); // in both panels, plus the residual's zero line
     expect(await page.textContent('body')).toContain('Band identification');
     await page.screenshot({ path: join(SHOTS, 'report-mixture.png'), fullPage: true });
+
+    // At 800 px the band table fits: its last column, "Explained by the fit", ends inside the window.
+    await page.setViewportSize({ width: 800, height: 900 });
+    await page.waitForTimeout(200);
+    const header = (await page
+      .locator('table.band-table th', { hasText: 'Explained by the fit' })
+      .boundingBox())!;
+    expect(header.x).toBeGreaterThan(0);
+    expect(header.x + header.width).toBeLessThanOrEqual(800);
+    const cell = (await page
+      .locator('table.band-table tbody tr >> nth=0')
+      .locator('td')
+      .last()
+      .boundingBox())!;
+    expect(cell.x + cell.width).toBeLessThanOrEqual(800);
+    await page.screenshot({ path: join(SHOTS, 'report-mixture-800.png'), fullPage: true });
+
+    // Printed: no navigation, download or export links; the caution, both plots and the tables stay.
+    await page.emulateMedia({ media: 'print' });
+    expect(await page.isVisible('.site-header')).toBe(false);
+    expect(await page.isVisible('.report-download')).toBe(false);
+    expect(await page.isVisible('.vega-actions >> nth=0')).toBe(false);
+    expect(await page.isVisible('.report-caution')).toBe(true);
+    expect(await page.isVisible('#report-plot svg')).toBe(true);
+    expect(await page.isVisible('#report-residual svg')).toBe(true);
+    expect(await page.isVisible('table.band-table')).toBe(true);
+    await page.screenshot({ path: join(SHOTS, 'report-mixture-print.png'), fullPage: true });
     await page.close();
   });
 
