@@ -15,6 +15,7 @@ import { findPackageRoot } from './findPackageRoot.js';
 import { float32Bytes } from './float32Bytes.js';
 import { jsonForScript } from './jsonForScript.js';
 import { prepareOutDir } from './prepareOutDir.js';
+import { redactReport } from './redactReport.js';
 import { reportPage } from './reportPage.js';
 import { siteEleventyPlugin } from './siteEleventyPlugin.js';
 import { siteView } from './siteView.js';
@@ -33,6 +34,9 @@ export interface BuildSiteOptions {
   /** Validated match reports to publish.
    * @default [] */
   reports?: SiteReport[];
+  /** Withhold the unknowns' file names and titles from the published reports: each is named by its SHA-256.
+   * @default false */
+  redact?: boolean;
   /** Paths the output folder must not contain (the library file).
    * @default [] */
   protect?: string[];
@@ -278,9 +282,13 @@ async function writeSite(
     return source.matrix.processed.subarray(row * source.matrix.cols, (row + 1) * source.matrix.cols);
   };
   const reportTaken = new Set<string>();
-  const reportPages = (options.reports ?? []).map((r) =>
-    reportPage(r, { slugs, slug: slugFor(r.slug, reportTaken), vector }),
-  );
+  const published = (options.reports ?? []).map((r) => (options.redact ? redactReport(r) : r));
+  const reportPages = published.map((r) => {
+    const slug = slugFor(r.slug, reportTaken);
+    // The report as published (redacted where asked), beside its page, for the page's download link.
+    const jsonBytes = write(`reports/${slug}/${slug}.json`, `${JSON.stringify(r.report, null, 2)}\n`);
+    return reportPage(r, { slugs, slug, vector, jsonBytes });
+  });
   const view = siteView(source, {
     entryPages,
     reportPages,

@@ -53,6 +53,7 @@ function summaryOf(e: EntrySummary): SiteEntrySummary {
     date: text(meta, 'date') || e.createdAt.slice(0, 10),
     createdAt: e.createdAt,
     reviewState: e.reviewState,
+    coverage: e.coverage,
     synthetic: meta.synthetic === true,
     meta,
   };

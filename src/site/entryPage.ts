@@ -1,5 +1,6 @@
 // Builds the page model of one entry: display strings for its facts, tables, history and downloads.
 import { assignmentsAt } from './assignmentsAt.js';
+import { byteSize } from './byteSize.js';
 import { formatNumber } from './formatNumber.js';
 import { metaRows } from './metaRows.js';
 import { recipeRows } from './recipeRows.js';
@@ -23,12 +24,6 @@ export interface EntryPageOptions {
   /** The site path segment of the entry's folder.
    * @default the entry id */
   slug?: string;
-}
-
-function byteSize(bytes: number): string {
-  if (bytes < 1024) return `${bytes} B`;
-  if (bytes < 1024 * 1024) return `${formatNumber(bytes / 1024, { significant: 3 })} KB`;
-  return `${formatNumber(bytes / (1024 * 1024), { significant: 3 })} MB`;
 }
 
 function extraRows(extras: Record<string, unknown>): SiteRow[] {

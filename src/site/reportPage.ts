@@ -1,6 +1,7 @@
 // Builds the page model of one match report: the unknown, the library state, hits, mixture, bands and plot data.
 import type { MatchReport } from '../schema/matchReport.js';
 import { gridAxis } from '../spectrum/gridAxis.js';
+import { byteSize } from './byteSize.js';
 import { formatNumber } from './formatNumber.js';
 import { jsonForScript } from './jsonForScript.js';
 import { plotTrace } from './plotTrace.js';
@@ -23,6 +24,9 @@ export interface ReportPageOptions {
   /** Largest number of points per plotted line.
    * @default 900 */
   maxPlotPoints?: number;
+  /** Size in bytes of the report's JSON file written beside the page.
+   * @default 0 */
+  jsonBytes?: number;
 }
 
 function toFloat64(values: ArrayLike<number | null>): Float64Array {
@@ -53,7 +57,14 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
   const slug = options.slug ?? site.slug;
   const q = r.query;
 
-  const rows: SiteRow[] = [{ label: 'File', value: q.file }];
+  const rows: SiteRow[] = [
+    {
+      label: 'File',
+      value: site.redacted
+        ? `name withheld (site --redact); shown as ${q.file}, known by its SHA-256`
+        : q.file,
+    },
+  ];
   if (q.title) rows.push({ label: 'Title', value: q.title });
   if (q.block !== undefined) rows.push({ label: 'Block', value: String(q.block) });
   rows.push({ label: 'SHA-256', value: q.hash });
@@ -131,8 +142,16 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
           path: pathOf(c.id),
           name: `${c.name ?? ''}${c.forced ? ' (forced in)' : ''}`,
           weight: formatNumber(c.weight),
+          interval: `${formatNumber(c.interval95[0])} – ${c.interval95[1] === null ? '∞' : formatNumber(c.interval95[1])}`,
           share: `${formatNumber(c.share * 100, { decimals: 1 })} %`,
+          how: c.forced
+            ? 'forced in (match --with)'
+            : `added by the selection, −${formatNumber(100 * (c.improvement ?? 0), { decimals: 1 })} % RSS`,
         })),
+        forced: m.components.filter((c) => c.forced).map((c) => c.id),
+        criterion: m.criterion,
+        rule: m.rule,
+        stopReason: m.stopReason,
         unexplained: m.residualBands.map((b) => ({
           position: formatNumber(b.position, { decimals: 1 }),
           height: formatNumber(b.height),
@@ -200,5 +219,6 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
     bands,
     caution: r.caution,
     plotJson,
+    json: { file: `${slug}.json`, size: byteSize(options.jsonBytes ?? 0) },
   };
 }

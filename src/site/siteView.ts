@@ -118,7 +118,14 @@ export function siteView(source: SiteSource, options: SiteViewOptions = {}): Sit
         tagKey: `|${e.tags.join('|')}|`,
         date: e.date,
         revision: e.revision,
+        reviewState: e.reviewState,
+        coverage:
+          e.coverage === null
+            ? 'none'
+            : `${formatNumber(e.coverage.max, { decimals: 0 })}–${formatNumber(e.coverage.min, { decimals: 0 })}`,
+        coverageWidth: e.coverage === null ? 0 : e.coverage.max - e.coverage.min,
       })),
+      reviewStates: sortedUnique(entries.map((e) => e.reviewState)),
       classes: sortedUnique(entries.map((e) => e.class)),
       techniques: sortedUnique(entries.map((e) => e.technique)).map((v) => ({
         value: v,

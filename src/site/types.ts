@@ -26,6 +26,8 @@ export interface SiteEntrySummary {
   /** ISO time of the revision shown. */
   createdAt: string;
   reviewState: string;
+  /** Lowest and highest covered grid wavenumber (cm⁻¹) and the covered points; null when nothing is covered. */
+  coverage: { min: number; max: number; points: number } | null;
   synthetic: boolean;
   /** All metadata as stored. */
   meta: Record<string, unknown>;
@@ -102,6 +104,9 @@ export interface SiteReport {
   file: string;
   /** The report as `matchReportSchema` parsed it. */
   report: MatchReport;
+  /** The unknown's file name and title were withheld (`site --redact`); the report names it by its hash.
+   * @default false */
+  redacted?: boolean;
 }
 
 /** Everything one site build reads, gathered once; entry vectors are loaded one entry at a time. */
@@ -244,6 +249,12 @@ export interface BrowseRow {
   tagKey: string;
   date: string;
   revision: number;
+  /** draft, reviewed or rejected: the newest review decision of the revision shown. */
+  reviewState: string;
+  /** Covered span as `high–low` in cm⁻¹, or 'none'. */
+  coverage: string;
+  /** Width of the covered span in cm⁻¹ (0 when none), for sorting. */
+  coverageWidth: number;
 }
 
 export interface ReleasePage {
@@ -299,9 +310,28 @@ export interface ReportPage {
   }[];
   mixture: {
     r2: string;
-    components: { id: string; path: string | null; name: string; weight: string; share: string }[];
+    components: {
+      id: string;
+      path: string | null;
+      name: string;
+      weight: string;
+      /** 95 % interval of the weight, `low – high` (∞ when unbounded). */
+      interval: string;
+      share: string;
+      /** How it entered: forced in by the user, or added by the selection (with its RSS drop). */
+      how: string;
+    }[];
+    /** Ids the user forced into the fit (`match --with`). */
+    forced: string[];
+    /** The selection criterion in one line, as the CLI prints it after `Rule:`. */
+    criterion: string;
+    /** The selection, uncertainty, detection-limit and residual-band rules in words. */
+    rule: string;
+    stopReason: string;
     unexplained: { position: string; height: string }[];
   } | null;
+  /** The report's JSON file beside the page (a download), and its size for the link. */
+  json: { file: string; size: string };
   bands: {
     position: string;
     height: string;
@@ -344,6 +374,7 @@ export interface SiteView {
     techniques: { value: string; label: string }[];
     tags: string[];
     sampleForms: string[];
+    reviewStates: string[];
   };
   entries: EntryPage[];
   reports: ReportPage[];

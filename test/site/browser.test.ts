@@ -2,89 +2,38 @@
 // → low), escaped metadata with no dialog, a match report's unexplained bands, the in-browser matcher, the derived
 // downloads, and no request to any other host and no console error (a Content-Security-Policy violation is one).
 // Screenshots go to test-output/screenshots/.
-import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
-import { createServer, type Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
-import { extname, join, normalize, resolve } from 'node:path';
+import { mkdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bandshelf, parseJson, ROOT } from '../cli/bandshelfCli.js';
+import { browserTestsRun, launchChromium, type StaticSite, serveFolder } from './browserHarness.js';
 import { buildTestLibrary, DEMO_LIBRARY, type SiteFixture, XSS_NAME, XSS_NOTES } from './siteFixture.js';
 
-const CHROMIUM = '/usr/bin/chromium';
-const required = process.env.BANDSHELF_REQUIRE_BROWSER === '1';
-const available = existsSync(CHROMIUM);
-if (!available && !required) {
-  process.stdout.write(
-    `browser tests skipped: ${CHROMIUM} is not installed (set BANDSHELF_REQUIRE_BROWSER=1 to fail instead)\n`,
-  );
-}
 const SHOTS = join(ROOT, 'test-output', 'screenshots');
 
-const TYPES: Record<string, string> = {
-  '.html': 'text/html; charset=utf-8',
-  '.css': 'text/css; charset=utf-8',
-  '.js': 'text/javascript; charset=utf-8',
-  '.json': 'application/json',
-  '.bin': 'application/octet-stream',
-  '.f32': 'application/octet-stream',
-  '.txt': 'text/plain; charset=utf-8',
-};
-
-/** A tiny static server, as a lab's intranet server would be: files only, index.html for folders. */
-function serve(root: string): Promise<Server> {
-  const server = createServer((req, res) => {
-    const path = decodeURIComponent(new URL(req.url ?? '/', 'http://127.0.0.1').pathname);
-    let file = normalize(join(root, path));
-    if (!file.startsWith(resolve(root))) {
-      res.writeHead(403).end();
-      return;
-    }
-    if (existsSync(file) && statSync(file).isDirectory()) file = join(file, 'index.html');
-    if (!existsSync(file)) {
-      res.writeHead(404).end('not found');
-      return;
-    }
-    res.writeHead(200, { 'content-type': TYPES[extname(file)] ?? 'application/octet-stream' });
-    res.end(readFileSync(file));
-  });
-  return new Promise((ok) => server.listen(0, '127.0.0.1', () => ok(server)));
-}
-
-describe.skipIf(!available && !required)('the site in a browser', () => {
+describe.skipIf(!browserTestsRun())('the site in a browser', () => {
   let fx: SiteFixture;
-  let server: Server;
+  let server: StaticSite;
   let browser: Browser;
   let base: string;
   const problems: string[] = [];
   const dialogs: string[] = [];
 
   beforeAll(async () => {
-    if (!available) throw new Error(`${CHROMIUM} is missing and BANDSHELF_REQUIRE_BROWSER=1`);
     mkdirSync(SHOTS, { recursive: true });
     fx = buildTestLibrary({ demo: true });
     const out = join(fx.dir, 'site');
     const r = bandshelf(['site', '--library', fx.library, '--reports', fx.reports, '--out', out]);
     expect(r.code, r.stderr).toBe(0);
-    server = await serve(out);
-    base = `http://127.0.0.1:${(server.address() as AddressInfo).port}/`;
-    const { chromium } = await import('playwright-core');
-    browser = await chromium.launch({
-      executablePath: CHROMIUM,
-      args: [
-        '--no-sandbox',
-        '--disable-gpu',
-        '--disable-background-networking',
-        '--disable-component-update',
-        '--disable-sync',
-        '--no-first-run',
-      ],
-    });
+    server = await serveFolder(out);
+    base = server.url;
+    browser = await launchChromium();
   });
 
   afterAll(async () => {
     await browser?.close();
-    await new Promise<void>((ok) => (server ? server.close(() => ok()) : ok()));
+    await server?.close();
   });
 
   async function open(path: string, viewport = { width: 1280, height: 900 }): Promise<Page> {
@@ -205,7 +154,41 @@ describe.skipIf(!available && !required)('the site in a browser', () => {
     await page.waitForTimeout(200);
     await page.screenshot({ path: join(SHOTS, 'entry-albumin-tablet.png'), fullPage: true });
     await page.emulateMedia({ media: 'print' });
+    // Printed: no navigation, controls or export links; the caution and the plot stay.
+    expect(await page.isVisible('.site-header')).toBe(false);
+    expect(await page.isVisible('#plot-controls')).toBe(false);
+    expect(await page.isVisible('.vega-actions')).toBe(false);
+    expect(await page.isVisible('.caution')).toBe(true);
+    expect(await page.isVisible('#entry-plot svg')).toBe(true);
     await page.screenshot({ path: join(SHOTS, 'entry-albumin-print.png'), fullPage: true });
+    await page.close();
+  });
+
+  it("saves a plot as SVG and as PNG with vega-embed's export links", async () => {
+    const page = await open('entries/albumin-test/');
+    await page.waitForSelector('#entry-plot[data-rendered="true"] svg');
+    const save = async (label: string) => {
+      const link = page.locator(`#entry-plot .vega-actions a:text-is("${label}")`);
+      // vega-embed renders the image on mousedown and points the link at it; the click then downloads it.
+      await link.dispatchEvent('mousedown');
+      await page.waitForFunction(
+        (l) =>
+          Array.from(document.querySelectorAll('#entry-plot .vega-actions a')).some(
+            (a) => a.textContent === l && a.getAttribute('href') !== '#',
+          ),
+        label,
+      );
+      const [download] = await Promise.all([page.waitForEvent('download'), link.click()]);
+      return { name: download.suggestedFilename(), bytes: readFileSync((await download.path())!) };
+    };
+    const svg = await save('Save as SVG');
+    expect(svg.name).toBe('albumin-test-spectrum.svg');
+    expect(svg.bytes.toString('utf8')).toMatch(/^<svg[^>]*xmlns="http:\/\/www\.w3\.org\/2000\/svg"/);
+    expect(svg.bytes.toString('utf8')).toContain('wavenumber');
+    const png = await save('Save as PNG');
+    expect(png.name).toBe('albumin-test-spectrum.png');
+    // The PNG signature, 89 50 4E 47 0D 0A 1A 0A (ISO/IEC 15948, PNG specification §5.2).
+    expect([...png.bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
     await page.close();
   });
 
@@ -309,6 +292,33 @@ describe.skipIf(!available && !required)('the site in a browser', () => {
     expect(rules.length).toBe(2 * rows.length + 1); // in both panels, plus the residual's zero line
     expect(await page.textContent('body')).toContain('Band identification');
     await page.screenshot({ path: join(SHOTS, 'report-mixture.png'), fullPage: true });
+
+    // At 800 px the band table fits: its last column, "Explained by the fit", ends inside the window.
+    await page.setViewportSize({ width: 800, height: 900 });
+    await page.waitForTimeout(200);
+    const header = (await page
+      .locator('table.band-table th', { hasText: 'Explained by the fit' })
+      .boundingBox())!;
+    expect(header.x).toBeGreaterThan(0);
+    expect(header.x + header.width).toBeLessThanOrEqual(800);
+    const cell = (await page
+      .locator('table.band-table tbody tr >> nth=0')
+      .locator('td')
+      .last()
+      .boundingBox())!;
+    expect(cell.x + cell.width).toBeLessThanOrEqual(800);
+    await page.screenshot({ path: join(SHOTS, 'report-mixture-800.png'), fullPage: true });
+
+    // Printed: no navigation, download or export links; the caution, both plots and the tables stay.
+    await page.emulateMedia({ media: 'print' });
+    expect(await page.isVisible('.site-header')).toBe(false);
+    expect(await page.isVisible('.report-download')).toBe(false);
+    expect(await page.isVisible('.vega-actions >> nth=0')).toBe(false);
+    expect(await page.isVisible('.report-caution')).toBe(true);
+    expect(await page.isVisible('#report-plot svg')).toBe(true);
+    expect(await page.isVisible('#report-residual svg')).toBe(true);
+    expect(await page.isVisible('table.band-table')).toBe(true);
+    await page.screenshot({ path: join(SHOTS, 'report-mixture-print.png'), fullPage: true });
     await page.close();
   });
 

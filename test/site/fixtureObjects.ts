@@ -23,6 +23,7 @@ export function summary(id: string, meta: Record<string, unknown> = {}): SiteEnt
     date: '2026-01-01',
     createdAt: '2026-01-01T00:00:00.000Z',
     reviewState: 'draft',
+    coverage: null,
     synthetic: true,
     meta: { id, name: meta.name ?? id, synthetic: true, ...meta },
   };

@@ -315,6 +315,67 @@ describe('reports', () => {
   });
 });
 
+describe('privacy of the unknown', () => {
+  // Every text file of a built site (pages, scripts, JSON), for a search of what must not appear anywhere.
+  const textOf = (dir: string) =>
+    listFiles(dir)
+      .filter((f) => /\.(html|js|json|css|txt)$/.test(f))
+      .map((f) => ({ f, text: readFileSync(join(dir, f), 'utf8') }));
+
+  it('reports of unknowns given by absolute path publish the file name only, no folder of this machine', () => {
+    // The fixture matched the mixture unknown by its absolute path inside fx.dir.
+    expect(fx.mixtureUnknown.startsWith(fx.dir)).toBe(true);
+    for (const { f, text } of textOf(out)) expect(text.includes(fx.dir), f).toBe(false);
+    const page = html().find((f) => f.startsWith('reports/') && f !== 'reports/index.html')!;
+    expect(read(page)).toContain('<td>unknown-mixture.csv</td>');
+  });
+
+  it('a report made with --keep-path shows the path it holds; --redact withholds name and path (hash only)', () => {
+    const reports = join(fx.dir, 'kept-reports');
+    mkdirSync(reports);
+    const m = bandshelf([
+      'match',
+      fx.mixtureUnknown,
+      '--library',
+      fx.library,
+      '--mixture',
+      '--keep-path',
+      '--report',
+      reports,
+    ]);
+    expect(m.code, m.stderr).toBe(0);
+    const kept = join(fx.dir, 'site-kept');
+    expect(bandshelf(['site', '--library', fx.library, '--reports', reports, '--out', kept]).code).toBe(0);
+    expect(textOf(kept).some(({ text }) => text.includes(fx.mixtureUnknown))).toBe(true);
+
+    const redacted = join(fx.dir, 'site-redacted');
+    const r = bandshelf([
+      'site',
+      '--library',
+      fx.library,
+      '--reports',
+      reports,
+      '--out',
+      redacted,
+      '--redact',
+    ]);
+    expect(r.code, r.stderr).toBe(0);
+    for (const { f, text } of textOf(redacted)) {
+      expect(text.includes(fx.dir), f).toBe(false);
+      expect(text.includes('unknown-mixture'), f).toBe(false);
+    }
+    const [json] = listFiles(reports);
+    const hash = parseJson<{ query: { hash: string } }>(readFileSync(join(reports, json!), 'utf8')).query
+      .hash;
+    // SHA-256 of the file's bytes, as sha256sum prints it (FIPS 180-4), names the report page and its address.
+    const name = `unknown-${hash.slice(0, 12)}`;
+    const page = readFileSync(join(redacted, 'reports', name, 'index.html'), 'utf8');
+    expect(page).toContain(hash);
+    expect(page).toContain('name withheld');
+    expect(page).toMatch(/research use/i);
+  });
+});
+
 describe('an empty library', () => {
   it('builds a site that says so', () => {
     const dir = tempDir('bandshelf-site-empty-');
@@ -327,5 +388,79 @@ describe('an empty library', () => {
     expect(home).toContain('This library has no entries yet');
     expect(readFileSync(join(dir, 'site', 'browse', 'index.html'), 'utf8')).toContain('no entries yet');
     expect(readFileSync(join(dir, 'site', 'search', 'index.html'), 'utf8')).toContain('no entries yet');
+  });
+});
+
+// Last: reviews change the fixture library's state, which the byte-identical rebuilds above rely on.
+describe('browse columns and report details', () => {
+  const htmlText = (html: string) =>
+    html
+      .replace(/&lt;/g, '<')
+      .replace(/&gt;/g, '>')
+      .replace(/&quot;/g, '"')
+      .replace(/&#39;/g, "'")
+      .replace(/&amp;/g, '&');
+
+  it('browse shows review state and coverage; a report shows forced components, stop reason, rules, intervals, its JSON', () => {
+    const ok = (args: string[]) => {
+      const r = bandshelf(args);
+      expect(r.code, r.stderr).toBe(0);
+      return r;
+    };
+    ok(['review', 'albumin-test', '--approve', '--reviewer', 'second person', '--library', fx.library]);
+    ok(['review', 'xss-test', '--reject', '--reviewer', 'second person', '--library', fx.library]);
+    const reports = join(fx.dir, 'forced-reports');
+    mkdirSync(reports);
+    ok([
+      'match',
+      fx.mixtureUnknown,
+      '--library',
+      fx.library,
+      '--mixture',
+      '--with',
+      'water-test',
+      '--report',
+      reports,
+    ]);
+    const site = join(fx.dir, 'site-details');
+    ok(['site', '--library', fx.library, '--reports', reports, '--out', site]);
+
+    const browse = readFileSync(join(site, 'browse', 'index.html'), 'utf8');
+    const rowOf = (id: string) => browse.split('<tr ').find((r) => r.includes(`<code>${id}</code>`)) ?? '';
+    const shown = parseJson<{ coverage: { min: number; max: number } }>(
+      ok(['show', 'albumin-test', '--library', fx.library, '--json']).stdout,
+    );
+    expect(rowOf('albumin-test')).toContain('data-review-state="reviewed"');
+    expect(rowOf('albumin-test')).toContain(
+      `<td class="num">${shown.coverage.max}–${shown.coverage.min}</td>`,
+    );
+    expect(rowOf('xss-test')).toContain('data-review-state="rejected"');
+    expect(rowOf('glucose-test')).toContain('data-review-state="draft"');
+    expect(browse).toMatch(/<select name="reviewState">.*<option value="rejected">/s);
+
+    const [file] = listFiles(reports);
+    const report = parseJson<{
+      mixture: {
+        stopReason: string;
+        criterion: string;
+        rule: string;
+        components: { id: string; forced: boolean }[];
+      };
+    }>(readFileSync(join(reports, file!), 'utf8'));
+    const slug = file!.replace(/\.json$/, '');
+    const page = htmlText(readFileSync(join(site, 'reports', slug, 'index.html'), 'utf8'));
+    expect(report.mixture.components.find((c) => c.id === 'water-test')?.forced).toBe(true);
+    expect(page).toMatch(/<th scope="row">Forced in<\/th><td>water-test \(<code>--with<\/code>\)<\/td>/);
+    expect(page).toContain(`<td>${report.mixture.stopReason}</td>`);
+    expect(page).toContain(`<td>${report.mixture.criterion}</td>`);
+    expect(page).toContain(`<p>${report.mixture.rule}</p>`);
+    expect(page).toContain('95 % interval');
+    expect(page).toContain('forced in (match --with)');
+    expect(page).toMatch(/research use/i);
+    // The download is the report document itself, beside the page.
+    expect(page).toContain(`href="${slug}.json" download="${slug}.json"`);
+    expect(parseJson(readFileSync(join(site, 'reports', slug, `${slug}.json`), 'utf8'))).toEqual(
+      parseJson(readFileSync(join(reports, file!), 'utf8')),
+    );
   });
 });

@@ -29,7 +29,7 @@ const view = (): SiteView =>
     bandTolerance: 4,
     counts: { total: 0, byClass: [], byTechnique: [] },
     newest: [],
-    browse: { rows: [], classes: [], techniques: [], tags: [], sampleForms: [] },
+    browse: { rows: [], classes: [], techniques: [], tags: [], sampleForms: [], reviewStates: [] },
     entries: [],
     reports: [],
     releases: [],

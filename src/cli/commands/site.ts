@@ -23,6 +23,7 @@ export const siteCommand: CommandSpec = {
   example: [
     'bandshelf site --out public/',
     'bandshelf site --at 2026.1 --reports reports/ --out /srv/www/spectra --base /spectra/',
+    'bandshelf site --reports reports/ --redact --out public/   # reports name each unknown by its SHA-256 only',
     'bandshelf site --out public/ --clean        # empty a folder holding files of its own first',
     '',
     'Serve the folder with any static web server, e.g. `npx @11ty/eleventy-dev-server --dir public`',
@@ -37,6 +38,7 @@ export const siteCommand: CommandSpec = {
         '--out <dir>',
         'the output folder (created; refused if it holds files the build did not make)',
       )
+      .option('--redact', "withhold the unknowns' file names and titles from the reports (SHA-256 only)")
       .option('--base <path>', 'path prefix the site is served under, e.g. /spectra/', '/')
       .option('--clean', 'empty the output folder first even if it holds other files')
       .option('--json', 'print {out, files, bytes, entries, reports, pathPrefix} as JSON');
@@ -61,6 +63,7 @@ export const siteCommand: CommandSpec = {
         base: typeof options.base === 'string' ? options.base : '/',
         clean: options.clean === true,
         reports,
+        redact: options.redact === true,
         protect: [path, `${path}.cache`],
         cwd: context.cwd,
         caution: CAUTION,

@@ -6,6 +6,9 @@ export interface EmbedSpecOptions {
   /** `svg` keeps plots crisp in print and leaves marks in the DOM; `canvas` is faster for very many points.
    * @default 'svg' */
   renderer?: 'svg' | 'canvas';
+  /** Name (without extension) of the SVG and PNG files the plot's export links save.
+   * @default 'plot' */
+  downloadFileName?: string;
 }
 
 type VegaEmbed = (el: HTMLElement, spec: VisualizationSpec, options: EmbedOptions) => Promise<Result>;
@@ -14,7 +17,8 @@ type VegaEmbed = (el: HTMLElement, spec: VisualizationSpec, options: EmbedOption
  * vega-embed comes from its own script tag (copied from node_modules). `ast` + the vega-interpreter evaluate
  * expressions without `new Function`, so the page needs no 'unsafe-eval'; `defaultStyle: false` and the tooltip's
  * `disableDefaultStyle` keep vega-embed from injecting <style> elements the policy would block (site.css styles
- * them instead); no actions menu, because its editor link would point at another host.
+ * them instead). Of vega-embed's actions only its export is offered (SVG, and PNG at twice the screen resolution
+ * for print): the source views and the editor link, which would point at another host, are off.
  */
 export function embedSpec(
   element: HTMLElement,
@@ -28,7 +32,9 @@ export function embedSpec(
   }
   return embed(element, spec, {
     renderer: options.renderer ?? 'svg',
-    actions: false,
+    actions: { export: { svg: true, png: true }, source: false, compiled: false, editor: false },
+    downloadFileName: options.downloadFileName ?? 'plot',
+    scaleFactor: { png: 2 },
     ast: true,
     expr: expressionInterpreter,
     defaultStyle: false,

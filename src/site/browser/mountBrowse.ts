@@ -22,14 +22,20 @@ export function mountBrowse(doc: Document, options: MountBrowseOptions = {}): vo
       technique: field('technique'),
       tag: field('tag'),
       sampleForm: field('sampleForm'),
+      reviewState: field('reviewState'),
     };
-    const [key, direction] = (field('sort') || 'name-asc').split('-') as ['name' | 'date', 'asc' | 'desc'];
+    const [key, direction] = (field('sort') || 'name-asc').split('-') as [
+      'name' | 'date' | 'coverage',
+      'asc' | 'desc',
+    ];
     const sign = direction === 'desc' ? -1 : 1;
     const sorted = [...rows].sort((a, b) => {
       const primary =
         key === 'date'
           ? (a.dataset.date ?? '').localeCompare(b.dataset.date ?? '')
-          : collator.compare(a.dataset.name ?? '', b.dataset.name ?? '');
+          : key === 'coverage'
+            ? Number(a.dataset.coverage ?? 0) - Number(b.dataset.coverage ?? 0)
+            : collator.compare(a.dataset.name ?? '', b.dataset.name ?? '');
       return sign * primary || collator.compare(a.dataset.name ?? '', b.dataset.name ?? '');
     });
     let shown = 0;
@@ -39,7 +45,8 @@ export function mountBrowse(doc: Document, options: MountBrowseOptions = {}): vo
         (want.class === '' || d.class === want.class) &&
         (want.technique === '' || d.technique === want.technique) &&
         (want.tag === '' || (d.tags ?? '').includes(`|${want.tag}|`)) &&
-        (want.sampleForm === '' || d.sampleForm === want.sampleForm);
+        (want.sampleForm === '' || d.sampleForm === want.sampleForm) &&
+        (want.reviewState === '' || d.reviewState === want.reviewState);
       row.hidden = !visible;
       if (visible) shown++;
       body.appendChild(row);

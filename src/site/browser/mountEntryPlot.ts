@@ -90,7 +90,9 @@ export function mountEntryPlot(doc: Document, options: MountEntryPlotOptions = {
         current?.finalize();
         current = undefined;
         target.replaceChildren();
-        embedSpec(target, entryPlotSpec(data, { show }))
+        embedSpec(target, entryPlotSpec(data, { show }), {
+          downloadFileName: target.dataset.download,
+        })
           .then((result) => {
             current = result;
             target.dataset.rendered = 'true';

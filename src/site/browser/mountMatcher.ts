@@ -7,6 +7,7 @@ import { decodeSearchMatrix } from '../decodeSearchMatrix.js';
 import { formatNumber } from '../formatNumber.js';
 import { base64Bytes } from './base64Bytes.js';
 import { matchSpectrumFile, type PublishedSearchSet } from './matchSpectrumFile.js';
+import { pageHref } from './pageHref.js';
 import { type PublishedEntryDocument, publishedMatchSource } from './publishedMatchSource.js';
 import { siteData } from './siteData.js';
 
@@ -149,7 +150,7 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
         const cell = row.insertCell();
         if (hit.path) {
           const link = doc.createElement('a');
-          link.href = `${base}${hit.path}`;
+          link.href = pageHref(doc, hit.path, { base });
           link.textContent = hit.name;
           cell.append(link);
         } else cell.textContent = hit.name;

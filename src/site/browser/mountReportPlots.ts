@@ -23,7 +23,7 @@ export function mountReportPlots(doc: Document, options: MountReportPlotsOptions
       target.remove();
       return;
     }
-    embedSpec(target, spec)
+    embedSpec(target, spec, { downloadFileName: target.dataset.download })
       .then(() => {
         target.dataset.rendered = 'true';
       })
