@@ -281,7 +281,6 @@ export function fitMixture(
       : [],
   );
   const c = usable.length;
-  const baselineTerms = degree === null ? 0 : degree + 1;
   const selection = forwardSelection(
     {
       columns: projected,
