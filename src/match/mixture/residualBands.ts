@@ -67,7 +67,8 @@ export function residualBands(
     for (let d = -own; d <= own; d++)
       if (centre + d >= 0 && centre + d < window.length) window[centre + d] = Number.NaN;
     const local = residualNoise(window);
-    const sigma = local.sigma > 0 ? local.sigma : global;
+    // Never below the spectrum's white-noise level: a quiet stretch does not make a ripple a band.
+    const sigma = Math.max(local.sigma > 0 ? local.sigma : global, white);
     if (!(p.height > k * sigma && p.prominence > k * sigma)) continue;
     const there = Math.abs(unknown[at]!);
     bands.push({
