@@ -52,6 +52,8 @@ export interface MatchOutcome {
   /** The file as the user named it (a folder's files joined onto the folder as given). */
   file: string;
   block?: number;
+  /** The y column of a multi-column delimited file. */
+  column?: string;
   report?: MatchReport;
   /** The one-line error when this unknown failed (batch mode keeps going). */
   error?: string;
@@ -59,7 +61,7 @@ export interface MatchOutcome {
 
 export interface MatchRun {
   outcomes: MatchOutcome[];
-  /** More than one unknown (a folder, several files or a multi-block file). */
+  /** More than one unknown (a folder, several files, a multi-block or a multi-column file). */
   batch: boolean;
   warnings: string[];
 }
@@ -112,12 +114,14 @@ function readUnknowns(
     ...(read.xUnit === undefined ? {} : { xUnit: read.xUnit }),
     ...(read.yUnit === undefined ? {} : { yUnit: read.yUnit }),
     ...(read.block === undefined ? {} : { block: read.block }),
+    ...(read.column === undefined ? {} : { column: read.column }),
   });
   return parsed.map((p) => {
     const title = typeof p.meta.title === 'string' ? p.meta.title : undefined;
     return {
       file: keepPath ? file : basename(file),
       ...(parsed.length > 1 && p.source.block !== undefined ? { block: p.source.block } : {}),
+      ...(p.source.column === undefined ? {} : { column: p.source.column }),
       hash,
       ...(title === undefined ? {} : { title }),
       spectrum: p.spectrum,
@@ -265,6 +269,7 @@ export async function matchUnknowns(
         const outcome: MatchOutcome = {
           file,
           ...(unknown.block === undefined ? {} : { block: unknown.block }),
+          ...(unknown.column === undefined ? {} : { column: unknown.column }),
         };
         outcomes.push(outcome);
         try {

@@ -71,7 +71,7 @@ export interface RevisionExtras {
   /** Time-domain entries: how many sample and reference traces were averaged. */
   traces?: { sample: number; reference: number };
   /** What the reader reported about the source file. */
-  source?: { format: string; xUnit: string; yUnit: string; block?: number };
+  source?: { format: string; xUnit: string; yUnit: string; block?: number; column?: string };
   /** Reader warnings (instrument files that bend the standard), with line numbers where known. */
   warnings?: { line?: number; message: string }[];
 }

@@ -30,9 +30,31 @@ beforeAll(() => {
     join(fx.dir, 'protein-t-um.txt'),
     x.map((w, i) => `${(1e4 / w).toPrecision(12)}\t${(100 * 10 ** -y[i]!).toPrecision(12)}`).join('\n'),
   );
+  // Two unknowns side by side in one file, as a study's spreadsheet export holds them.
+  const urea = syntheticSpectrum(COMPOUNDS.urea!, { noise: 0.001, seed: 322, offset: 0.03 });
+  writeFileSync(
+    join(fx.dir, 'two-films.csv'),
+    `wavenumber_cm-1,protein film,urea film\n${x.map((w, i) => `${w},${y[i]!.toFixed(6)},${urea.y[i]!.toFixed(6)}`).join('\n')}\n`,
+  );
 }, 120_000);
 
 describe('match and identify with the reading options', () => {
+  it('matches each y column of a multi-column file, as a batch, or the one --column picks', () => {
+    const r = bandshelf(['match', 'two-films.csv', '--library', fx.library, '--json'], { cwd: fx.dir });
+    expect(r.code, r.stderr).toBe(0);
+    const batch = parseJson<{ reports: unknown[]; failed: unknown[] }>(r.stdout);
+    const reports = batch.reports.map((x) => matchReportSchema.parse(x));
+    expect(reports.map((x) => [x.query.column, x.hits[0]!.id])).toEqual([
+      ['protein film', 'albumin'],
+      ['urea film', 'urea'],
+    ]);
+    const csv = bandshelf(['match', 'two-films.csv', '--library', fx.library], { cwd: fx.dir });
+    expect(csv.stdout.split('\n')[2]).toMatch(/^two-films\.csv,,urea film,ok,urea,/);
+    const one = report('match', ['two-films.csv', '--column', 'Urea Film']);
+    expect(one.query.column).toBe('urea film');
+    expect(one.hits[0]!.id).toBe('urea');
+  });
+
   it('matches a header-less %T unknown given --y-unit percent-transmittance like its absorbance twin', () => {
     const twin = report('match', ['protein-a.txt', '--metric', 'all']);
     const percent = report('match', [

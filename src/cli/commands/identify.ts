@@ -49,7 +49,7 @@ export const identifyCommand: CommandSpec = {
     const notes = [...run.warnings];
     if (run.batch) {
       notes.push(
-        `${file} holds ${run.outcomes.length} spectra; identify lists the first (use match for all)`,
+        `${file} holds ${run.outcomes.length} spectra; identify lists the first (pick one with --column or --block, or use match for all)`,
       );
     }
     const first = run.outcomes[0]!;

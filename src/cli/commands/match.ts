@@ -80,8 +80,10 @@ export const matchCommand: CommandSpec = {
       }
     }
     const failed = run.outcomes.filter((o) => o.report === undefined);
-    for (const f of failed)
-      notes.push(`${f.file}${f.block === undefined ? '' : ` block ${f.block}`}: ${f.error}`);
+    for (const f of failed) {
+      const part = `${f.block === undefined ? '' : ` block ${f.block}`}${f.column === undefined ? '' : ` column ${f.column}`}`;
+      notes.push(`${f.file}${part}: ${f.error}`);
+    }
     const exitCode = failed.length > 0 ? 1 : 0;
     const stderr = notes.join('\n');
     if (options.json) {
@@ -91,6 +93,7 @@ export const matchCommand: CommandSpec = {
             failed: failed.map((f) => ({
               file: f.file,
               ...(f.block === undefined ? {} : { block: f.block }),
+              ...(f.column === undefined ? {} : { column: f.column }),
               error: f.error,
             })),
           })
@@ -113,7 +116,7 @@ export const matchCommand: CommandSpec = {
       ['FILE', 'TOP HIT', 'SCORE', 'STANDING', 'MIXTURE', 'UNEXPLAINED'],
       ...run.outcomes.map((o) => {
         const r = o.report;
-        const name = `${o.file}${o.block === undefined ? '' : ` #${o.block}`}`;
+        const name = `${o.file}${o.block === undefined ? '' : ` #${o.block}`}${o.column === undefined ? '' : ` ${o.column}`}`;
         if (r === undefined) return [name, 'failed', '', '', '', ''];
         return [
           name,
