@@ -23,7 +23,7 @@ export interface ReadDelimitedOptions {
 
 /**
  * Lines starting with `#` are comments. Leading lines that are not numbers form the header; its cells name
- * the columns and units (`wavenumber_cm-1`, `wavelength_um`, `nm`, `absorbance`, `%T`, `transmittance` …). The
+ * the columns and units (`wavenumber_cm-1`, `wavelength_um`, `nm`, `frequency_THz`, `absorbance`, `%T` …). The
  * delimiter is the first of `;`, tab, `,`, whitespace that splits every sampled data line into numbers; with `;`,
  * tab or whitespace a decimal comma is accepted. x may run either way. The first column is x; every further
  * column is one spectrum, named by its header cell (`y2`, `y3` … without one) in `source.column`, its empty
@@ -396,6 +396,8 @@ function detectXUnit(cell: string, x: Float64Array, warnings: ParseWarning[], wh
   if (/cm-1|cm\^-1|cm\^\(-1\)|cm−1|cm⁻¹|1\/cm|cm\*\*-1|wave ?numbers?/.test(c)) return 'cm-1';
   if (word(c, 'um|µm|μm|microns?|micromet(?:er|re)s?')) return 'um';
   if (word(c, 'nm|nanomet(?:er|re)s?')) return 'nm';
+  // A terahertz axis is an optical frequency bandshelf converts (ν̃ = f / c); other frequencies are refused below.
+  if (word(c, 'thz|terahertz')) return 'thz';
   refuseForeign(c, FOREIGN_X, 'x', 'a wavenumber (cm-1) or wavelength (µm, nm)', where);
   const { min, max } = range(x);
   if (min >= 2 && max <= 25) {

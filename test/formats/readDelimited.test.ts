@@ -199,6 +199,17 @@ describe('readDelimited: saturated transmittance', () => {
   });
 });
 
+describe('readDelimited: a terahertz axis', () => {
+  it('reads a frequency_THz header as THz and converts to cm⁻¹', () => {
+    // common practice: ν̃ = f / c, 1 THz = 10¹² s⁻¹ / 29 979 245 800 cm s⁻¹ = 33.356 409 5 cm⁻¹.
+    const p = one('frequency_THz,absorbance\n30,0.1\n60,0.2\n');
+    expect(p.source.xUnit).toBe('thz');
+    expect(p.spectrum.wavenumber[0]).toBeCloseTo(1000.692285, 5);
+    expect(p.spectrum.wavenumber[1]).toBeCloseTo(2001.38457, 4);
+    expect(p.warnings).toEqual([]);
+  });
+});
+
 describe('readDelimited: one x column and several y columns', () => {
   // A spreadsheet export of a small study (invented values): semicolons, decimal commas, one empty cell.
   const study =
