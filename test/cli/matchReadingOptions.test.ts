@@ -1,6 +1,6 @@
 // The reading options on `match` and `identify` through the real CLI: a header-less %T unknown given its unit
 // matches like its absorbance twin, and field-resolved sample and reference traces match as one unknown.
-import { cpSync, existsSync, mkdirSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdirSync, readdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { type MatchReport, matchReportSchema } from '../../src/schema/matchReport.js';
@@ -50,6 +50,14 @@ describe('match and identify with the reading options', () => {
     ]);
     const csv = bandshelf(['match', 'two-films.csv', '--library', fx.library], { cwd: fx.dir });
     expect(csv.stdout.split('\n')[2]).toMatch(/^two-films\.csv,,urea film,ok,urea,/);
+    const written = bandshelf(['match', 'two-films.csv', '--report', 'reports', '--library', fx.library], {
+      cwd: fx.dir,
+    });
+    expect(written.code, written.stderr).toBe(0);
+    expect(readdirSync(join(fx.dir, 'reports')).sort()).toEqual([
+      'two-films-protein-film.match.json',
+      'two-films-urea-film.match.json',
+    ]);
     const one = report('match', ['two-films.csv', '--column', 'Urea Film']);
     expect(one.query.column).toBe('urea film');
     expect(one.hits[0]!.id).toBe('urea');

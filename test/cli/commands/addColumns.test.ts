@@ -65,4 +65,23 @@ describe('bandshelf add: several y columns', () => {
     expect(missing.code).not.toBe(0);
     expect(missing.stderr).toMatch(/column "plasma" is not a y column.*"serum\/B"/);
   });
+
+  it('export --all and a re-add into an empty library give each column entry its content hash again', () => {
+    const out = join(dir, 'backup');
+    const exported = bandshelf(['export', '--all', out, ...lib]);
+    expect(exported.code, exported.stderr).toBe(0);
+    const lib2 = ['--library', join(dir, 'lib2.sqlite')];
+    expect(bandshelf(['init', ...lib2]).code).toBe(0);
+    const add = bandshelf(['add', out, ...lib2]);
+    expect(add.code, add.stderr).toBe(0);
+    const hashes = (l: string[]) =>
+      parseJson<{ id: string; hash: string }[]>(bandshelf(['list', ...l, '--json']).stdout).map((e) => [
+        e.id,
+        e.hash,
+      ]);
+    expect(hashes(lib).map(([id]) => id)).toEqual(
+      expect.arrayContaining(['serum-a-absorbance', 'serum-b', 'first-column']),
+    );
+    expect(hashes(lib2)).toEqual(hashes(lib));
+  });
 });
