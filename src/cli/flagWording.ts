@@ -6,6 +6,8 @@ const FLAGS: Record<string, string> = {
   recipe: '--recipe',
   block: '--block',
   column: '--column',
+  xUnit: '--x-unit',
+  yUnit: '--y-unit',
   timeDomain: '--time-domain',
   references: '--reference',
   'meta.id': '--id',

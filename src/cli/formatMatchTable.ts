@@ -26,7 +26,7 @@ export function formatMatchTable(report: MatchReport, options: FormatMatchTableO
       ? 'covers nothing on the grid'
       : `covers ${cm(q.coverage.max)}–${cm(q.coverage.min)} cm⁻¹ (${cm(q.coverage.overlap)} cm⁻¹ scored)`;
   out.push(
-    `Unknown  ${q.file}${q.block === undefined ? '' : ` block ${q.block}`}  sha256 ${q.hash.slice(0, 12)}…  ${coverage}`,
+    `Unknown  ${q.file}${q.block === undefined ? '' : ` block ${q.block}`}${q.column === undefined ? '' : ` column ${q.column}`}  sha256 ${q.hash.slice(0, 12)}…  ${coverage}`,
   );
   const lib = report.library;
   out.push(

@@ -18,7 +18,7 @@ function field(value: string | number | null | undefined): string {
 /** RFC 4180 quoting; numbers in plain decimal; `;` separates list items inside a field. */
 export function matchCsv(outcomes: readonly MatchOutcome[], options: MatchCsvOptions = {}): string {
   const n = options.hits ?? 3;
-  const header = ['file', 'block', 'status'];
+  const header = ['file', 'block', 'column', 'status'];
   for (let i = 1; i <= n; i++) header.push(`hit${i}_id`, `hit${i}_revision`, `hit${i}_score`);
   header.push(
     'metric',
@@ -32,7 +32,12 @@ export function matchCsv(outcomes: readonly MatchOutcome[], options: MatchCsvOpt
   const lines = [header.join(',')];
   for (const o of outcomes) {
     const r = o.report;
-    const row: (string | number | null | undefined)[] = [o.file, o.block, r === undefined ? 'failed' : 'ok'];
+    const row: (string | number | null | undefined)[] = [
+      o.file,
+      o.block,
+      o.column,
+      r === undefined ? 'failed' : 'ok',
+    ];
     for (let i = 0; i < n; i++) {
       const h = r?.hits[i];
       row.push(h?.id, h?.revision, h === undefined ? undefined : h.score.toFixed(6));

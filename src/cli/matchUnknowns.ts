@@ -5,11 +5,14 @@ import { basename, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
 import { isSidecarName } from '../formats/isSidecarName.js';
 import { readSpectrumFile } from '../formats/readSpectrumFile.js';
+import type { SpectrumReadOptions } from '../formats/types.js';
+import type { SourceFile } from '../library/ingest/ingestTypes.js';
 import { closeLibrary } from '../library/store/closeLibrary.js';
 import { describeIoError } from '../library/store/describeIoError.js';
 import { libraryPath } from '../library/store/libraryPath.js';
 import { listAssignments } from '../library/store/listAssignments.js';
 import { openLibrary } from '../library/store/openLibrary.js';
+import { readOriginals } from '../library/store/readOriginals.js';
 import { readRecipeFile } from '../library/store/readRecipeFile.js';
 import { readSearchSet } from '../library/store/readSearchSet.js';
 import { recipeReferences } from '../library/store/recipeReferences.js';
@@ -21,6 +24,7 @@ import type { MatchUnknown } from '../match/pipeline/types.js';
 import { MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
+import { type Recipe, timeDomainSchema } from '../schema/recipe.js';
 import type { CommandContext } from './command.js';
 
 /** The pipeline's settings as the CLI takes them, plus where the library, release and recipe file are. */
@@ -37,12 +41,19 @@ export interface MatchUnknownsOptions
   recipe?: string;
   /** Keep the unknown's path as given in the report (else its file name only). @default false */
   keepPath?: boolean;
+  /**
+   * How to read the unknowns (units, block, column; or time-domain sample traces with their references, which
+   * make one unknown together, as `add --time-domain` makes one entry). @default {} (as the files say)
+   */
+  read?: SpectrumReadOptions;
 }
 
 export interface MatchOutcome {
   /** The file as the user named it (a folder's files joined onto the folder as given). */
   file: string;
   block?: number;
+  /** The y column of a multi-column delimited file. */
+  column?: string;
   report?: MatchReport;
   /** The one-line error when this unknown failed (batch mode keeps going). */
   error?: string;
@@ -50,7 +61,7 @@ export interface MatchOutcome {
 
 export interface MatchRun {
   outcomes: MatchOutcome[];
-  /** More than one unknown (a folder, several files or a multi-block file). */
+  /** More than one unknown (a folder, several files, a multi-block or a multi-column file). */
   batch: boolean;
   warnings: string[];
 }
@@ -74,31 +85,86 @@ function filesOf(target: string, cwd: string): string[] {
   return names.map((name) => join(target, name));
 }
 
-/** The report names the file only (a path can carry a patient or study code) unless `keepPath`. */
-function readUnknowns(file: string, cwd: string, keepPath: boolean): MatchUnknown[] {
-  let bytes: Uint8Array;
+function readBytes(file: string, cwd: string): Uint8Array {
   try {
-    bytes = readFileSync(resolve(cwd, file));
+    return readFileSync(resolve(cwd, file));
   } catch (error) {
     throw new BandshelfError('IO_ERROR', `cannot read: ${describeIoError(error)}`, {
       file,
       cause: error,
     });
   }
+}
+
+function warningLines(warnings: readonly { line?: number; message: string }[]): string[] {
+  return warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`));
+}
+
+/** The report names the file only (a path can carry a patient or study code) unless `keepPath`. */
+function readUnknowns(
+  file: string,
+  cwd: string,
+  keepPath: boolean,
+  read: SpectrumReadOptions,
+): MatchUnknown[] {
+  const bytes = readBytes(file, cwd);
   const hash = createHash('sha256').update(bytes).digest('hex');
-  const parsed = readSpectrumFile(bytes, { file });
+  const parsed = readSpectrumFile(bytes, {
+    file,
+    ...(read.xUnit === undefined ? {} : { xUnit: read.xUnit }),
+    ...(read.yUnit === undefined ? {} : { yUnit: read.yUnit }),
+    ...(read.block === undefined ? {} : { block: read.block }),
+    ...(read.column === undefined ? {} : { column: read.column }),
+  });
   return parsed.map((p) => {
     const title = typeof p.meta.title === 'string' ? p.meta.title : undefined;
     return {
       file: keepPath ? file : basename(file),
       ...(parsed.length > 1 && p.source.block !== undefined ? { block: p.source.block } : {}),
+      ...(p.source.column === undefined ? {} : { column: p.source.column }),
       hash,
       ...(title === undefined ? {} : { title }),
       spectrum: p.spectrum,
       ...(p.saturated === undefined ? {} : { saturated: p.saturated }),
-      warnings: p.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
+      warnings: warningLines(p.warnings),
     };
   });
+}
+
+/**
+ * Sample traces and reference traces → one unknown, through the same conversion `add --time-domain` uses (the
+ * recipe's time-domain step, the library default's, or the step's defaults). Its hash is the SHA-256 of the
+ * sample files' bytes followed by the references', in the order given.
+ */
+function readTimeDomainUnknown(
+  samples: readonly string[],
+  references: readonly string[],
+  settings: { cwd: string; keepPath: boolean; recipe: Recipe; timeUnit?: 'fs' | 'ps' },
+): MatchUnknown {
+  const hash = createHash('sha256');
+  const files: SourceFile[] = [
+    ...samples.map((f) => ({ role: 'sample-trace' as const, f })),
+    ...references.map((f) => ({ role: 'reference-trace' as const, f })),
+  ].map(({ role, f }) => {
+    const bytes = readBytes(f, settings.cwd);
+    hash.update(bytes);
+    return { role, name: basename(f), bytes };
+  });
+  const step = settings.recipe.timeDomain ?? timeDomainSchema.parse({});
+  const [original] = readOriginals(
+    {
+      files,
+      read: settings.timeUnit === undefined ? {} : { timeUnit: settings.timeUnit },
+      recipe: { ...settings.recipe, timeDomain: step },
+    },
+    { label: samples[0] },
+  );
+  return {
+    file: settings.keepPath ? samples[0]! : basename(samples[0]!),
+    hash: hash.digest('hex'),
+    spectrum: original!.spectrum,
+    warnings: warningLines(original!.extras.warnings ?? []),
+  };
 }
 
 function oneLine(error: unknown): string {
@@ -173,30 +239,43 @@ export async function matchUnknowns(
     };
     const assignments = [...shippedAssignments(), ...listAssignments(library)];
 
-    const files = targets.flatMap((t) => filesOf(t, context.cwd));
+    const read = options.read ?? {};
     const outcomes: MatchOutcome[] = [];
     const warnings: string[] = [];
+    if (read.timeDomain === true) {
+      const unknown = readTimeDomainUnknown(targets, read.references ?? [], {
+        cwd: context.cwd,
+        keepPath: options.keepPath === true,
+        recipe: recipe ?? source.recipe,
+        ...(read.timeUnit === undefined ? {} : { timeUnit: read.timeUnit }),
+      });
+      const report = await runMatchPipeline({ unknown, source, scorer, assignments }, settings);
+      for (const w of unknown.warnings) warnings.push(`${targets[0]}: ${w}`);
+      return { outcomes: [{ file: targets[0]!, report }], batch: false, warnings };
+    }
+    const files = targets.flatMap((t) => filesOf(t, context.cwd));
     const single = files.length === 1;
     for (const [i, file] of files.entries()) {
       context.progress(i, files.length, basename(file));
-      let read: MatchUnknown[];
+      let unknowns: MatchUnknown[];
       try {
-        read = readUnknowns(file, context.cwd, options.keepPath === true);
+        unknowns = readUnknowns(file, context.cwd, options.keepPath === true, read);
       } catch (error) {
         if (single) throw error;
         outcomes.push({ file, error: oneLine(error) });
         continue;
       }
-      for (const unknown of read) {
+      for (const unknown of unknowns) {
         const outcome: MatchOutcome = {
           file,
           ...(unknown.block === undefined ? {} : { block: unknown.block }),
+          ...(unknown.column === undefined ? {} : { column: unknown.column }),
         };
         outcomes.push(outcome);
         try {
           outcome.report = await runMatchPipeline({ unknown, source, scorer, assignments }, settings);
         } catch (error) {
-          if (single && read.length === 1) throw error;
+          if (single && unknowns.length === 1) throw error;
           outcome.error = oneLine(error);
         }
         for (const w of unknown.warnings) warnings.push(`${file}: ${w}`);

@@ -1,8 +1,9 @@
-// Turns the shared options of `match` and `identify` into checked values, one clear BAD_OPTION per mistake.
+// Turns the shared options of `match` and `identify` (the reading options among them) into checked values, one clear BAD_OPTION per mistake.
 import { BandshelfError } from '../error.js';
 import { type Metric, MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import type { WavenumberWindow } from '../schema/recipe.js';
 import type { MatchUnknownsOptions } from './matchUnknowns.js';
+import { readingOptions } from './readingOptions.js';
 
 export interface ParseMatchOptionsOptions {
   /**
@@ -120,6 +121,8 @@ export function parseMatchOptions(
     ...(baselineDegree === undefined ? {} : { baselineDegree }),
     tolerance: number(options.tolerance, 'tolerance', (n) => n > 0, 'a positive number of cm⁻¹') ?? 4,
   };
+  const read = readingOptions(undefined, { flags: options });
+  if (Object.keys(read).length > 0) parsed.read = read;
   if (typeof options.at === 'string') parsed.at = options.at;
   if (typeof options.recipe === 'string') parsed.recipe = options.recipe;
   if (parsed.with!.length > 0 && !mixture) {

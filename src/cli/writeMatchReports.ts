@@ -1,4 +1,4 @@
-// Writes match reports as JSON files for the site: one `<unknown>[-b<block>].match.json` per report.
+// Writes match reports as JSON files for the site: one `<unknown>[-b<block>][-<column>].match.json` per report.
 import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import { basename, extname, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
@@ -30,8 +30,11 @@ export function writeMatchReports(
   for (const o of outcomes) {
     if (o.report === undefined) continue;
     const stem = basename(o.file, extname(o.file)).replace(/[^A-Za-z0-9._-]+/g, '-') || 'unknown';
-    let name = `${stem}${o.block === undefined ? '' : `-b${o.block}`}`;
-    for (let i = 2; used.has(name); i++) name = `${stem}${o.block === undefined ? '' : `-b${o.block}`}-${i}`;
+    const part = `${o.block === undefined ? '' : `-b${o.block}`}${
+      o.column === undefined ? '' : `-${o.column.replace(/[^A-Za-z0-9._-]+/g, '-')}`
+    }`;
+    let name = `${stem}${part}`;
+    for (let i = 2; used.has(name); i++) name = `${stem}${part}-${i}`;
     used.add(name);
     const path = join(target, `${name}.match.json`);
     try {

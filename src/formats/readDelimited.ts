@@ -1,6 +1,6 @@
-// Reads two-column delimited text (CSV, semicolon, tab or whitespace) into a spectrum in cm⁻¹ and absorbance.
+// Reads delimited text (CSV, semicolon, tab or whitespace) with one x column and one or more y columns into spectra in
+// cm⁻¹ and absorbance, one per y column.
 import { BandshelfError } from '../error.js';
-import { growPointBuffers, type PointBuffers } from './growPointBuffers.js';
 import { markSaturated } from './markSaturated.js';
 import { spectrumFromPoints } from './spectrumFromPoints.js';
 import { toWavenumberAbsorbance } from './toWavenumberAbsorbance.js';
@@ -12,26 +12,89 @@ export interface ReadDelimitedOptions {
   file?: string;
   /** Unit of the first column, overriding the header and the value range. @default undefined (detected) */
   xUnit?: XUnit;
-  /** Unit of the second column, overriding the header and the value range. @default undefined (detected) */
+  /** Unit of the y columns, overriding the header and the value range. @default undefined (detected) */
   yUnit?: YUnit;
+  /**
+   * Read only this y column: its header name (any case) or its 1-based number among the y columns.
+   * @default undefined (every y column, each one spectrum)
+   */
+  column?: string | number;
 }
 
 /**
  * Lines starting with `#` are comments. Leading lines that are not numbers form the header; its cells name
- * the units (`wavenumber_cm-1`, `wavelength_um`, `nm`, `absorbance`, `%T`, `transmittance` …). The delimiter is
- * the first of `;`, tab, `,`, whitespace that splits every sampled data line into numbers; with `;`, tab or
- * whitespace a decimal comma is accepted. x may run either way. Without a unit in the header, x in 2–25 is
- * read as µm and anything else as cm⁻¹, y as absorbance, each with a warning; `xUnit`/`yUnit` override.
- * Errors name the line: a non-number → NOT_NUMERIC, NaN/Infinity → NOT_FINITE.
+ * the columns and units (`wavenumber_cm-1`, `wavelength_um`, `nm`, `frequency_THz`, `absorbance`, `%T` …). The
+ * delimiter is the first of `;`, tab, `,`, whitespace that splits every sampled data line into numbers; with `;`,
+ * tab or whitespace a decimal comma is accepted. x may run either way. The first column is x; every further
+ * column is one spectrum, named by its header cell (`y2`, `y3` … without one) in `source.column`, its empty
+ * cells left out; a column headed as an uncertainty (`sd`, `error` …) is left out unless `column` names it.
+ * Without a unit in the header, x in 2–25 is read as µm and anything else as cm⁻¹, y as absorbance, each with
+ * a warning; `xUnit`/`yUnit` override. Errors name the line: a non-number → NOT_NUMERIC, NaN/Infinity →
+ * NOT_FINITE; a `column` the file does not have → BAD_OPTION listing its columns.
  */
-export function readDelimited(text: string, options: ReadDelimitedOptions = {}): ParsedSpectrum {
+export function readDelimited(text: string, options: ReadDelimitedOptions = {}): ParsedSpectrum[] {
   const { file } = options;
   checkUnitOption(options.xUnit, X_UNITS, 'xUnit', file);
   checkUnitOption(options.yUnit, Y_UNITS, 'yUnit', file);
   const lines = text.split(/\r\n|\r|\n/);
+  const { header, firstData, delimiter } = findHeader(lines, file);
+  const table = readTable(lines, firstData, delimiter, file);
+  const { x, pointLine } = table;
   const warnings: ParseWarning[] = [];
 
-  // Find the header (non-numeric lines before the first data line) and sample data lines for the delimiter.
+  // Each column's header text, gathered over all header lines (a name line and a unit line, say).
+  const columns: string[] = [];
+  for (const h of header) {
+    headerFields(h.text, delimiter).forEach((cell, k) => {
+      columns[k] = columns[k] === undefined ? cell : `${columns[k]} ${cell}`;
+    });
+  }
+  const headerLine = header[header.length - 1]?.line;
+  const where = { file, line: headerLine };
+  const xUnit = options.xUnit ?? detectXUnit(columns[0] ?? '', x, warnings, where);
+  const picked = pickColumns(table.y.length, columns, options.column, file, warnings);
+  const several = table.y.length > 1;
+  return picked.map(({ k, name }) => {
+    const own: ParseWarning[] = [...warnings];
+    const column = table.y[k]!;
+    const kept = keptPoints(column, table.n);
+    if (kept.count === 0) {
+      throw new BandshelfError('EMPTY_FILE', `the column ${show(name)} holds no values`, {
+        file,
+        line: firstData + 1,
+        field: name,
+      });
+    }
+    if (kept.count < table.n) {
+      own.push({
+        line: firstData + 1,
+        message: `the column ${show(name)} has ${plural(table.n - kept.count, 'empty cell')}; those rows were left out of it`,
+      });
+    }
+    const cx = kept.count === table.n ? x : kept.take(x);
+    const cy = kept.count === table.n ? column.slice(0, table.n) : kept.take(column);
+    const lineOf = kept.count === table.n ? pointLine : kept.takeLines(pointLine);
+    const yUnit = options.yUnit ?? detectYUnit(columns[k + 1] ?? '', cy, own, where);
+    const converted = toWavenumberAbsorbance({ x: cx, y: cy }, { xUnit, yUnit, file, lines: lineOf });
+    const { spectrum, warnings: pointWarnings } = spectrumFromPoints(converted, { file, lines: lineOf });
+    own.push(...pointWarnings);
+    const parsed: ParsedSpectrum = {
+      spectrum,
+      meta: {},
+      source: { format: 'delimited', xUnit, yUnit, ...(several ? { column: name } : {}) },
+      warnings: own,
+    };
+    if (yUnit !== 'absorbance') {
+      const { saturated, warning } = markSaturated(spectrum);
+      if (saturated) parsed.saturated = saturated;
+      if (warning) own.push(warning);
+    }
+    return parsed;
+  });
+}
+
+/** Non-numeric lines before the first data line are the header; the data lines sampled choose the delimiter. */
+function findHeader(lines: readonly string[], file: string | undefined) {
   const header: { text: string; line: number }[] = [];
   const sample: string[] = [];
   let firstData = -1;
@@ -62,16 +125,24 @@ export function readDelimited(text: string, options: ReadDelimitedOptions = {}):
       },
     );
   }
-  const delimiter = chooseDelimiter(sample);
-  const decimalComma = delimiter !== ',';
+  return { header, firstData, delimiter: chooseDelimiter(sample) };
+}
 
-  let points: PointBuffers = {
-    x: new Float64Array(1024),
-    y: new Float64Array(1024),
-    pointLine: new Uint32Array(1024),
-  };
+interface Table {
+  n: number;
+  x: Float64Array;
+  pointLine: Uint32Array;
+  /** One buffer per y column (capacity ≥ n); NaN where a row left the cell empty. */
+  y: Float64Array[];
+}
+
+/** Every data row: x, then each y column, growing the buffers as rows (and wider rows) come. */
+function readTable(lines: readonly string[], firstData: number, delimiter: Delimiter, file?: string): Table {
+  const decimalComma = delimiter !== ',';
+  let x: Float64Array = new Float64Array(1024);
+  let pointLine: Uint32Array = new Uint32Array(1024);
+  let y: Float64Array[] = [];
   let n = 0;
-  let extraColumns = 0;
   for (let i = firstData; i < lines.length; i++) {
     const t = lines[i]!.trim();
     if (t === '' || t.startsWith('#')) continue;
@@ -83,50 +154,91 @@ export function readDelimited(text: string, options: ReadDelimitedOptions = {}):
         { file, line: i + 1 },
       );
     }
-    if (cells.length > 2) extraColumns = Math.max(extraColumns, cells.length);
-    const xv = parseCell(cells[0]!, decimalComma, file, i + 1, 'x');
-    const yv = parseCell(cells[1]!, decimalComma, file, i + 1, 'y');
-    if (n >= points.x.length) points = growPointBuffers(points);
-    points.x[n] = xv;
-    points.y[n] = yv;
-    points.pointLine[n] = i + 1;
+    if (n >= x.length) {
+      const capacity = x.length * 2;
+      x = grown(x, capacity);
+      pointLine = grownLines(pointLine, capacity);
+      y = y.map((c) => grown(c, capacity));
+    }
+    while (y.length < cells.length - 1) y.push(new Float64Array(x.length).fill(Number.NaN));
+    x[n] = parseCell(cells[0]!, decimalComma, file, i + 1, 'x');
+    for (let k = 0; k < y.length; k++) {
+      const cell = cells[k + 1];
+      y[k]![n] =
+        cell === undefined || cell === ''
+          ? Number.NaN
+          : parseCell(cell, decimalComma, file, i + 1, k === 0 ? 'y' : `y${k + 1}`);
+    }
+    pointLine[n] = i + 1;
     n++;
   }
-  const x = points.x.slice(0, n);
-  const y = points.y.slice(0, n);
-  const pointLine = points.pointLine.slice(0, n);
-  if (extraColumns > 0) {
-    warnings.push({
-      line: firstData + 1,
-      message: `rows have up to ${extraColumns} columns; the first two were read`,
-    });
-  }
+  return { n, x: x.slice(0, n), pointLine: pointLine.slice(0, n), y };
+}
 
-  // Each column's header text, gathered over all header lines (a name line and a unit line, say).
-  const columns: string[] = [];
-  for (const h of header) {
-    headerFields(h.text, delimiter).forEach((cell, k) => {
-      columns[k] = columns[k] === undefined ? cell : `${columns[k]} ${cell}`;
-    });
-  }
-  const headerLine = header[header.length - 1]?.line;
-  const xUnit = options.xUnit ?? detectXUnit(columns[0] ?? '', x, warnings, { file, line: headerLine });
-  const yUnit = options.yUnit ?? detectYUnit(columns[1] ?? '', y, warnings, { file, line: headerLine });
-  const converted = toWavenumberAbsorbance({ x, y }, { xUnit, yUnit, file, lines: pointLine });
-  const { spectrum, warnings: pointWarnings } = spectrumFromPoints(converted, { file, lines: pointLine });
-  warnings.push(...pointWarnings);
-  const parsed: ParsedSpectrum = {
-    spectrum,
-    meta: {},
-    source: { format: 'delimited', xUnit, yUnit },
-    warnings,
+function grown(a: Float64Array, capacity: number): Float64Array {
+  const b = new Float64Array(capacity).fill(Number.NaN);
+  b.set(a);
+  return b;
+}
+
+function grownLines(a: Uint32Array, capacity: number): Uint32Array {
+  const b = new Uint32Array(capacity);
+  b.set(a);
+  return b;
+}
+
+/** The rows of a column that hold a value, and copies of any parallel array at those rows. */
+function keptPoints(column: Float64Array, n: number) {
+  const rows: number[] = [];
+  for (let i = 0; i < n; i++) if (!Number.isNaN(column[i]!)) rows.push(i);
+  return {
+    count: rows.length,
+    take: (a: Float64Array) => Float64Array.from(rows, (i) => a[i]!),
+    takeLines: (a: Uint32Array) => Uint32Array.from(rows, (i) => a[i]!),
   };
-  if (yUnit !== 'absorbance') {
-    const { saturated, warning } = markSaturated(spectrum);
-    if (saturated) parsed.saturated = saturated;
-    if (warning) warnings.push(warning);
+}
+
+/** A header naming a column's uncertainty, not a spectrum of its own. */
+const UNCERTAINTY = /^(sd|s\.d\.|std|stdev|std\.? ?dev\.?|sem|se|sigma|σ|err|errors?|uncertainty|±.*)$/i;
+
+/** The y columns to read (index among the y columns and name), by the `column` option or all but uncertainties. */
+function pickColumns(
+  count: number,
+  columns: readonly string[],
+  wanted: string | number | undefined,
+  file: string | undefined,
+  warnings: ParseWarning[],
+): { k: number; name: string }[] {
+  const all = Array.from({ length: count }, (_, k) => ({
+    k,
+    name: columns[k + 1]?.trim() ? columns[k + 1]!.trim() : `y${k + 1}`,
+  }));
+  if (wanted !== undefined) {
+    const found =
+      typeof wanted === 'number'
+        ? all[wanted - 1]
+        : all.find((c) => c.name.toLowerCase() === wanted.trim().toLowerCase());
+    if (found === undefined) {
+      throw new BandshelfError(
+        'BAD_OPTION',
+        `column ${typeof wanted === 'number' ? wanted : show(wanted)} is not a y column of the file (it has ${all
+          .map((c, i) => `${i + 1} ${show(c.name)}`)
+          .join(', ')})`,
+        { file, field: 'column' },
+      );
+    }
+    return [found];
   }
-  return parsed;
+  if (count === 1) return all;
+  const spectra = all.filter((c) => !UNCERTAINTY.test(c.name));
+  const left = all.filter((c) => UNCERTAINTY.test(c.name));
+  if (left.length > 0 && spectra.length > 0) {
+    warnings.push({
+      message: `${left.map((c) => show(c.name)).join(', ')} ${left.length === 1 ? 'looks' : 'look'} like an uncertainty, not a spectrum: left out (name it as the column to read it)`,
+    });
+    return spectra;
+  }
+  return all;
 }
 
 const X_UNITS: readonly string[] = ['cm-1', 'um', 'nm', 'thz'];
@@ -284,6 +396,8 @@ function detectXUnit(cell: string, x: Float64Array, warnings: ParseWarning[], wh
   if (/cm-1|cm\^-1|cm\^\(-1\)|cm−1|cm⁻¹|1\/cm|cm\*\*-1|wave ?numbers?/.test(c)) return 'cm-1';
   if (word(c, 'um|µm|μm|microns?|micromet(?:er|re)s?')) return 'um';
   if (word(c, 'nm|nanomet(?:er|re)s?')) return 'nm';
+  // A terahertz axis is an optical frequency bandshelf converts (ν̃ = f / c); other frequencies are refused below.
+  if (word(c, 'thz|terahertz')) return 'thz';
   refuseForeign(c, FOREIGN_X, 'x', 'a wavenumber (cm-1) or wavelength (µm, nm)', where);
   const { min, max } = range(x);
   if (min >= 2 && max <= 25) {
@@ -334,6 +448,10 @@ function detectYUnit(cell: string, y: Float64Array, warnings: ParseWarning[], wh
       : 'no y unit in a header; y read as absorbance (give the y unit if not)',
   });
   return 'absorbance';
+}
+
+function plural(n: number, what: string): string {
+  return `${n} ${what}${n === 1 ? '' : 's'}`;
 }
 
 function show(text: string): string {

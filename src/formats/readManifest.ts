@@ -31,9 +31,9 @@ interface CsvRecord {
  * One entry of metadata per data file, keyed by the `file` column as written (a name relative to the
  * manifest's folder). The header names metadata fields (case, spaces, `_` and `-` are ignored: `InChIKey`,
  * `sample_form`; `license` is taken as `licence`); `concentration` is a cell like `5 mg/mL`, or two columns
- * `concentration.value` and `concentration.unit`. Cells are comma-separated (tab-separated when the header
- * has tabs and no commas), may be quoted with `"` (doubled inside), and lists (synonyms, tags) are
- * `;`-separated inside a cell. Empty cells leave a field unset; blank lines and lines starting with `#` are
+ * `concentration.value` and `concentration.unit`. Cells are separated by `,`, `;` or tab (whichever the header
+ * uses most), may be quoted with `"` (doubled inside), and lists (synonyms, tags) are `;`-separated inside a
+ * cell (quoted, in a `;`-separated table). Empty cells leave a field unset; blank lines and lines starting with `#` are
  * skipped. Errors are BandshelfError BAD_METADATA naming the file, the line and the field.
  */
 export function readManifest(text: string, options: ReadManifestOptions = {}): Map<string, EntryMetaPatch> {
@@ -43,7 +43,7 @@ export function readManifest(text: string, options: ReadManifestOptions = {}): M
     throw new BandshelfError('FILE_TOO_LARGE', `a manifest over ${maxChars} characters is refused`, { file });
   }
   const source = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  const delimiter = sniffDelimiter(source, file);
+  const delimiter = sniffDelimiter(source);
   const records = parseCsv(source, delimiter, file);
   const header = records[0];
   if (!header) throw new BandshelfError('EMPTY_FILE', 'the manifest has no header row', { file });
@@ -179,20 +179,21 @@ function fieldOfColumn(name: string, file: string | undefined, line: number): st
 
 // Lists use `;` inside cells, so a `;`-delimited table (a spreadsheet's locale export) cannot be read
 // unambiguously.
-function sniffDelimiter(text: string, file: string | undefined): ',' | '\t' {
+/**
+ * The header's separator: whichever of `,`, tab and `;` it holds most often outside quotes (commas first on a tie),
+ * so a table saved by a spreadsheet set to `;` (much of Europe) or tab reads as one written with commas.
+ */
+function sniffDelimiter(text: string): ',' | '\t' | ';' {
   const lines = text.split(/\r\n|\n|\r/);
-  const index = lines.findIndex((l) => l.trim() !== '' && !l.trimStart().startsWith('#'));
-  const header = lines[index] ?? '';
-  if (header.includes(',')) return ',';
-  if (header.includes('\t')) return '\t';
-  if (header.includes(';')) {
-    throw new BandshelfError(
-      'BAD_METADATA',
-      'the header is separated by ";"; separate columns by commas (";" separates list items inside a cell)',
-      { file, line: index + 1 },
-    );
+  const header = lines.find((l) => l.trim() !== '' && !l.trimStart().startsWith('#')) ?? '';
+  const counts = { ',': 0, '\t': 0, ';': 0 };
+  let quoted = false;
+  for (const c of header) {
+    if (c === '"') quoted = !quoted;
+    else if (!quoted && (c === ',' || c === '\t' || c === ';')) counts[c]++;
   }
-  return ',';
+  const order = [',', '\t', ';'] as const;
+  return order.reduce((best, d) => (counts[d] > counts[best] ? d : best), order[0]);
 }
 
 function parseCsv(text: string, delimiter: string, file: string | undefined): CsvRecord[] {

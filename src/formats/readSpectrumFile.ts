@@ -14,6 +14,11 @@ export interface ReadSpectrumFileOptions {
   yUnit?: YUnit;
   /** Read only this spectrum (1-based) of a multi-block JCAMP-DX file. @default undefined (all) */
   block?: number;
+  /**
+   * Read only this y column of a delimited file with several: header name (any case) or 1-based number.
+   * @default undefined (every column)
+   */
+  column?: string | number;
   /** Refuse files larger than this many bytes. @default 67_108_864 (64 MiB) */
   maxBytes?: number;
 }
@@ -21,11 +26,11 @@ export interface ReadSpectrumFileOptions {
 /**
  * Browser-safe (no fs): the caller reads the bytes. Too large → FILE_TOO_LARGE; empty → EMPTY_FILE; binary →
  * BINARY_DATA; text whose first label line starts with `##` (or that holds `##TITLE=` / `##JCAMP-DX=`) is
- * JCAMP-DX, anything else delimited text. Always returns at least one spectrum, converted to cm⁻¹ and
+ * JCAMP-DX (its blocks), anything else delimited text (one spectrum per y column). Always returns at least one spectrum, converted to cm⁻¹ and
  * absorbance, ascending, finite and free of duplicate x; anything wrong is a BandshelfError naming the file.
  */
 export function readSpectrumFile(bytes: Uint8Array, options: ReadSpectrumFileOptions = {}): ParsedSpectrum[] {
-  const { file, xUnit, yUnit, block, maxBytes = 64 * 1024 * 1024 } = options;
+  const { file, xUnit, yUnit, block, column, maxBytes = 64 * 1024 * 1024 } = options;
   if (bytes.length > maxBytes) {
     throw new BandshelfError(
       'FILE_TOO_LARGE',
@@ -36,18 +41,27 @@ export function readSpectrumFile(bytes: Uint8Array, options: ReadSpectrumFileOpt
   if (bytes.length === 0) throw new BandshelfError('EMPTY_FILE', 'the file is empty', { file });
   const text = decodeText(bytes, { file });
   if (text.trim() === '') throw new BandshelfError('EMPTY_FILE', 'the file holds only white space', { file });
-  if (isJcampDx(text)) return readJcampDx(text, { file, block, xUnit, yUnit });
+  if (isJcampDx(text)) {
+    if (column !== undefined) {
+      throw new BandshelfError(
+        'BAD_OPTION',
+        'column picks a y column of delimited text; the spectra of a JCAMP-DX file are chosen by block',
+        { file, field: 'column' },
+      );
+    }
+    return readJcampDx(text, { file, block, xUnit, yUnit });
+  }
   if (block !== undefined && block !== 1) {
     throw new BandshelfError(
       'BAD_OPTION',
-      `block ${block} does not exist: delimited text holds one spectrum`,
+      `block ${block} does not exist: the spectra of delimited text are its y columns (choose one by column)`,
       {
         file,
         field: 'block',
       },
     );
   }
-  return [readDelimited(text, { file, xUnit, yUnit })];
+  return readDelimited(text, { file, xUnit, yUnit, ...(column === undefined ? {} : { column }) });
 }
 
 function isJcampDx(text: string): boolean {

@@ -10,7 +10,7 @@ export interface UnitFromTextOptions {
 }
 
 const X: [RegExp, XUnit][] = [
-  [/^(cm-1|cm\^-1|cm⁻¹|1\/cm|wavenumbers?|kaysers?)$/, 'cm-1'],
+  [/^(cm-1|cm−1|cm\^-1|cm\^\(-1\)|cm\^\{-1\}|cm\*\*-1|cm⁻¹|1\/cm|wavenumbers?|kaysers?)$/, 'cm-1'],
   [/^(um|µm|μm|microns?|micromet(er|re)s?)$/, 'um'],
   [/^(nm|nanomet(er|re)s?)$/, 'nm'],
   [/^(thz|terahertz)$/, 'thz'],

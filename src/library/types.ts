@@ -1,5 +1,6 @@
 // Shapes of the library of record: what the store hands to the matcher, the site and the CLI.
 import type Database from 'better-sqlite3';
+import type { SpectrumReadOptions } from '../formats/types.js';
 import type { Grid, Recipe } from '../schema/recipe.js';
 import type { Peak, QcFlag, Spectrum } from '../spectrum/types.js';
 
@@ -34,15 +35,11 @@ export type ReviewState = 'draft' | 'reviewed' | 'rejected';
 /** The role of a stored file inside a revision. */
 export type FileRole = 'data' | 'sample-trace' | 'reference-trace';
 
-/** Explicit reading options a revision was ingested with; part of its data identity. */
-export interface ReadOptions {
-  xUnit?: 'cm-1' | 'um' | 'nm';
-  yUnit?: 'absorbance' | 'transmittance' | 'percent-transmittance';
-  /** 1-based block of a multi-block JCAMP-DX file. */
-  block?: number;
-  /** Delay unit of time-domain traces, overriding what their headers say (`add --time-unit`). */
-  timeUnit?: 'fs' | 'ps';
-}
+/**
+ * Explicit reading options a revision was ingested with (the reader's own, see SpectrumReadOptions; `column` is the
+ * header name or number of the y column taken from a delimited file with several); part of its data identity.
+ */
+export type ReadOptions = Pick<SpectrumReadOptions, 'xUnit' | 'yUnit' | 'block' | 'column' | 'timeUnit'>;
 
 /** A file kept verbatim in a revision. */
 export interface StoredFileInfo {
@@ -74,7 +71,7 @@ export interface RevisionExtras {
   /** Time-domain entries: how many sample and reference traces were averaged. */
   traces?: { sample: number; reference: number };
   /** What the reader reported about the source file. */
-  source?: { format: string; xUnit: string; yUnit: string; block?: number };
+  source?: { format: string; xUnit: string; yUnit: string; block?: number; column?: string };
   /** Reader warnings (instrument files that bend the standard), with line numbers where known. */
   warnings?: { line?: number; message: string }[];
 }

@@ -21,6 +21,7 @@ export interface MatchReportInput {
   query: {
     file: string;
     block?: number;
+    column?: string;
     /** SHA-256 of the file's bytes, lowercase hex. */
     hash: string;
     title?: string;
@@ -183,6 +184,7 @@ export function buildMatchReport(
     query: {
       file: query.file,
       ...(query.block === undefined ? {} : { block: query.block }),
+      ...(query.column === undefined ? {} : { column: query.column }),
       hash: query.hash,
       ...(query.title === undefined ? {} : { title: query.title }),
       recipe: query.recipe,

@@ -10,7 +10,10 @@ export interface ParseBandQueryOptions {
 }
 
 export function parseBandQuery(text: string, options: ParseBandQueryOptions = {}): BandQuery {
-  const m = /^\s*(\d+(?:\.\d+)?)\s*(?:cm-1|cm\^-1|cm⁻¹|1\/cm)?(?::([smw]))?\s*$/i.exec(text);
+  const m =
+    /^\s*(\d+(?:\.\d+)?)\s*(?:cm-1|cm−1|cm\^-1|cm\^\(-1\)|cm\*\*-1|cm⁻¹|1\/cm|\/cm)?\s*(?::\s*([smw]))?\s*$/i.exec(
+      text,
+    );
   if (!m) {
     throw new BandshelfError(
       'BAD_OPTION',

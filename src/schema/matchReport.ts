@@ -269,6 +269,8 @@ export const matchReportSchema = z
         file: z.string().min(1),
         /** 1-based spectrum of a multi-block file, when the file held several. */
         block: z.number().int().positive().optional(),
+        /** The y column's header name, when the delimited file held several spectra. */
+        column: z.string().min(1).optional(),
         /** SHA-256 of the file's bytes, lowercase hex. */
         hash: z.string().regex(/^[0-9a-f]{64}$/),
         /** The file's own title, where it had one. */

@@ -67,6 +67,7 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
   ];
   if (q.title) rows.push({ label: 'Title', value: q.title });
   if (q.block !== undefined) rows.push({ label: 'Block', value: String(q.block) });
+  if (q.column !== undefined) rows.push({ label: 'Column', value: q.column });
   rows.push({ label: 'SHA-256', value: q.hash });
   rows.push({
     label: 'Recipe',

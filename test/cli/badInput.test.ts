@@ -108,7 +108,7 @@ describe('bad input to add', () => {
           stop: 100,
         }),
       }),
-      /far-infrared\.csv: .*covers none of the library grid.*QC_FAILED/,
+      /far-infrared\.csv: .*run 100–500 \(read as cm⁻¹\) and cover none of the library grid 600–4000 cm⁻¹; check the file's x unit \(--x-unit\).*QC_FAILED/,
     ],
     [
       'a spectrum file given as a time-domain trace',

@@ -131,7 +131,7 @@ describe('bandshelf match', () => {
       matchReportSchema.parse(JSON.parse(readFileSync(join(fx.dir, 'reports', f), 'utf8')));
     const csv = readFileSync(join(fx.dir, 'out.csv'), 'utf8').trim().split('\n');
     expect(csv).toHaveLength(5);
-    expect(csv[0]).toMatch(/^file,block,status,hit1_id/);
+    expect(csv[0]).toMatch(/^file,block,column,status,hit1_id/);
     expect(csv.find((l) => l.startsWith('unknowns/urea-film.csv'))).toMatch(/,ok,urea,1,/);
     expect(csv.find((l) => l.startsWith('garbage.csv'))).toMatch(/,failed,/);
     // Without --csv, a batch prints the CSV itself.

@@ -18,6 +18,16 @@ describe('readingOptions', () => {
       column: 'serum_b',
     });
   });
+  it('reads a column number as a number and THz in any case', () => {
+    expect(readingOptions(undefined, { flags: { xUnit: 'THz', yUnit: 'abs', column: ' 3 ' } })).toEqual({
+      xUnit: 'thz',
+      yUnit: 'absorbance',
+      column: 3,
+    });
+    expect(bandshelfErrorOf(() => readingOptions(undefined, { flags: { column: '0' } })).code).toBe(
+      'BAD_OPTION',
+    );
+  });
   it('takes a time-domain pair and refuses a reference without --time-domain', () => {
     expect(
       readingOptions(undefined, { flags: { timeDomain: true, reference: ['r.csv'], timeUnit: 'fs' } }),

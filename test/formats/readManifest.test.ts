@@ -104,10 +104,19 @@ describe('readManifest', () => {
     );
   });
 
-  it('explains why a ";"-separated table cannot be read', () => {
-    const e = bandshelfErrorOf(() => readManifest('file;name\nx.csv;X\n', { file }));
-    expect(e.line).toBe(1);
-    expect(e.message).toContain('separate columns by commas');
+  it('reads a ";"-separated table as spreadsheets set to a decimal comma save it, lists quoted', () => {
+    // RFC 4180 quoting with ";" as the separator (common practice of spreadsheet exports in much of Europe).
+    const manifest = readManifest('file;name;class;tags\nx.csv;X;Biofluid;"serum;pooled"\ny.csv;Y;;\n', {
+      file,
+    });
+    expect(manifest.get('x.csv')).toEqual({ name: 'X', class: 'biofluid', tags: ['serum', 'pooled'] });
+    expect(manifest.get('y.csv')).toEqual({ name: 'Y' });
+  });
+
+  it('takes the separator the header uses most, commas on a tie; commas in the rows of a ";" table are text', () => {
+    expect(readManifest('file,name\nx.csv,"a;b"\n', { file }).get('x.csv')).toEqual({ name: 'a;b' });
+    expect(readManifest('"file";"name"\nx.csv;a, b\n', { file }).get('x.csv')).toEqual({ name: 'a, b' });
+    expect(readManifest('file\tname\nx.csv\tA, B\n', { file }).get('x.csv')).toEqual({ name: 'A, B' });
   });
 
   it('refuses both concentration forms at once, an empty manifest and an oversized one', () => {

@@ -28,6 +28,20 @@ describe('readSpectrumFile', () => {
     expect(Array.from(jdx[0]!.spectrum.absorbance)).toEqual([0.5, 0.25]);
   });
 
+  it('returns one spectrum per y column of delimited text, and takes column only there', () => {
+    const two = utf8('cm-1,run_1,run_2\n1000,0.5,0.6\n1002,0.25,0.3\n');
+    expect(readSpectrumFile(two, { file: 'r.csv' }).map((p) => p.source.column)).toEqual(['run_1', 'run_2']);
+    expect(readSpectrumFile(two, { column: 'run_2' }).map((p) => p.source.column)).toEqual(['run_2']);
+    const spectrum = {
+      wavenumber: Float64Array.from([1000, 1002]),
+      absorbance: Float64Array.from([0.5, 0.25]),
+    };
+    const jdx = utf8(writeJcampDx(spectrum, { title: 't' }));
+    const error = bandshelfErrorOf(() => readSpectrumFile(jdx, { file: 'a.jdx', column: 1 }));
+    expect(error.code).toBe('BAD_OPTION');
+    expect(error.message).toMatch(/chosen by block/);
+  });
+
   it('reads UTF-8 with a BOM, UTF-16 with a BOM and Latin-1 text', () => {
     const bom = new Uint8Array([0xef, 0xbb, 0xbf, ...utf8(CSV)]);
     expect(readSpectrumFile(bom)[0]!.warnings).toEqual([]);

@@ -14,6 +14,11 @@ describe('unitFromText', () => {
     ['micron', 'um'],
     ['nm', 'nm'],
     ['THz', 'thz'],
+    ['cm−1', 'cm-1'],
+    ['cm**-1', 'cm-1'],
+    ['CM^(-1)', 'cm-1'],
+    ['μm', 'um'],
+    ['Microns', 'um'],
   ])('x %s → %s', (text, unit) => expect(unitFromText(text, { axis: 'x' })).toBe(unit));
   it.each([
     ['%T', 'percent-transmittance'],
@@ -21,6 +26,9 @@ describe('unitFromText', () => {
     ['A', 'absorbance'],
     ['abs', 'absorbance'],
     ['percent-transmittance', 'percent-transmittance'],
+    ['%t', 'percent-transmittance'],
+    ['Transmittance', 'transmittance'],
+    ['ABS', 'absorbance'],
   ])('y %s → %s', (text, unit) => expect(unitFromText(text, { axis: 'y' })).toBe(unit));
   it('refuses anything else with BAD_OPTION naming the option', () => {
     const error = bandshelfErrorOf(() => unitFromText('furlong', { axis: 'x' }));

@@ -67,9 +67,9 @@ describe('derived downloads', () => {
   it('the CSV reads back to the same spectrum (readDelimited)', () => {
     const csv = entryDownload(document, 'csv');
     expect(csv.file).toBe('albumin.csv');
-    const back = readDelimited(csv.text, { file: csv.file });
-    expect(Array.from(back.spectrum.wavenumber)).toEqual(document.original.x);
-    expect(Array.from(back.spectrum.absorbance)).toEqual(document.original.y);
+    const [back] = readDelimited(csv.text, { file: csv.file });
+    expect(Array.from(back!.spectrum.wavenumber)).toEqual(document.original.x);
+    expect(Array.from(back!.spectrum.absorbance)).toEqual(document.original.y);
   });
 
   it('the JCAMP-DX reads back within 1e-6 of the largest absorbance (readJcampDx) and carries the labels', () => {

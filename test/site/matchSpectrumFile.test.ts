@@ -101,6 +101,41 @@ describe('matchSpectrumFile', () => {
     for (let i = 0; i < 4; i++) expect(Math.abs(result.hits[i]!.score - exact![i]!.score)).toBeLessThan(1e-4);
   });
 
+  it('reads a header-less %T file given its unit to the hits of its absorbance twin', async () => {
+    const unknown = detail(
+      'u',
+      [
+        [1652, 0.7, 31],
+        [1545, 0.45, 29],
+        [3300, 0.25, 140],
+      ],
+      {},
+      78,
+    );
+    const { wavenumber, absorbance } = unknown.original;
+    const rowsOf = (f: (a: number) => number) =>
+      new TextEncoder().encode(Array.from(wavenumber, (w, i) => `${w}\t${f(absorbance[i]!)}`).join('\n'));
+    // %T = 100 · 10^(−A) (decadic absorbance, common practice).
+    const twin = await matchSpectrumFile(
+      rowsOf((a) => a),
+      'a.txt',
+      published,
+      { k: 4 },
+    );
+    const percent = await matchSpectrumFile(
+      rowsOf((a) => 100 * 10 ** -a),
+      't.txt',
+      published,
+      {
+        k: 4,
+        read: { yUnit: 'percent-transmittance' },
+      },
+    );
+    expect(twin.hits[0]!.id).toBe('albumin');
+    expect(percent.hits.map((h) => h.id)).toEqual(twin.hits.map((h) => h.id));
+    for (let i = 0; i < 4; i++) expect(percent.hits[i]!.score).toBeCloseTo(twin.hits[i]!.score, 6);
+  });
+
   it('reports a file that is not a spectrum as the reader’s typed error', async () => {
     try {
       await matchSpectrumFile(new TextEncoder().encode('hello\nworld\n'), 'notes.csv', published);

@@ -11,27 +11,11 @@ import { libraryPath } from '../../library/store/libraryPath.js';
 import { openLibrary } from '../../library/store/openLibrary.js';
 import { readRecipeFile } from '../../library/store/readRecipeFile.js';
 import { readTextFile } from '../../library/store/readTextFile.js';
-import type { ReadOptions } from '../../library/types.js';
 import { entryMetaPatchSchema } from '../../schema/meta.js';
-import { collectRepeated } from '../collectRepeated.js';
 import type { CommandSpec } from '../command.js';
 import { flagWording } from '../flagWording.js';
+import { readingOptions } from '../readingOptions.js';
 import { textTable } from '../textTable.js';
-
-const X_UNITS = ['cm-1', 'um', 'nm'] as const;
-const Y_UNITS = ['absorbance', 'transmittance', 'percent-transmittance'] as const;
-
-function choice<T extends string>(value: unknown, allowed: readonly T[], field: string): T | undefined {
-  if (value === undefined) return undefined;
-  if (typeof value === 'string' && (allowed as readonly string[]).includes(value)) return value as T;
-  throw new BandshelfError(
-    'BAD_OPTION',
-    `--${field} must be one of ${allowed.join(', ')} (not '${String(value)}')`,
-    {
-      field,
-    },
-  );
-}
 
 /** The same error, its message speaking of flags instead of API option names. */
 function inFlagWords(error: BandshelfError): BandshelfError {
@@ -68,23 +52,13 @@ export const addCommand: CommandSpec = {
       .option('--id <id>', 'entry id (one file only; default from the file name or JCAMP-DX TITLE)')
       .option('--name <name>', 'entry name')
       .option('--class <class>', 'entry class (protein, lipid, …, biofluid, other)')
-      .option('--x-unit <unit>', `abscissa unit of the files: ${X_UNITS.join('|')}`)
-      .option('--y-unit <unit>', `ordinate unit of the files: ${Y_UNITS.join('|')}`)
-      .option('--block <n>', 'take only this 1-based block of a multi-block JCAMP-DX file')
       .option('--recipe <file>', 'processing recipe JSON for these entries instead of the library default')
       .option('--message <text>', 'why (stored with each revision)', '')
       .option('--author <name>', 'who (default $BANDSHELF_AUTHOR or the OS user)')
       .option('--force', 'store entries even when QC raises an error-level flag')
       .option('--atomic', 'all files in one transaction: any failure stores nothing')
-      .option('--time-domain', 'the files are field-resolved sample traces; see --reference')
-      .option(
-        '--reference <file>',
-        'reference trace for --time-domain (repeat for several)',
-        collectRepeated,
-        [],
-      )
-      .option('--time-unit <unit>', 'delay unit of the traces, overriding their headers: fs|ps')
       .option('--json', 'print {added, unchanged, failed} as JSON');
+    readingOptions(command);
   },
   async run(args, options, context) {
     const paths = (args[0] as string[] | undefined) ?? [];
@@ -97,26 +71,7 @@ export const addCommand: CommandSpec = {
       const error = metaErrorFromIssues(checkedFlags.error.issues, {});
       throw new BandshelfError('BAD_OPTION', `--${error.field}: ${error.message}`, { field: error.field });
     }
-    const read: ReadOptions = {};
-    const xUnit = choice(options.xUnit, X_UNITS, 'x-unit');
-    const yUnit = choice(options.yUnit, Y_UNITS, 'y-unit');
-    const timeUnit = choice(options.timeUnit, ['fs', 'ps'] as const, 'time-unit');
-    if (xUnit) read.xUnit = xUnit;
-    if (yUnit) read.yUnit = yUnit;
-    if (timeUnit) read.timeUnit = timeUnit;
-    if (options.block !== undefined) {
-      const block = Number(options.block);
-      if (!Number.isInteger(block) || block < 1) {
-        throw new BandshelfError(
-          'BAD_OPTION',
-          `--block wants a block number from 1 (not '${options.block}')`,
-          {
-            field: 'block',
-          },
-        );
-      }
-      read.block = block;
-    }
+    const { timeDomain, references, ...read } = readingOptions(undefined, { flags: options });
     const recipe =
       typeof options.recipe === 'string'
         ? readRecipeFile(resolve(context.cwd, options.recipe), { label: options.recipe })
@@ -137,8 +92,8 @@ export const addCommand: CommandSpec = {
         outcome = ingest(library, paths, {
           cwd: context.cwd,
           manifest: typeof options.manifest === 'string' ? options.manifest : undefined,
-          timeDomain: Boolean(options.timeDomain),
-          references: (options.reference as string[] | undefined) ?? [],
+          timeDomain: timeDomain === true,
+          references: references ?? [],
           meta: checkedFlags.data,
           metaFile,
           recipe,

@@ -6,6 +6,7 @@ import { configureMixtureOptions } from '../configureMixtureOptions.js';
 import { formatBandTable } from '../formatBandTable.js';
 import { matchUnknowns } from '../matchUnknowns.js';
 import { parseMatchOptions } from '../parseMatchOptions.js';
+import { readingOptions } from '../readingOptions.js';
 import { writeMatchReports } from '../writeMatchReports.js';
 
 export const identifyCommand: CommandSpec = {
@@ -15,6 +16,7 @@ export const identifyCommand: CommandSpec = {
     'bandshelf identify unknown-serum.csv',
     'bandshelf identify unknown-serum.csv --with albumin,water --json',
     'bandshelf identify unknown-serum.csv --no-mixture --tolerance 6',
+    'bandshelf identify old-bench.txt --y-unit percent-transmittance',
     '',
     'Bands are peaks plus shoulders (minima of the negative second derivative). Each table assignment names its',
     'published source. A band is "explained" when the mixture fit leaves no residual peak above 3 × noise on it.',
@@ -37,6 +39,7 @@ export const identifyCommand: CommandSpec = {
       )
       .option('--report <dir>', 'write the JSON report into this folder')
       .option('--json', 'print the report as JSON');
+    readingOptions(command);
   },
   async run(args, options, context) {
     const file = args[0];
@@ -46,7 +49,7 @@ export const identifyCommand: CommandSpec = {
     const notes = [...run.warnings];
     if (run.batch) {
       notes.push(
-        `${file} holds ${run.outcomes.length} spectra; identify lists the first (use match for all)`,
+        `${file} holds ${run.outcomes.length} spectra; identify lists the first (pick one with --column or --block, or use match for all)`,
       );
     }
     const first = run.outcomes[0]!;

@@ -12,6 +12,7 @@ import { formatMatchTable } from '../formatMatchTable.js';
 import { matchCsv } from '../matchCsv.js';
 import { matchUnknowns } from '../matchUnknowns.js';
 import { parseMatchOptions } from '../parseMatchOptions.js';
+import { readingOptions } from '../readingOptions.js';
 import { textTable } from '../textTable.js';
 import { writeMatchReports } from '../writeMatchReports.js';
 
@@ -23,6 +24,8 @@ export const matchCommand: CommandSpec = {
     'bandshelf match unknown-serum.csv --range 1800:900 --metric all --at v1',
     'bandshelf match unknown-serum.csv --mixture --with albumin,water --report reports/',
     'bandshelf match unknowns/ --csv results.csv              # batch: one CSV row per unknown',
+    'bandshelf match old-bench.txt --x-unit um --y-unit %T     # a file without unit headers',
+    'bandshelf match s1.csv --time-domain --reference r1.csv   # field-resolved sample and reference traces',
     '',
     'The unknown is read and processed exactly like the library (its recipe, or --recipe). Scores are 0–1 for',
     'pearson, derivative and cosine (a negative correlation shows as 0) and a distance for euclidean. The mixture',
@@ -31,7 +34,10 @@ export const matchCommand: CommandSpec = {
   ].join('\n'),
   configure(command) {
     command
-      .argument('<files...>', 'unknown spectrum files or folders')
+      .argument(
+        '<files...>',
+        'unknown spectrum files or folders (with --time-domain: the sample traces of one unknown)',
+      )
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
       .option('--keep-path', 'keep the unknown’s folder in the report (default: file name and SHA-256 only)')
       .option('--at <tag>', 'match against a release instead of the working state')
@@ -52,6 +58,7 @@ export const matchCommand: CommandSpec = {
       .option('--csv <file>', 'write one CSV row per unknown into this file')
       .option('--json', 'print the report (batch: {reports, failed}) as JSON')
       .option('--explain', 'under each pearson hit, print the share of its score each spectral region gives');
+    readingOptions(command);
   },
   async run(args, options, context) {
     const targets = (args[0] as string[] | undefined) ?? [];
@@ -73,8 +80,10 @@ export const matchCommand: CommandSpec = {
       }
     }
     const failed = run.outcomes.filter((o) => o.report === undefined);
-    for (const f of failed)
-      notes.push(`${f.file}${f.block === undefined ? '' : ` block ${f.block}`}: ${f.error}`);
+    for (const f of failed) {
+      const part = `${f.block === undefined ? '' : ` block ${f.block}`}${f.column === undefined ? '' : ` column ${f.column}`}`;
+      notes.push(`${f.file}${part}: ${f.error}`);
+    }
     const exitCode = failed.length > 0 ? 1 : 0;
     const stderr = notes.join('\n');
     if (options.json) {
@@ -84,6 +93,7 @@ export const matchCommand: CommandSpec = {
             failed: failed.map((f) => ({
               file: f.file,
               ...(f.block === undefined ? {} : { block: f.block }),
+              ...(f.column === undefined ? {} : { column: f.column }),
               error: f.error,
             })),
           })
@@ -106,7 +116,7 @@ export const matchCommand: CommandSpec = {
       ['FILE', 'TOP HIT', 'SCORE', 'STANDING', 'MIXTURE', 'UNEXPLAINED'],
       ...run.outcomes.map((o) => {
         const r = o.report;
-        const name = `${o.file}${o.block === undefined ? '' : ` #${o.block}`}`;
+        const name = `${o.file}${o.block === undefined ? '' : ` #${o.block}`}${o.column === undefined ? '' : ` ${o.column}`}`;
         if (r === undefined) return [name, 'failed', '', '', '', ''];
         return [
           name,

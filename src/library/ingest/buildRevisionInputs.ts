@@ -21,7 +21,7 @@ export interface BuildRevisionInputsOptions {
   metaFile?: { sections: LoadedSidecar; label: string };
   /** A `--recipe FILE` recipe, above any sidecar recipe and the library default. */
   recipe?: Recipe;
-  /** Reading options from flags (--x-unit, --y-unit, --block, --time-unit). */
+  /** Reading options from flags (--x-unit, --y-unit, --block, --column, --time-unit). */
   read?: ReadOptions;
   /** Largest data or trace file accepted, bytes.
    * @default 67108864 (64 MiB) */
@@ -173,7 +173,7 @@ export function buildRevisionInputs(
   if (several && given.id !== undefined) {
     throw new BandshelfError(
       'BAD_OPTION',
-      `the file holds ${originals.length} spectra but its metadata names one id ('${String(given.id)}'); choose one with \`block\``,
+      `the file holds ${originals.length} spectra but its metadata names one id ('${String(given.id)}'); choose one with \`${originals[0]!.column === undefined ? 'block' : 'column'}\``,
       { file: job.label, field: 'id' },
     );
   }
@@ -186,12 +186,25 @@ export function buildRevisionInputs(
     const merged: Record<string, unknown> = { ...fromLabels, ...given };
     if (merged.id === undefined) {
       const title = typeof o.labels.title === 'string' ? o.labels.title : undefined;
-      let id = several ? (title ? slugOf(title) : `${slugOf(stem)}-${o.block ?? 1}`) : slugOf(stem);
+      // A column of a multi-column file is named by its header (`y2` … without one): the id is made from that name.
+      let id = !several
+        ? slugOf(stem)
+        : o.column !== undefined
+          ? slugOf(o.column)
+          : title
+            ? slugOf(title)
+            : `${slugOf(stem)}-${o.block ?? 1}`;
       if (ids.has(id)) id = `${id}-${o.block ?? ids.size + 1}`;
       merged.id = id;
     }
     ids.add(String(merged.id));
-    if (merged.name === undefined) merged.name = several ? `${stem} (block ${o.block ?? 1})` : stem;
+    if (merged.name === undefined) {
+      merged.name = !several
+        ? stem
+        : o.column !== undefined
+          ? `${stem}: ${o.column}`
+          : `${stem} (block ${o.block ?? 1})`;
+    }
     const checked = entryMetaSchema.safeParse(merged);
     if (!checked.success) {
       const first = checked.error.issues[0]?.path[0];
@@ -211,6 +224,7 @@ export function buildRevisionInputs(
     else delete extras.warnings;
     const entryRead: ReadOptions = { ...read };
     if (several && o.block !== undefined) entryRead.block = o.block;
+    if (several && o.column !== undefined) entryRead.column = o.column;
     return {
       label: job.label,
       files,

@@ -7,9 +7,10 @@ import type { ReadOptions } from '../types.js';
 
 const readOptionsSchema = z
   .object({
-    xUnit: z.enum(['cm-1', 'um', 'nm']).optional(),
+    xUnit: z.enum(['cm-1', 'um', 'nm', 'thz']).optional(),
     yUnit: z.enum(['absorbance', 'transmittance', 'percent-transmittance']).optional(),
     block: z.number().int().positive().optional(),
+    column: z.union([z.string().min(1), z.number().int().positive()]).optional(),
     timeUnit: z.enum(['fs', 'ps']).optional(),
   })
   .strict();
@@ -42,7 +43,7 @@ export function loadSidecar(text: string, options: LoadSidecarOptions = {}): Loa
       file: options.file,
       prefix: 'read',
       code: 'BAD_METADATA',
-      knownFields: ['xUnit', 'yUnit', 'block', 'timeUnit'],
+      knownFields: ['xUnit', 'yUnit', 'block', 'column', 'timeUnit'],
     });
   }
   const sections = readSidecarSections(JSON.stringify(rest), options);
@@ -51,6 +52,7 @@ export function loadSidecar(text: string, options: LoadSidecarOptions = {}): Loa
   if (checked.data.xUnit) readOptions.xUnit = checked.data.xUnit;
   if (checked.data.yUnit) readOptions.yUnit = checked.data.yUnit;
   if (checked.data.block) readOptions.block = checked.data.block;
+  if (checked.data.column !== undefined) readOptions.column = checked.data.column;
   if (checked.data.timeUnit) readOptions.timeUnit = checked.data.timeUnit;
   out.read = readOptions;
   return out;

@@ -1,10 +1,13 @@
 // Computes everything a new revision stores (pinned recipe, hashes, processed vector, peaks, QC) without writing.
 import { BandshelfError } from '../../error.js';
+import { likelyXUnit } from '../../formats/likelyXUnit.js';
+import type { XUnit } from '../../formats/types.js';
 import { cropToWindow } from '../../spectrum/cropToWindow.js';
 import { excludeWindows } from '../../spectrum/excludeWindows.js';
 import { qcFlags } from '../../spectrum/qcFlags.js';
 import { sortAndMerge } from '../../spectrum/sortAndMerge.js';
 import { subtractBaseline } from '../../spectrum/subtractBaseline.js';
+import type { QcFlag } from '../../spectrum/types.js';
 import { contentHashes } from '../store/contentHashes.js';
 import { sha256Hex } from '../store/sha256Hex.js';
 import type { Library, RevisionKind } from '../types.js';
@@ -72,8 +75,10 @@ export function prepareRevision(
     errors.length > 0 && !options.force
       ? new BandshelfError(
           'QC_FAILED',
-          `quality check failed for '${id}': ${errors.map((f) => `${f.code} (${f.message})`).join('; ')}; set \`force\` to store it anyway`,
-          { file: input.label },
+          `quality check failed for '${id}': ${qcAdvice(library, input, errors)}`,
+          {
+            file: input.label,
+          },
         )
       : undefined;
   const head = library.db
@@ -98,4 +103,34 @@ export function prepareRevision(
     ...(unchanged ? { unchangedRevision: head.revision } : {}),
     ...(blocked ? { blocked } : {}),
   };
+}
+
+const UNIT_NAMES: Record<XUnit, string> = { 'cm-1': 'cm⁻¹', um: 'µm', nm: 'nm', thz: 'THz' };
+
+function shortNumber(v: number): string {
+  return String(Number(v.toPrecision(4)));
+}
+
+/**
+ * The blocking flags and what to do. A spectrum that covers none of the grid is stored in vain even with `force`:
+ * the advice names the file's x range and the grid, and the unit its values more likely are in.
+ */
+function qcAdvice(library: Library, input: RevisionInput, errors: readonly QcFlag[]): string {
+  const flags = errors.map((f) => `${f.code} (${f.message})`).join('; ');
+  const missesGrid = errors.some((f) => f.code === 'narrow-coverage' && f.value === 0);
+  if (!missesGrid) return `${flags}; set \`force\` to store it anyway`;
+  const used = input.extras.source?.xUnit as XUnit | undefined;
+  const w = input.original.wavenumber;
+  if (used === undefined || w.length === 0) return `${flags}; check the data's x axis and the library grid`;
+  const { start, stop } = library.grid;
+  const span = { min: Math.min(start, stop), max: Math.max(start, stop) };
+  const guess = likelyXUnit({ min: w[0]!, max: w[w.length - 1]! }, { used, span });
+  const values = `${shortNumber(guess.values.min)}–${shortNumber(guess.values.max)}`;
+  const grid = `${shortNumber(span.min)}–${shortNumber(span.max)} cm⁻¹`;
+  const where = `its x values run ${values} (read as ${UNIT_NAMES[used]}) and cover none of the library grid ${grid}`;
+  const hint =
+    guess.unit === null
+      ? "check the file's x unit (`xUnit`) and the library grid"
+      : `values ${values} look like ${UNIT_NAMES[guess.unit]}: try \`xUnit\` ${guess.unit}`;
+  return `${where}; ${hint}`;
 }

@@ -30,6 +30,8 @@ export interface OriginalRead {
   labels: Record<string, string | number>;
   /** 1-based block of a multi-block file, when the file has several. */
   block?: number;
+  /** Header name of the y column, when a delimited file has several. */
+  column?: string;
   /** How many spectra the file holds in all. */
   blocks: number;
   extras: RevisionExtras;
@@ -84,6 +86,7 @@ export function readOriginals(input: ReadOriginalsInput, options: ReadOriginalsO
     ...(read.xUnit ? { xUnit: read.xUnit } : {}),
     ...(read.yUnit ? { yUnit: read.yUnit } : {}),
     ...(read.block ? { block: read.block } : {}),
+    ...(read.column !== undefined ? { column: read.column } : {}),
     ...(options.maxBytes ? { maxBytes: options.maxBytes } : {}),
   });
   return parsed.map((p) => {
@@ -93,11 +96,13 @@ export function readOriginals(input: ReadOriginalsInput, options: ReadOriginalsO
         xUnit: p.source.xUnit,
         yUnit: p.source.yUnit,
         ...(p.source.block !== undefined ? { block: p.source.block } : {}),
+        ...(p.source.column !== undefined ? { column: p.source.column } : {}),
       },
     };
     if (p.warnings.length > 0) extras.warnings = p.warnings;
     const out: OriginalRead = { spectrum: p.spectrum, labels: p.meta, blocks: parsed.length, extras };
     if (p.source.block !== undefined) out.block = p.source.block;
+    if (p.source.column !== undefined) out.column = p.source.column;
     if (p.saturated !== undefined) out.saturated = p.saturated;
     return out;
   });

@@ -209,6 +209,7 @@ export async function runMatchPipeline(
     query: {
       file: unknown.file,
       ...(unknown.block === undefined ? {} : { block: unknown.block }),
+      ...(unknown.column === undefined ? {} : { column: unknown.column }),
       hash: unknown.hash,
       ...(unknown.title === undefined ? {} : { title: unknown.title }),
       recipe,

@@ -61,6 +61,8 @@ export interface MatchUnknown {
   /** The file name the report records (a directory only when the user asked for it). */
   file: string;
   block?: number;
+  /** Header name of the y column, when the unknown's delimited file held several. */
+  column?: string;
   /** SHA-256 of the file's bytes, lowercase hex. */
   hash: string;
   title?: string;

@@ -1,6 +1,7 @@
 // Matches a dropped spectrum file against the published data with the one match pipeline `bandshelf match` runs
 // (browser-safe: the same reader, recipe, search, mixture fit and band identification, bundled for the page).
 import { readSpectrumFile } from '../../formats/readSpectrumFile.js';
+import type { SpectrumReadOptions } from '../../formats/types.js';
 import { instantiateScoreKernels } from '../../match/instantiateScoreKernels.js';
 import { jsScoreKernels } from '../../match/jsScoreKernels.js';
 import { runMatchPipeline } from '../../match/pipeline/runMatchPipeline.js';
@@ -57,6 +58,11 @@ export interface MatchSpectrumFileOptions {
   mixture?: boolean;
   /** The published source already built from `set` (keeps loaded entries across files). @default built from set */
   source?: MatchSource;
+  /**
+   * How to read the file, as `bandshelf match --x-unit/--y-unit/--block/--column` (time-domain pairs are a
+   * CLI matter: they need two files). @default {} (as the file says)
+   */
+  read?: Pick<SpectrumReadOptions, 'xUnit' | 'yUnit' | 'block' | 'column'>;
 }
 
 export interface FileMatch {
@@ -94,7 +100,14 @@ export async function matchSpectrumFile(
   set: PublishedSearchSet,
   options: MatchSpectrumFileOptions = {},
 ): Promise<FileMatch> {
-  const parsed = readSpectrumFile(bytes, { file });
+  const read = options.read ?? {};
+  const parsed = readSpectrumFile(bytes, {
+    file,
+    ...(read.xUnit === undefined ? {} : { xUnit: read.xUnit }),
+    ...(read.yUnit === undefined ? {} : { yUnit: read.yUnit }),
+    ...(read.block === undefined ? {} : { block: read.block }),
+    ...(read.column === undefined ? {} : { column: read.column }),
+  });
   const first = parsed[0]!;
   const title = typeof first.meta.title === 'string' ? first.meta.title : undefined;
   const warnings = first.warnings.map((w) =>
@@ -106,6 +119,7 @@ export async function matchSpectrumFile(
       unknown: {
         file,
         ...(parsed.length > 1 && first.source.block !== undefined ? { block: first.source.block } : {}),
+        ...(first.source.column === undefined ? {} : { column: first.source.column }),
         hash: await sha256(bytes),
         ...(title === undefined ? {} : { title }),
         spectrum: first.spectrum,

@@ -197,6 +197,49 @@ describe('bandshelf add', () => {
     expect(show.qc.some((f) => f.code === 'near-duplicate' && f.level === 'warning')).toBe(true);
   });
 
+  it('reads a ";"-separated manifest and class names in any case', () => {
+    const { dir, lib } = fresh();
+    const folder = join(dir, 'eu');
+    mkdirSync(folder);
+    writeSpectrumCsv(join(folder, 'pool.csv'), bandsFor(3));
+    // As a spreadsheet set to a decimal comma saves a table: ";" between cells, a list cell quoted.
+    writeFileSync(
+      join(folder, 'manifest.csv'),
+      'file;name;class;tags\npool.csv;Pooled serum;Biofluid;"serum;pooled"\n',
+    );
+    const r = bandshelf(['add', folder, ...lib, '--json']);
+    expect(r.code, r.stderr).toBe(0);
+    const shown = parseJson<ShowJson>(bandshelf(['show', 'pool', ...lib, '--json']).stdout);
+    expect(shown.meta).toMatchObject({ name: 'Pooled serum', class: 'biofluid', tags: ['serum', 'pooled'] });
+    const flag = bandshelf([
+      'add',
+      join(folder, 'pool.csv'),
+      '--id',
+      'pool-2',
+      '--class',
+      'BioFluid',
+      ...lib,
+    ]);
+    expect(flag.code, flag.stderr).toBe(0);
+  });
+
+  it('a spectrum that misses the grid names its x range and the grid, and suggests the likely unit, not --force', () => {
+    const { dir, lib } = fresh();
+    // Wavelengths 2.5–25 µm under a wavenumber header (λ = 10⁴ / ν̃, common practice: 2.5 µm is 4000 cm⁻¹).
+    const { x, y } = syntheticSpectrum([{ position: 1650, height: 0.5, fwhm: 30 }], { step: 4 });
+    const rows = x.map((w, i) => `${Number((1e4 / w).toPrecision(10))},${y[i]!.toFixed(6)}`);
+    const file = join(dir, 'mislabelled.csv');
+    writeFileSync(file, `wavenumber_cm-1,absorbance\n${rows.join('\n')}\n`);
+    const refused = bandshelf(['add', file, ...lib]);
+    expect(refused.code).toBe(1);
+    expect(refused.stderr).toMatch(
+      /its x values run 2\.5–16\.67 \(read as cm⁻¹\) and cover none of the library grid 600–4000 cm⁻¹; values 2\.5–16\.67 look like µm: try --x-unit um \[QC_FAILED\]/,
+    );
+    expect(refused.stderr).not.toContain('--force');
+    const fixed = bandshelf(['add', file, '--x-unit', 'um', ...lib]);
+    expect(fixed.code, fixed.stderr).toBe(0);
+  });
+
   it('an error-level QC flag blocks the add unless --force, and nothing is written', () => {
     // A spectrum wholly above the grid's 4000 cm⁻¹ end covers none of it: an error-level flag.
     const saturated = join(dir, 'outside.csv');
