@@ -18,6 +18,7 @@ import { buildBandIndex } from '../match/buildBandIndex.js';
 import { libraryMatchSource } from '../match/libraryMatchSource.js';
 import { type RunMatchPipelineOptions, runMatchPipeline } from '../match/pipeline/runMatchPipeline.js';
 import type { MatchUnknown } from '../match/pipeline/types.js';
+import { resolutionForUnknown } from '../match/resolutionForUnknown.js';
 import { MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
@@ -75,7 +76,11 @@ function filesOf(target: string, cwd: string): string[] {
 }
 
 /** The report names the file only (a path can carry a patient or study code) unless `keepPath`. */
-function readUnknowns(file: string, cwd: string, keepPath: boolean): MatchUnknown[] {
+function readUnknowns(
+  file: string,
+  cwd: string,
+  keepPath: boolean,
+): (MatchUnknown & { resolution?: unknown })[] {
   let bytes: Uint8Array;
   try {
     bytes = readFileSync(resolve(cwd, file));
@@ -97,6 +102,7 @@ function readUnknowns(file: string, cwd: string, keepPath: boolean): MatchUnknow
       spectrum: p.spectrum,
       ...(p.saturated === undefined ? {} : { saturated: p.saturated }),
       warnings: p.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
+      ...(p.meta.resolution === undefined ? {} : { resolution: p.meta.resolution }),
     };
   });
 }
@@ -179,7 +185,7 @@ export async function matchUnknowns(
     const single = files.length === 1;
     for (const [i, file] of files.entries()) {
       context.progress(i, files.length, basename(file));
-      let read: MatchUnknown[];
+      let read: ReturnType<typeof readUnknowns>;
       try {
         read = readUnknowns(file, context.cwd, options.keepPath === true);
       } catch (error) {
@@ -187,14 +193,20 @@ export async function matchUnknowns(
         outcomes.push({ file, error: oneLine(error) });
         continue;
       }
-      for (const unknown of read) {
+      for (const { resolution: stated, ...given } of read) {
+        const matched = resolutionForUnknown(given.spectrum, settings.recipe ?? source.recipe, { stated });
+        const unknown: MatchUnknown = { ...given, warnings: [...given.warnings, ...matched.warnings] };
+        const unknownSettings =
+          matched.recipe === (settings.recipe ?? source.recipe)
+            ? settings
+            : { ...settings, recipe: matched.recipe };
         const outcome: MatchOutcome = {
           file,
           ...(unknown.block === undefined ? {} : { block: unknown.block }),
         };
         outcomes.push(outcome);
         try {
-          outcome.report = await runMatchPipeline({ unknown, source, scorer, assignments }, settings);
+          outcome.report = await runMatchPipeline({ unknown, source, scorer, assignments }, unknownSettings);
         } catch (error) {
           if (single && read.length === 1) throw error;
           outcome.error = oneLine(error);
