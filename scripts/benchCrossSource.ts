@@ -8,7 +8,9 @@
 // folder (distractors); the set's other members are the queries. A query's top-1 is right when the best hit belongs to
 // its set. Scored side by side in the same run on the same library: bandshelf's own ingest and match pipeline under
 // each recipe listed, and a plain Pearson correlation of the unprocessed absorbance linearly interpolated onto a
-// 2 cm⁻¹ grid over the two spectra's overlap (at least 200 cm⁻¹, the matcher's default minimum overlap). One JSON.
+// 2 cm⁻¹ grid over the two spectra's overlap (at least 200 cm⁻¹, the matcher's default minimum overlap). Besides
+// top-1, each method's margin per query (best score of the query's own set minus the best score of anything else;
+// > 0 is a right top-1) is summarised by its median and minimum, on each method's own score scale. One JSON.
 // The sets come from the files' provenance, not from the scores; nothing here is tuned to these files.
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -141,6 +143,8 @@ function pearson(a: Float64Array, b: Float64Array): number | null {
 interface Tally {
   right: number;
   queries: number;
+  /** Per query: the best score of the query's own set minus the best score of any other entry. */
+  margins: number[];
   bySet: Record<string, { right: number; queries: number }>;
 }
 
@@ -148,6 +152,7 @@ function tally(): Tally {
   return {
     right: 0,
     queries: 0,
+    margins: [],
     bySet: Object.fromEntries(Object.keys(SETS).map((k) => [k, { right: 0, queries: 0 }])),
   };
 }
@@ -159,6 +164,14 @@ function count(t: Tally, set: string, right: boolean): void {
     t.right++;
     t.bySet[set]!.right++;
   }
+}
+
+/** Median of the finite values, to 4 decimals. */
+function median(values: readonly number[]): number | null {
+  const v = values.filter(Number.isFinite).sort((a, b) => a - b);
+  if (v.length === 0) return null;
+  const m = v.length % 2 === 1 ? v[v.length >> 1]! : (v[v.length / 2 - 1]! + v[v.length / 2]!) / 2;
+  return Math.round(1e4 * m) / 1e4;
 }
 
 async function main(): Promise<void> {
@@ -204,14 +217,20 @@ async function main(): Promise<void> {
         for (const q of queries) {
           let best = '';
           let bestR = Number.NEGATIVE_INFINITY;
+          let own = Number.NEGATIVE_INFINITY;
+          let other = Number.NEGATIVE_INFINITY;
           for (const f of libraryFiles) {
             const r = pearson(plain.get(q)!, plain.get(f)!);
-            if (r !== null && r > bestR) {
+            if (r === null) continue;
+            if (setOf.get(f) === set) own = Math.max(own, r);
+            else other = Math.max(other, r);
+            if (r > bestR) {
               bestR = r;
               best = f;
             }
           }
           count(results['plain-pearson-2cm']!, set, setOf.get(best) === set);
+          results['plain-pearson-2cm']!.margins.push(own - other);
           if (setOf.get(best) !== set) miss('plain-pearson-2cm', q, best);
         }
 
@@ -241,9 +260,18 @@ async function main(): Promise<void> {
                   scorer,
                   assignments: [],
                 },
-                { top: 1, ...(pinned.recipe === source.recipe ? {} : { recipe: pinned.recipe }) },
+                {
+                  top: libraryFiles.length,
+                  ...(pinned.recipe === source.recipe ? {} : { recipe: pinned.recipe }),
+                },
               );
-              const top = report.hitsByMetric.pearson?.[0]?.id;
+              const hits = report.hitsByMetric.pearson ?? [];
+              const top = hits[0]?.id;
+              const ownHit = hits.find((h) => setOf.get(bySlug.get(h.id) ?? '') === set);
+              const otherHit = hits.find((h) => setOf.get(bySlug.get(h.id) ?? '') !== set);
+              results[`bandshelf:${name}`]!.margins.push(
+                (ownHit?.score ?? Number.NEGATIVE_INFINITY) - (otherHit?.score ?? Number.NEGATIVE_INFINITY),
+              );
               const topFile = top === undefined ? '' : (bySlug.get(top) ?? '');
               const right = setOf.get(topFile) === set;
               count(results[`bandshelf:${name}`]!, set, right);
@@ -268,6 +296,8 @@ async function main(): Promise<void> {
         top1Percent: percent(t),
         right: t.right,
         queries: t.queries,
+        marginMedian: median(t.margins),
+        marginMin: Math.round(1e4 * Math.min(...t.margins)) / 1e4,
         bySet: Object.fromEntries(
           Object.entries(t.bySet).map(([s, v]) => [s, { top1Percent: percent(v), ...v }]),
         ),
