@@ -92,6 +92,12 @@ export const timeDomainSchema = z
     zeroFill: z.number().int().min(1).max(16).default(2),
     /** Coverage keeps only wavenumbers where the reference power exceeds this fraction of its peak. */
     powerThreshold: z.number().gt(0).lt(1).default(1e-4),
+    /**
+     * Coverage also needs both the sample's and the reference's spectral amplitude to exceed this many times the
+     * noise floor measured on the reference trace (pre-pulse part or highest frequencies; a per-bin amplitude floor,
+     * so k = 3 keeps bins whose power is above 9 × the floor). Absent: no such test (recipes written before it).
+     */
+    noiseFloorFactor: z.number().finite().positive().optional(),
   })
   .strict();
 export type TimeDomainStep = z.output<typeof timeDomainSchema>;
