@@ -19,6 +19,7 @@ const nodeEntries = {
   'bench-ingest': 'scripts/benchIngest.ts',
   'bench-cli': 'scripts/benchCli.ts',
   validate: 'scripts/validateMixture.ts',
+  'bench-cross-source': 'scripts/benchCrossSource.ts',
   'scores-worker': 'src/match/scoresWorker.ts',
 };
 

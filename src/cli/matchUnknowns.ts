@@ -21,6 +21,7 @@ import { buildBandIndex } from '../match/buildBandIndex.js';
 import { libraryMatchSource } from '../match/libraryMatchSource.js';
 import { type RunMatchPipelineOptions, runMatchPipeline } from '../match/pipeline/runMatchPipeline.js';
 import type { MatchUnknown } from '../match/pipeline/types.js';
+import { resolutionForUnknown } from '../match/resolutionForUnknown.js';
 import { MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
@@ -106,7 +107,7 @@ function readUnknowns(
   cwd: string,
   keepPath: boolean,
   read: SpectrumReadOptions,
-): MatchUnknown[] {
+): (MatchUnknown & { resolution?: unknown })[] {
   const bytes = readBytes(file, cwd);
   const hash = createHash('sha256').update(bytes).digest('hex');
   const parsed = readSpectrumFile(bytes, {
@@ -127,6 +128,7 @@ function readUnknowns(
       spectrum: p.spectrum,
       ...(p.saturated === undefined ? {} : { saturated: p.saturated }),
       warnings: warningLines(p.warnings),
+      ...(p.meta.resolution === undefined ? {} : { resolution: p.meta.resolution }),
     };
   });
 }
@@ -257,7 +259,7 @@ export async function matchUnknowns(
     const single = files.length === 1;
     for (const [i, file] of files.entries()) {
       context.progress(i, files.length, basename(file));
-      let unknowns: MatchUnknown[];
+      let unknowns: ReturnType<typeof readUnknowns>;
       try {
         unknowns = readUnknowns(file, context.cwd, options.keepPath === true, read);
       } catch (error) {
@@ -265,7 +267,13 @@ export async function matchUnknowns(
         outcomes.push({ file, error: oneLine(error) });
         continue;
       }
-      for (const unknown of unknowns) {
+      for (const { resolution: stated, ...given } of unknowns) {
+        const matched = resolutionForUnknown(given.spectrum, settings.recipe ?? source.recipe, { stated });
+        const unknown: MatchUnknown = { ...given, warnings: [...given.warnings, ...matched.warnings] };
+        const unknownSettings =
+          matched.recipe === (settings.recipe ?? source.recipe)
+            ? settings
+            : { ...settings, recipe: matched.recipe };
         const outcome: MatchOutcome = {
           file,
           ...(unknown.block === undefined ? {} : { block: unknown.block }),
@@ -273,7 +281,7 @@ export async function matchUnknowns(
         };
         outcomes.push(outcome);
         try {
-          outcome.report = await runMatchPipeline({ unknown, source, scorer, assignments }, settings);
+          outcome.report = await runMatchPipeline({ unknown, source, scorer, assignments }, unknownSettings);
         } catch (error) {
           if (single && unknowns.length === 1) throw error;
           outcome.error = oneLine(error);

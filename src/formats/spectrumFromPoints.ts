@@ -19,8 +19,9 @@ export interface SpectrumFromPointsResult {
  * Validates and orders points in wavenumber (cm⁻¹) and absorbance. No points → EMPTY_FILE, one → TOO_FEW_POINTS,
  * NaN/±Infinity → NOT_FINITE (with its line). Files run ascending or descending; one change of direction
  * (two sweeps joined) is sorted with a warning, more than one means x zig-zags and cannot be a spectrum
- * (NOT_MONOTONIC). Exact duplicate points are merged with a warning; the same x with two different y is
- * DUPLICATE_X because no rule can say which reading is right. Inputs are not modified.
+ * (NOT_MONOTONIC). Exact duplicate points are merged with a warning; readings repeated at one x with different y
+ * are averaged into one point (the usual practice for co-added or overlapping scans), with a warning naming the first
+ * such line and the widest spread. Inputs are not modified.
  */
 export function spectrumFromPoints(
   points: { x: Float64Array; y: Float64Array },
@@ -96,28 +97,48 @@ export function spectrumFromPoints(
   let m = 0;
   let merged = 0;
   let firstMergedLine: number | undefined;
-  for (let k = 0; k < n; k++) {
+  let averaged = 0;
+  let firstAveragedLine: number | undefined;
+  let widestSpread = 0;
+  let widestAt = 0;
+  for (let k = 0; k < n; ) {
     const i = order[k]!;
     const xi = x[i]!;
-    const yi = y[i]!;
-    if (m > 0 && wavenumber[m - 1] === xi) {
-      if (absorbance[m - 1] === yi) {
-        merged++;
-        firstMergedLine ??= lines?.[i];
-        continue;
+    // The run of readings at this x, in file order.
+    let end = k + 1;
+    while (end < n && x[order[end]!]! === xi) end++;
+    let sum = 0;
+    let lo = Number.POSITIVE_INFINITY;
+    let hi = Number.NEGATIVE_INFINITY;
+    for (let r = k; r < end; r++) {
+      const yr = y[order[r]!]!;
+      sum += yr;
+      lo = Math.min(lo, yr);
+      hi = Math.max(hi, yr);
+    }
+    if (end - k > 1) {
+      if (hi === lo) {
+        merged += end - k - 1;
+        firstMergedLine ??= lines?.[order[k + 1]!];
+      } else {
+        averaged++;
+        firstAveragedLine ??= lines?.[order[k + 1]!];
+        if (hi - lo > widestSpread) {
+          widestSpread = hi - lo;
+          widestAt = xi;
+        }
       }
-      const prev = order[k - 1]!;
-      const prevLine = lines?.[prev];
-      throw new BandshelfError(
-        'DUPLICATE_X',
-        `x = ${xi} appears twice with different values (${absorbance[m - 1]} and ${yi})` +
-          (prevLine === undefined ? '' : `; first on line ${prevLine}`),
-        { file, line: lines?.[i], field: 'x' },
-      );
     }
     wavenumber[m] = xi;
-    absorbance[m] = yi;
+    absorbance[m] = end - k === 1 || hi === lo ? y[i]! : sum / (end - k);
     m++;
+    k = end;
+  }
+  if (averaged > 0) {
+    warnings.push({
+      line: firstAveragedLine,
+      message: `${averaged} x value${averaged === 1 ? '' : 's'} read more than once with different y; the readings were averaged (widest spread ${widestSpread} at x = ${widestAt})`,
+    });
   }
   if (merged > 0) {
     warnings.push({

@@ -92,6 +92,12 @@ export const timeDomainSchema = z
     zeroFill: z.number().int().min(1).max(16).default(2),
     /** Coverage keeps only wavenumbers where the reference power exceeds this fraction of its peak. */
     powerThreshold: z.number().gt(0).lt(1).default(1e-4),
+    /**
+     * Coverage also needs both the sample's and the reference's spectral amplitude to exceed this many times the
+     * noise floor measured on the reference trace (pre-pulse part or highest frequencies; a per-bin amplitude floor,
+     * so k = 3 keeps bins whose power is above 9 × the floor). Absent: no such test (recipes written before it).
+     */
+    noiseFloorFactor: z.number().finite().positive().optional(),
   })
   .strict();
 export type TimeDomainStep = z.output<typeof timeDomainSchema>;
@@ -131,6 +137,28 @@ export const recipeSchema = z
           })
           .strict(),
       ])
+      .optional(),
+    /**
+     * Resolution matching: a spectrum sharper than `target` (cm⁻¹, FWHM of the instrument line shape) is convolved
+     * with a Gaussian of FWHM √(target² − own²), after crop, exclusion and ATR correction and before any subtraction
+     * or baseline, so spectra from sharper and coarser instruments are compared at one resolution; a spectrum coarser
+     * than the target is kept as it is, with a QC note. `own` is pinned at ingest from the entry's resolution (its
+     * metadata or JCAMP-DX `##RESOLUTION=`, else estimated as two point spacings and marked `estimated`); absent,
+     * it is estimated from the spectrum. References of a subtraction step are brought to the target too, at their
+     * estimated resolution. Absent or null: no such step (recipes written before it).
+     */
+    resolution: z
+      .object({
+        target: z.number().finite().positive().default(4),
+        /** The instrument line shape assumed and applied; Gaussian widths add in quadrature. */
+        lineShape: z.literal('gaussian').default('gaussian'),
+        /** The spectrum's own resolution, cm⁻¹ (pinned at ingest). */
+        own: z.number().finite().positive().optional(),
+        /** True when `own` was estimated from the point spacing rather than stated. */
+        estimated: z.boolean().optional(),
+      })
+      .strict()
+      .nullable()
       .optional(),
     /** Subtract a library spectrum (water, buffer) scaled by least squares inside `window`. */
     reference: z

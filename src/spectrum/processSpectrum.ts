@@ -7,8 +7,10 @@ import { emscCorrect } from './emscCorrect.js';
 import { excludeWindows } from './excludeWindows.js';
 import { fitReferences } from './fitReferences.js';
 import { gridAxis } from './gridAxis.js';
+import { matchResolution } from './matchResolution.js';
 import { normaliseVector } from './normaliseVector.js';
 import { resampleToGrid } from './resampleToGrid.js';
+import { resolutionOf } from './resolutionOf.js';
 import { saturatedRanges } from './saturatedRanges.js';
 import { savitzkyGolay } from './savitzkyGolay.js';
 import { sortAndMerge } from './sortAndMerge.js';
@@ -48,7 +50,8 @@ export interface ProcessedSpectrum {
 
 /**
  * Applies the recipe in its fixed order: sortAndMerge → crop → exclude → ATR correction (sample only, when the
- * recipe has an explicit step; 'auto' is resolved at ingest) → multi-reference subtraction (scale, offset
+ * recipe has an explicit step; 'auto' is resolved at ingest) → resolution matching (Gaussian convolution to the
+ * recipe's target, when it has the step) → multi-reference subtraction (scale, offset
  * and slope; references sorted, cropped and excluded but not baseline-corrected) → baseline → reference subtraction →
  * EMSC → Savitzky–Golay smoothing → resample onto the grid → exclusion windows set NaN on the grid →
  * normalise. Pure and deterministic: the same inputs always give the same bytes, which is what lets the
@@ -91,6 +94,12 @@ export function processSpectrum(
         angle: atr.angle,
         referenceWavenumber: atr.referenceWavenumber,
       });
+    }
+    // The sample's own resolution is pinned in the recipe; a reference's is estimated from its spacing.
+    const resolution = recipe.resolution;
+    if (resolution !== undefined && resolution !== null) {
+      const own = (sample ? resolution.own : undefined) ?? resolutionOf(s).value;
+      s = matchResolution(s, { own: Number.isFinite(own) ? own : 0, target: resolution.target, maxGap });
     }
     return s;
   };

@@ -86,6 +86,12 @@ export interface QcFlagsOptions {
    */
   dynamicRangeOrders?: number;
   /**
+   * The spectrum's resolution and the recipe's target (cm⁻¹), when the recipe matches resolutions: a spectrum
+   * coarser than the target cannot be brought to it and is noted.
+   * @default undefined (no resolution step)
+   */
+  resolution?: { value: number; estimated: boolean; target: number };
+  /**
    * A dynamic range below this many orders is a warning.
    * @default 3
    */
@@ -103,7 +109,8 @@ export type QcOptions = QcFlagsOptions;
  * spikes (narrower than any band: y(i) far from the line through its neighbours two and three points away
  * while y(i±1) stay within a third of that excursion; two adjacent bad points are missed, and bands narrower
  * than about 3 points, which are undersampled, can look like spikes), gaps in the source coverage, coarse
- * point spacing, narrow coverage of the grid (an error when nothing is covered), and low dynamic range.
+ * point spacing, narrow coverage of the grid (an error when nothing is covered), a resolution coarser than the
+ * recipe's target, and low dynamic range.
  * `original` is the parsed spectrum (any order; sorted here), `processed` the grid vector (NaN not covered).
  * Near-duplicates are the library's check.
  */
@@ -286,6 +293,17 @@ export function qcFlags(
       level: 'warning',
       message: `The spectrum covers ${num(fraction * 100)} % of the library grid ${wn(gridLo, false)}–${wn(gridHi)}${span}, below ${num(minCoverage * 100)} %; matching uses the overlap only.`,
       value: fraction,
+    });
+  }
+
+  // Resolution coarser than the recipe's common target.
+  const resolution = options.resolution;
+  if (resolution !== undefined && resolution.value > resolution.target) {
+    flags.push({
+      code: 'coarse-resolution',
+      level: 'warning',
+      message: `The resolution is ${num(resolution.value)} cm⁻¹${resolution.estimated ? ' (estimated from the point spacing)' : ''}, coarser than the recipe's common ${num(resolution.target)} cm⁻¹: kept as it is, so its bands are broader than those of entries brought to the target.`,
+      value: resolution.value,
     });
   }
 

@@ -8,13 +8,19 @@ export interface SortAndMergeOptions {
    * @default undefined
    */
   file?: string;
+  /**
+   * Called once, with the number of wavenumbers whose differing readings were averaged, when there are any.
+   * @default undefined
+   */
+  onAveraged?: (count: number) => void;
 }
 
 /**
- * Returns a new spectrum with strictly ascending wavenumbers. Repeated wavenumbers with identical absorbance
- * (files that repeat the last point of one data line on the next) are merged into one point; a repeated
- * wavenumber with a different absorbance is ambiguous and refused with DUPLICATE_X. Non-finite values give
- * NOT_FINITE and fewer than two distinct points TOO_FEW_POINTS.
+ * Returns a new spectrum with strictly ascending wavenumbers. Repeated wavenumbers are merged into one point with
+ * the mean of their absorbances (identical values, as in files that repeat the last point of one data line on the
+ * next, stay as they are; different readings are averaged, the usual practice; `onAveraged` hears how many). The
+ * readers already average and warn with line numbers, so a file's spectrum arrives here without repeats.
+ * Non-finite values give NOT_FINITE and fewer than two distinct points TOO_FEW_POINTS.
  */
 export function sortAndMerge(spectrum: Spectrum, options: SortAndMergeOptions = {}): Spectrum {
   const { wavenumber: x, absorbance: y } = spectrum;
@@ -65,24 +71,25 @@ export function sortAndMerge(spectrum: Spectrum, options: SortAndMergeOptions = 
   const outX = new Float64Array(n);
   const outY = new Float64Array(n);
   let m = 0;
-  for (let k = 0; k < n; k++) {
-    const i = order[k]!;
-    const xi = x[i]!;
-    const yi = y[i]!;
-    if (m > 0 && outX[m - 1] === xi) {
-      if (outY[m - 1] !== yi) {
-        throw new BandshelfError(
-          'DUPLICATE_X',
-          `wavenumber ${xi} appears twice with different absorbances (${outY[m - 1]} and ${yi})`,
-          { ...(file === undefined ? {} : { file }), field: 'wavenumber' },
-        );
-      }
-      continue;
+  let averaged = 0;
+  for (let k = 0; k < n; ) {
+    const xi = x[order[k]!]!;
+    let end = k + 1;
+    let sum = y[order[k]!]!;
+    let differs = false;
+    while (end < n && x[order[end]!]! === xi) {
+      const yr = y[order[end]!]!;
+      if (yr !== y[order[k]!]!) differs = true;
+      sum += yr;
+      end++;
     }
     outX[m] = xi;
-    outY[m] = yi;
+    outY[m] = differs ? sum / (end - k) : y[order[k]!]!;
+    if (differs) averaged++;
     m++;
+    k = end;
   }
+  if (averaged > 0) options.onAveraged?.(averaged);
   if (m < 2) {
     throw new BandshelfError(
       'TOO_FEW_POINTS',

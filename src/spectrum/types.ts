@@ -29,6 +29,7 @@ export type QcCode =
   | 'spikes'
   | 'coverage-gap'
   | 'coarse-spacing'
+  | 'coarse-resolution'
   | 'narrow-coverage'
   | 'near-duplicate'
   | 'low-dynamic-range';

@@ -131,7 +131,6 @@ describe('readDelimited: bad input is a typed error naming file and line', () =>
     ['NaN', 'cm-1,A\n1000,1\n1001,NaN\n1002,3', 'NOT_FINITE', 3],
     ['Infinity', 'cm-1,A\n1000,1\n1001,-Infinity\n', 'NOT_FINITE', 3],
     ['an overflowing number', 'cm-1,A\n1000,1\n1001,1e400\n', 'NOT_FINITE', 3],
-    ['one x twice with different y', 'cm-1,A\n1000,1\n1001,2\n1001,3\n', 'DUPLICATE_X', 4],
     ['a zig-zag x', 'cm-1,A\n1000,1\n1002,2\n1001,3\n1003,4\n1000.5,5\n', 'NOT_MONOTONIC', 4],
     ['a negative wavelength', 'um,A\n-3,1\n5,2\n', 'NOT_FINITE', 2],
     ['a negative wavenumber', 'cm-1,A\n1000,1\n-1000,2\n', 'NOT_A_SPECTRUM', 3],

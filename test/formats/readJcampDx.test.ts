@@ -352,12 +352,6 @@ describe('readJcampDx: bad input is a typed error naming file and line', () => {
     ['a single point', jdx(['0 5'], { LASTX: '0', NPOINTS: '1' }), 'TOO_FEW_POINTS', 12],
     ['an XYDATA without lines', jdx([]), 'EMPTY_FILE', 11],
     [
-      'XYPOINTS with one x twice, different y',
-      jdx(['1000, 1', '1002, 2', '1002, 3'], { NPOINTS: '3' }, '##XYPOINTS=(XY..XY)'),
-      'DUPLICATE_X',
-      14,
-    ],
-    [
       'XYPOINTS that zig-zag',
       jdx(['1000, 1', '1004, 2', '1002, 3', '1006, 1', '1001, 2'], { NPOINTS: '5' }, '##XYPOINTS=(XY..XY)'),
       'NOT_MONOTONIC',

@@ -15,16 +15,17 @@ describe('spectrumFromPoints', () => {
     expect(Array.from(x)).toEqual([3, 2, 1]);
   });
 
-  it('names the line of a duplicate x with a different y, and of the first copy', () => {
-    try {
-      spectrumFromPoints({ x: f([1, 2, 2, 3]), y: f([1, 2, 5, 3]) }, { file: 'd.csv', lines: [4, 5, 6, 7] });
-      expect.unreachable();
-    } catch (e) {
-      const err = e as BandshelfError;
-      expect(err.code).toBe('DUPLICATE_X');
-      expect(err.line).toBe(6);
-      expect(err.message).toMatch(/first on line 5/);
-    }
+  it('averages readings of one x with different y, warning with the line of the first repeat', () => {
+    const { spectrum, warnings } = spectrumFromPoints(
+      { x: f([1, 2, 2, 3]), y: f([1, 2, 5, 3]) },
+      { file: 'd.csv', lines: [4, 5, 6, 7] },
+    );
+    expect(Array.from(spectrum.wavenumber)).toEqual([1, 2, 3]);
+    // (2 + 5) / 2, by hand.
+    expect(Array.from(spectrum.absorbance)).toEqual([1, 3.5, 3]);
+    expect(warnings).toHaveLength(1);
+    expect(warnings[0]!.line).toBe(6);
+    expect(warnings[0]!.message).toMatch(/averaged.*spread 3 at x = 2/);
   });
 
   it('refuses all points at one x', () => {

@@ -296,3 +296,59 @@ describe('processSpectrum: version-1 recipes keep their meaning', () => {
     }
   });
 });
+
+describe('processSpectrum: resolution matching', () => {
+  // A Gaussian band of intrinsic FWHM 8 cm⁻¹ seen through Gaussian instrument line shapes of 2 and 6 cm⁻¹ is a
+  // Gaussian of FWHM √(8² + 2²) and √(8² + 6²) = 10 cm⁻¹: widths of convolved Gaussians add in quadrature
+  // (common practice) while the area stays (peak × width fixed). Brought to 6 cm⁻¹, both must be the same 10 cm⁻¹ band.
+  const measured = (ils: number, step: number) => {
+    const width = Math.sqrt(64 + ils * ils);
+    const n = Math.round(400 / step) + 1;
+    const x = Float64Array.from({ length: n }, (_, i) => 1300 + i * step);
+    return spectrum(
+      x,
+      Array.from(x, (v) => (8 / width) * Math.exp(-4 * Math.LN2 * ((v - 1500) / width) ** 2)),
+    );
+  };
+  const wide = { start: 1300, stop: 1700, step: 1 };
+  const largestDifference = (a: Float64Array, b: Float64Array) => {
+    let d = 0;
+    for (let i = 0; i < a.length; i++) d = Math.max(d, Math.abs(a[i]! - b[i]!));
+    return d;
+  };
+
+  it('gives a sharp and a coarse instrument the same vector at the common resolution, and changes nothing without the step', () => {
+    const sharp = measured(2, 0.25);
+    const coarse = measured(6, 1);
+    const step = (own: number) => plain({ resolution: { target: 6, own }, resample: { method: 'area' } });
+    const a = processSpectrum(sharp, step(2), wide).processed;
+    const b = processSpectrum(coarse, step(6), wide).processed;
+    // Within 1 % of the band's height (0.8), the agreement target; what is left is the line-segment
+    // drawing of the 1 cm⁻¹ points on the band's top.
+    expect(largestDifference(a, b)).toBeLessThan(0.008);
+    // Without the step the two differ by the width difference (about 12 % of the peak here).
+    const off = plain({ resample: { method: 'area' } });
+    const c = processSpectrum(sharp, off, wide).processed;
+    const d = processSpectrum(coarse, off, wide).processed;
+    expect(largestDifference(c, d)).toBeGreaterThan(0.05);
+    // Absent and null both mean no step: the vector is byte for byte the recipe-without-the-key one.
+    const none = processSpectrum(
+      sharp,
+      plain({ resolution: null, resample: { method: 'area' } }),
+      wide,
+    ).processed;
+    expect(Array.from(none)).toEqual(Array.from(c));
+  });
+
+  it('estimates the own resolution from the spacing when the recipe carries none', () => {
+    // At 2 cm⁻¹ spacing the estimate is 4 cm⁻¹, so a target of 4 leaves the spectrum as it is.
+    const coarse = measured(6, 2);
+    const at4 = processSpectrum(
+      coarse,
+      plain({ resolution: { target: 4 }, resample: { method: 'area' } }),
+      wide,
+    );
+    const off = processSpectrum(coarse, plain({ resample: { method: 'area' } }), wide);
+    expect(Array.from(at4.processed)).toEqual(Array.from(off.processed));
+  });
+});

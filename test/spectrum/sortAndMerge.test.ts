@@ -36,18 +36,15 @@ describe('sortAndMerge', () => {
     expect(Array.from(out.absorbance)).toEqual([0.5, 0.6, 0.7]);
   });
 
-  it('refuses a repeated wavenumber with a different absorbance, naming the file', () => {
-    let caught: unknown;
-    try {
-      sortAndMerge(spectrum([1000, 1002, 1004, 1002], [0.5, 0.6, 0.7, 0.65]), { file: 'serum-07.csv' });
-    } catch (error) {
-      caught = error;
-    }
-    expect(caught).toBeInstanceOf(BandshelfError);
-    const error = caught as BandshelfError;
-    expect(error.code).toBe('DUPLICATE_X');
-    expect(error.file).toBe('serum-07.csv');
-    expect(error.oneLine()).toContain('1002');
+  it('averages repeated wavenumbers with different absorbances, and says how many (the usual practice)', () => {
+    const seen: number[] = [];
+    const out = sortAndMerge(spectrum([1000, 1002, 1004, 1002, 1002], [0.5, 0.6, 0.7, 0.65, 0.7]), {
+      onAveraged: (count) => seen.push(count),
+    });
+    expect(Array.from(out.wavenumber)).toEqual([1000, 1002, 1004]);
+    // (0.6 + 0.65 + 0.7) / 3 = 0.65, by hand.
+    expect(out.absorbance[1]).toBeCloseTo(0.65, 12);
+    expect(seen).toEqual([1]);
   });
 
   it('refuses NaN and Infinity with NOT_FINITE and names which axis', () => {

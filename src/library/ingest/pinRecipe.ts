@@ -2,6 +2,8 @@
 // stays reproducible after those entries change.
 import { BandshelfError } from '../../error.js';
 import type { Recipe } from '../../schema/recipe.js';
+import { pinResolution } from '../../spectrum/pinResolution.js';
+import type { Resolution } from '../../spectrum/resolutionOf.js';
 import type { Library } from '../types.js';
 
 export interface PinRecipeOptions {
@@ -11,6 +13,8 @@ export interface PinRecipeOptions {
   file?: string;
   /** The entry's metadata technique, for the technique-aware ATR default. @default undefined (not ATR) */
   technique?: string;
+  /** The entry's resolution (stated or estimated), pinned into a resolution step. @default undefined */
+  resolution?: Resolution;
 }
 
 /**
@@ -80,7 +84,11 @@ export function pinRecipe(library: Library, recipe: Recipe, options: PinRecipeOp
     }
     return { ...step, revision: head.revision };
   };
-  const { subtract: _subtract, ...rest } = pinAtr(recipe, options.technique);
+  const withAtr = pinAtr(recipe, options.technique);
+  const { subtract: _subtract, ...rest } = pinResolution(
+    withAtr,
+    options.resolution === undefined ? {} : { resolution: options.resolution },
+  );
   return {
     ...rest,
     reference: recipe.reference === null ? null : pin(recipe.reference, 'reference'),

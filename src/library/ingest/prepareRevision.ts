@@ -5,6 +5,7 @@ import type { XUnit } from '../../formats/types.js';
 import { cropToWindow } from '../../spectrum/cropToWindow.js';
 import { excludeWindows } from '../../spectrum/excludeWindows.js';
 import { qcFlags } from '../../spectrum/qcFlags.js';
+import { resolutionOf } from '../../spectrum/resolutionOf.js';
 import { sortAndMerge } from '../../spectrum/sortAndMerge.js';
 import { subtractBaseline } from '../../spectrum/subtractBaseline.js';
 import type { QcFlag } from '../../spectrum/types.js';
@@ -36,9 +37,12 @@ export function prepareRevision(
   options: PrepareRevisionOptions = {},
 ): PreparedRevision {
   const id = input.meta.id;
+  // Recorded with every revision (stated in the metadata or the file's labels, else estimated from the spacing).
+  const resolution = resolutionOf(input.original, { stated: input.meta.resolution });
   const recipe = pinRecipe(library, input.recipe, {
     entryId: id,
     file: input.label,
+    resolution,
     ...(typeof input.meta.technique === 'string' ? { technique: input.meta.technique } : {}),
   });
   const files = input.files.map((f) => ({ ...f, sha256: sha256Hex(f.bytes) }));
@@ -62,6 +66,15 @@ export function prepareRevision(
     ...(input.extras.dynamicRangeOrders !== undefined
       ? { dynamicRangeOrders: input.extras.dynamicRangeOrders }
       : {}),
+    ...(recipe.resolution?.own === undefined
+      ? {}
+      : {
+          resolution: {
+            value: recipe.resolution.own,
+            estimated: recipe.resolution.estimated === true,
+            target: recipe.resolution.target,
+          },
+        }),
   });
   if (options.pool) {
     const duplicate = nearDuplicateFlag(processed, options.pool, {
@@ -91,6 +104,7 @@ export function prepareRevision(
   if (blocked && !unchanged) throw blocked;
   const extras = {
     ...input.extras,
+    ...(Number.isFinite(resolution.value) ? { resolution } : {}),
     ...(referenceScale === undefined ? {} : { referenceScale }),
     ...(subtracted === undefined ? {} : { subtracted }),
   };

@@ -6,6 +6,7 @@ import { instantiateScoreKernels } from '../../match/instantiateScoreKernels.js'
 import { jsScoreKernels } from '../../match/jsScoreKernels.js';
 import { runMatchPipeline } from '../../match/pipeline/runMatchPipeline.js';
 import type { MatchScorer, MatchSource } from '../../match/pipeline/types.js';
+import { resolutionForUnknown } from '../../match/resolutionForUnknown.js';
 import { searchSpectra } from '../../match/searchSpectra.js';
 import { MIN_OVERLAP_DEFAULT } from '../../match/searchTypes.js';
 import { shippedAssignments } from '../../match/shippedAssignments.js';
@@ -110,10 +111,12 @@ export async function matchSpectrumFile(
   });
   const first = parsed[0]!;
   const title = typeof first.meta.title === 'string' ? first.meta.title : undefined;
-  const warnings = first.warnings.map((w) =>
-    w.line === undefined ? w.message : `line ${w.line}: ${w.message}`,
-  );
   const source = options.source ?? publishedMatchSource(set);
+  const matched = resolutionForUnknown(first.spectrum, source.recipe, { stated: first.meta.resolution });
+  const warnings = [
+    ...first.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
+    ...matched.warnings,
+  ];
   const report = await runMatchPipeline(
     {
       unknown: {
@@ -134,6 +137,7 @@ export async function matchSpectrumFile(
       top: options.k ?? 10,
       minOverlap: options.minOverlap ?? MIN_OVERLAP_DEFAULT,
       mixture: options.mixture ?? true,
+      ...(matched.recipe === source.recipe ? {} : { recipe: matched.recipe }),
     },
   );
   const paths = new Map(set.entries.map((e) => [e.id, e.path]));

@@ -5,7 +5,8 @@
 //     → { spectrum, dynamicRangeOrders, timingSpreadAs, timingJitterAs, coverage, noiseFrom, spacing, warnings }
 // `samples` and `references` come from readTimeTrace (delay already in fs). `step` is recipe.timeDomain (parsed or
 // not; it is parsed here with its defaults). The spectrum is in cm⁻¹ ascending, absorbance A = −log10(|E_s|²/|E_r|²),
-// and holds ONLY the wavenumbers where the reference power ≥ step.powerThreshold × its peak: everything else is not
+// and holds ONLY the wavenumbers where the reference power ≥ step.powerThreshold × its peak (and, with
+// step.noiseFloorFactor k, where both spectra's amplitudes exceed k × the reference trace's noise floor): everything else is not
 // covered (absent, so resampleToGrid leaves the grid NaN there). Store dynamicRangeOrders and timingSpreadAs with the
 // revision. Throws BandshelfError (BAD_RECIPE, BAD_FORMAT, TOO_FEW_POINTS, NOT_FINITE, NOT_MONOTONIC, NOT_A_SPECTRUM).
 import type { z } from 'zod';
@@ -86,7 +87,8 @@ function pooled(parts: { sd: number | null; count: number }[]): number | null {
  * remove the mean; align repeated traces of each set on their main pulse and average them; time gate (step.gate,
  * in step.timeUnit); apodise with one window centred on the reference's main pulse and reaching the far end of the
  * record (or gate), the same for sample and reference; zero-fill both to one power-of-two length (step.zeroFill);
- * FFT; frequency → wavenumber (ν̃ = f / c); absorbance where the reference power passes the threshold.
+ * FFT; frequency → wavenumber (ν̃ = f / c); absorbance where the reference power passes the threshold and, with
+ * `noiseFloorFactor` k, where both the sample's and the reference's amplitude exceed k × the noise floor.
  */
 export function traceToSpectrum(
   samples: Trace | readonly Trace[],
@@ -179,15 +181,28 @@ export function traceToSpectrum(
   const pr = referenceSpectrum.power;
   const ps = sampleSpectrum.power;
   const threshold = recipe.powerThreshold * range.peakPower;
+  // Both spectra must stand k × (in amplitude) above the reference trace's noise floor, so noise is not read as bands.
+  const factor = recipe.noiseFloorFactor;
+  const floor = factor === undefined ? 0 : factor * factor * range.noiseFloor;
   const keep: number[] = [];
   let dropped = 0;
+  let belowFloor = 0;
   for (let k = 1; k < pr.length; k++) {
     if (!(pr[k]! >= threshold)) continue;
+    if (floor > 0 && !(pr[k]! > floor && ps[k]! > floor)) {
+      belowFloor++;
+      continue;
+    }
     if (!(ps[k]! > 0) || !Number.isFinite(ps[k]!)) {
       dropped++;
       continue;
     }
     keep.push(k);
+  }
+  if (belowFloor > 0) {
+    warnings.push({
+      message: `${belowFloor} frequency bin(s) above the power threshold had the sample or the reference within ${factor} × the noise floor (in amplitude) and were left not covered`,
+    });
   }
   if (dropped > 0) {
     warnings.push({

@@ -22,3 +22,22 @@ describe('pinRecipe ATR default', () => {
     library.db.close();
   });
 });
+
+describe('pinRecipe resolution', () => {
+  it("pins the entry's resolution into a resolution step, and leaves recipes without one alone", () => {
+    const { library } = newLibrary();
+    const recipe = library.recipe;
+    const resolution = { value: 2, estimated: false };
+    expect('resolution' in pinRecipe(library, recipe, { resolution })).toBe(false);
+    const step = { target: 4, lineShape: 'gaussian' as const };
+    expect(pinRecipe(library, { ...recipe, resolution: step }, { resolution }).resolution).toEqual({
+      ...step,
+      own: 2,
+      estimated: false,
+    });
+    // A recipe that already names its own resolution keeps it.
+    const given = { ...step, own: 1, estimated: false };
+    expect(pinRecipe(library, { ...recipe, resolution: given }, { resolution }).resolution).toEqual(given);
+    library.db.close();
+  });
+});

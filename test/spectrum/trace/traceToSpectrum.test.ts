@@ -169,6 +169,54 @@ describe('traceToSpectrum: coverage and dynamic range', () => {
   });
 });
 
+describe('traceToSpectrum: coverage above the noise floor', () => {
+  it('keeps only bins where both amplitudes exceed k × the noise floor, at the analytic edge of a Gaussian pulse', () => {
+    // |E(f)| = A·s·√(2π)/2 · exp(−2π²s²(f − f_c)²) for a Gaussian pulse (transform pair), white noise of variance σ²
+    // gives the floor Δt²σ²N per bin (Parseval; common practice). The sample is half the field, so its power
+    // P(f)/4 reaches k²·floor at |f − f_c| = √(ln(P_peak / (4 k² floor)) / (4π²s²)).
+    const tau = 30;
+    const n = 4096;
+    const sigma = 1e-3;
+    const carrier = 60;
+    const k = 3;
+    const s = tau / Math.sqrt(4 * Math.LN2);
+    const peak = ((s * Math.sqrt(2 * Math.PI)) / 2) ** 2;
+    const floor = sigma * sigma * n;
+    const edge = (factor: number) =>
+      Math.sqrt(Math.log(peak / (4 * factor * factor * floor)) / (4 * Math.PI ** 2 * s * s)) * 1000 * PER_THZ;
+    const half = edge(k);
+    // Where the clean sample amplitude has fallen to the floor itself: beyond it a bin is noise, and noise alone
+    // passes k² = 9 × its mean power with probability e⁻⁹ ≈ 10⁻⁴ (exponential power; common practice). Between
+    // the two edges signal plus noise may pass.
+    const noiseOnly = edge(1);
+    const noiseR = normalSource(21);
+    const noiseS = normalSource(22);
+    const clean = gaussianPulse(2000, tau, carrier);
+    const reference = uniformTrace(n, 1, 0, (t) => clean(t) + sigma * noiseR());
+    const sample = uniformTrace(n, 1, 0, (t) => 0.5 * clean(t) + sigma * noiseS());
+    const step = { apodisation: 'none' as const, powerThreshold: 1e-12 };
+    const masked = traceToSpectrum(sample, reference, { ...step, noiseFloorFactor: k });
+    const centre = carrier * PER_THZ;
+    const outside = (w: Float64Array, limit: number) =>
+      Array.from(w).filter((v) => Math.abs(v - centre) > limit).length;
+    expect(outside(masked.spectrum.wavenumber, noiseOnly)).toBe(0);
+    // The band inside is kept: every bin where the clean sample stands 5 × above the floor, and none past the noise.
+    const strong = edge(5);
+    const w = Array.from(masked.spectrum.wavenumber);
+    const within = w.filter((v) => Math.abs(v - centre) <= strong);
+    for (let i = 1; i < within.length; i++) {
+      expect(within[i]! - within[i - 1]!).toBeCloseTo(masked.spacing, 6);
+    }
+    expect(masked.coverage.max).toBeGreaterThan(centre + strong);
+    expect(masked.coverage.min).toBeLessThan(centre - strong);
+    expect(half).toBeGreaterThan(strong);
+    expect(masked.warnings.some((w) => /noise floor/.test(w.message))).toBe(true);
+    // Without the factor (recipes written before it) the noise-only bins stay in.
+    const unmasked = traceToSpectrum(sample, reference, step);
+    expect(outside(unmasked.spectrum.wavenumber, noiseOnly)).toBeGreaterThan(100);
+  });
+});
+
 describe('traceToSpectrum: repeated traces', () => {
   it('aligns and averages repeated scans and reports their timing spread', () => {
     const normal = normalSource(11);

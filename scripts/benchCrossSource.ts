@@ -1,0 +1,339 @@
+// npm run bench:cross-source -- [--data DIR]: top-1 identification across sources on real spectra, bandshelf vs plain r.
+//
+// The real files in ../shared/real-spectra (beside the checkout; never copied into it) include sets of one substance
+// measured by different instruments, labs or samples (see that folder's PROVENANCE.md and the titles in the files):
+// polystyrene from the JCAMP-DX test disk, from the Lancashire test set and from the PlotFTIR sample set; the PlotFTIR diesel and
+// biodiesel-blend series; the ChemoSpec saw-palmetto extract spectra of four brands. For each member of a set in turn,
+// a library is built from that member, one fixed member of every other set and every other distinct spectrum of the
+// folder (distractors); the set's other members are the queries. A query's top-1 is right when the best hit belongs to
+// its set. Scored side by side in the same run on the same library: bandshelf's own ingest and match pipeline under
+// each recipe listed, and a plain Pearson correlation of the unprocessed absorbance linearly interpolated onto a
+// 2 cm⁻¹ grid over the two spectra's overlap (at least 200 cm⁻¹, the matcher's default minimum overlap). Besides
+// top-1, each method's margin per query (best score of the query's own set minus the best score of anything else;
+// > 0 is a right top-1) is summarised by its median and minimum, on each method's own score scale. One JSON.
+// The sets come from the files' provenance, not from the scores; nothing here is tuned to these files.
+import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { readSpectrumFile } from '../src/formats/readSpectrumFile.js';
+import { ingest } from '../src/library/ingest/ingest.js';
+import { closeLibrary } from '../src/library/store/closeLibrary.js';
+import { initLibrary } from '../src/library/store/initLibrary.js';
+import { readSearchSet } from '../src/library/store/readSearchSet.js';
+import { libraryMatchSource } from '../src/match/libraryMatchSource.js';
+import { runMatchPipeline } from '../src/match/pipeline/runMatchPipeline.js';
+import { resolutionForUnknown } from '../src/match/resolutionForUnknown.js';
+import type { RecipeInput } from '../src/schema/recipe.js';
+import { RECIPE_PRESETS } from '../src/schema/recipePresets.js';
+import type { Spectrum } from '../src/spectrum/types.js';
+
+/** Sets of the same substance from different sources or samples (PROVENANCE.md and the files' own titles). */
+const SETS: Record<string, string[]> = {
+  // dupdec1.jdx (another origin, 1 cm⁻¹ spacing, a thicker film) carries no name; it shows all seven European
+  // Pharmacopoeia 2.2.24 polystyrene check bands (3060.0 … 1028.3 cm⁻¹) within 1 cm⁻¹, so it is polystyrene too.
+  polystyrene: ['jcamp/jtpolys.jdx', 'jcamp/dupdec1.jdx', 'text/plotftir_polystyrene.csv'],
+  'diesel-biodiesel-blend': [
+    'text/plotftir_biodiesel_0.csv',
+    'text/plotftir_biodiesel_0_25.csv',
+    'text/plotftir_biodiesel_0_50.csv',
+    'text/plotftir_biodiesel_1_0.csv',
+    'text/plotftir_biodiesel_2_5.csv',
+    'text/plotftir_biodiesel_5_0.csv',
+    'text/plotftir_biodiesel_7_5.csv',
+    'text/plotftir_biodiesel_10_0.csv',
+    'text/plotftir_biodiesel_B0_5.csv',
+    'text/plotftir_biodiesel_B5.csv',
+    'text/plotftir_diesel_unknown.csv',
+  ],
+  'saw-palmetto-extract': [
+    'text/chemospec_SrE_CVS_adSrE.csv',
+    'text/chemospec_SrE_ET_pSrE.csv',
+    'text/chemospec_SrE_MDB_pSrE.csv',
+    'text/chemospec_SrE_NR_pSrE.csv',
+  ],
+};
+
+/**
+ * One spectrum of every other distinct substance of the folder; files that are the same record in another
+ * encoding (JCAMP-DX compression forms, transmittance and absorbance of one measurement) appear once. Multi-block,
+ * non-infrared, wavelength-only and arbitrary-unit test files are left out.
+ */
+const DISTRACTORS = [
+  'jcamp/BRUKER2.JCM',
+  'jcamp/LABCALC.DX',
+  'jcamp/PE1800.DX',
+  'jcamp/SBO.jdx',
+  'jcamp/SPECFILE.DX',
+  'jcamp/chemspectra_IR.dx',
+  'jcamp/chemspectra_fdm_c175.dx',
+  'jcamp/xyinc1.jdx',
+  'text/plotftir_heptanes.csv',
+  'text/plotftir_isopropanol.csv',
+  'text/plotftir_paper.csv',
+  'text/plotftir_toluene.csv',
+];
+
+/** The recipes bandshelf is scored with: what `init` gives, that plus resolution matching, and the film preset. */
+const RECIPES: Record<string, RecipeInput> = {
+  default: {},
+  'default+resolution-4': { resolution: { target: 4 } },
+  'dried-film-preset': RECIPE_PRESETS['dried-film'],
+};
+
+const PLAIN_STEP = 2;
+const MIN_OVERLAP = 200;
+
+function argument(name: string, fallback: string): string {
+  const at = process.argv.indexOf(`--${name}`);
+  return at >= 0 ? process.argv[at + 1]! : fallback;
+}
+
+function slug(file: string): string {
+  return file
+    .toLowerCase()
+    .replace(/\.[a-z]+$/, '')
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '');
+}
+
+/** Linear interpolation of the spectrum at 2 cm⁻¹ grid points inside its own range (NaN outside); no processing. */
+function plainVector(s: Spectrum, lo: number, count: number): Float64Array {
+  const order = Array.from(s.wavenumber.keys()).sort((a, b) => s.wavenumber[a]! - s.wavenumber[b]!);
+  const x = Float64Array.from(order, (i) => s.wavenumber[i]!);
+  const y = Float64Array.from(order, (i) => s.absorbance[i]!);
+  const out = new Float64Array(count).fill(Number.NaN);
+  let j = 0;
+  for (let k = 0; k < count; k++) {
+    const g = lo + k * PLAIN_STEP;
+    if (g < x[0]! || g > x[x.length - 1]!) continue;
+    while (j < x.length - 2 && x[j + 1]! < g) j++;
+    const t = x[j + 1]! === x[j]! ? 0 : (g - x[j]!) / (x[j + 1]! - x[j]!);
+    out[k] = y[j]! + t * (y[j + 1]! - y[j]!);
+  }
+  return out;
+}
+
+/** Pearson r over the points both vectors cover; null below the minimum overlap. */
+function pearson(a: Float64Array, b: Float64Array): number | null {
+  let n = 0;
+  let sa = 0;
+  let sb = 0;
+  for (let i = 0; i < a.length; i++) {
+    if (Number.isFinite(a[i]!) && Number.isFinite(b[i]!)) {
+      n++;
+      sa += a[i]!;
+      sb += b[i]!;
+    }
+  }
+  if ((n - 1) * PLAIN_STEP < MIN_OVERLAP) return null;
+  const ma = sa / n;
+  const mb = sb / n;
+  let ab = 0;
+  let aa = 0;
+  let bb = 0;
+  for (let i = 0; i < a.length; i++) {
+    if (!(Number.isFinite(a[i]!) && Number.isFinite(b[i]!))) continue;
+    ab += (a[i]! - ma) * (b[i]! - mb);
+    aa += (a[i]! - ma) ** 2;
+    bb += (b[i]! - mb) ** 2;
+  }
+  return aa > 0 && bb > 0 ? ab / Math.sqrt(aa * bb) : null;
+}
+
+interface Tally {
+  right: number;
+  queries: number;
+  /** Per query: the best score of the query's own set minus the best score of any other entry. */
+  margins: number[];
+  bySet: Record<string, { right: number; queries: number }>;
+}
+
+function tally(): Tally {
+  return {
+    right: 0,
+    queries: 0,
+    margins: [],
+    bySet: Object.fromEntries(Object.keys(SETS).map((k) => [k, { right: 0, queries: 0 }])),
+  };
+}
+
+function count(t: Tally, set: string, right: boolean): void {
+  t.queries++;
+  t.bySet[set]!.queries++;
+  if (right) {
+    t.right++;
+    t.bySet[set]!.right++;
+  }
+}
+
+/** Median of the finite values, to 4 decimals. */
+function median(values: readonly number[]): number | null {
+  const v = values.filter(Number.isFinite).sort((a, b) => a - b);
+  if (v.length === 0) return null;
+  const m = v.length % 2 === 1 ? v[v.length >> 1]! : (v[v.length / 2 - 1]! + v[v.length / 2]!) / 2;
+  return Math.round(1e4 * m) / 1e4;
+}
+
+async function main(): Promise<void> {
+  // Beside the checkout (as CI places it), or beside the folder of worktrees a checkout may sit in.
+  const besides = [join('..', 'shared', 'real-spectra'), join('..', '..', 'shared', 'real-spectra')];
+  const found = besides
+    .map((p) => resolve(process.cwd(), p))
+    .find((p) => existsSync(join(p, 'PROVENANCE.md')));
+  const data = resolve(argument('data', found ?? besides[0]!));
+  const spectra = new Map<string, Spectrum & { resolution?: unknown }>();
+  for (const file of [...Object.values(SETS).flat(), ...DISTRACTORS]) {
+    const [first] = readSpectrumFile(new Uint8Array(readFileSync(join(data, file))), { file });
+    spectra.set(file, { ...first!.spectrum, resolution: first!.meta.resolution });
+  }
+  const setOf = new Map<string, string>();
+  for (const [set, files] of Object.entries(SETS)) for (const f of files) setOf.set(f, set);
+
+  const plainLo = 400;
+  const plainCount = Math.round((4400 - plainLo) / PLAIN_STEP) + 1;
+  const plain = new Map([...spectra].map(([f, s]) => [f, plainVector(s, plainLo, plainCount)]));
+  const results: Record<string, Tally> = { 'plain-pearson-2cm': tally() };
+  for (const name of Object.keys(RECIPES)) results[`bandshelf:${name}`] = tally();
+  const misses: Record<string, { query: string; library: string; top: string }[]> = {};
+  let libraryMember = '';
+  const miss = (method: string, query: string, top: string) => {
+    const list = misses[method] ?? [];
+    list.push({ query, library: libraryMember, top });
+    misses[method] = list;
+  };
+
+  const work = mkdtempSync(join(tmpdir(), 'bandshelf-cross-source-'));
+  try {
+    for (const [set, members] of Object.entries(SETS)) {
+      for (const member of members) {
+        const others = Object.entries(SETS)
+          .filter(([s]) => s !== set)
+          .map(([, files]) => files[0]!);
+        const libraryFiles = [member, ...others, ...DISTRACTORS];
+        const queries = members.filter((m) => m !== member);
+        libraryMember = member;
+
+        // Plain Pearson on the unprocessed absorbance.
+        for (const q of queries) {
+          let best = '';
+          let bestR = Number.NEGATIVE_INFINITY;
+          let own = Number.NEGATIVE_INFINITY;
+          let other = Number.NEGATIVE_INFINITY;
+          for (const f of libraryFiles) {
+            const r = pearson(plain.get(q)!, plain.get(f)!);
+            if (r === null) continue;
+            if (setOf.get(f) === set) own = Math.max(own, r);
+            else other = Math.max(other, r);
+            if (r > bestR) {
+              bestR = r;
+              best = f;
+            }
+          }
+          count(results['plain-pearson-2cm']!, set, setOf.get(best) === set);
+          results['plain-pearson-2cm']!.margins.push(own - other);
+          if (setOf.get(best) !== set) miss('plain-pearson-2cm', q, best);
+        }
+
+        // bandshelf: the ingest and match pipeline `add` and `match` run, under each recipe.
+        for (const [name, recipe] of Object.entries(RECIPES)) {
+          const path = join(work, `${slug(member)}-${name}.sqlite`);
+          const library = initLibrary(path, { recipe, name: 'cross-source bench' });
+          try {
+            for (const f of libraryFiles) {
+              const outcome = ingest(library, [join(data, f)], {
+                meta: { id: slug(f), name: f },
+                force: true,
+                message: 'cross-source bench',
+              });
+              if (outcome.failed.length > 0) throw new Error(`${f}: ${outcome.failed[0]!.error}`);
+            }
+            const searchSet = readSearchSet(library);
+            const { source, scorer } = libraryMatchSource(library, searchSet, {});
+            const bySlug = new Map(libraryFiles.map((f) => [slug(f), f]));
+            for (const q of queries) {
+              const spectrum = spectra.get(q)!;
+              const pinned = resolutionForUnknown(spectrum, source.recipe, { stated: spectrum.resolution });
+              const report = await runMatchPipeline(
+                {
+                  unknown: { file: q, hash: '0'.repeat(64), spectrum, warnings: [] },
+                  source,
+                  scorer,
+                  assignments: [],
+                },
+                {
+                  top: libraryFiles.length,
+                  ...(pinned.recipe === source.recipe ? {} : { recipe: pinned.recipe }),
+                },
+              );
+              const hits = report.hitsByMetric.pearson ?? [];
+              const top = hits[0]?.id;
+              const ownHit = hits.find((h) => setOf.get(bySlug.get(h.id) ?? '') === set);
+              const otherHit = hits.find((h) => setOf.get(bySlug.get(h.id) ?? '') !== set);
+              results[`bandshelf:${name}`]!.margins.push(
+                (ownHit?.score ?? Number.NEGATIVE_INFINITY) - (otherHit?.score ?? Number.NEGATIVE_INFINITY),
+              );
+              const topFile = top === undefined ? '' : (bySlug.get(top) ?? '');
+              const right = setOf.get(topFile) === set;
+              count(results[`bandshelf:${name}`]!, set, right);
+              if (!right) miss(`bandshelf:${name}`, q, topFile);
+            }
+          } finally {
+            closeLibrary(library);
+          }
+        }
+      }
+    }
+  } finally {
+    rmSync(work, { recursive: true, force: true });
+  }
+
+  const percent = (t: { right: number; queries: number }) =>
+    t.queries === 0 ? null : Math.round((1000 * t.right) / t.queries) / 10;
+  const summary = Object.fromEntries(
+    Object.entries(results).map(([k, t]) => [
+      k,
+      {
+        top1Percent: percent(t),
+        right: t.right,
+        queries: t.queries,
+        marginMedian: median(t.margins),
+        marginMin: Math.round(1e4 * Math.min(...t.margins)) / 1e4,
+        bySet: Object.fromEntries(
+          Object.entries(t.bySet).map(([s, v]) => [s, { top1Percent: percent(v), ...v }]),
+        ),
+      },
+    ]),
+  );
+  process.stdout.write(
+    `${JSON.stringify(
+      {
+        about:
+          'Top-1 identification across sources on real spectra (../shared/real-spectra); research use only: hits are candidates, not identifications.',
+        data: 'real-spectra (see its PROVENANCE.md)',
+        sets: Object.fromEntries(Object.entries(SETS).map(([k, v]) => [k, v.length])),
+        distractors: DISTRACTORS.length,
+        plain: { grid: `${PLAIN_STEP} cm⁻¹, linear interpolation, no processing`, minOverlap: MIN_OVERLAP },
+        recipes: RECIPES,
+        results: summary,
+        bandshelfMinusPlainPoints: Object.fromEntries(
+          Object.keys(RECIPES).map((k) => [
+            k,
+            Math.round(
+              10 *
+                ((summary[`bandshelf:${k}`]!.top1Percent ?? 0) -
+                  (summary['plain-pearson-2cm']!.top1Percent ?? 0)),
+            ) / 10,
+          ]),
+        ),
+        misses,
+      },
+      null,
+      2,
+    )}\n`,
+  );
+}
+
+main().catch((error: unknown) => {
+  process.stderr.write(`bench:cross-source: ${error instanceof Error ? error.message : String(error)}\n`);
+  process.exit(1);
+});
