@@ -85,18 +85,11 @@ export interface SiteRelease {
   diff: SiteReleaseDiff;
 }
 
-export interface SiteAssignment {
-  min: number;
-  max: number;
-  centre?: number;
-  label: string;
-  vibration: string;
-  group: string;
-  class: string[];
-  source: string;
-  basis: string;
-  origin: string;
-}
+/** A band-assignment row as the site shows it: the schema's own fields (`BandAssignment`), no copy of its shape. */
+export type SiteAssignment = Pick<
+  BandAssignment,
+  'min' | 'max' | 'centre' | 'label' | 'vibration' | 'group' | 'class' | 'source' | 'basis' | 'origin'
+>;
 
 /** A validated match report and the name of the file it came from. */
 export interface SiteReport {
