@@ -2,7 +2,7 @@
 import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
-import { BandshelfError } from '../error.js';
+import { BandshelfError, errorLine } from '../error.js';
 import { isSidecarName } from '../formats/isSidecarName.js';
 import { readSpectrumFile } from '../formats/readSpectrumFile.js';
 import { closeLibrary } from '../library/store/closeLibrary.js';
@@ -101,11 +101,6 @@ function readUnknowns(file: string, cwd: string, keepPath: boolean): MatchUnknow
   });
 }
 
-function oneLine(error: unknown): string {
-  if (error instanceof BandshelfError) return error.oneLine();
-  return `internal error: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`;
-}
-
 /**
  * One unknown → one report, each through `runMatchPipeline`. In batch mode an unknown that cannot be read,
  * processed or scored is recorded with its error and the rest go on; a single unknown's error is thrown.
@@ -184,7 +179,7 @@ export async function matchUnknowns(
         read = readUnknowns(file, context.cwd, options.keepPath === true);
       } catch (error) {
         if (single) throw error;
-        outcomes.push({ file, error: oneLine(error) });
+        outcomes.push({ file, error: errorLine(error) });
         continue;
       }
       for (const unknown of read) {
@@ -197,7 +192,7 @@ export async function matchUnknowns(
           outcome.report = await runMatchPipeline({ unknown, source, scorer, assignments }, settings);
         } catch (error) {
           if (single && read.length === 1) throw error;
-          outcome.error = oneLine(error);
+          outcome.error = errorLine(error);
         }
         for (const w of unknown.warnings) warnings.push(`${file}: ${w}`);
       }
