@@ -3,8 +3,8 @@
 import type { Grid, Recipe } from '../../schema/recipe.js';
 import type { Peak, QcFlag, Spectrum } from '../../spectrum/types.js';
 
-/** What the document is made from: an `EntryView`, or the site's view of the same revision. */
-export interface EntryDocumentSource {
+/** What the document carries as it is stored. */
+export interface EntryDocumentFields {
   id: string;
   revision: number;
   hash: string;
@@ -13,14 +13,18 @@ export interface EntryDocumentSource {
   meta: Record<string, unknown>;
   grid: Grid;
   recipe: Recipe;
+  qc: QcFlag[];
+  files: { role: string; name: string; sha256: string; size: number }[];
+}
+
+/** What the document is made from: an `EntryView`, or the site's view of the same revision. */
+export interface EntryDocumentSource extends EntryDocumentFields {
   original: Spectrum;
   /** gridLength(grid) values, ascending wavenumber, NaN where not covered. */
   processed: Float32Array | Float64Array;
   peaks: readonly Peak[];
-  qc: QcFlag[];
   /** Figures stored beside the vectors (`RevisionExtras`). */
   extras: object;
-  files: { role: string; name: string; sha256: string; size: number }[];
 }
 
 /** The processed vector kept in a file beside the JSON instead of inline. */
@@ -30,15 +34,7 @@ export interface ProcessedVectorFile {
   length: number;
 }
 
-export interface EntryDocument {
-  id: string;
-  revision: number;
-  hash: string;
-  reviewState: string;
-  createdAt: string;
-  meta: Record<string, unknown>;
-  grid: Grid;
-  recipe: Recipe;
+export interface EntryDocument extends EntryDocumentFields {
   /** The parsed original spectrum: cm⁻¹ ascending, absorbance; every point. */
   original: { x: number[]; y: number[] };
   /**
@@ -48,9 +44,7 @@ export interface EntryDocument {
    */
   processed: (number | null)[] | ProcessedVectorFile;
   peaks: Peak[];
-  qc: QcFlag[];
   extras: Record<string, unknown>;
-  files: { role: string; name: string; sha256: string; size: number }[];
 }
 
 export interface EntryDocumentOptions {
