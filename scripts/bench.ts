@@ -5,6 +5,7 @@ import { availableParallelism, cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { createInterface } from 'node:readline';
 import { parseArgs } from 'node:util';
+import { seededRandom } from '../src/demo/seededRandom.js';
 import { buildSearchMatrix } from '../src/match/buildSearchMatrix.js';
 import { createScorePool } from '../src/match/createScorePool.js';
 import { instantiateScoreKernels } from '../src/match/instantiateScoreKernels.js';
@@ -33,18 +34,6 @@ interface Band {
   centre: number;
   width: number;
   height: number;
-}
-
-/** mulberry32: small, seeded, identical on every machine. */
-function seeded(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (state + 0x6d2b79f5) >>> 0;
-    let t = state;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 /** Band centres where biological mid-IR spectra crowd them: fingerprint, CH stretch, broad NH/OH. */
@@ -95,7 +84,7 @@ function member(
 }
 
 function syntheticLibrary(entries: number, family: number, seed: number) {
-  const random = seeded(seed);
+  const random = seededRandom(seed).uniform;
   const axis = gridAxis(GRID);
   const cols = gridLength(GRID);
   const processed = new Float32Array(entries * cols);

@@ -5,8 +5,8 @@ import { existsSync, mkdirSync, readdirSync, rmSync, statSync, writeFileSync } f
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
-import { seededRandom } from '../src/demo/seededRandom.js';
 import { findPackageRoot } from '../src/site/findPackageRoot.js';
+import { syntheticReferenceCsv } from './syntheticReferenceCsv.js';
 
 interface SiteFigures {
   library: string;
@@ -79,46 +79,17 @@ function sizeOf(dir: string): { files: number; bytes: number } {
   return { files, bytes };
 }
 
-/**
- * Band centres (cm⁻¹) per class, from the band-assignment table of the project's outside references (Barth 2007;
- * Movasaghi, Rehman & Rehman 2008): proteins amide A/I/II/III, lipids CH₂ stretches and ester C=O, carbohydrates
- * C–O stretches, nucleic acids PO₂⁻ stretches, metabolites and drugs a scatter of fingerprint bands.
- */
-const CLASS_BANDS: Record<string, number[]> = {
-  protein: [3300, 2960, 1652, 1545, 1450, 1400, 1240],
-  lipid: [3010, 2922, 2852, 1740, 1467, 1170],
-  carbohydrate: [3350, 2930, 1150, 1080, 1050, 1025],
-  'nucleic-acid': [3300, 1715, 1650, 1240, 1080, 970],
-  metabolite: [3200, 1620, 1577, 1468, 1417, 1160, 1043],
-  drug: [3300, 1760, 1680, 1600, 1510, 1370, 1240, 1010],
-};
-const CLASSES = Object.keys(CLASS_BANDS);
-
 /** One synthetic entry: a CSV file (1701 points, 4000–600 cm⁻¹ at 2 cm⁻¹, absorbance to 5 decimals) and a sidecar. */
 function writeSyntheticEntry(dir: string, k: number): void {
-  const rnd = seededRandom(0x5eed + k * 7919).uniform;
-  const cls = CLASSES[k % CLASSES.length]!;
-  const bands = CLASS_BANDS[cls]!.map((c) => ({
-    centre: c + (rnd() - 0.5) * 16,
-    width: 8 + rnd() * 22,
-    height: 0.05 + rnd() * 0.6,
-  }));
-  // A few bands of its own, so no two entries are near-duplicates.
-  for (let j = 0; j < 3 + Math.floor(rnd() * 5); j++) {
-    bands.push({ centre: 650 + rnd() * 3300, width: 5 + rnd() * 25, height: 0.02 + rnd() * 0.3 });
-  }
-  const offset = rnd() * 0.05;
-  const slope = (rnd() - 0.5) * 2e-5;
-  const noise = 2e-4 + rnd() * 3e-4;
-  const lines = ['wavenumber_cm-1,absorbance'];
-  for (let i = 0; i < 1701; i++) {
-    const x = 600 + 2 * i;
-    let y = offset + slope * (x - 600) + (rnd() + rnd() + rnd() - 1.5) * noise;
-    for (const b of bands) y += b.height * Math.exp(-0.5 * ((x - b.centre) / b.width) ** 2);
-    lines.push(`${x},${y.toFixed(5)}`);
-  }
+  const { class: cls, csv } = syntheticReferenceCsv(k, {
+    points: 1701,
+    start: 600,
+    step: 2,
+    decimals: 5,
+    seed: 0x5eed,
+  });
   const id = `synthetic-${String(k).padStart(6, '0')}`;
-  writeFileSync(join(dir, `${id}.csv`), `${lines.join('\n')}\n`);
+  writeFileSync(join(dir, `${id}.csv`), csv);
   writeFileSync(
     join(dir, `${id}.meta.json`),
     JSON.stringify({

@@ -66,8 +66,18 @@ export class BandshelfError extends Error {
   }
 }
 
-/** Any thrown value as one terminal line: a BandshelfError as its `oneLine()`, anything else marked internal. */
-export function errorLine(error: unknown): string {
+export interface ErrorLineOptions {
+  /**
+   * Mark a value that is not a BandshelfError as an internal error (a fault of bandshelf's own); `false` where such
+   * errors are expected, as SQLite's or JSON's words about damaged stored data.
+   * @default true
+   */
+  internal?: boolean;
+}
+
+/** Any thrown value as one terminal line: a BandshelfError as its `oneLine()`, anything else its first line. */
+export function errorLine(error: unknown, options: ErrorLineOptions = {}): string {
   if (error instanceof BandshelfError) return error.oneLine();
-  return `internal error: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`;
+  const first = error instanceof Error ? (error.message.split('\n')[0] ?? '') : String(error);
+  return options.internal === false ? first : `internal error: ${first}`;
 }

@@ -1,12 +1,8 @@
-// The tests' one seeded uniform generator (mulberry32), so "random" test data is the same on every run and machine.
+// The tests' seeded uniform source: the uniform stream of the product's one generator (mulberry32, in
+// src/demo/seededRandom.ts), so "random" test data is the same on every run and machine.
+import { seededRandom } from '../src/demo/seededRandom.js';
 
 /** Returns a function giving uniform numbers in [0, 1) from a 32-bit seed. */
 export function mulberry32(seed: number): () => number {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  return seededRandom(seed).uniform;
 }

@@ -1,6 +1,6 @@
 // The CLI entry point: the only place that prints, draws progress or decides the exit code.
 import { Command, CommanderError } from 'commander';
-import { BandshelfError } from '../error.js';
+import { BandshelfError, errorLine } from '../error.js';
 import { damagedLibraryAdvice } from '../library/store/damagedLibraryAdvice.js';
 import type { CommandContext, CommandResult, CommandSpec } from './command.js';
 import { commands } from './commands/index.js';
@@ -83,7 +83,7 @@ export async function main(argv: string[]): Promise<number> {
       process.stderr.write(`bandshelf: ${damaged.oneLine()}\n`);
       return 1;
     }
-    process.stderr.write(`bandshelf: internal error: ${message.split('\n')[0]}\n`);
+    process.stderr.write(`bandshelf: ${errorLine(error)}\n`);
     if (process.env.BANDSHELF_DEBUG && error instanceof Error) process.stderr.write(`${error.stack}\n`);
     return 70;
   }

@@ -2,7 +2,7 @@
 import { createHash } from 'node:crypto';
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
-import { BandshelfError } from '../error.js';
+import { BandshelfError, errorLine } from '../error.js';
 import { isSidecarName } from '../formats/isSidecarName.js';
 import { readSpectrumFile } from '../formats/readSpectrumFile.js';
 import type { SpectrumReadOptions } from '../formats/types.js';
@@ -169,11 +169,6 @@ function readTimeDomainUnknown(
   };
 }
 
-function oneLine(error: unknown): string {
-  if (error instanceof BandshelfError) return error.oneLine();
-  return `internal error: ${error instanceof Error ? error.message.split('\n')[0] : String(error)}`;
-}
-
 /**
  * One unknown → one report, each through `runMatchPipeline`. In batch mode an unknown that cannot be read,
  * processed or scored is recorded with its error and the rest go on; a single unknown's error is thrown.
@@ -264,7 +259,7 @@ export async function matchUnknowns(
         unknowns = readUnknowns(file, context.cwd, options.keepPath === true, read);
       } catch (error) {
         if (single) throw error;
-        outcomes.push({ file, error: oneLine(error) });
+        outcomes.push({ file, error: errorLine(error) });
         continue;
       }
       for (const { resolution: stated, ...given } of unknowns) {
@@ -284,7 +279,7 @@ export async function matchUnknowns(
           outcome.report = await runMatchPipeline({ unknown, source, scorer, assignments }, unknownSettings);
         } catch (error) {
           if (single && unknowns.length === 1) throw error;
-          outcome.error = oneLine(error);
+          outcome.error = errorLine(error);
         }
         for (const w of unknown.warnings) warnings.push(`${file}: ${w}`);
       }

@@ -34,6 +34,17 @@ export interface MetaErrorFromIssuesOptions {
    * @default undefined
    */
   lineOf?: (field: string) => number | undefined;
+  /**
+   * What failed, put before the first issue's message (e.g. `bad grid`, `not a bandshelf match report`).
+   * @default undefined
+   */
+  lead?: string;
+  /**
+   * One field the error names whatever the issue's path, that path then leading the message: for a value given
+   * whole as one option (`grid` for `--grid 4000:600:2`).
+   * @default undefined (the first issue's path)
+   */
+  field?: string;
 }
 
 /**
@@ -49,10 +60,13 @@ export function metaErrorFromIssues(
   const rest = described.slice(1).map((d) => d.field ?? '(top level)');
   const more = rest.length > 0 ? ` (and ${rest.length} more: ${[...new Set(rest)].join(', ')})` : '';
   const line = first.field && options.lineOf ? (options.lineOf(first.field) ?? options.line) : options.line;
-  return new BandshelfError(options.code ?? 'BAD_METADATA', `${first.message}${more}`, {
+  const inner =
+    options.field !== undefined && first.field ? `${first.field}: ${first.message}` : first.message;
+  const message = options.lead === undefined ? inner : `${options.lead}: ${inner}`;
+  return new BandshelfError(options.code ?? 'BAD_METADATA', `${message}${more}`, {
     file: options.file,
     line,
-    field: first.field,
+    field: options.field ?? first.field,
   });
 }
 

@@ -1,5 +1,6 @@
 // Reads JCAMP-DX 4.24 (and tolerated 5.01) infrared spectra: one ParsedSpectrum per spectrum block.
 import { BandshelfError } from '../error.js';
+import { finiteRange } from '../spectrum/finiteRange.js';
 import { decodeAsdfLines } from './decodeAsdfLines.js';
 import { decodeXyPairs } from './decodeXyPairs.js';
 import type { JcampBlock, JcampRecord } from './jcampTypes.js';
@@ -243,7 +244,7 @@ function readYUnit(
   warnings: ParseWarning[],
 ): YUnit {
   const rec = inheritedRecord(block, 'YUNITS');
-  const max = maxFinite(y);
+  const { max } = finiteRange(y);
   if (!rec || rec.value === '') {
     warnings.push({
       line: block.line,
@@ -294,7 +295,6 @@ function readYUnit(
   );
 }
 
-/** Transmittance on a 0–100 scale: every value inside it and some well above what a fraction or absorbance reaches. */
 /** Decadic absorptivity or absorption-coefficient units: absorbance per amount and length, shaped like absorbance. */
 function isAbsorbanceShaped(v: string): boolean {
   return (
@@ -303,21 +303,10 @@ function isAbsorbanceShaped(v: string): boolean {
   );
 }
 
+/** Transmittance on a 0–100 scale: every value inside it and some well above what a fraction or absorbance reaches. */
 function looksPercent(y: Float64Array): boolean {
-  let min = Number.POSITIVE_INFINITY;
-  let max = Number.NEGATIVE_INFINITY;
-  for (const v of y) {
-    if (!Number.isFinite(v)) continue;
-    if (v < min) min = v;
-    if (v > max) max = v;
-  }
+  const { min, max } = finiteRange(y);
   return min >= 0 && max <= 100.5 && max > 3;
-}
-
-function maxFinite(y: Float64Array): number {
-  let max = Number.NEGATIVE_INFINITY;
-  for (const v of y) if (Number.isFinite(v) && v > max) max = v;
-  return max;
 }
 
 function readBlock(

@@ -3,8 +3,6 @@ import type { JcampBlock, JcampRecord } from './jcampTypes.js';
 import { normaliseJcampLabel } from './normaliseJcampLabel.js';
 import type { ParseWarning } from './types.js';
 
-export type SplitJcampRecordsOptions = Record<string, never>;
-
 export interface SplitJcampRecordsResult {
   /** The file's lines, line endings removed (CRLF, CR or LF), `$$` comments removed. */
   lines: string[];
@@ -18,10 +16,7 @@ export interface SplitJcampRecordsResult {
  * the lines up to the next `##` are its body. `##TITLE=` opens a block and `##END=` closes it; a TITLE
  * inside a block that already holds data means its END was left out, which is tolerated with a warning.
  */
-export function splitJcampRecords(
-  text: string,
-  _options: SplitJcampRecordsOptions = {},
-): SplitJcampRecordsResult {
+export function splitJcampRecords(text: string): SplitJcampRecordsResult {
   const lines = text.split(/\r\n|\r|\n/);
   const warnings: ParseWarning[] = [];
   const blocks: JcampBlock[] = [];

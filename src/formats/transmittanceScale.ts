@@ -1,5 +1,6 @@
 // Decides whether transmittance values are a fraction (0–1) or a percentage (0–100), words first, then values.
 import { BandshelfError } from '../error.js';
+import { finiteRange } from '../spectrum/finiteRange.js';
 import type { ParseWarning, YUnit } from './types.js';
 
 export interface TransmittanceScaleOptions {
@@ -30,13 +31,7 @@ export function transmittanceScale(
   options: TransmittanceScaleOptions = {},
 ): TransmittanceScaleResult {
   const { stated = 'unstated', margin = 0.25, file, line } = options;
-  let min = Number.POSITIVE_INFINITY;
-  let max = Number.NEGATIVE_INFINITY;
-  for (const v of y) {
-    if (!Number.isFinite(v)) continue;
-    if (v < min) min = v;
-    if (v > max) max = v;
-  }
+  const { min, max } = finiteRange(y);
   const fitsFraction = min >= -margin && max <= 1 + margin;
   const fitsPercent = min >= -100 * margin && max <= 100 * (1 + margin);
   const range = `values from ${round(min)} to ${round(max)}`;

@@ -2,12 +2,7 @@
 // reference the SIMD kernels are tested against.
 import type { ScoreKernels } from './searchTypes.js';
 
-export type JsScoreKernelsOptions = Record<string, never>;
-
-export function jsScoreKernels(
-  memory: WebAssembly.Memory,
-  _options: JsScoreKernelsOptions = {},
-): ScoreKernels {
+export function jsScoreKernels(memory: WebAssembly.Memory): ScoreKernels {
   // Views are taken per call: a memory that grows replaces its buffer.
   const f32 = () => new Float32Array(memory.buffer);
   const dotRow = (m: Float32Array, base: number, vec: number, stride: number): number => {

@@ -1,13 +1,8 @@
 // Where a search matrix is cached on disk: a folder beside the library file, one file per matrix key.
 import { createHash } from 'node:crypto';
 
-export type SearchMatrixCachePathOptions = Record<string, never>;
-
 /** `<library>.cache/search-<hash of key>.bin`: the key itself is long (it holds the mask), so it is hashed. */
-export function searchMatrixCachePath(
-  input: { libraryPath: string; key: string },
-  _options: SearchMatrixCachePathOptions = {},
-): string {
+export function searchMatrixCachePath(input: { libraryPath: string; key: string }): string {
   const digest = createHash('sha256').update(input.key).digest('hex').slice(0, 32);
   return `${input.libraryPath}.cache/search-${digest}.bin`;
 }

@@ -1,16 +1,15 @@
 // The identity of a search matrix: library state, row preparation and scoring mask.
 import type { MatrixPreparation } from './searchTypes.js';
 
-export type SearchMatrixKeyOptions = Record<string, never>;
-
 /** Bump when the matrix contents or layout change meaning, so old disk caches are never read as current. */
 const MATRIX_FORMAT = 1;
 
 /** A readable string; the mask is written as index ranges (`0-56,117-1700`), so equal masks give equal keys. */
-export function searchMatrixKey(
-  input: { stateKey: string; preparation: MatrixPreparation; mask: Uint8Array },
-  _options: SearchMatrixKeyOptions = {},
-): string {
+export function searchMatrixKey(input: {
+  stateKey: string;
+  preparation: MatrixPreparation;
+  mask: Uint8Array;
+}): string {
   const { stateKey, preparation, mask } = input;
   const runs: string[] = [];
   let start = -1;

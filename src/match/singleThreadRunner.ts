@@ -1,12 +1,7 @@
 // Runs score kernels on the calling thread: the browser path and the fallback where workers are unavailable.
 import type { KernelRunner, ScoreKernels } from './searchTypes.js';
 
-export type SingleThreadRunnerOptions = Record<string, never>;
-
-export function singleThreadRunner(
-  kernels: ScoreKernels,
-  _options: SingleThreadRunnerOptions = {},
-): KernelRunner {
+export function singleThreadRunner(kernels: ScoreKernels): KernelRunner {
   return {
     threads: 1,
     run(kernel, count, args) {

@@ -4,15 +4,10 @@ import { join } from 'node:path';
 import { crc32 } from 'node:zlib';
 import { searchMatrixCacheFormat as F, type SearchMatrixCacheHeader } from './searchMatrixCacheFormat.js';
 
-export type VerifySearchMatrixCacheOptions = Record<string, never>;
-
 const CHUNK = 16 * 1024 * 1024;
 
 /** Returns one problem per damaged file (a stale but intact file is fine: `match` ignores and replaces it). */
-export function verifySearchMatrixCache(
-  libraryPath: string,
-  _options: VerifySearchMatrixCacheOptions = {},
-): { where: string; problem: string }[] {
+export function verifySearchMatrixCache(libraryPath: string): { where: string; problem: string }[] {
   const folder = `${libraryPath}.cache`;
   if (!existsSync(folder)) return [];
   const problems: { where: string; problem: string }[] = [];

@@ -1,6 +1,7 @@
-// The JSON download of an entry: its metadata, the full original data, peaks, QC and recipe, in the shape of
-// `bandshelf show ID --json` except that the processed vector is named, not inlined (see EntryDocument).
-import type { EntryDocument, SiteEntryDetail } from './types.js';
+// The JSON download of an entry: the entry's one JSON form (`entryDocument`, as `bandshelf show ID --json`
+// prints it) with the processed vector named, not inlined.
+import { entryDocument } from '../library/store/entryDocument.js';
+import type { SiteEntryDetail } from './types.js';
 
 export interface EntryJsonOptions {
   /** File name of the processed vector written beside the JSON.
@@ -10,30 +11,16 @@ export interface EntryJsonOptions {
 
 export function entryJson(detail: SiteEntryDetail, options: EntryJsonOptions = {}): string {
   const s = detail.summary;
-  const document: EntryDocument = {
-    id: s.id,
-    revision: s.revision,
-    hash: detail.hash,
-    reviewState: s.reviewState,
-    createdAt: s.createdAt,
-    meta: s.meta,
-    grid: detail.grid,
-    recipe: detail.recipe,
-    original: { x: Array.from(detail.original.wavenumber), y: Array.from(detail.original.absorbance) },
-    processed: {
-      file: options.processedFile ?? `${s.id}.processed.f32`,
-      format: 'float32le',
-      length: detail.processed.length,
+  const document = entryDocument(
+    {
+      ...detail,
+      id: s.id,
+      revision: s.revision,
+      reviewState: s.reviewState,
+      createdAt: s.createdAt,
+      meta: s.meta,
     },
-    peaks: detail.peaks.map((p) => ({
-      position: p.position,
-      height: p.height,
-      prominence: p.prominence,
-      fwhm: p.fwhm,
-    })),
-    qc: detail.qc,
-    extras: detail.extras,
-    files: detail.files,
-  };
+    { processedFile: options.processedFile ?? `${s.id}.processed.f32` },
+  );
   return `${JSON.stringify(document)}\n`;
 }

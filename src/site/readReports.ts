@@ -2,6 +2,7 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { BandshelfError } from '../error.js';
+import { metaErrorFromIssues } from '../formats/metaErrorFromIssues.js';
 import { matchReportSchema } from '../schema/matchReport.js';
 import type { SiteReport } from './types.js';
 
@@ -43,14 +44,11 @@ export function readReports(dir: string, options: ReadReportsOptions = {}): Site
     }
     const parsed = matchReportSchema.safeParse(json);
     if (!parsed.success) {
-      const issue = parsed.error.issues[0]!;
-      const field = issue.path
-        .map((p) => (typeof p === 'number' ? `[${p}]` : String(p)))
-        .join('.')
-        .replace(/\.\[/g, '[');
-      throw new BandshelfError('BAD_REPORT', `not a bandshelf match report: ${issue.message}`, {
+      throw metaErrorFromIssues(parsed.error.issues, {
         file,
-        field: field || '(root)',
+        code: 'BAD_REPORT',
+        lead: 'not a bandshelf match report',
+        knownFields: [],
       });
     }
     reports.push({

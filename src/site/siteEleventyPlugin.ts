@@ -1,7 +1,7 @@
 // The Eleventy configuration of the site, as a plugin: checks its options before Eleventy reads a template.
 import type { EleventyUserConfig } from '@11ty/eleventy';
 import { z } from 'zod';
-import { BandshelfError } from '../error.js';
+import { metaErrorFromIssues } from '../formats/metaErrorFromIssues.js';
 import { relativeUrl } from './relativeUrl.js';
 import type { SiteView } from './types.js';
 
@@ -55,8 +55,11 @@ export function siteEleventyPlugin(
 ): void {
   const parsed = optionsSchema.safeParse(options);
   if (!parsed.success) {
-    const issue = parsed.error.issues[0]!;
-    throw new BandshelfError('BAD_OPTION', `site plugin: ${issue.message}`, { field: issue.path.join('.') });
+    throw metaErrorFromIssues(parsed.error.issues, {
+      code: 'BAD_OPTION',
+      lead: 'site plugin',
+      knownFields: [],
+    });
   }
   eleventyConfig.setTemplateFormats(['njk']);
   eleventyConfig.setUseGitIgnore(false);

@@ -1,6 +1,10 @@
 // Shapes of the site's data layer: what is gathered from the library and the reports, and the page models the
 // templates print. Page models hold display-ready strings only, so templates stay free of logic and every string
 // reaches the page through the template engine's escaping.
+import type {
+  ProcessedVectorFile,
+  EntryDocument as StoredEntryDocument,
+} from '../library/store/entryDocument.js';
 import type { BandAssignment } from '../schema/bandAssignment.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import type { Grid, Recipe } from '../schema/recipe.js';
@@ -83,18 +87,11 @@ export interface SiteRelease {
   diff: SiteReleaseDiff;
 }
 
-export interface SiteAssignment {
-  min: number;
-  max: number;
-  centre?: number;
-  label: string;
-  vibration: string;
-  group: string;
-  class: string[];
-  source: string;
-  basis: string;
-  origin: string;
-}
+/** A band-assignment row as the site shows it: the schema's own fields (`BandAssignment`), no copy of its shape. */
+export type SiteAssignment = Pick<
+  BandAssignment,
+  'min' | 'max' | 'centre' | 'label' | 'vibration' | 'group' | 'class' | 'source' | 'basis' | 'origin'
+>;
 
 /** A validated match report and the name of the file it came from. */
 export interface SiteReport {
@@ -212,28 +209,11 @@ export interface EntryPage {
   recipe: SiteRow[];
 }
 
-/** The JSON download of an entry (`entries/<id>/<id>.json`): the shape of `bandshelf show ID --json`. */
-export interface EntryDocument {
-  id: string;
-  revision: number;
-  hash: string;
-  reviewState: string;
-  createdAt: string;
-  meta: Record<string, unknown>;
-  grid: Grid;
-  recipe: Recipe;
-  /** The parsed original spectrum: cm⁻¹ ascending, absorbance; every point. */
-  original: { x: number[]; y: number[] };
-  /**
-   * The processed vector lives beside the JSON as raw little-endian float32 (gridLength(grid) values, ascending
-   * wavenumber, NaN where not covered): exactly the stored values in a quarter of the bytes of JSON text.
-   */
-  processed: { file: string; format: 'float32le'; length: number };
-  peaks: Peak[];
-  qc: QcFlag[];
-  extras: Record<string, unknown>;
-  files: { role: string; name: string; sha256: string; size: number }[];
-}
+/**
+ * The JSON download of an entry (`entries/<id>/<id>.json`): the entry's one JSON form (`bandshelf show ID --json`)
+ * with the processed vector in a file beside it.
+ */
+export type EntryDocument = Omit<StoredEntryDocument, 'processed'> & { processed: ProcessedVectorFile };
 
 export interface BrowseRow {
   id: string;

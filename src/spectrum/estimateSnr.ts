@@ -1,5 +1,6 @@
 // Signal-to-noise of a spectrum: its absorbance range over the noise in a band-free window.
 import type { WavenumberWindow } from '../schema/recipe.js';
+import { finiteRange } from './finiteRange.js';
 import { noiseLevel } from './noiseLevel.js';
 import type { Spectrum } from './types.js';
 
@@ -29,15 +30,7 @@ export interface SnrEstimate {
 /** SNR = (max − min) / noise, the noise from noiseLevel inside `window`. */
 export function estimateSnr(spectrum: Spectrum, options: EstimateSnrOptions = {}): SnrEstimate {
   const noise = noiseLevel(spectrum, options.window ?? { min: 1900, max: 2000 });
-  const y = (options.signal ?? spectrum).absorbance;
-  let min = Number.POSITIVE_INFINITY;
-  let max = Number.NEGATIVE_INFINITY;
-  for (let i = 0; i < y.length; i++) {
-    const v = y[i]!;
-    if (!Number.isFinite(v)) continue;
-    if (v < min) min = v;
-    if (v > max) max = v;
-  }
+  const { min, max } = finiteRange((options.signal ?? spectrum).absorbance);
   const range = max >= min ? max - min : 0;
   let snr = Number.NaN;
   if (Number.isFinite(noise)) snr = noise > 0 ? range / noise : Number.POSITIVE_INFINITY;

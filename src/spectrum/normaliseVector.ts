@@ -4,9 +4,6 @@ import type { Grid, NormaliseStep } from '../schema/recipe.js';
 import { gridAxis } from './gridAxis.js';
 import { gridLength } from './gridLength.js';
 
-// biome-ignore lint/suspicious/noEmptyInterface: the step itself carries every setting; kept for the (input, options) shape.
-export interface NormaliseVectorOptions {}
-
 /**
  * Returns a new vector scaled by the recipe's normalisation; NaN (not covered) stays NaN and is left out of
  * every norm:
@@ -19,12 +16,7 @@ export interface NormaliseVectorOptions {}
  * copy: a flat or empty spectrum has no scale to remove, and dividing would only manufacture NaN or
  * Infinity that the matcher would then treat as data.
  */
-export function normaliseVector(
-  processed: Float64Array,
-  step: NormaliseStep,
-  grid: Grid,
-  _options: NormaliseVectorOptions = {},
-): Float64Array {
+export function normaliseVector(processed: Float64Array, step: NormaliseStep, grid: Grid): Float64Array {
   const n = processed.length;
   if (n !== gridLength(grid)) {
     throw new BandshelfError(

@@ -8,7 +8,7 @@ import { readSpectrumFile } from '../../src/formats/readSpectrumFile.js';
 import type { ParsedSpectrum } from '../../src/formats/types.js';
 import { writeCsv } from '../../src/formats/writeCsv.js';
 import { type JcampForm, writeJcampDx } from '../../src/formats/writeJcampDx.js';
-import { seededRandom } from './seededRandom.js';
+import { mulberry32 } from '../mulberry32.js';
 
 const RUNS = { seed: 42, numRuns: 300 };
 
@@ -38,7 +38,7 @@ function expectTypedOutcome(read: () => ParsedSpectrum[] | ParsedSpectrum): void
 }
 
 function sampleSpectrum(n: number, seed: number): { wavenumber: Float64Array; absorbance: Float64Array } {
-  const random = seededRandom(seed);
+  const random = mulberry32(seed);
   const wavenumber = Float64Array.from({ length: n }, (_, i) => 1000 + 4 * i);
   const absorbance = Float64Array.from(
     { length: n },

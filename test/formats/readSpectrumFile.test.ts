@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { readSpectrumFile } from '../../src/formats/readSpectrumFile.js';
 import { writeJcampDx } from '../../src/formats/writeJcampDx.js';
 import { bandshelfErrorOf } from '../bandshelfErrorOf.js';
-import { seededRandom } from './seededRandom.js';
+import { mulberry32 } from '../mulberry32.js';
 
 const utf8 = (text: string): Uint8Array => new TextEncoder().encode(text);
 
@@ -85,7 +85,7 @@ describe('readSpectrumFile', () => {
     const withNul = utf8(CSV);
     withNul[5] = 0;
     expect(bandshelfErrorOf(() => readSpectrumFile(withNul, { file: 'n.bin' })).code).toBe('BINARY_DATA');
-    const random = seededRandom(9);
+    const random = mulberry32(9);
     const noise = Uint8Array.from({ length: 4096 }, () => 1 + Math.floor(random() * 255));
     const err = bandshelfErrorOf(() => readSpectrumFile(noise, { file: 'noise.spa' }));
     expect(err.code).toBe('BINARY_DATA');

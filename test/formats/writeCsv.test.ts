@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { readDelimited } from '../../src/formats/readDelimited.js';
 import { writeCsv } from '../../src/formats/writeCsv.js';
-import { seededRandom } from './seededRandom.js';
+import { mulberry32 } from '../mulberry32.js';
 
 describe('writeCsv', () => {
   it('writes the unit header and one row per point', () => {
@@ -21,7 +21,7 @@ describe('writeCsv', () => {
   });
 
   it('round-trips seeded random doubles exactly, tiny and huge magnitudes included', () => {
-    const random = seededRandom(2024);
+    const random = mulberry32(2024);
     const n = 500;
     const wavenumber = new Float64Array(n);
     const absorbance = new Float64Array(n);

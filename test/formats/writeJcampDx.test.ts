@@ -4,7 +4,7 @@ import { BandshelfError } from '../../src/error.js';
 import { readJcampDx } from '../../src/formats/readJcampDx.js';
 import { type JcampForm, writeJcampDx } from '../../src/formats/writeJcampDx.js';
 import type { Spectrum } from '../../src/spectrum/types.js';
-import { seededRandom } from './seededRandom.js';
+import { mulberry32 } from '../mulberry32.js';
 
 const FORMS: JcampForm[] = ['affn', 'pac', 'sqz', 'dif', 'difdup'];
 
@@ -17,7 +17,7 @@ function dataLines(text: string): string[] {
 
 /** A 4000–600 cm⁻¹ spectrum at 2 cm⁻¹ (1701 points): seeded bands, a slope and noise, times `scale`. */
 function randomSpectrum(seed: number, scale: number, n = 1701): Spectrum {
-  const random = seededRandom(seed);
+  const random = mulberry32(seed);
   const wavenumber = new Float64Array(n);
   const absorbance = new Float64Array(n);
   const bands = Array.from({ length: 6 }, () => ({
@@ -104,7 +104,7 @@ describe('writeJcampDx', () => {
   });
 
   it('writes unevenly spaced x as XYPOINTS and reads them back', () => {
-    const random = seededRandom(7);
+    const random = mulberry32(7);
     const n = 200;
     const wavenumber = new Float64Array(n);
     const absorbance = new Float64Array(n);

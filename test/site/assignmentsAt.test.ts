@@ -2,6 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { shippedAssignments } from '../../src/match/shippedAssignments.js';
 import { assignmentsAt } from '../../src/site/assignmentsAt.js';
+import type { SiteAssignment } from '../../src/site/types.js';
 
 const table = shippedAssignments();
 const labels = (position: number) => assignmentsAt(position, table, { tolerance: 4 }).map((a) => a.label);
@@ -16,7 +17,7 @@ describe('assignmentsAt', () => {
   });
 
   it('widens each range by the tolerance only', () => {
-    const rows = [
+    const rows: SiteAssignment[] = [
       {
         min: 1000,
         max: 1010,

@@ -1,6 +1,7 @@
 // `bandshelf show ID`: one entry's metadata, data, peaks, QC and recipe.
 import { BandshelfError } from '../../error.js';
 import { closeLibrary } from '../../library/store/closeLibrary.js';
+import { entryDocument } from '../../library/store/entryDocument.js';
 import { libraryPath } from '../../library/store/libraryPath.js';
 import { openLibrary } from '../../library/store/openLibrary.js';
 import { readEntry } from '../../library/store/readEntry.js';
@@ -9,39 +10,17 @@ import { gridAxis } from '../../spectrum/gridAxis.js';
 import type { CommandSpec } from '../command.js';
 import { textTable } from '../textTable.js';
 
-/** JSON has no NaN: not-covered grid points become null. */
-function nullable(values: Float64Array): (number | null)[] {
-  return Array.from(values, (v) => (Number.isFinite(v) ? v : null));
-}
-
+/** The entry's one JSON form, plus what only the store knows about the revision. */
 function asJson(view: EntryView): unknown {
   return {
-    id: view.id,
-    revision: view.revision,
+    ...entryDocument(view),
     kind: view.kind,
     retired: view.retired,
-    hash: view.hash,
     dataHash: view.dataHash,
-    meta: view.meta,
-    original: { x: Array.from(view.original.wavenumber), y: Array.from(view.original.absorbance) },
-    grid: { start: view.grid.start, stop: view.grid.stop, step: view.grid.step },
-    processed: nullable(view.processed),
     coverage: view.coverage,
-    peaks: view.peaks.map((p) => ({
-      position: p.position,
-      height: p.height,
-      prominence: p.prominence,
-      fwhm: p.fwhm,
-    })),
-    qc: view.qc,
-    recipe: view.recipe,
     read: view.read,
-    files: view.files,
-    extras: view.extras,
     author: view.author,
     message: view.message,
-    createdAt: view.createdAt,
-    reviewState: view.reviewState,
     reviews: view.reviews,
     releases: view.releases,
   };

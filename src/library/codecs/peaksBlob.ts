@@ -1,14 +1,20 @@
-// Packs peaks as little-endian Float64 quadruples (position, height, prominence, fwhm), sorted by position.
+// Packs peaks as little-endian Float64 quadruples (position, height, prominence, fwhm), sorted by position: the
+// one statement of the peak blob layout, which blobPeaks and the state reader read back.
 import type { Peak } from '../../spectrum/types.js';
+
+/** Byte offset of each field inside one stored peak, in storage order. */
+export const PEAK_FIELD_OFFSETS = { position: 0, height: 8, prominence: 16, fwhm: 24 } as const;
+
+/** Bytes per stored peak: four Float64 values. */
+export const PEAK_BYTES = 32;
 
 export function peaksBlob(peaks: readonly Peak[]): Buffer {
   const sorted = [...peaks].sort((a, b) => a.position - b.position);
-  const out = Buffer.allocUnsafe(sorted.length * 32);
+  const out = Buffer.allocUnsafe(sorted.length * PEAK_BYTES);
   sorted.forEach((p, i) => {
-    out.writeDoubleLE(p.position, i * 32);
-    out.writeDoubleLE(p.height, i * 32 + 8);
-    out.writeDoubleLE(p.prominence, i * 32 + 16);
-    out.writeDoubleLE(p.fwhm, i * 32 + 24);
+    for (const [field, offset] of Object.entries(PEAK_FIELD_OFFSETS)) {
+      out.writeDoubleLE(p[field as keyof typeof PEAK_FIELD_OFFSETS], i * PEAK_BYTES + offset);
+    }
   });
   return out;
 }

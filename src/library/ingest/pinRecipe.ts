@@ -4,6 +4,7 @@ import { BandshelfError } from '../../error.js';
 import type { Recipe } from '../../schema/recipe.js';
 import { pinResolution } from '../../spectrum/pinResolution.js';
 import type { Resolution } from '../../spectrum/resolutionOf.js';
+import { headRevision } from '../store/headRevision.js';
 import type { Library } from '../types.js';
 
 export interface PinRecipeOptions {
@@ -72,9 +73,7 @@ export function pinRecipe(library: Library, recipe: Recipe, options: PinRecipeOp
       }
       return step;
     }
-    const head = library.db
-      .prepare('SELECT revision, kind FROM revisions WHERE entry_id = ? ORDER BY revision DESC LIMIT 1')
-      .get(step.id) as { revision: number; kind: string } | undefined;
+    const head = headRevision(library, step.id);
     if (head === undefined || head.kind === 'retire') {
       throw new BandshelfError(
         'NOT_FOUND',

@@ -10,6 +10,7 @@ import { sortAndMerge } from '../../spectrum/sortAndMerge.js';
 import { subtractBaseline } from '../../spectrum/subtractBaseline.js';
 import type { QcFlag } from '../../spectrum/types.js';
 import { contentHashes } from '../store/contentHashes.js';
+import { headRevision } from '../store/headRevision.js';
 import { sha256Hex } from '../store/sha256Hex.js';
 import type { Library, RevisionKind } from '../types.js';
 import type { PreparedRevision, RevisionInput } from './ingestTypes.js';
@@ -94,11 +95,7 @@ export function prepareRevision(
           },
         )
       : undefined;
-  const head = library.db
-    .prepare(
-      'SELECT revision, kind, content_hash FROM revisions WHERE entry_id = ? ORDER BY revision DESC LIMIT 1',
-    )
-    .get(id) as { revision: number; kind: string; content_hash: string } | undefined;
+  const head = headRevision(library, id);
   const unchanged = head !== undefined && head.kind !== 'retire' && head.content_hash === hashes.content;
   // Identical content re-added is a no-op even when QC would block it (it was forced the first time).
   if (blocked && !unchanged) throw blocked;

@@ -1,5 +1,6 @@
 // Verifies a library end to end: SQLite integrity, immutability triggers, every stored hash, and that every
 // revision's original and processed vector can be re-derived from its files and recipe.
+import { errorLine } from '../../error.js';
 import { bandAssignmentSchema } from '../../schema/bandAssignment.js';
 import { entryMetaSchema } from '../../schema/meta.js';
 import { recipeSchema } from '../../schema/recipe.js';
@@ -29,13 +30,6 @@ export interface CheckLibraryOptions {
   progress?: (done: number, total: number, label: string) => void;
 }
 
-function message(error: unknown): string {
-  if (error && typeof error === 'object' && 'oneLine' in error && typeof error.oneLine === 'function') {
-    return String(error.oneLine());
-  }
-  return error instanceof Error ? error.message : String(error);
-}
-
 export function checkLibrary(library: Library, options: CheckLibraryOptions = {}): CheckProblem[] {
   const db = library.db;
   const tolerance = options.tolerance ?? 1e-6;
@@ -46,7 +40,7 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
   try {
     integrity = db.prepare('PRAGMA integrity_check').pluck().all() as string[];
   } catch (error) {
-    add('database', `integrity check could not run: ${message(error)}`);
+    add('database', `integrity check could not run: ${errorLine(error, { internal: false })}`);
     return problems;
   }
   if (!(integrity.length === 1 && integrity[0] === 'ok')) {
@@ -125,7 +119,7 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
     try {
       checkRevision(row, where);
     } catch (error) {
-      add(where, `cannot be verified: ${message(error)}`);
+      add(where, `cannot be verified: ${errorLine(error, { internal: false })}`);
     }
     done++;
     options.progress?.(done, total, row.entry_id);
@@ -147,7 +141,7 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
       const parsed = bandAssignmentSchema.safeParse(JSON.parse(a.row));
       if (!parsed.success) add(`band assignment ${a.key}`, parsed.error.issues[0]?.message ?? 'invalid row');
     } catch (error) {
-      add(`band assignment ${a.key}`, `unreadable: ${message(error)}`);
+      add(`band assignment ${a.key}`, `unreadable: ${errorLine(error, { internal: false })}`);
     }
   }
   return problems;

@@ -7,6 +7,7 @@ import type { CommitOutcome, PreparedRevision } from '../ingest/ingestTypes.js';
 import type { Library } from '../types.js';
 import { canonicalJson } from './canonicalJson.js';
 import { gridAxisMemo } from './gridAxisMemo.js';
+import { headRevision } from './headRevision.js';
 import { recordHash } from './recordHash.js';
 import type { RevisionRow } from './rowTypes.js';
 import { sha256Hex } from './sha256Hex.js';
@@ -29,9 +30,6 @@ export function commitRevisions(
   options: CommitRevisionsOptions = {},
 ): CommitOutcome[] {
   const db = library.db;
-  const head = db.prepare(
-    'SELECT revision, kind, content_hash FROM revisions WHERE entry_id = ? ORDER BY revision DESC LIMIT 1',
-  );
   const insertEntry = db.prepare(
     'INSERT INTO entries (id, created_at) SELECT ?, ? WHERE NOT EXISTS (SELECT 1 FROM entries WHERE id = ?)',
   );
@@ -55,9 +53,7 @@ export function commitRevisions(
       const outcomes: CommitOutcome[] = [];
       for (const p of prepared) {
         // Re-read the head under the write lock: another process may have added this entry meanwhile.
-        const current = head.get(p.id) as
-          | { revision: number; kind: string; content_hash: string }
-          | undefined;
+        const current = headRevision(library, p.id);
         const outcome = { id: p.id, hash: p.hashes.content, label: p.label, kind: p.kind };
         if (
           p.kind !== 'retire' &&

@@ -1,4 +1,5 @@
-// The newest stored revision of an entry (retired or not), or undefined when the id was never added.
+// The newest stored revision of an entry (retired or not), or undefined when the id was never added: the one
+// "newest revision" query of the store, for reads and for the checks made under the write lock.
 
 import type { Library } from '../types.js';
 import type { RevisionRow } from './rowTypes.js';

@@ -1,6 +1,7 @@
 // Creates a new, empty library file with its grid and default recipe.
 import { existsSync } from 'node:fs';
 import { BandshelfError } from '../../error.js';
+import { metaErrorFromIssues } from '../../formats/metaErrorFromIssues.js';
 import { type Grid, gridSchema, type RecipeInput, recipeSchema } from '../../schema/recipe.js';
 import type { Library } from '../types.js';
 import { appendSeal } from './appendSeal.js';
@@ -35,17 +36,18 @@ export function initLibrary(path: string, options: InitLibraryOptions = {}): Lib
   }
   const grid = gridSchema.safeParse(options.grid ?? { start: 4000, stop: 600, step: 2 });
   if (!grid.success) {
-    const issue = grid.error.issues[0];
-    const part = issue?.path.length ? `${issue.path.join('.')}: ` : '';
-    throw new BandshelfError('BAD_OPTION', `bad grid: ${part}${issue?.message ?? 'invalid'}`, {
+    throw metaErrorFromIssues(grid.error.issues, {
+      code: 'BAD_OPTION',
+      lead: 'bad grid',
       field: 'grid',
+      knownFields: Object.keys(gridSchema.shape),
     });
   }
   const recipe = recipeSchema.safeParse(options.recipe ?? {});
   if (!recipe.success) {
-    const issue = recipe.error.issues[0];
-    throw new BandshelfError('BAD_RECIPE', issue?.message ?? 'invalid recipe', {
-      field: issue?.path.join('.') || undefined,
+    throw metaErrorFromIssues(recipe.error.issues, {
+      code: 'BAD_RECIPE',
+      knownFields: Object.keys(recipeSchema.shape),
     });
   }
   let db: ReturnType<typeof connectLibrary>;

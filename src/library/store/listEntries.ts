@@ -1,5 +1,6 @@
 // Lists the entries of a library state with their metadata and a few figures, without loading any vectors.
 
+import { PEAK_BYTES } from '../codecs/peaksBlob.js';
 import type { EntrySummary, Library, ReviewState, RevisionKind } from '../types.js';
 import { stateSelect } from './stateSelect.js';
 
@@ -14,7 +15,7 @@ export function listEntries(library: Library, options: ListEntriesOptions = {}):
     library,
     `r.entry_id AS id, r.revision, r.kind, r.content_hash AS hash, r.meta, r.created_at,
      (SELECT e.created_at FROM entries e WHERE e.id = r.entry_id) AS first_created_at,
-     r.covered_points, r.coverage_min, r.coverage_max, length(r.peaks) / 32 AS peak_count,
+     r.covered_points, r.coverage_min, r.coverage_max, length(r.peaks) / ${PEAK_BYTES} AS peak_count,
      (SELECT count(*) FROM json_each(r.qc) q WHERE q.value ->> '$.level' = 'warning') AS qc_warnings,
      (SELECT v.state FROM reviews v WHERE v.revision_key = r.key ORDER BY v.key DESC LIMIT 1) AS review_state`,
     options,

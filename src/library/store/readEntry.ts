@@ -2,6 +2,7 @@
 import { BandshelfError } from '../../error.js';
 import type { EntryView, Library } from '../types.js';
 import { entryViewFromRow } from './entryViewFromRow.js';
+import { headRevision } from './headRevision.js';
 import type { RevisionRow } from './rowTypes.js';
 
 export interface ReadEntryOptions {
@@ -15,17 +16,12 @@ export interface ReadEntryOptions {
 
 export function readEntry(library: Library, id: string, options: ReadEntryOptions = {}): EntryView {
   const db = library.db;
-  const head = db.prepare('SELECT MAX(revision) FROM revisions WHERE entry_id = ?').pluck().get(id) as
-    | number
-    | null;
-  if (head === null || head === undefined) {
+  const newest = headRevision(library, id);
+  if (newest === undefined) {
     throw new BandshelfError('NOT_FOUND', `no entry '${id}' in the library`, { field: 'id' });
   }
-  const headKind = db
-    .prepare('SELECT kind FROM revisions WHERE entry_id = ? AND revision = ?')
-    .pluck()
-    .get(id, head) as string;
-  const retired = headKind === 'retire';
+  const head = newest.revision;
+  const retired = newest.kind === 'retire';
   let row: RevisionRow | undefined;
   const at = options.at;
   if (at !== undefined && at !== null && at !== '' && at !== 'current') {
@@ -42,9 +38,12 @@ export function readEntry(library: Library, id: string, options: ReadEntryOption
     }
   } else {
     const revision = options.revision ?? head;
-    row = db.prepare('SELECT * FROM revisions WHERE entry_id = ? AND revision = ?').get(id, revision) as
-      | RevisionRow
-      | undefined;
+    row =
+      revision === head
+        ? newest
+        : (db.prepare('SELECT * FROM revisions WHERE entry_id = ? AND revision = ?').get(id, revision) as
+            | RevisionRow
+            | undefined);
     if (row === undefined) {
       throw new BandshelfError('NOT_FOUND', `entry '${id}' has no revision ${revision} (newest is ${head})`, {
         field: 'revision',

@@ -2,6 +2,7 @@
 // peak index and, when asked, the processed vectors as one Float32 matrix. readSearchSet and readPeakSet share it.
 import { createHash } from 'node:crypto';
 import { gridLength } from '../../spectrum/gridLength.js';
+import { PEAK_BYTES, PEAK_FIELD_OFFSETS } from '../codecs/peaksBlob.js';
 import type { Library, SearchSet, SearchSetEntry } from '../types.js';
 import { canonicalJson } from './canonicalJson.js';
 import { peakOrder } from './peakOrder.js';
@@ -18,9 +19,6 @@ export interface ReadStateRowsOptions {
 
 /** A SearchSet without the library's grid and recipe; `processed` is empty unless it was asked for. */
 export type StateRows = Omit<SearchSet, 'grid' | 'recipe'>;
-
-/** Each stored peak is four little-endian Float64 values: position, height, prominence, fwhm. */
-const PEAK_BYTES = 32;
 
 export function readStateRows(library: Library, options: ReadStateRowsOptions = {}): StateRows {
   const withProcessed = options.processed ?? false;
@@ -67,9 +65,9 @@ export function readStateRows(library: Library, options: ReadStateRowsOptions = 
       const view = new DataView(peaks.buffer, peaks.byteOffset, peaks.byteLength);
       for (let o = 0; o + PEAK_BYTES <= peaks.byteLength && k < capacity; o += PEAK_BYTES) {
         peakEntry[k] = row;
-        peakPosition[k] = view.getFloat64(o, true);
-        peakHeight[k] = view.getFloat64(o + 8, true);
-        peakProminence[k] = view.getFloat64(o + 16, true);
+        peakPosition[k] = view.getFloat64(o + PEAK_FIELD_OFFSETS.position, true);
+        peakHeight[k] = view.getFloat64(o + PEAK_FIELD_OFFSETS.height, true);
+        peakProminence[k] = view.getFloat64(o + PEAK_FIELD_OFFSETS.prominence, true);
         k++;
       }
       row++;

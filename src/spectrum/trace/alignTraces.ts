@@ -14,7 +14,7 @@ export interface AlignTracesOptions {
   halfWindow?: number;
   /**
    * Largest delay searched either way, fs.
-   * @default 200
+   * @default pulseDelay's (200)
    */
   maxDelay?: number;
 }
@@ -59,7 +59,8 @@ function sampleStandardDeviation(values: Float64Array): number {
 export function alignTraces(traces: readonly Trace[], options: AlignTracesOptions = {}): AlignTracesResult {
   const first = traces[0];
   if (first === undefined) throw new BandshelfError('TOO_FEW_POINTS', 'there are no traces to align');
-  const delayOptions: PulseDelayOptions = { maxDelay: options.maxDelay ?? 200 };
+  const delayOptions: PulseDelayOptions = {};
+  if (options.maxDelay !== undefined) delayOptions.maxDelay = options.maxDelay;
   if (options.halfWindow !== undefined) delayOptions.halfWindow = options.halfWindow;
   const m = traces.length;
   const delays = new Float64Array(m);

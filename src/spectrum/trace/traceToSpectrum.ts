@@ -44,7 +44,7 @@ export interface TraceToSpectrumOptions {
   stepTolerance?: number;
   /**
    * Largest delay (fs) searched either way when aligning repeated traces.
-   * @default 200
+   * @default pulseDelay's (200)
    */
   maxDelay?: number;
 }
@@ -127,7 +127,7 @@ export function traceToSpectrum(
     }
   }
 
-  const alignOptions = { maxDelay: options.maxDelay ?? 200 };
+  const alignOptions = options.maxDelay === undefined ? {} : { maxDelay: options.maxDelay };
   const combine = (list: readonly Trace[]) => {
     const centred = list.map((trace) => removeMean(trace));
     if (centred.length === 1) return { trace: centred[0]!, spread: null, jitter: null, count: 1 };

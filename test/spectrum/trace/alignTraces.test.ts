@@ -1,5 +1,6 @@
 // Pulse alignment by cross-correlation: a known sub-sample shift is recovered, and the reported spreads match the truth.
 import { describe, expect, it } from 'vitest';
+import { seededRandom } from '../../../src/demo/seededRandom.js';
 import { alignTraces } from '../../../src/spectrum/trace/alignTraces.js';
 import { averageTraces } from '../../../src/spectrum/trace/averageTraces.js';
 import { pulseDelay } from '../../../src/spectrum/trace/pulseDelay.js';
@@ -20,15 +21,6 @@ function pulseSlope(t0: number) {
     const phase = 2 * Math.PI * 0.05 * u + 0.4;
     return env * ((-4 * Math.LN2 * u) / 196) * Math.cos(phase) - env * 2 * Math.PI * 0.05 * Math.sin(phase);
   };
-}
-
-function normalSource(seed: number): () => number {
-  let state = seed >>> 0;
-  const uniform = () => {
-    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
-    return (state + 0.5) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
 }
 
 function sd(values: number[]): number {
@@ -52,7 +44,7 @@ describe('alignTraces', () => {
   });
 
   it('recovers the same shift with noise, and a whole-sample shift the other way', () => {
-    const normal = normalSource(3);
+    const normal = seededRandom(3).normal;
     const noisy = (t0: number) => uniformTrace(1024, 1, 0, (t) => pulse(t0)(t) + 1e-3 * normal());
     const result = alignTraces([noisy(300), noisy(300.037), noisy(297.5)]);
     expect(Math.abs(result.delays[1]! - 0.037)).toBeLessThan(0.005);
@@ -71,7 +63,7 @@ describe('alignTraces', () => {
     // pulse shape; common practice in time-delay estimation). Each aligned trace keeps its own error minus the first
     // one's, so the spread of the aligned traces' true timing is that σ_d.
     const sigma = 0.02;
-    const normal = normalSource(29);
+    const normal = seededRandom(29).normal;
     const trueDelays: number[] = [];
     const traces: Trace[] = [];
     for (let i = 0; i < 16; i++) {

@@ -1,6 +1,7 @@
 // Partial coverage on the library grid: scattered tunable-laser points keep their holes, comb-fine spectra are
 // bin-averaged, and a field-resolved spectrum is not covered outside its reference's power range.
 import { describe, expect, it } from 'vitest';
+import { seededRandom } from '../../../src/demo/seededRandom.js';
 import { recipeSchema } from '../../../src/schema/recipe.js';
 import { gridAxis } from '../../../src/spectrum/gridAxis.js';
 import { resampleToGrid } from '../../../src/spectrum/resampleToGrid.js';
@@ -10,17 +11,9 @@ import type { Trace } from '../../../src/spectrum/trace/types.js';
 const grid = { start: 4000, stop: 600, step: 2 };
 const axis = gridAxis(grid);
 
-function uniformSource(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
-    return (state + 0.5) / 4294967296;
-  };
-}
-
 describe('tunable-laser spectrum: scattered points over 1750–1000 cm⁻¹ with a 40 cm⁻¹ hole', () => {
   // Points every 1–3 cm⁻¹ (seeded), none between 1400 and 1360 cm⁻¹.
-  const uniform = uniformSource(42);
+  const uniform = seededRandom(42).uniform;
   const xs: number[] = [];
   for (let x = 1000; x <= 1750; x += 1 + 2 * uniform()) if (x <= 1360 || x >= 1400) xs.push(x);
   const wavenumber = Float64Array.from(xs);
@@ -87,12 +80,7 @@ describe('frequency-comb-like spectrum at 0.05 cm⁻¹ spacing', () => {
 
   it('averages the noise down by about √40 (40 points per 2 cm⁻¹ cell)', () => {
     // Averaging m independent samples divides the noise standard deviation by √m (common practice).
-    let state = 9;
-    const uniform = () => {
-      state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
-      return (state + 0.5) / 4294967296;
-    };
-    const normal = () => Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
+    const { normal } = seededRandom(9);
     const sigma = 0.01;
     const absorbance = wavenumber.map(() => 0.5 + sigma * normal());
     const out = resampleToGrid({ wavenumber, absorbance }, grid);

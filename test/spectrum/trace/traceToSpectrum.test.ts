@@ -1,6 +1,7 @@
 // Sample and reference traces to absorbance, checked against closed forms: a free-induction decay's Lorentzian,
 // attenuation in absorbance units, the white-noise floor of a Fourier transform, and a Gaussian's coverage edges.
 import { describe, expect, it } from 'vitest';
+import { seededRandom } from '../../../src/demo/seededRandom.js';
 import { BandshelfError } from '../../../src/error.js';
 import { traceToSpectrum } from '../../../src/spectrum/trace/traceToSpectrum.js';
 import type { Trace } from '../../../src/spectrum/trace/types.js';
@@ -15,16 +16,6 @@ function gaussianPulse(t0: number, tau: number, carrier: number, amplitude = 1) 
     amplitude *
     Math.exp((-2 * Math.LN2 * (t - t0) ** 2) / (tau * tau)) *
     Math.cos(2 * Math.PI * carrier * 1e-3 * (t - t0));
-}
-
-/** Seeded standard normal numbers (a linear congruential source through Box–Muller), for reproducible noise. */
-function normalSource(seed: number): () => number {
-  let state = seed >>> 0;
-  const uniform = () => {
-    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
-    return (state + 0.5) / 4294967296;
-  };
-  return () => Math.sqrt(-2 * Math.log(uniform())) * Math.cos(2 * Math.PI * uniform());
 }
 
 function scaled(trace: Trace, factor: number): Trace {
@@ -144,7 +135,7 @@ describe('traceToSpectrum: coverage and dynamic range', () => {
     const sigma = 1e-3;
     const s = tau / Math.sqrt(4 * Math.LN2);
     const expected = Math.log10(((s * Math.sqrt(2 * Math.PI)) / 2) ** 2 / (sigma * sigma * n));
-    const normal = normalSource(7);
+    const normal = seededRandom(7).normal;
     const clean = gaussianPulse(2000, tau, 60);
     const reference = uniformTrace(n, 1, 0, (t) => clean(t) + sigma * normal());
     const sample = scaled(reference, 0.5);
@@ -189,8 +180,8 @@ describe('traceToSpectrum: coverage above the noise floor', () => {
     // passes k² = 9 × its mean power with probability e⁻⁹ ≈ 10⁻⁴ (exponential power; common practice). Between
     // the two edges signal plus noise may pass.
     const noiseOnly = edge(1);
-    const noiseR = normalSource(21);
-    const noiseS = normalSource(22);
+    const noiseR = seededRandom(21).normal;
+    const noiseS = seededRandom(22).normal;
     const clean = gaussianPulse(2000, tau, carrier);
     const reference = uniformTrace(n, 1, 0, (t) => clean(t) + sigma * noiseR());
     const sample = uniformTrace(n, 1, 0, (t) => 0.5 * clean(t) + sigma * noiseS());
@@ -219,7 +210,7 @@ describe('traceToSpectrum: coverage above the noise floor', () => {
 
 describe('traceToSpectrum: repeated traces', () => {
   it('aligns and averages repeated scans and reports their timing spread', () => {
-    const normal = normalSource(11);
+    const normal = seededRandom(11).normal;
     const jitter = [0, 0.4, -0.3, 0.7];
     const scan = (delay: number) => {
       const pulse = gaussianPulse(800 + delay, 12, 55);
