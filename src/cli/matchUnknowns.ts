@@ -1,12 +1,7 @@
 // Runs the whole match of one or more unknown files against a library: read, process, search, fit, identify, report.
-import { createHash } from 'node:crypto';
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import { basename, join, resolve } from 'node:path';
+import { basename, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
-import { isSidecarName } from '../formats/isSidecarName.js';
-import { readSpectrumFile } from '../formats/readSpectrumFile.js';
 import { closeLibrary } from '../library/store/closeLibrary.js';
-import { describeIoError } from '../library/store/describeIoError.js';
 import { libraryPath } from '../library/store/libraryPath.js';
 import { listAssignments } from '../library/store/listAssignments.js';
 import { openLibrary } from '../library/store/openLibrary.js';
@@ -22,6 +17,8 @@ import { MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import type { CommandContext } from './command.js';
+import { readUnknownFile } from './readUnknownFile.js';
+import { spectrumFilesOf } from './spectrumFilesOf.js';
 
 /** The pipeline's settings as the CLI takes them, plus where the library, release and recipe file are. */
 export interface MatchUnknownsOptions
@@ -53,52 +50,6 @@ export interface MatchRun {
   /** More than one unknown (a folder, several files or a multi-block file). */
   batch: boolean;
   warnings: string[];
-}
-
-/** Spectrum files of a folder (not recursive): no hidden files, sidecars or manifests; sorted by name. */
-function filesOf(target: string, cwd: string): string[] {
-  const full = resolve(cwd, target);
-  let stat: ReturnType<typeof statSync>;
-  try {
-    stat = statSync(full);
-  } catch {
-    throw new BandshelfError('IO_ERROR', 'no such file or folder', { file: target });
-  }
-  if (!stat.isDirectory()) return [target];
-  const names = readdirSync(full)
-    .filter((name) => !name.startsWith('.') && !isSidecarName(name) && name.toLowerCase() !== 'manifest.csv')
-    .filter((name) => statSync(join(full, name)).isFile())
-    .sort();
-  if (names.length === 0)
-    throw new BandshelfError('EMPTY_FILE', 'the folder holds no spectrum files', { file: target });
-  return names.map((name) => join(target, name));
-}
-
-/** The report names the file only (a path can carry a patient or study code) unless `keepPath`. */
-function readUnknowns(file: string, cwd: string, keepPath: boolean): MatchUnknown[] {
-  let bytes: Uint8Array;
-  try {
-    bytes = readFileSync(resolve(cwd, file));
-  } catch (error) {
-    throw new BandshelfError('IO_ERROR', `cannot read: ${describeIoError(error)}`, {
-      file,
-      cause: error,
-    });
-  }
-  const hash = createHash('sha256').update(bytes).digest('hex');
-  const parsed = readSpectrumFile(bytes, { file });
-  return parsed.map((p) => {
-    const title = typeof p.meta.title === 'string' ? p.meta.title : undefined;
-    return {
-      file: keepPath ? file : basename(file),
-      ...(parsed.length > 1 && p.source.block !== undefined ? { block: p.source.block } : {}),
-      hash,
-      ...(title === undefined ? {} : { title }),
-      spectrum: p.spectrum,
-      ...(p.saturated === undefined ? {} : { saturated: p.saturated }),
-      warnings: p.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
-    };
-  });
 }
 
 function oneLine(error: unknown): string {
@@ -173,7 +124,7 @@ export async function matchUnknowns(
     };
     const assignments = [...shippedAssignments(), ...listAssignments(library)];
 
-    const files = targets.flatMap((t) => filesOf(t, context.cwd));
+    const files = targets.flatMap((t) => spectrumFilesOf(t, { cwd: context.cwd }));
     const outcomes: MatchOutcome[] = [];
     const warnings: string[] = [];
     const single = files.length === 1;
@@ -181,7 +132,7 @@ export async function matchUnknowns(
       context.progress(i, files.length, basename(file));
       let read: MatchUnknown[];
       try {
-        read = readUnknowns(file, context.cwd, options.keepPath === true);
+        read = readUnknownFile(file, { cwd: context.cwd, keepPath: options.keepPath === true });
       } catch (error) {
         if (single) throw error;
         outcomes.push({ file, error: oneLine(error) });

@@ -5,6 +5,7 @@ import { assignmentsCommand } from './assignments.js';
 import { backupCommand } from './backup.js';
 import { bandsCommand } from './bands.js';
 import { checkCommand } from './check.js';
+import { contrastCommand } from './contrast.js';
 import { diffCommand } from './diff.js';
 import { editCommand } from './edit.js';
 import { exportCommand } from './export.js';
@@ -37,5 +38,6 @@ export const commands: CommandSpec[] = [
   matchCommand,
   bandsCommand,
   identifyCommand,
+  contrastCommand,
   siteCommand,
 ];

@@ -248,7 +248,9 @@ function methodText(
     outliers:
       "Each spectrum's RMS distance from its group's point-wise median spectrum; a modified z = 0.6745 (d − median d) / " +
       `MAD above ${settings.outlierCutoff} flags an outlier (Iglewicz & Hoaglin, 1993). ` +
-      (settings.dropOutliers ? 'Outliers were left out.' : 'Outliers are listed and kept (dropOutliers leaves them out).'),
+      (settings.dropOutliers
+        ? 'Outliers were left out.'
+        : 'Outliers are listed and kept (dropOutliers leaves them out).'),
     search:
       'The positive part (higher in the first group) and the negative part (lower, sign flipped) of the difference, ' +
       'zero outside the difference bands, are each scored against the library by Pearson correlation like an unknown.',

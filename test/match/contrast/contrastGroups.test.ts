@@ -73,6 +73,9 @@ describe('contrastGroups', () => {
     const { a, b } = syntheticCohort(5, { n: 2 });
     await expect(
       contrastGroups({ a: { label: 'A', spectra: a }, b: { label: 'B', spectra: b }, grid: COHORT_GRID }),
-    ).rejects.toMatchObject({ code: 'BAD_OPTION', message: expect.stringMatching(/group 'A' has 2 spectra.*at least 3/) });
+    ).rejects.toMatchObject({
+      code: 'BAD_OPTION',
+      message: expect.stringMatching(/group 'A' has 2 spectra.*at least 3/),
+    });
   });
 });

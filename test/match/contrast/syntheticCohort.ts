@@ -50,7 +50,8 @@ export function syntheticCohort(seed: number, options: CohortOptions = {}) {
         v[j] = v[j]! + factor * band.height * Math.exp(-((axis[j]! - band.position) ** 2) / (2 * s * s));
       }
     });
-    for (let j = 0; j < axis.length; j++) v[j] = v[j]! + offset + slope * (axis[j]! - 1350) + noise * normal();
+    for (let j = 0; j < axis.length; j++)
+      v[j] = v[j]! + offset + slope * (axis[j]! - 1350) + noise * normal();
     return v;
   };
   const group = (prefix: string, raise: boolean) =>
