@@ -92,7 +92,9 @@ describe('bandshelf contrast', () => {
     expect(r.stdout).toMatch(/contrast of dosed \(12 of 12 spectra\) with baseline \(12 of 12\)/);
     expect(r.stdout).toMatch(/^ *17\d\d +17\d\d–17\d\d +higher .*ester C=O stretch \(lipid\)/m);
     expect(r.stdout).toMatch(/Welch's unequal-variance t-test/);
-    expect(r.stdout).toMatch(/Research use only: a difference between groups is an association, not a diagnosis/);
+    expect(r.stdout).toMatch(
+      /Research use only: a difference between groups is an association, not a diagnosis/,
+    );
     expect(r.stderr).toMatch(/report written to out\/contrast-dosed-vs-baseline\.json/);
     const written = contrastReportSchema.parse(
       JSON.parse(readFileSync(join(fx.dir, 'out', 'contrast-dosed-vs-baseline.json'), 'utf8')),
