@@ -19,6 +19,7 @@ import { retireCommand } from './retire.js';
 import { reviewCommand } from './review.js';
 import { showCommand } from './show.js';
 import { siteCommand } from './site.js';
+import { subtractCommand } from './subtract.js';
 
 export const commands: CommandSpec[] = [
   initCommand,
@@ -39,5 +40,6 @@ export const commands: CommandSpec[] = [
   bandsCommand,
   identifyCommand,
   contrastCommand,
+  subtractCommand,
   siteCommand,
 ];
