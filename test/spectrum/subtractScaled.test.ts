@@ -15,7 +15,7 @@ const of = (y: Float64Array): Spectrum => ({ wavenumber: x, absorbance: y });
 
 describe('subtractScaled', () => {
   it('fits the scale in the window and leaves the solute (exact without noise, by construction)', () => {
-    const y = x.map((v, i) => 0.8 * water[i]! + solute[i]! + 0.01);
+    const y = x.map((_, i) => 0.8 * water[i]! + solute[i]! + 0.01);
     const r = subtractScaled(of(y), of(water), { window: { min: 1900, max: 2300 } });
     expect(r.scale).toBeCloseTo(0.8, 9);
     // The axis ends at 2200 cm⁻¹: 1900–2200 inclusive is 301 points.

@@ -5,6 +5,7 @@ import { assignmentsCommand } from './assignments.js';
 import { backupCommand } from './backup.js';
 import { bandsCommand } from './bands.js';
 import { checkCommand } from './check.js';
+import { compareCommand } from './compare.js';
 import { contrastCommand } from './contrast.js';
 import { diffCommand } from './diff.js';
 import { editCommand } from './edit.js';
@@ -39,6 +40,7 @@ export const commands: CommandSpec[] = [
   matchCommand,
   bandsCommand,
   identifyCommand,
+  compareCommand,
   contrastCommand,
   subtractCommand,
   siteCommand,
