@@ -19,6 +19,7 @@ const nodeEntries = {
   'bench-ingest': 'scripts/benchIngest.ts',
   'bench-cli': 'scripts/benchCli.ts',
   validate: 'scripts/validateMixture.ts',
+  'validate-contrast': 'scripts/validateContrast.ts',
   'scores-worker': 'src/match/scoresWorker.ts',
 };
 

@@ -1,8 +1,8 @@
 // A seeded synthetic cohort of serum-film-like spectra on a grid (invented bands, labelled synthetic): per-band
 // biological variation, a per-spectrum offset and slope, and white noise; one band may be raised in group A.
-import type { Grid } from '../../../src/schema/recipe.js';
-import { gridAxis } from '../../../src/spectrum/gridAxis.js';
-import { mulberry32 } from '../../mulberry32.js';
+import type { Grid } from '../schema/recipe.js';
+import { gridAxis } from '../spectrum/gridAxis.js';
+import { seededRandom } from './seededRandom.js';
 
 export const COHORT_GRID: Grid = { start: 1800, stop: 900, step: 2 };
 
@@ -17,7 +17,7 @@ export const COHORT_BANDS = [
   { position: 1080, height: 0.2, fwhm: 30 },
 ];
 
-export interface CohortOptions {
+export interface SyntheticCohortOptions {
   /** Spectra per group. @default 20 */
   n?: number;
   /** Relative between-spectrum SD of each band's height. @default 0.1 */
@@ -30,10 +30,9 @@ export interface CohortOptions {
   noise?: number;
 }
 
-/** Two groups of grid vectors (ascending wavenumber) from one seed. */
-export function syntheticCohort(seed: number, options: CohortOptions = {}) {
-  const uniform = mulberry32(seed);
-  const normal = () => Math.sqrt(-2 * Math.log(1 - uniform())) * Math.cos(2 * Math.PI * uniform());
+/** Two groups of grid vectors (ascending wavenumber) from one seed, as `contrastGroups` takes them. */
+export function syntheticCohort(seed: number, options: SyntheticCohortOptions = {}) {
+  const { normal } = seededRandom(seed);
   const axis = gridAxis(COHORT_GRID);
   const n = options.n ?? 20;
   const variation = options.variation ?? 0.1;
