@@ -44,6 +44,16 @@ beforeAll(() => {
   writeGroup('cases', 12, 3, true);
   writeGroup('controls', 12, 4, false);
   writeGroup('pair', 2, 5, false);
+  writeGroup('mixed', 8, 6, false);
+  // One film of the group carries a strong foreign band (a contaminant): an outlier after processing.
+  writeSpectrumCsv(
+    join(fx.dir, 'mixed', 'film-03.csv'),
+    [...FILM, { position: 1100, height: 1.5, fwhm: 20 }],
+    {
+      noise: 0.001,
+      seed: 77,
+    },
+  );
   // A group given as a CSV list of files, relative to the CSV's folder.
   writeFileSync(
     join(fx.dir, 'controls.csv'),
@@ -108,6 +118,19 @@ describe('bandshelf contrast', () => {
     expect(r.stdout).toBe('');
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
     expect(r.stderr).toMatch(/group 'pair' has 2 spectra .* at least 3 per group \[BAD_OPTION\]/);
+  });
+
+  it('lists an outlier and leaves it out only with --drop-outliers', () => {
+    const kept = parseJson<ContrastReport>(
+      run(['contrast', '--group-a', 'mixed', '--group-b', 'controls', '--json']).stdout,
+    );
+    const flagged = kept.spectra.filter((s) => s.group === 'a' && s.outlier).map((s) => s.file);
+    expect(flagged).toEqual(['film-03.csv']);
+    expect(kept.groups.a).toMatchObject({ read: 8, n: 8, outliers: 1 });
+    const r = run(['contrast', '--group-a', 'mixed', '--group-b', 'controls', '--drop-outliers']);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/contrast of mixed \(7 of 8 spectra\)/);
+    expect(r.stdout).toMatch(/outliers \(left out\): film-03\.csv \(mixed, z \d+\.\d\)/);
   });
 
   it('refuses a q outside (0, 1)', () => {

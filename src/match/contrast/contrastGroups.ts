@@ -230,7 +230,8 @@ function methodText(
   return {
     test:
       `Welch's unequal-variance t-test (Welch, Biometrika 34:28, 1947), two-sided, of mean ${groups.a} − mean ` +
-      `${groups.b} at each grid point of the processed spectra (the library's recipe, normalisation included).`,
+      `${groups.b} at each grid point of the processed spectra (\`bandshelf contrast\`: the library's recipe, ` +
+      'normalisation included).',
     assumptions: [
       'the spectra are independent (one spectrum per subject or sample; average replicate spectra of one sample first)',
       'the variances of the two groups may differ (no pooled variance)',
