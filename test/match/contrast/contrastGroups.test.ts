@@ -1,8 +1,8 @@
 // contrastGroups on seeded synthetic cohorts: one raised band is found and assigned; null cohorts stay quiet.
 import { describe, expect, it } from 'vitest';
+import { COHORT_GRID, syntheticCohort } from '../../../src/demo/syntheticCohort.js';
 import { contrastGroups } from '../../../src/match/contrast/contrastGroups.js';
 import { CONTRAST_CAUTION, contrastReportSchema } from '../../../src/schema/contrastReport.js';
-import { COHORT_GRID, syntheticCohort } from '../../../src/demo/syntheticCohort.js';
 
 const run = (seed: number, options: Parameters<typeof syntheticCohort>[1] = {}, q = 0.05) => {
   const { a, b } = syntheticCohort(seed, options);
