@@ -25,7 +25,7 @@ export function formatContrastTable(
   const { a, b } = report.groups;
   const lines: string[] = [
     `contrast of ${a.label} (${a.n} of ${a.read} spectra) with ${b.label} (${b.n} of ${b.read})`,
-    `${report.tested} grid points tested; ${report.discoveries} pass at Benjamini–Hochberg q ≤ ${report.settings.q}; ` +
+    `${report.tested} grid points tested${report.settings.ranges.length === 0 ? '' : ` (inside ${report.settings.ranges.map((w) => `${w.max}–${w.min}`).join(', ')} cm⁻¹)`}; ${report.discoveries} pass at Benjamini–Hochberg q ≤ ${report.settings.q}; ` +
       `${report.bands.length} difference band${report.bands.length === 1 ? '' : 's'}`,
   ];
   const outliers = report.spectra.filter((s) => s.outlier);

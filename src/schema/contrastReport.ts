@@ -1,6 +1,6 @@
 // The contrast report: two groups of spectra compared point by point, printed by `contrast --json`.
 import { z } from 'zod';
-import { gridSchema } from './recipe.js';
+import { gridSchema, windowSchema } from './recipe.js';
 
 /** Bump on any change a reader must know about; readers refuse versions they do not know. */
 export const CONTRAST_REPORT_VERSION = 1;
@@ -131,6 +131,8 @@ export const contrastReportSchema = z
         outlierCutoff: z.number().positive(),
         /** cm⁻¹ for a library peak to sit on a difference band. */
         tolerance: z.number().positive(),
+        /** The windows tested, cm⁻¹; empty: the whole grid. */
+        ranges: z.array(windowSchema),
       })
       .strict(),
     method: z

@@ -3,9 +3,11 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
 import { describeIoError } from '../../library/store/describeIoError.js';
+import { collectRepeated } from '../collectRepeated.js';
 import type { CommandSpec } from '../command.js';
 import { contrastCohort } from '../contrastCohort.js';
 import { formatContrastTable } from '../formatContrastTable.js';
+import { parseWindow } from '../parseWindow.js';
 import { readingOptions } from '../readingOptions.js';
 
 function number(value: unknown, field: string): number | undefined {
@@ -52,6 +54,12 @@ export const contrastCommand: CommandSpec = {
       .option('--label-b <name>', 'name of the second group')
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
       .option('--at <tag>', "use a release's recipe, grid and entries")
+      .option(
+        '--range <high:low>',
+        'test only inside this window, chosen in advance (repeatable)',
+        collectRepeated,
+        [],
+      )
       .option('--q <rate>', 'false-discovery rate of the Benjamini–Hochberg procedure', '0.05')
       .option('--drop-outliers', 'leave the flagged outlier spectra out of the statistics')
       .option('--tolerance <cm-1>', 'band tolerance for library peaks on a difference band', '4')
@@ -82,6 +90,7 @@ export const contrastCommand: CommandSpec = {
         tolerance: number(options.tolerance, 'tolerance')!,
         top,
         dropOutliers: options.dropOutliers === true,
+        ranges: (Array.isArray(options.range) ? options.range : []).map((t) => parseWindow(String(t))),
       },
       context,
     );

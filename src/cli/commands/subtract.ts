@@ -9,24 +9,10 @@ import { describeIoError } from '../../library/store/describeIoError.js';
 import { libraryPath } from '../../library/store/libraryPath.js';
 import { openLibrary } from '../../library/store/openLibrary.js';
 import type { Library } from '../../library/types.js';
-import type { WavenumberWindow } from '../../schema/recipe.js';
 import { subtractScaled } from '../../spectrum/subtractScaled.js';
 import type { CommandSpec } from '../command.js';
+import { parseWindow } from '../parseWindow.js';
 import { spectrumArgument } from '../spectrumArgument.js';
-
-function windowOf(text: string): WavenumberWindow {
-  const m = /^\s*(\d+(?:\.\d+)?)\s*:\s*(\d+(?:\.\d+)?)\s*$/.exec(text);
-  const a = m ? Number(m[1]) : Number.NaN;
-  const b = m ? Number(m[2]) : Number.NaN;
-  if (!m || a === b) {
-    throw new BandshelfError(
-      'BAD_OPTION',
-      `--window takes two different wavenumbers as HIGH:LOW (e.g. 2300:1900), not '${text}'`,
-      { field: 'window' },
-    );
-  }
-  return { min: Math.min(a, b), max: Math.max(a, b) };
-}
 
 function scaleOf(text: string): 'auto' | number {
   if (text === 'auto') return 'auto';
@@ -67,7 +53,10 @@ export const subtractCommand: CommandSpec = {
   },
   async run(args, options, context) {
     const scale = scaleOf(String(options.scale ?? 'auto'));
-    const window = windowOf(String(options.window ?? '2300:1900'));
+    const window = parseWindow(String(options.window ?? '2300:1900'), {
+      flag: 'window',
+      example: '2300:1900',
+    });
     let opened: Library | undefined;
     const library = () => {
       opened ??= openLibrary(libraryPath(options.library, context.cwd), { readonly: true });

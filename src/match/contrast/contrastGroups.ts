@@ -10,7 +10,7 @@ import {
   contrastReportSchema,
   type DifferenceBand,
 } from '../../schema/contrastReport.js';
-import type { Grid } from '../../schema/recipe.js';
+import type { Grid, WavenumberWindow } from '../../schema/recipe.js';
 import { gridAxis } from '../../spectrum/gridAxis.js';
 import { gridLength } from '../../spectrum/gridLength.js';
 import type { QcFlag } from '../../spectrum/types.js';
@@ -67,6 +67,11 @@ export interface ContrastGroupsOptions {
   assignmentsPerBand?: number;
   /** Spectra each group needs in the statistics. @default 3 */
   minGroupSize?: number;
+  /**
+   * Test only inside these windows, cm⁻¹ (a region of interest chosen before looking at the data: fewer tests, more
+   * power). @default [] (the whole grid)
+   */
+  ranges?: readonly WavenumberWindow[];
   /** The report's creation time, ISO 8601. @default now */
   created?: string;
 }
@@ -238,7 +243,10 @@ function methodText(
       'the group means are approximately normal at each grid point (normal data, or groups large enough for the central limit theorem)',
     ],
     fdr:
-      `Benjamini–Hochberg (J. R. Stat. Soc. B 57:289, 1995) over the ${stats.tested} tested grid points, ` +
+      `Benjamini–Hochberg (J. R. Stat. Soc. B 57:289, 1995) over the ${stats.tested} tested grid points` +
+      (settings.ranges.length === 0
+        ? ', '
+        : ` (inside ${settings.ranges.map((w) => `${w.max}–${w.min} cm⁻¹`).join(', ')} only), `) +
       `false-discovery rate q = ${settings.q}; it holds for independent or positively dependent tests, as ` +
       'neighbouring points of a spectrum are expected to be.',
     interval:
@@ -279,6 +287,7 @@ export async function contrastGroups(
     dropOutliers: options.dropOutliers ?? false,
     outlierCutoff: options.outlierCutoff ?? 3.5,
     tolerance: options.tolerance ?? 4,
+    ranges: (options.ranges ?? []).map((w) => ({ min: Math.min(w.min, w.max), max: Math.max(w.min, w.max) })),
   };
   const top = options.top ?? 5;
   const cols = gridLength(input.grid);
@@ -289,9 +298,14 @@ export async function contrastGroups(
   };
   const a = screenGroup('a', input.a, cols, screen);
   const b = screenGroup('b', input.b, cols, screen);
-  const stats = pointwiseContrast(a.kept, b.kept, { level });
+  const axis = gridAxis(input.grid);
+  const mask =
+    settings.ranges.length === 0
+      ? undefined
+      : Uint8Array.from(axis, (x) => (settings.ranges.some((w) => x >= w.min && x <= w.max) ? 1 : 0));
+  const stats = pointwiseContrast(a.kept, b.kept, { level, ...(mask === undefined ? {} : { mask }) });
   const regions = differenceRegions(stats, { q });
-  const bands = describeBands(regions, stats, gridAxis(input.grid), input.grid.step, input, {
+  const bands = describeBands(regions, stats, axis, input.grid.step, input, {
     tolerance: settings.tolerance,
     top,
     perBand: options.assignmentsPerBand ?? 3,

@@ -12,6 +12,8 @@ export interface PointwiseContrastOptions {
    * @default 0.95
    */
   level?: number;
+  /** 1 for each grid point to test; the others are left untested (NaN) and out of the FDR's m. @default every point */
+  mask?: Uint8Array;
 }
 
 /** One Float64Array per quantity, one value per grid point; NaN where a group has fewer than two values. */
@@ -81,7 +83,9 @@ export function pointwiseContrast(
   };
   let tested = 0;
   const quantile = 1 - (1 - level) / 2;
+  const mask = options.mask;
   for (let j = 0; j < cols; j++) {
+    if (mask !== undefined && mask[j] !== 1) continue;
     const a = valuesAt(groupA, j);
     const b = valuesAt(groupB, j);
     if (a.length < 2 || b.length < 2) continue;

@@ -54,6 +54,20 @@ describe('contrastGroups', () => {
     expect(any).toBeLessThan(7);
   });
 
+  it('tests only inside the given ranges: fewer tests in the FDR, the rest untested', async () => {
+    const { a, b } = syntheticCohort(7, { raised: 0 });
+    const report = await contrastGroups(
+      { a: { label: 'A', spectra: a }, b: { label: 'B', spectra: b }, grid: COHORT_GRID },
+      { ranges: [{ min: 1800, max: 1700 }] },
+    );
+    // 1700–1800 cm⁻¹ at 2 cm⁻¹ steps: 51 grid points (both ends included).
+    expect(report.tested).toBe(51);
+    expect(report.settings.ranges).toEqual([{ min: 1700, max: 1800 }]);
+    expect(report.pointwise.p[0]).toBeNull(); // 900 cm⁻¹, outside
+    expect(report.bands.map((band) => band.sign)).toEqual(['higher']);
+    expect(report.method.fdr).toMatch(/over the 51 tested grid points \(inside 1800–1700 cm⁻¹ only\)/);
+  });
+
   it('lists an outlier and leaves it out only with dropOutliers', async () => {
     const { a, b } = syntheticCohort(3, { n: 8 });
     const odd = Float64Array.from(a[2]!.processed, (v) => v * 1.8);
