@@ -148,7 +148,7 @@ export const contrastReportSchema = z
       .strict(),
     groups: z.object({ a: contrastGroupSchema, b: contrastGroupSchema }).strict(),
     spectra: z.array(contrastSpectrumSchema),
-    /** Per grid point; null where a group has fewer than two values. */
+    /** Per grid point; null where a group has fewer than two values; t, df, p, q, g and the interval null outside `ranges`. */
     pointwise: z
       .object({
         difference: gridVectorSchema,

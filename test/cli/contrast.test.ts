@@ -133,6 +133,25 @@ describe('bandshelf contrast', () => {
     expect(r.stdout).toMatch(/outliers \(left out\): film-03\.csv \(mixed, z \d+\.\d\)/);
   });
 
+  it('tests only inside --range and still searches the library with the difference', () => {
+    const r = run([
+      'contrast',
+      '--group-a',
+      'cases',
+      '--group-b',
+      'controls',
+      '--range',
+      '1800:1700',
+      '--json',
+    ]);
+    expect(r.code).toBe(0);
+    const report = parseJson<ContrastReport>(r.stdout);
+    // 1700–1800 cm⁻¹ on the default 2 cm⁻¹ grid: 51 points.
+    expect(report.tested).toBe(51);
+    expect(report.bands.map((band) => band.sign)).toEqual(['higher']);
+    expect(report.search.higher![0]!.id).toBe('triolein');
+  });
+
   it('refuses a q outside (0, 1)', () => {
     const r = run(['contrast', '--group-a', 'cases', '--group-b', 'controls', '--q', '1.5']);
     expect(r.code).toBe(2);

@@ -12,11 +12,14 @@ export interface PointwiseContrastOptions {
    * @default 0.95
    */
   level?: number;
-  /** 1 for each grid point to test; the others are left untested (NaN) and out of the FDR's m. @default every point */
+  /**
+   * 1 for each grid point to test; the others keep their means, SDs and difference but no test, interval or g (NaN)
+   * and stay out of the FDR's m. @default every point
+   */
   mask?: Uint8Array;
 }
 
-/** One Float64Array per quantity, one value per grid point; NaN where a group has fewer than two values. */
+/** One Float64Array per quantity, one value per grid point; NaN where a group has fewer than two values (or untested). */
 export interface PointwiseContrast {
   meanA: Float64Array;
   sdA: Float64Array;
@@ -85,15 +88,15 @@ export function pointwiseContrast(
   const quantile = 1 - (1 - level) / 2;
   const mask = options.mask;
   for (let j = 0; j < cols; j++) {
-    if (mask !== undefined && mask[j] !== 1) continue;
     const a = valuesAt(groupA, j);
     const b = valuesAt(groupB, j);
     if (a.length < 2 || b.length < 2) continue;
-    tested++;
     [out.meanA[j], out.sdA[j]] = meanSd(a);
     [out.meanB[j], out.sdB[j]] = meanSd(b);
+    out.difference[j] = out.meanA[j]! - out.meanB[j]!;
+    if (mask !== undefined && mask[j] !== 1) continue;
+    tested++;
     const w = welchTTest(a, b);
-    out.difference[j] = w.difference;
     out.t[j] = w.t;
     out.df[j] = w.df;
     out.p[j] = w.p;

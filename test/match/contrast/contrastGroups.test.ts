@@ -64,6 +64,9 @@ describe('contrastGroups', () => {
     expect(report.tested).toBe(51);
     expect(report.settings.ranges).toEqual([{ min: 1700, max: 1800 }]);
     expect(report.pointwise.p[0]).toBeNull(); // 900 cm⁻¹, outside
+    // Means and the difference are still given outside the ranges; only the tests are not.
+    expect(report.groups.a.mean[0]).not.toBeNull();
+    expect(report.pointwise.difference[0]).not.toBeNull();
     expect(report.bands.map((band) => band.sign)).toEqual(['higher']);
     expect(report.method.fdr).toMatch(/over the 51 tested grid points \(inside 1800–1700 cm⁻¹ only\)/);
   });
