@@ -1,6 +1,6 @@
 // Runs `contrast` against a library: reads both groups' files, processes them with the library's recipe, contrasts.
 import { readFileSync } from 'node:fs';
-import { dirname, join, resolve } from 'node:path';
+import { dirname, isAbsolute, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
 import type { SpectrumReadOptions } from '../formats/types.js';
 import { closeLibrary } from '../library/store/closeLibrary.js';
@@ -59,7 +59,7 @@ function groupFiles(target: string, cwd: string): string[] {
     const column = header.indexOf('file');
     if (column >= 0) {
       const files = lines.slice(1).map((l) => (l.split(',')[column] ?? '').trim().replace(/^"|"$/g, ''));
-      return files.filter((f) => f !== '').map((f) => join(dirname(target), f));
+      return files.filter((f) => f !== '').map((f) => (isAbsolute(f) ? f : join(dirname(target), f)));
     }
   }
   return spectrumFilesOf(target, { cwd });
