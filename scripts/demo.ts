@@ -1,12 +1,14 @@
 // `npm run demo`: builds a library from the synthetic demo collection, matches the demo unknowns and builds the site.
-import { existsSync, mkdirSync, readdirSync, rmSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+import { existsSync, mkdirSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
 import { main } from '../src/cli/main.js';
+import { demoCohortFiles } from '../src/demo/demoCohortFiles.js';
 
 const OUT = resolve('demo-out');
 const LIBRARY = join(OUT, 'bandshelf.sqlite');
 const REPORTS = join(OUT, 'reports');
 const SITE = join(OUT, 'site');
+const COHORT = join(OUT, 'cohort');
 
 async function step(title: string, argv: string[]): Promise<void> {
   process.stdout.write(`\n== ${title}\n$ bandshelf ${argv.join(' ')}\n`);
@@ -58,6 +60,28 @@ async function runDemo(): Promise<void> {
     '1545',
     '1240',
     ...lib,
+  ]);
+  await step('Compare two entries: the correlation matrix and an overlay plot', [
+    'compare',
+    'albumin-human',
+    'igg-human',
+    ...lib,
+    '--plot',
+    join(OUT, 'albumin-vs-igg.svg'),
+  ]);
+  for (const [name, text] of demoCohortFiles()) {
+    mkdirSync(dirname(join(COHORT, name)), { recursive: true });
+    writeFileSync(join(COHORT, name), text);
+  }
+  await step('Contrast a synthetic cohort: 20 serum films with more lipid against 20 without', [
+    'contrast',
+    '--group-a',
+    join(COHORT, 'cases'),
+    '--group-b',
+    join(COHORT, 'controls'),
+    ...lib,
+    '--report',
+    join(OUT, 'contrasts'),
   ]);
   await step('Build the static site', ['site', ...lib, '--reports', REPORTS, '--out', SITE, '--clean']);
   if (existsSync(SITE)) {

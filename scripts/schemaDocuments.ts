@@ -2,6 +2,7 @@
 // user may write, defaults optional).
 import { z } from 'zod';
 import { bandAssignmentSchema } from '../src/schema/bandAssignment.js';
+import { contrastReportSchema } from '../src/schema/contrastReport.js';
 import { matchReportSchema } from '../src/schema/matchReport.js';
 import { entryMetaSchema } from '../src/schema/meta.js';
 import { recipeSchema } from '../src/schema/recipe.js';
@@ -34,6 +35,13 @@ const SCHEMAS: { file: string; title: string; description: string; schema: z.Zod
     description:
       'What match --json and --report write: the query, the library state, hits, mixture and bands.',
     schema: matchReportSchema,
+  },
+  {
+    file: 'contrast-report.schema.json',
+    title: 'bandshelf contrast report',
+    description:
+      'Two groups of spectra compared at every grid point (Welch t-test, Benjamini–Hochberg q-values, Hedges g) and the difference bands, printed by contrast --json.',
+    schema: contrastReportSchema,
   },
 ];
 

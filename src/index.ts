@@ -33,6 +33,13 @@ export { reviewRevision } from './library/store/reviewRevision.js';
 export type * from './library/types.js';
 export { buildBandIndex } from './match/buildBandIndex.js';
 export { buildMatchReport } from './match/buildMatchReport.js';
+export {
+  type ContrastGroup,
+  type ContrastGroupsOptions,
+  type ContrastInput,
+  type ContrastSpectrum,
+  contrastGroups,
+} from './match/contrast/contrastGroups.js';
 export { cosineScores } from './match/cosineScores.js';
 export { euclideanScores } from './match/euclideanScores.js';
 export { fitMixture } from './match/fitMixture.js';
@@ -55,6 +62,7 @@ export { shippedAssignments } from './match/shippedAssignments.js';
 export { topK } from './match/topK.js';
 export { type BandAssignment, bandAssignmentSchema } from './schema/bandAssignment.js';
 export { casCheckDigitValid } from './schema/casCheckDigitValid.js';
+export { CONTRAST_CAUTION, type ContrastReport, contrastReportSchema } from './schema/contrastReport.js';
 export { MATCH_CAUTION, type MatchReport, matchReportSchema } from './schema/matchReport.js';
 export { type EntryMeta, type EntryMetaInput, entryMetaPatchSchema, entryMetaSchema } from './schema/meta.js';
 export { type Grid, gridSchema, type Recipe, type RecipeInput, recipeSchema } from './schema/recipe.js';

@@ -20,6 +20,7 @@ const nodeEntries = {
   'bench-cli': 'scripts/benchCli.ts',
   validate: 'scripts/validateMixture.ts',
   'bench-cross-source': 'scripts/benchCrossSource.ts',
+  'validate-contrast': 'scripts/validateContrast.ts',
   'scores-worker': 'src/match/scoresWorker.ts',
 };
 

@@ -1,10 +1,8 @@
 // Runs the whole match of one or more unknown files against a library: read, process, search, fit, identify, report.
 import { createHash } from 'node:crypto';
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import { basename, join, resolve } from 'node:path';
+import { readFileSync } from 'node:fs';
+import { basename, resolve } from 'node:path';
 import { BandshelfError, errorLine } from '../error.js';
-import { isSidecarName } from '../formats/isSidecarName.js';
-import { readSpectrumFile } from '../formats/readSpectrumFile.js';
 import type { SpectrumReadOptions } from '../formats/types.js';
 import type { SourceFile } from '../library/ingest/ingestTypes.js';
 import { closeLibrary } from '../library/store/closeLibrary.js';
@@ -27,6 +25,8 @@ import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import { type Recipe, timeDomainSchema } from '../schema/recipe.js';
 import type { CommandContext } from './command.js';
+import { readUnknownFile, type UnknownOfFile } from './readUnknownFile.js';
+import { spectrumFilesOf } from './spectrumFilesOf.js';
 
 /** The pipeline's settings as the CLI takes them, plus where the library, release and recipe file are. */
 export interface MatchUnknownsOptions
@@ -67,25 +67,6 @@ export interface MatchRun {
   warnings: string[];
 }
 
-/** Spectrum files of a folder (not recursive): no hidden files, sidecars or manifests; sorted by name. */
-function filesOf(target: string, cwd: string): string[] {
-  const full = resolve(cwd, target);
-  let stat: ReturnType<typeof statSync>;
-  try {
-    stat = statSync(full);
-  } catch {
-    throw new BandshelfError('IO_ERROR', 'no such file or folder', { file: target });
-  }
-  if (!stat.isDirectory()) return [target];
-  const names = readdirSync(full)
-    .filter((name) => !name.startsWith('.') && !isSidecarName(name) && name.toLowerCase() !== 'manifest.csv')
-    .filter((name) => statSync(join(full, name)).isFile())
-    .sort();
-  if (names.length === 0)
-    throw new BandshelfError('EMPTY_FILE', 'the folder holds no spectrum files', { file: target });
-  return names.map((name) => join(target, name));
-}
-
 function readBytes(file: string, cwd: string): Uint8Array {
   try {
     return readFileSync(resolve(cwd, file));
@@ -99,38 +80,6 @@ function readBytes(file: string, cwd: string): Uint8Array {
 
 function warningLines(warnings: readonly { line?: number; message: string }[]): string[] {
   return warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`));
-}
-
-/** The report names the file only (a path can carry a patient or study code) unless `keepPath`. */
-function readUnknowns(
-  file: string,
-  cwd: string,
-  keepPath: boolean,
-  read: SpectrumReadOptions,
-): (MatchUnknown & { resolution?: unknown })[] {
-  const bytes = readBytes(file, cwd);
-  const hash = createHash('sha256').update(bytes).digest('hex');
-  const parsed = readSpectrumFile(bytes, {
-    file,
-    ...(read.xUnit === undefined ? {} : { xUnit: read.xUnit }),
-    ...(read.yUnit === undefined ? {} : { yUnit: read.yUnit }),
-    ...(read.block === undefined ? {} : { block: read.block }),
-    ...(read.column === undefined ? {} : { column: read.column }),
-  });
-  return parsed.map((p) => {
-    const title = typeof p.meta.title === 'string' ? p.meta.title : undefined;
-    return {
-      file: keepPath ? file : basename(file),
-      ...(parsed.length > 1 && p.source.block !== undefined ? { block: p.source.block } : {}),
-      ...(p.source.column === undefined ? {} : { column: p.source.column }),
-      hash,
-      ...(title === undefined ? {} : { title }),
-      spectrum: p.spectrum,
-      ...(p.saturated === undefined ? {} : { saturated: p.saturated }),
-      warnings: warningLines(p.warnings),
-      ...(p.meta.resolution === undefined ? {} : { resolution: p.meta.resolution }),
-    };
-  });
 }
 
 /**
@@ -250,13 +199,13 @@ export async function matchUnknowns(
       for (const w of unknown.warnings) warnings.push(`${targets[0]}: ${w}`);
       return { outcomes: [{ file: targets[0]!, report }], batch: false, warnings };
     }
-    const files = targets.flatMap((t) => filesOf(t, context.cwd));
+    const files = targets.flatMap((t) => spectrumFilesOf(t, { cwd: context.cwd }));
     const single = files.length === 1;
     for (const [i, file] of files.entries()) {
       context.progress(i, files.length, basename(file));
-      let unknowns: ReturnType<typeof readUnknowns>;
+      let unknowns: UnknownOfFile[];
       try {
-        unknowns = readUnknowns(file, context.cwd, options.keepPath === true, read);
+        unknowns = readUnknownFile(file, { cwd: context.cwd, keepPath: options.keepPath === true, read });
       } catch (error) {
         if (single) throw error;
         outcomes.push({ file, error: errorLine(error) });

@@ -20,6 +20,9 @@ export interface WriteJcampDxOptions {
    * quantisation step ≤ 1e-7 of max|y|. @default 8
    */
   significantDigits?: number;
+  /** Lines written as `$$` comments after the labels (e.g. the operation that made the spectrum), each cut at 80
+   * characters. @default [] */
+  comments?: readonly string[];
 }
 
 /**
@@ -92,6 +95,7 @@ export function writeJcampDx(spectrum: Spectrum, options: WriteJcampDxOptions = 
       );
     else out.push(...labelLines(label, oneLine(String(value))));
   }
+  for (const comment of options.comments ?? []) out.push(`$$ ${oneLine(comment)}`.slice(0, MAX_LINE));
   out.push(
     '##XUNITS=1/CM',
     '##YUNITS=ABSORBANCE',

@@ -153,6 +153,21 @@ describe('writeJcampDx', () => {
     });
   });
 
+  it('writes comment lines as $$ lines that a reader skips, cut at 80 characters', () => {
+    // `$$` starts a comment anywhere on a line (JCAMP-DX 4.24, McDonald & Wilks 1988).
+    const spectrum: Spectrum = {
+      wavenumber: Float64Array.of(1000, 1001, 1002),
+      absorbance: Float64Array.of(1, 2, 3),
+    };
+    const long = `made by subtraction ${'x'.repeat(100)}`;
+    const text = writeJcampDx(spectrum, { comments: ['a − 0.5 × b', long] });
+    const lines = text.split('\n');
+    expect(lines).toContain('$$ a − 0.5 × b');
+    expect(lines.find((l) => l.startsWith('$$ made by'))!.length).toBe(80);
+    const [read] = readJcampDx(text);
+    expect(Array.from(read!.spectrum.absorbance)).toEqual([1, 2, 3]);
+  });
+
   it('refuses fewer than two points, non-finite values and bad options', () => {
     const one = { wavenumber: Float64Array.from([1]), absorbance: Float64Array.from([1]) };
     expect(() => writeJcampDx(one)).toThrow(BandshelfError);

@@ -10,9 +10,10 @@ const dir = join(ROOT, 'schema');
 describe('schema/*.schema.json', () => {
   const documents = schemaDocuments();
 
-  it('covers the recipe, entry metadata, band assignment and match report', () => {
+  it('covers the recipe, entry metadata, band assignment, match report and contrast report', () => {
     expect([...documents.keys()].sort()).toEqual([
       'band-assignment.schema.json',
+      'contrast-report.schema.json',
       'entry-meta.schema.json',
       'match-report.schema.json',
       'recipe.schema.json',

@@ -5,6 +5,8 @@ import { assignmentsCommand } from './assignments.js';
 import { backupCommand } from './backup.js';
 import { bandsCommand } from './bands.js';
 import { checkCommand } from './check.js';
+import { compareCommand } from './compare.js';
+import { contrastCommand } from './contrast.js';
 import { diffCommand } from './diff.js';
 import { editCommand } from './edit.js';
 import { exportCommand } from './export.js';
@@ -18,6 +20,7 @@ import { retireCommand } from './retire.js';
 import { reviewCommand } from './review.js';
 import { showCommand } from './show.js';
 import { siteCommand } from './site.js';
+import { subtractCommand } from './subtract.js';
 
 export const commands: CommandSpec[] = [
   initCommand,
@@ -37,5 +40,8 @@ export const commands: CommandSpec[] = [
   matchCommand,
   bandsCommand,
   identifyCommand,
+  compareCommand,
+  contrastCommand,
+  subtractCommand,
   siteCommand,
 ];

@@ -1,0 +1,57 @@
+// Reads one unknown spectrum file from disk into the match pipeline's unknowns (one per block), with its SHA-256.
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import { basename, resolve } from 'node:path';
+import { BandshelfError } from '../error.js';
+import { readSpectrumFile } from '../formats/readSpectrumFile.js';
+import type { SpectrumReadOptions } from '../formats/types.js';
+import { describeIoError } from '../library/store/describeIoError.js';
+import type { MatchUnknown } from '../match/pipeline/types.js';
+
+export interface ReadUnknownFileOptions {
+  /** The folder a relative `file` is read against. @default process.cwd() */
+  cwd?: string;
+  /** Keep the path as given in `file` (else the file name only). @default false */
+  keepPath?: boolean;
+  /** Reading overrides passed to readSpectrumFile (units, block, column). @default {} (detected from the file) */
+  read?: Pick<SpectrumReadOptions, 'xUnit' | 'yUnit' | 'block' | 'column'>;
+}
+
+/** One unknown of the file, with the resolution its metadata states (for the recipe's resolution step). */
+export type UnknownOfFile = MatchUnknown & { resolution?: unknown };
+
+/** The unknown names the file only (a path can carry a patient or study code) unless `keepPath`. */
+export function readUnknownFile(file: string, options: ReadUnknownFileOptions = {}): UnknownOfFile[] {
+  let bytes: Uint8Array;
+  try {
+    bytes = readFileSync(resolve(options.cwd ?? process.cwd(), file));
+  } catch (error) {
+    throw new BandshelfError('IO_ERROR', `cannot read: ${describeIoError(error)}`, {
+      file,
+      cause: error,
+    });
+  }
+  const hash = createHash('sha256').update(bytes).digest('hex');
+  const read = options.read ?? {};
+  const parsed = readSpectrumFile(bytes, {
+    file,
+    ...(read.xUnit === undefined ? {} : { xUnit: read.xUnit }),
+    ...(read.yUnit === undefined ? {} : { yUnit: read.yUnit }),
+    ...(read.block === undefined ? {} : { block: read.block }),
+    ...(read.column === undefined ? {} : { column: read.column }),
+  });
+  return parsed.map((p) => {
+    const title = typeof p.meta.title === 'string' ? p.meta.title : undefined;
+    return {
+      file: options.keepPath === true ? file : basename(file),
+      ...(parsed.length > 1 && p.source.block !== undefined ? { block: p.source.block } : {}),
+      ...(p.source.column === undefined ? {} : { column: p.source.column }),
+      hash,
+      ...(title === undefined ? {} : { title }),
+      spectrum: p.spectrum,
+      ...(p.saturated === undefined ? {} : { saturated: p.saturated }),
+      warnings: p.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
+      ...(p.meta.resolution === undefined ? {} : { resolution: p.meta.resolution }),
+    };
+  });
+}
