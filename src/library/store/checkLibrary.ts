@@ -219,18 +219,23 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
       file: where,
       ...(again?.saturated === undefined ? {} : { saturated: again.saturated }),
     });
+    // The stored vector is Float32: compare with the recomputation rounded the same way, so values that underflow
+    // to zero or a subnormal on storage (a file scaled by 1e-300) compare equal rather than fail forever.
+    const rounded = Float64Array.from(recomputed.processed, Math.fround);
     let scale = 0;
     for (const v of recomputed.processed) if (Number.isFinite(v) && Math.abs(v) > scale) scale = Math.abs(v);
+    let scale32 = 0;
+    for (const v of rounded) if (Number.isFinite(v) && Math.abs(v) > scale32) scale32 = Math.abs(v);
     let covered = 0;
     for (let i = 0; i < cols; i++) {
       const a = stored[i]!;
-      const b = recomputed.processed[i]!;
+      const b = rounded[i]!;
       if (!Number.isNaN(a)) covered++;
       if (Number.isNaN(a) !== Number.isNaN(b)) {
         add(where, `processed value at ${axis[i]} cm⁻¹ is ${a} but recomputes to ${b} (coverage differs)`);
         return;
       }
-      if (!Number.isNaN(a) && !(Math.abs(a - b) <= tolerance * scale)) {
+      if (!Number.isNaN(a) && !(a === b || Math.abs(a - b) <= tolerance * scale32)) {
         add(where, `processed value at ${axis[i]} cm⁻¹ is ${a} but recomputes to ${b}`);
         return;
       }
