@@ -34,8 +34,25 @@ export function readSpectrumFile(bytes: Uint8Array, options: ReadSpectrumFileOpt
     );
   }
   if (bytes.length === 0) throw new BandshelfError('EMPTY_FILE', 'the file is empty', { file });
-  const text = decodeText(bytes, { file });
+  let encodingWarning: string | undefined;
+  const text = decodeText(bytes, {
+    file,
+    onWarning: (message) => {
+      encodingWarning = message;
+    },
+  });
   if (text.trim() === '') throw new BandshelfError('EMPTY_FILE', 'the file holds only white space', { file });
+  const parsed = readParsed(text, { file, block, xUnit, yUnit });
+  if (encodingWarning === undefined) return parsed;
+  const warning = { message: encodingWarning };
+  return parsed.map((p) => ({ ...p, warnings: [warning, ...p.warnings] }));
+}
+
+function readParsed(
+  text: string,
+  options: Pick<ReadSpectrumFileOptions, 'file' | 'block' | 'xUnit' | 'yUnit'>,
+): ParsedSpectrum[] {
+  const { file, block, xUnit, yUnit } = options;
   if (isJcampDx(text)) return readJcampDx(text, { file, block, xUnit, yUnit });
   if (block !== undefined && block !== 1) {
     throw new BandshelfError(

@@ -116,9 +116,14 @@ export function buildRevisionInputs(
         ? job.label
         : join(dirname(job.label), basename(job.sidecarPath));
   let sidecar = job.sidecar;
+  const sidecarWarnings: { message: string }[] = [];
   if (sidecar === undefined && job.sidecarPath !== undefined) {
     const label = sidecarLabel ?? job.label;
-    sidecar = loadSidecar(readTextFile(job.sidecarPath, { label }), { file: label });
+    const text = readTextFile(job.sidecarPath, {
+      label,
+      onWarning: (message) => sidecarWarnings.push({ message: `${label}: ${message}` }),
+    });
+    sidecar = loadSidecar(text, { file: label });
   }
   const timeDomain = job.samplePaths.length > 0;
   if (!timeDomain && sidecar?.timeDomain !== undefined) {
@@ -181,7 +186,7 @@ export function buildRevisionInputs(
   const stem = stemOf(stemSource).replace(/\.meta$/i, '');
   const ids = new Set<string>();
   return originals.map((o) => {
-    const warnings = [...(o.extras.warnings ?? [])];
+    const warnings = [...sidecarWarnings, ...(o.extras.warnings ?? [])];
     const fromLabels = metaFromLabels(o.labels, warnings);
     const merged: Record<string, unknown> = { ...fromLabels, ...given };
     if (merged.id === undefined) {

@@ -111,7 +111,10 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
       throw new BandshelfError('IO_ERROR', 'the manifest does not exist', { file: label });
     manifests.push({
       dir: dirname(abs),
-      rows: readManifest(readTextFile(abs, { label }), { file: label }),
+      rows: readManifest(
+        readTextFile(abs, { label, onWarning: (message) => warnings.push(`${label}: ${message}`) }),
+        { file: label },
+      ),
       used: new Set(),
       label,
     });
@@ -203,7 +206,10 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
     const label = labelOf(c.abs);
     let sidecar: LoadedSidecar;
     try {
-      sidecar = loadSidecar(readTextFile(c.abs, { label }), { file: label });
+      sidecar = loadSidecar(
+        readTextFile(c.abs, { label, onWarning: (message) => warnings.push(`${label}: ${message}`) }),
+        { file: label },
+      );
     } catch (error) {
       // A broken sidecar beside a data file is reported once, by that file's job.
       const twinExists = candidates.some((d) => !isSidecarName(d.abs) && sidecarNameFor(d.abs) === c.abs);
