@@ -1,12 +1,12 @@
 // Runs the whole match of one or more unknown files against a library: read, process, search, fit, identify, report.
 import { createHash } from 'node:crypto';
-import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { readdirSync, statSync } from 'node:fs';
 import { basename, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
 import { isSidecarName } from '../formats/isSidecarName.js';
 import { readSpectrumFile } from '../formats/readSpectrumFile.js';
 import { closeLibrary } from '../library/store/closeLibrary.js';
-import { describeIoError } from '../library/store/describeIoError.js';
+import { readRegularFile } from '../library/store/readRegularFile.js';
 import { libraryPath } from '../library/store/libraryPath.js';
 import { listAssignments } from '../library/store/listAssignments.js';
 import { openLibrary } from '../library/store/openLibrary.js';
@@ -76,15 +76,7 @@ function filesOf(target: string, cwd: string): string[] {
 
 /** The report names the file only (a path can carry a patient or study code) unless `keepPath`. */
 function readUnknowns(file: string, cwd: string, keepPath: boolean): MatchUnknown[] {
-  let bytes: Uint8Array;
-  try {
-    bytes = readFileSync(resolve(cwd, file));
-  } catch (error) {
-    throw new BandshelfError('IO_ERROR', `cannot read: ${describeIoError(error)}`, {
-      file,
-      cause: error,
-    });
-  }
+  const bytes = readRegularFile(resolve(cwd, file), { label: file });
   const hash = createHash('sha256').update(bytes).digest('hex');
   const parsed = readSpectrumFile(bytes, { file });
   return parsed.map((p) => {

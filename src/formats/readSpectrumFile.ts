@@ -1,6 +1,7 @@
 // Reads any spectrum file bandshelf accepts from its bytes: sniffs JCAMP-DX or delimited text and parses it.
 import { BandshelfError } from '../error.js';
 import { decodeText } from './decodeText.js';
+import { MAX_INPUT_BYTES } from './maxInputBytes.js';
 import { readDelimited } from './readDelimited.js';
 import { readJcampDx } from './readJcampDx.js';
 import type { ParsedSpectrum, XUnit, YUnit } from './types.js';
@@ -14,7 +15,7 @@ export interface ReadSpectrumFileOptions {
   yUnit?: YUnit;
   /** Read only this spectrum (1-based) of a multi-block JCAMP-DX file. @default undefined (all) */
   block?: number;
-  /** Refuse files larger than this many bytes. @default 67_108_864 (64 MiB) */
+  /** Refuse files larger than this many bytes. @default MAX_INPUT_BYTES (200 MB) */
   maxBytes?: number;
 }
 
@@ -25,7 +26,7 @@ export interface ReadSpectrumFileOptions {
  * absorbance, ascending, finite and free of duplicate x; anything wrong is a BandshelfError naming the file.
  */
 export function readSpectrumFile(bytes: Uint8Array, options: ReadSpectrumFileOptions = {}): ParsedSpectrum[] {
-  const { file, xUnit, yUnit, block, maxBytes = 64 * 1024 * 1024 } = options;
+  const { file, xUnit, yUnit, block, maxBytes = MAX_INPUT_BYTES } = options;
   if (bytes.length > maxBytes) {
     throw new BandshelfError(
       'FILE_TOO_LARGE',

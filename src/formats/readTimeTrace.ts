@@ -9,6 +9,7 @@
 import { BandshelfError } from '../error.js';
 import type { Trace, TraceWarning } from '../spectrum/trace/types.js';
 import { decodeText } from './decodeText.js';
+import { MAX_INPUT_BYTES } from './maxInputBytes.js';
 
 export type TimeUnit = 'fs' | 'ps';
 
@@ -30,7 +31,7 @@ export interface ReadTimeTraceOptions {
   overrideHeader?: boolean;
   /**
    * Largest accepted input, bytes.
-   * @default 67108864
+   * @default MAX_INPUT_BYTES (200 MB)
    */
   maxBytes?: number;
   /**
@@ -106,7 +107,7 @@ function unitOf(header: string): string | null {
  */
 export function readTimeTrace(input: Uint8Array | string, options: ReadTimeTraceOptions = {}): ParsedTrace {
   const file = options.file;
-  const maxBytes = options.maxBytes ?? 64 * 1024 * 1024;
+  const maxBytes = options.maxBytes ?? MAX_INPUT_BYTES;
   const tolerance = options.stepTolerance ?? 0.01;
   const minPoints = options.minPoints ?? 16;
   const warnings: TraceWarning[] = [];

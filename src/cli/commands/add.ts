@@ -84,6 +84,7 @@ export const addCommand: CommandSpec = {
         [],
       )
       .option('--time-unit <unit>', 'delay unit of the traces, overriding their headers: fs|ps')
+      .option('--max-file-size <MB>', 'largest input file read, in MB (default 200)')
       .option('--json', 'print {added, unchanged, failed} as JSON');
   },
   async run(args, options, context) {
@@ -117,6 +118,18 @@ export const addCommand: CommandSpec = {
       }
       read.block = block;
     }
+    let maxFileBytes: number | undefined;
+    if (options.maxFileSize !== undefined) {
+      const mb = Number(options.maxFileSize);
+      if (!(mb > 0) || !Number.isFinite(mb)) {
+        throw new BandshelfError(
+          'BAD_OPTION',
+          `--max-file-size wants a size in MB above 0 (not '${options.maxFileSize}')`,
+          { field: 'max-file-size' },
+        );
+      }
+      maxFileBytes = Math.round(mb * 1e6);
+    }
     const recipe =
       typeof options.recipe === 'string'
         ? readRecipeFile(resolve(context.cwd, options.recipe), { label: options.recipe })
@@ -145,6 +158,7 @@ export const addCommand: CommandSpec = {
           read,
           force: Boolean(options.force),
           atomic: Boolean(options.atomic),
+          ...(maxFileBytes === undefined ? {} : { maxFileBytes }),
           author,
           message,
           progress: context.progress,

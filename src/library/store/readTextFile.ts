@@ -1,8 +1,6 @@
-// Reads a text file the user named (recipe, --meta, manifest, sidecar); failure is one IO_ERROR naming it.
-import { readFileSync } from 'node:fs';
-import { BandshelfError } from '../../error.js';
+// Reads a text file the user named (recipe, --meta, manifest, sidecar); failure is one error naming it.
 import { decodeText } from '../../formats/decodeText.js';
-import { describeIoError } from './describeIoError.js';
+import { readRegularFile } from './readRegularFile.js';
 
 export interface ReadTextFileOptions {
   /** The file as the user named it, for errors.
@@ -12,18 +10,9 @@ export interface ReadTextFileOptions {
   onWarning?: (message: string) => void;
 }
 
-/** Bytes through the one text decoder (BOM → UTF-8/UTF-16, valid UTF-8, else Windows-1252). */
-
+/** Bytes (a regular file within the size limit) through the one text decoder. */
 export function readTextFile(path: string, options: ReadTextFileOptions = {}): string {
-  let bytes: Buffer;
-  try {
-    bytes = readFileSync(path);
-  } catch (error) {
-    throw new BandshelfError('IO_ERROR', `cannot read: ${describeIoError(error)}`, {
-      file: options.label ?? path,
-      cause: error,
-    });
-  }
+  const bytes = readRegularFile(path, { label: options.label ?? path });
   const file = options.label ?? path;
   return decodeText(bytes, { file, ...(options.onWarning ? { onWarning: options.onWarning } : {}) });
 }
