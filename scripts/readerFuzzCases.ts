@@ -23,6 +23,8 @@ export interface ReaderFuzzCase {
   reader: 'jcamp-dx' | 'delimited' | 'trace' | 'sidecar' | 'manifest';
   property: 'round-trip' | 'benign variant' | 'damaged';
   inputs: fc.Arbitrary<FuzzInput>;
+  /** The reader on bytes, for mutated inputs that may only ever raise a BandshelfError. */
+  read: (bytes: Uint8Array) => unknown;
 }
 
 const FILE = 'fuzz.dat';
@@ -236,6 +238,7 @@ function spectrumCases(
   return [
     {
       reader,
+      read: readSpectrum,
       property: 'round-trip',
       inputs: written.map((w) => {
         const bytes = encoder.encode(w.text);
@@ -247,6 +250,7 @@ function spectrumCases(
     },
     {
       reader,
+      read: readSpectrum,
       property: 'benign variant',
       inputs: fc.tuple(written, variantArb).map(([w, variant]) => {
         const bytes = benignVariant(w.text, variant);
@@ -263,6 +267,7 @@ function spectrumCases(
     },
     {
       reader,
+      read: readSpectrum,
       property: 'damaged',
       inputs: fc.tuple(written, damageArb).map(([w, [kind, pick]]) => {
         // Compressed XYDATA lines end in pseudo-digits: damage is appended there; AFFN pairs are replaced in place.
@@ -302,6 +307,7 @@ function traceCases(): ReaderFuzzCase[] {
   return [
     {
       reader: 'trace',
+      read: readTrace,
       property: 'round-trip',
       inputs: traceArb.map((t) => {
         const bytes = encoder.encode(t.text);
@@ -317,6 +323,7 @@ function traceCases(): ReaderFuzzCase[] {
     },
     {
       reader: 'trace',
+      read: readTrace,
       property: 'benign variant',
       inputs: fc.tuple(traceArb, variantArb).map(([t, variant]) => {
         const bytes = benignVariant(t.text, variant);
@@ -332,6 +339,7 @@ function traceCases(): ReaderFuzzCase[] {
     },
     {
       reader: 'trace',
+      read: readTrace,
       property: 'damaged',
       inputs: fc.tuple(traceArb, damageArb).map(([t, [kind, pick]]) => {
         const { bytes, code } = damage(t.text, kind, pick);
@@ -371,6 +379,7 @@ function sidecarCases(): ReaderFuzzCase[] {
   return [
     {
       reader: 'sidecar',
+      read: sidecarMeta,
       property: 'round-trip',
       inputs: written.map((w) => {
         const bytes = encoder.encode(w.text);
@@ -379,6 +388,7 @@ function sidecarCases(): ReaderFuzzCase[] {
     },
     {
       reader: 'sidecar',
+      read: sidecarMeta,
       property: 'benign variant',
       inputs: fc.tuple(written, variantArb).map(([w, variant]) => {
         const bytes = benignVariant(w.text, variant);
@@ -387,6 +397,7 @@ function sidecarCases(): ReaderFuzzCase[] {
     },
     {
       reader: 'sidecar',
+      read: sidecarMeta,
       property: 'damaged',
       inputs: fc.tuple(written, fc.nat()).map(([w, pick]) => {
         // Cut inside the JSON object (before its closing brace): never a complete document.
@@ -424,6 +435,7 @@ function manifestCases(): ReaderFuzzCase[] {
   return [
     {
       reader: 'manifest',
+      read: manifestRows,
       property: 'round-trip',
       inputs: written.map((w) => {
         const bytes = encoder.encode(w.text);
@@ -432,6 +444,7 @@ function manifestCases(): ReaderFuzzCase[] {
     },
     {
       reader: 'manifest',
+      read: manifestRows,
       property: 'benign variant',
       // Trailing white space after a closing quote is not CSV (RFC 4180 §2), so that variant is left out here.
       inputs: fc
@@ -443,6 +456,7 @@ function manifestCases(): ReaderFuzzCase[] {
     },
     {
       reader: 'manifest',
+      read: manifestRows,
       property: 'damaged',
       inputs: fc.tuple(written, fc.nat()).map(([w, pick]) => {
         const bytes = encoder.encode(w.text);

@@ -19,6 +19,7 @@ const nodeEntries = {
   'bench-ingest': 'scripts/benchIngest.ts',
   'bench-cli': 'scripts/benchCli.ts',
   validate: 'scripts/validateMixture.ts',
+  fuzz: 'scripts/fuzz.ts',
   'scores-worker': 'src/match/scoresWorker.ts',
 };
 
