@@ -266,6 +266,17 @@ describe('readJcampDx: real files bend the rules (read and warn)', () => {
     expect(Array.from(p!.spectrum.absorbance)).toEqual([1, 6, -1, 4]);
   });
 
+  it('refuses a stray repeat count that decodes far beyond NPOINTS, with the line', () => {
+    // DUP S9999 repeats a value to 9,999 occurrences (JCAMP-DX 4.24 pseudo-digits): 50 such lines are 500,000
+    // points from 600 bytes. NPOINTS=10 says the file meant ten.
+    const e = bandshelfErrorOf(() =>
+      readJcampDx(jdx(Array.from({ length: 50 }, (_, i) => `${i} A1S9999`)), { file: 'dup.jdx' }),
+    );
+    expect(e.code).toBe('BAD_FORMAT');
+    expect(e.message).toMatch(/NPOINTS=10 \(a stray repeat count\?\)/);
+    expect(e.line).toBe(12);
+  });
+
   it('uses the data when NPOINTS disagrees, taking the spacing from the data lines', () => {
     // The header promises 20 points to 19 cm⁻¹ but the file was cut after 10: x must still step by 1.
     const [p] = readJcampDx(jdx(['0 1 2 3 3 2', '5 1 0 -1 -2 -3'], { NPOINTS: '20', LASTX: '19' }));
