@@ -31,6 +31,8 @@ interface FuzzSummary {
   over5s: { reader: string; property: string; ms: number }[];
   slowest: Slowest | null;
   worstLargePerMB: Slowest | null;
+  /** Each scaled-up worst case: its size, time and time per MB of input. */
+  large: { name: string; bytes: number; ms: number; msPerMB: number }[];
   seconds: number;
 }
 
@@ -189,6 +191,7 @@ function runWorker(count: number, seed: number, progress: Float64Array): FuzzSum
   });
   let worstLarge: Slowest | null = null;
   const large = largeInputs();
+  const largeTimes: FuzzSummary['large'] = [];
   for (const item of large) {
     const t = performance.now();
     progress[0] = Date.now();
@@ -204,6 +207,7 @@ function runWorker(count: number, seed: number, progress: Float64Array): FuzzSum
     const ms = performance.now() - t;
     const perMB = ms / (item.bytes.length / 1e6);
     if (ms > WATCHDOG_MS) over5s.push({ reader: item.name, property: 'large', ms });
+    largeTimes.push({ name: item.name, bytes: item.bytes.length, ms, msPerMB: perMB });
     if (worstLarge === null || perMB > worstLarge.msPerMB) {
       worstLarge = { reader: item.name, property: 'large', bytes: item.bytes.length, ms, msPerMB: perMB };
     }
@@ -220,6 +224,7 @@ function runWorker(count: number, seed: number, progress: Float64Array): FuzzSum
     over5s,
     slowest,
     worstLargePerMB: worstLarge,
+    large: largeTimes,
     seconds: (performance.now() - started) / 1000,
   };
 }
