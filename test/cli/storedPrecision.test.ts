@@ -57,4 +57,25 @@ describe('what add stores, check passes', () => {
     const check = bandshelf(['check', '--library', lib]);
     expect(check.code, check.stdout + check.stderr).not.toBe(1);
   });
+
+  it('a processed value that would overflow Float32 (baseline removal doubling 3e38) is refused, naming the file', () => {
+    const dir = tempDir();
+    const lib = join(dir, 'lib.sqlite');
+    expect(bandshelf(['init', '--library', lib]).code).toBe(0);
+    // Ordinates within Float32 (|y| ≤ 3e38), but the rubberband baseline under the −3e38 ends lifts the middle
+    // to ~6e38, which a Float32 vector would hold as Infinity. Normalisation off, so nothing scales it back.
+    const lines = ['wavenumber_cm-1,absorbance'];
+    for (let x = 600; x <= 4000; x += 2) {
+      const y = x < 700 || x > 3900 ? -3e38 : 3e38 * Math.sin(((x - 600) / 3400) * Math.PI);
+      lines.push(`${x},${y}`);
+    }
+    const file = join(dir, 'lifted.csv');
+    writeFileSync(file, `${lines.join('\n')}\n`);
+    const recipe = join(dir, 'recipe.json');
+    writeFileSync(recipe, JSON.stringify({ normalise: { method: 'none' } }));
+    const add = bandshelf(['add', file, '--library', lib, '--force', '--recipe', recipe]);
+    expect(add.code).toBe(1);
+    expect(add.stderr).toMatch(/lifted\.csv: processed: the processed value at \d+ cm⁻¹ is [\d.e+]+, beyond/);
+    expect(add.stderr).toMatch(/\[NOT_FINITE\]/);
+  });
 });
