@@ -11,6 +11,7 @@ export type ErrorCode =
   | 'UNKNOWN_UNIT'
   | 'BINARY_DATA'
   | 'FILE_TOO_LARGE'
+  | 'NOT_A_FILE'
   | 'BAD_FORMAT'
   | 'NOT_A_SPECTRUM'
   | 'BAD_TRANSMITTANCE'

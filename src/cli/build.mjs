@@ -21,6 +21,7 @@ const nodeEntries = {
   validate: 'scripts/validateMixture.ts',
   'bench-cross-source': 'scripts/benchCrossSource.ts',
   'validate-contrast': 'scripts/validateContrast.ts',
+  fuzz: 'scripts/fuzz.ts',
   'scores-worker': 'src/match/scoresWorker.ts',
 };
 

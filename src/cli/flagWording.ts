@@ -11,7 +11,7 @@ const FLAGS: Record<string, string> = {
   timeDomain: '--time-domain',
   references: '--reference',
   'meta.id': '--id',
-  maxFileBytes: '--max-file-size',
+  maxFileBytes: '--max-file-size (in MB)',
   nearDuplicateThreshold: '--near-duplicate',
 };
 

@@ -1,17 +1,16 @@
 // Runs the whole match of one or more unknown files against a library: read, process, search, fit, identify, report.
 import { createHash } from 'node:crypto';
-import { readFileSync } from 'node:fs';
 import { basename, resolve } from 'node:path';
 import { BandshelfError, errorLine } from '../error.js';
 import type { SpectrumReadOptions } from '../formats/types.js';
 import type { SourceFile } from '../library/ingest/ingestTypes.js';
 import { closeLibrary } from '../library/store/closeLibrary.js';
-import { describeIoError } from '../library/store/describeIoError.js';
 import { libraryPath } from '../library/store/libraryPath.js';
 import { listAssignments } from '../library/store/listAssignments.js';
 import { openLibrary } from '../library/store/openLibrary.js';
 import { readOriginals } from '../library/store/readOriginals.js';
 import { readRecipeFile } from '../library/store/readRecipeFile.js';
+import { readRegularFile } from '../library/store/readRegularFile.js';
 import { readSearchSet } from '../library/store/readSearchSet.js';
 import { recipeReferences } from '../library/store/recipeReferences.js';
 import type { SearchSet } from '../library/types.js';
@@ -68,14 +67,7 @@ export interface MatchRun {
 }
 
 function readBytes(file: string, cwd: string): Uint8Array {
-  try {
-    return readFileSync(resolve(cwd, file));
-  } catch (error) {
-    throw new BandshelfError('IO_ERROR', `cannot read: ${describeIoError(error)}`, {
-      file,
-      cause: error,
-    });
-  }
+  return readRegularFile(resolve(cwd, file), { label: file });
 }
 
 function warningLines(warnings: readonly { line?: number; message: string }[]): string[] {

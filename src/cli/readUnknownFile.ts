@@ -1,11 +1,9 @@
 // Reads one unknown spectrum file from disk into the match pipeline's unknowns (one per block), with its SHA-256.
 import { createHash } from 'node:crypto';
-import { readFileSync } from 'node:fs';
 import { basename, resolve } from 'node:path';
-import { BandshelfError } from '../error.js';
 import { readSpectrumFile } from '../formats/readSpectrumFile.js';
 import type { SpectrumReadOptions } from '../formats/types.js';
-import { describeIoError } from '../library/store/describeIoError.js';
+import { readRegularFile } from '../library/store/readRegularFile.js';
 import type { MatchUnknown } from '../match/pipeline/types.js';
 
 export interface ReadUnknownFileOptions {
@@ -22,15 +20,7 @@ export type UnknownOfFile = MatchUnknown & { resolution?: unknown };
 
 /** The unknown names the file only (a path can carry a patient or study code) unless `keepPath`. */
 export function readUnknownFile(file: string, options: ReadUnknownFileOptions = {}): UnknownOfFile[] {
-  let bytes: Uint8Array;
-  try {
-    bytes = readFileSync(resolve(options.cwd ?? process.cwd(), file));
-  } catch (error) {
-    throw new BandshelfError('IO_ERROR', `cannot read: ${describeIoError(error)}`, {
-      file,
-      cause: error,
-    });
-  }
+  const bytes = readRegularFile(resolve(options.cwd ?? process.cwd(), file), { label: file });
   const hash = createHash('sha256').update(bytes).digest('hex');
   const read = options.read ?? {};
   const parsed = readSpectrumFile(bytes, {

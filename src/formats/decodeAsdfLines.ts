@@ -75,6 +75,8 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
   let difAfterMissing = 0;
   let missingChecks = 0;
   let firstMissingCheck: number | undefined;
+  let notNumbers = 0;
+  let firstNotNumber: { line: number; word: string } | undefined;
   // With the header's spacing known, a line's X tells a repeated last point (a Y check) from a new one.
   // Only an X within half a step of the next point counts; anything vaguer leaves the standard's rule in force.
   const startsNewPoint = (x: number, next: number): boolean => {
@@ -112,7 +114,14 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
     const lineNo = firstLine + li;
     // Tokenise first, so the line's form is known before values are combined.
     let nTok = 0;
-    const compressed = COMPRESSED.test(s);
+    let compressed = COMPRESSED.test(s);
+    // `NaN`, `NA`, `inf` are made of pseudo-digits but, standing alone on an otherwise plain (AFFN) line, they are
+    // a writer's missing or infinite values: never decode them as compressed digits.
+    let notNumberWords = false;
+    if (compressed && NOT_NUMBER_WORD.test(s)) {
+      compressed = COMPRESSED.test(s.replace(NOT_NUMBER_WORDS, ' '));
+      notNumberWords = !compressed;
+    }
     let i = 0;
     const len = s.length;
     while (i < len) {
@@ -139,6 +148,20 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
         }
         value = Number(s.slice(start, i));
         if (Number.isNaN(value)) throw notNumeric(s.slice(start, i), file, lineNo);
+      } else if (notNumberWords && isSeparator(s.charCodeAt(i - 1)) && notNumberWordAt(s, i) > i) {
+        const end = notNumberWordAt(s, i);
+        const word = s.slice(i, end);
+        if (/^inf/i.test(word)) {
+          throw new BandshelfError('NOT_FINITE', `${JSON.stringify(word)} is not a finite ordinate`, {
+            file,
+            line: lineNo,
+          });
+        }
+        kind = MISSING;
+        value = Number.NaN;
+        notNumbers++;
+        firstNotNumber ??= { line: lineNo, word };
+        i = end;
       } else {
         const pd = PSEUDO[c] ?? 0;
         if (pd === 0) {
@@ -287,6 +310,12 @@ export function decodeAsdfLines(lines: readonly string[], options: DecodeAsdfLin
     lineCount++;
   }
 
+  if (firstNotNumber) {
+    warnings.push({
+      line: firstNotNumber.line,
+      message: `${notNumbers} ordinate${notNumbers === 1 ? '' : 's'} written as a word (${JSON.stringify(firstNotNumber.word)}) read as missing, not as compressed digits`,
+    });
+  }
   if (firstCheckFailure) {
     if (checkFailures > 1) firstCheckFailure.message += ` (${checkFailures} lines fail their Y-check)`;
     warnings.push(firstCheckFailure);
@@ -333,6 +362,23 @@ const PSEUDO: number[] = (() => {
   set('s', DUP, 9);
   return table;
 })();
+
+// Words a writer puts for a value that is not a number, each standing alone between separators.
+const NOT_NUMBER_WORD = /(?:^|[\s,;])(?:nan|na|inf|infinity)(?=$|[\s,;])/i;
+const NOT_NUMBER_WORDS = /(?<=^|[\s,;])(?:nan|na|inf|infinity)(?=$|[\s,;])/gi;
+
+/** True for a data-line separator (space, tab, comma, semicolon, form feed, vertical tab) or before the line. */
+function isSeparator(c: number): boolean {
+  return Number.isNaN(c) || c === 32 || c === 9 || c === 44 || c === 59 || c === 12 || c === 11;
+}
+
+/** The end of a not-a-number word starting at `i` (ending at a separator or the line end), or `i` if none. */
+function notNumberWordAt(s: string, i: number): number {
+  let j = i;
+  while (j < s.length && j - i < 9 && !isSeparator(s.charCodeAt(j))) j++;
+  if (j < s.length && !isSeparator(s.charCodeAt(j))) return i;
+  return /^(?:nan|na|inf|infinity)$/i.test(s.slice(i, j)) ? j : i;
+}
 
 function isDigit(c: number): boolean {
   return c >= 48 && c <= 57;

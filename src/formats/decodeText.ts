@@ -1,9 +1,12 @@
-// Turns a file's bytes into text: UTF-8 (BOM or not), UTF-16 with a BOM, else Latin-1; refuses binary data.
+// The one decoder of every text input (spectra, traces, sidecars, manifests, recipes): a BOM picks UTF-8 or
+// UTF-16LE/BE, else valid UTF-8, else Windows-1252 with a warning; refuses binary data.
 import { BandshelfError } from '../error.js';
 
 export interface DecodeTextOptions {
   /** File named in errors. @default undefined */
   file?: string;
+  /** Called once when the bytes are not valid UTF-8 and were read as Windows-1252. @default undefined (silent) */
+  onWarning?: (message: string) => void;
 }
 
 /**
@@ -59,7 +62,10 @@ export function decodeText(bytes: Uint8Array, options: DecodeTextOptions = {}): 
         },
       );
     }
-    return new TextDecoder('latin1').decode(bytes);
+    options.onWarning?.(
+      'not valid UTF-8, read as Windows-1252 (Latin-1); save the file as UTF-8 to be sure of characters such as µ and °',
+    );
+    return windows1252(bytes);
   }
 }
 
@@ -77,4 +83,29 @@ function checkText(text: string, file: string | undefined): void {
   if (controls > 0.01 * text.length) {
     throw new BandshelfError('BINARY_DATA', 'too many control characters: binary data, not text', { file });
   }
+}
+
+// Windows-1252 bytes 0x80–0x9F (the rest equal their ISO 8859-1 code points); the five the code page leaves
+// unassigned stay C1 controls.
+// From the WHATWG Encoding Standard's index-windows-1252; decoded here because Node's TextDecoder may treat the
+// label as ISO 8859-1, and the browser and the CLI must read the same text.
+const CP1252_HIGH = [
+  0x20ac, 0x0081, 0x201a, 0x0192, 0x201e, 0x2026, 0x2020, 0x2021, 0x02c6, 0x2030, 0x0160, 0x2039, 0x0152,
+  0x008d, 0x017d, 0x008f, 0x0090, 0x2018, 0x2019, 0x201c, 0x201d, 0x2022, 0x2013, 0x2014, 0x02dc, 0x2122,
+  0x0161, 0x203a, 0x0153, 0x009d, 0x017e, 0x0178,
+];
+
+function windows1252(bytes: Uint8Array): string {
+  const parts: string[] = [];
+  const chunk = 8192;
+  const codes = new Uint16Array(Math.min(chunk, bytes.length));
+  for (let start = 0; start < bytes.length; start += chunk) {
+    const end = Math.min(bytes.length, start + chunk);
+    for (let i = start; i < end; i++) {
+      const b = bytes[i]!;
+      codes[i - start] = b >= 0x80 && b < 0xa0 ? CP1252_HIGH[b - 0x80]! : b;
+    }
+    parts.push(String.fromCharCode(...codes.subarray(0, end - start)));
+  }
+  return parts.join('');
 }

@@ -352,8 +352,35 @@ function readBlock(
   let yRaw: Float64Array;
   let pointLine: Uint32Array;
   if (data.label === 'XYDATA' && /^\(X\+\+\((Y\.\.Y|R\.\.R)\)\)$/.test(form)) {
-    const asdf = { file, firstLine: data.bodyStart + 1, maxPoints, xHint: spacingHint(block, xFactor, file) };
-    let decoded = decodeAsdfLines(body, asdf);
+    // A repeat count (DUP) turns a few bytes into many points: with NPOINTS declared, data that decode to far more
+    // (4× + 4,096) are a stray count, refused before the points are built rather than after seconds of work.
+    const cap =
+      nPoints !== undefined && Number.isInteger(nPoints) && nPoints > 0
+        ? Math.min(maxPoints, 4 * nPoints + 4096)
+        : maxPoints;
+    const asdf = {
+      file,
+      firstLine: data.bodyStart + 1,
+      maxPoints: cap,
+      xHint: spacingHint(block, xFactor, file),
+    };
+    let decoded: ReturnType<typeof decodeAsdfLines>;
+    try {
+      decoded = decodeAsdfLines(body, asdf);
+    } catch (error) {
+      if (
+        cap < maxPoints &&
+        error instanceof BandshelfError &&
+        /^the data hold more than/.test(error.message)
+      ) {
+        throw new BandshelfError(
+          'BAD_FORMAT',
+          `the data decode to more than ${cap} points but NPOINTS=${nPoints} (a stray repeat count?)`,
+          { file, line: error.line },
+        );
+      }
+      throw error;
+    }
     // The line X misled the Y-check call when NPOINTS disagrees; a reading that repeats a value as the check
     // and agrees with NPOINTS is the file's own (an extra point at the end is usually the last line's check).
     const declared = numberLabel(block, 'NPOINTS', file);

@@ -1,6 +1,7 @@
 // Reads any spectrum file bandshelf accepts from its bytes: sniffs JCAMP-DX or delimited text and parses it.
 import { BandshelfError } from '../error.js';
 import { decodeText } from './decodeText.js';
+import { MAX_INPUT_BYTES } from './maxInputBytes.js';
 import { readDelimited } from './readDelimited.js';
 import { readJcampDx } from './readJcampDx.js';
 import type { ParsedSpectrum, XUnit, YUnit } from './types.js';
@@ -19,7 +20,7 @@ export interface ReadSpectrumFileOptions {
    * @default undefined (every column)
    */
   column?: string | number;
-  /** Refuse files larger than this many bytes. @default 67_108_864 (64 MiB) */
+  /** Refuse files larger than this many bytes. @default MAX_INPUT_BYTES (200 MB) */
   maxBytes?: number;
 }
 
@@ -30,7 +31,7 @@ export interface ReadSpectrumFileOptions {
  * absorbance, ascending, finite and free of duplicate x; anything wrong is a BandshelfError naming the file.
  */
 export function readSpectrumFile(bytes: Uint8Array, options: ReadSpectrumFileOptions = {}): ParsedSpectrum[] {
-  const { file, xUnit, yUnit, block, column, maxBytes = 64 * 1024 * 1024 } = options;
+  const { file, xUnit, yUnit, block, column, maxBytes = MAX_INPUT_BYTES } = options;
   if (bytes.length > maxBytes) {
     throw new BandshelfError(
       'FILE_TOO_LARGE',
@@ -39,8 +40,25 @@ export function readSpectrumFile(bytes: Uint8Array, options: ReadSpectrumFileOpt
     );
   }
   if (bytes.length === 0) throw new BandshelfError('EMPTY_FILE', 'the file is empty', { file });
-  const text = decodeText(bytes, { file });
+  let encodingWarning: string | undefined;
+  const text = decodeText(bytes, {
+    file,
+    onWarning: (message) => {
+      encodingWarning = message;
+    },
+  });
   if (text.trim() === '') throw new BandshelfError('EMPTY_FILE', 'the file holds only white space', { file });
+  const parsed = readParsed(text, { file, block, xUnit, yUnit, ...(column === undefined ? {} : { column }) });
+  if (encodingWarning === undefined) return parsed;
+  const warning = { message: encodingWarning };
+  return parsed.map((p) => ({ ...p, warnings: [warning, ...p.warnings] }));
+}
+
+function readParsed(
+  text: string,
+  options: Pick<ReadSpectrumFileOptions, 'file' | 'block' | 'xUnit' | 'yUnit' | 'column'>,
+): ParsedSpectrum[] {
+  const { file, block, xUnit, yUnit, column } = options;
   if (isJcampDx(text)) {
     if (column !== undefined) {
       throw new BandshelfError(

@@ -8,6 +8,8 @@
 // Every problem is a BandshelfError naming the file and, where there is one, the line.
 import { BandshelfError } from '../error.js';
 import type { Trace, TraceWarning } from '../spectrum/trace/types.js';
+import { decodeText } from './decodeText.js';
+import { MAX_INPUT_BYTES } from './maxInputBytes.js';
 
 export type TimeUnit = 'fs' | 'ps';
 
@@ -29,7 +31,7 @@ export interface ReadTimeTraceOptions {
   overrideHeader?: boolean;
   /**
    * Largest accepted input, bytes.
-   * @default 67108864
+   * @default MAX_INPUT_BYTES (200 MB)
    */
   maxBytes?: number;
   /**
@@ -77,20 +79,6 @@ const UNIT_WORDS: [RegExp, string][] = [
   [/(?:^|[^a-zµ])s(?:$|[^a-z])|seconds?/, 's'],
 ];
 
-function decode(bytes: Uint8Array, file: string | undefined): string {
-  for (let i = 0; i < bytes.length; i++) {
-    if (bytes[i] === 0) {
-      throw new BandshelfError('BINARY_DATA', 'this is a binary file, not a delimited text trace', { file });
-    }
-  }
-  try {
-    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch {
-    // Instrument software on older lab PCs writes Latin-1 (µ, °); anything that is not valid UTF-8 is read as that.
-    return new TextDecoder('latin1').decode(bytes);
-  }
-}
-
 function splitCells(line: string, delimiter: ParsedTrace['source']['delimiter']): string[] {
   const cells =
     delimiter === 'whitespace'
@@ -119,7 +107,7 @@ function unitOf(header: string): string | null {
  */
 export function readTimeTrace(input: Uint8Array | string, options: ReadTimeTraceOptions = {}): ParsedTrace {
   const file = options.file;
-  const maxBytes = options.maxBytes ?? 64 * 1024 * 1024;
+  const maxBytes = options.maxBytes ?? MAX_INPUT_BYTES;
   const tolerance = options.stepTolerance ?? 0.01;
   const minPoints = options.minPoints ?? 16;
   const warnings: TraceWarning[] = [];
@@ -134,7 +122,10 @@ export function readTimeTrace(input: Uint8Array | string, options: ReadTimeTrace
       },
     );
   }
-  let text = typeof input === 'string' ? input : decode(input, file);
+  let text =
+    typeof input === 'string'
+      ? input
+      : decodeText(input, { file, onWarning: (message) => warnings.push({ message }) });
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
   if (text.trim() === '') throw new BandshelfError('EMPTY_FILE', 'the file is empty', { file });
 

@@ -3,6 +3,9 @@ import { BandshelfError } from '../error.js';
 import type { Spectrum } from '../spectrum/types.js';
 import type { ParseWarning } from './types.js';
 
+/** The largest finite Float32 (IEEE 754 binary32), the precision of a stored processed vector. */
+const FLOAT32_MAX = 3.4028234663852886e38;
+
 export interface SpectrumFromPointsOptions {
   /** File named in errors. @default undefined */
   file?: string;
@@ -17,7 +20,8 @@ export interface SpectrumFromPointsResult {
 
 /**
  * Validates and orders points in wavenumber (cm⁻¹) and absorbance. No points → EMPTY_FILE, one → TOO_FEW_POINTS,
- * NaN/±Infinity → NOT_FINITE (with its line). Files run ascending or descending; one change of direction
+ * NaN/±Infinity → NOT_FINITE (with its line), and so is an ordinate beyond ±3.4e38: the library stores processed vectors as
+ * Float32, which would hold it as Infinity. Files run ascending or descending; one change of direction
  * (two sweeps joined) is sorted with a warning, more than one means x zig-zags and cannot be a spectrum
  * (NOT_MONOTONIC). Exact duplicate points are merged with a warning; readings repeated at one x with different y
  * are averaged into one point (the usual practice for co-added or overlapping scans), with a warning naming the first
@@ -52,6 +56,13 @@ export function spectrumFromPoints(
         line: lines?.[i],
         field: Number.isFinite(xi) ? 'y' : 'x',
       });
+    }
+    if (Math.abs(yi) > FLOAT32_MAX) {
+      throw new BandshelfError(
+        'NOT_FINITE',
+        `y = ${yi} is beyond ±${FLOAT32_MAX.toPrecision(3)}, the largest value a stored spectrum can hold (check YFACTOR)`,
+        { file, line: lines?.[i], field: 'y' },
+      );
     }
   }
 

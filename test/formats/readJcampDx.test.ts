@@ -237,6 +237,46 @@ describe('readJcampDx: real files bend the rules (read and warn)', () => {
     expect(w?.message).toMatch(/2 missing ordinates \(\?\) skipped, on lines 12, 13/);
   });
 
+  it('reads a literal NaN or NA on an AFFN line as a missing ordinate, never as compressed digits', () => {
+    // N, a and A are also ASDF pseudo-digits (JCAMP-DX 4.24, McDonald & Wilks 1988): "NaN" would decode as
+    // DIF +5, SQZ −1, DIF +5 and shift every later abscissa. Standing alone on a plain line it is a missing value.
+    const [p] = readJcampDx(jdx(['0 1 NaN 3 3 2', '5 1 0 -1 nan -3']), { file: 'nan.jdx' });
+    expect(Array.from(p!.spectrum.wavenumber)).toEqual([0, 2, 3, 4, 5, 6, 7, 9]);
+    expect(Array.from(p!.spectrum.absorbance)).toEqual([1, 3, 3, 2, 1, 0, -1, -3]);
+    const w = p!.warnings.find((x) => /written as a word/.test(x.message));
+    expect(w?.line).toBe(12);
+    expect(w?.message).toMatch(/2 ordinates written as a word \("NaN"\) read as missing/);
+    const [q] = readJcampDx(jdx(['0 1 2 3 3 2', '5 1 0 -1 NA -3']), { file: 'na.jdx' });
+    expect(q!.spectrum.wavenumber.length).toBe(9);
+  });
+
+  it('refuses inf or Infinity ordinates with NOT_FINITE and the line', () => {
+    for (const word of ['inf', 'Infinity', '-Infinity']) {
+      const e = bandshelfErrorOf(() =>
+        readJcampDx(jdx(['0 1 2 3 3 2', `5 1 ${word} -1 -2 -3`]), { file: 'i.jdx' }),
+      );
+      expect(e.code, word).toMatch(/NOT_FINITE|NOT_NUMERIC/);
+      expect(e.line, word).toBe(13);
+    }
+  });
+
+  it('still decodes a compressed line that happens to hold the letters N and a', () => {
+    // SQZ/DIF with no separators: A = +1, N = DIF +5, a = −1 (JCAMP-DX 4.24 pseudo-digit table).
+    const [p] = readJcampDx(jdx(['0 ANaN'], { LASTX: '3', NPOINTS: '4' }), { file: 'sqz.jdx' });
+    expect(Array.from(p!.spectrum.absorbance)).toEqual([1, 6, -1, 4]);
+  });
+
+  it('refuses a stray repeat count that decodes far beyond NPOINTS, with the line', () => {
+    // DUP S9999 repeats a value to 9,999 occurrences (JCAMP-DX 4.24 pseudo-digits): 50 such lines are 500,000
+    // points from 600 bytes. NPOINTS=10 says the file meant ten.
+    const e = bandshelfErrorOf(() =>
+      readJcampDx(jdx(Array.from({ length: 50 }, (_, i) => `${i} A1S9999`)), { file: 'dup.jdx' }),
+    );
+    expect(e.code).toBe('BAD_FORMAT');
+    expect(e.message).toMatch(/NPOINTS=10 \(a stray repeat count\?\)/);
+    expect(e.line).toBe(12);
+  });
+
   it('uses the data when NPOINTS disagrees, taking the spacing from the data lines', () => {
     // The header promises 20 points to 19 cm⁻¹ but the file was cut after 10: x must still step by 1.
     const [p] = readJcampDx(jdx(['0 1 2 3 3 2', '5 1 0 -1 -2 -3'], { NPOINTS: '20', LASTX: '19' }));

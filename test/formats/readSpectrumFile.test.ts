@@ -60,6 +60,16 @@ describe('readSpectrumFile', () => {
     expect(parsed!.meta.origin).toBe('Labor Münster');
   });
 
+  it('gives a BandshelfError, not a hang, for a 100,000-digit cell and 50,000 block titles', () => {
+    // Worst cases from issue reports of quadratic parsers; their time per MB is measured by `npm run fuzz`.
+    const digits = '1'.repeat(100_000);
+    expect(bandshelfErrorOf(() => readSpectrumFile(utf8(`x,y\n1000,${digits}\n1002,0.5\n`))).code).toBe(
+      'NOT_FINITE',
+    );
+    const titles = `${'##TITLE=a\n'.repeat(50_000)}##END=\n`;
+    expect(bandshelfErrorOf(() => readSpectrumFile(utf8(titles))).code).toBe('NOT_A_SPECTRUM');
+  });
+
   it('passes block and unit options through', () => {
     const text = 'x,y\n2500,50\n5000,10\n';
     const [p] = readSpectrumFile(utf8(text), { xUnit: 'nm', yUnit: 'percent-transmittance', block: 1 });

@@ -44,6 +44,25 @@ describe('readTimeTrace', () => {
     expect(trace.time[19]).toBeCloseTo(76, 9);
   });
 
+  it('reads UTF-16 traces (LE and BE, with their BOM) and warns when it falls back to Windows-1252', () => {
+    const csv = ['delay (fs),field', ...rows(16, 2, (t, i) => `${t},${i}`)].join('\n');
+    for (const littleEndian of [true, false]) {
+      // UTF-16 with a byte-order mark, FF FE or FE FF (Unicode Standard §3.10).
+      const bytes = new Uint8Array(2 + csv.length * 2);
+      const view = new DataView(bytes.buffer);
+      view.setUint16(0, 0xfeff, littleEndian);
+      for (let i = 0; i < csv.length; i++) view.setUint16(2 + 2 * i, csv.charCodeAt(i), littleEndian);
+      const t = readTimeTrace(bytes, { file: 'u16.csv' });
+      expect(t.time[1]).toBe(2);
+      expect(t.field[15]).toBe(15);
+    }
+    const latin1 = Uint8Array.from(
+      ['Verz\u00f6gerung (fs);Feld', ...rows(16, 1, (t, i) => `${t};${i}`)].join('\n'),
+      (c) => c.charCodeAt(0),
+    );
+    expect(readTimeTrace(latin1).warnings.some((w) => /Windows-1252/.test(w.message))).toBe(true);
+  });
+
   it('reads semicolons with decimal commas, tabs, whitespace, and a Latin-1 header', () => {
     const semi = [
       'Verzögerung (fs);Feld',

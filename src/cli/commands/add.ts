@@ -57,6 +57,7 @@ export const addCommand: CommandSpec = {
       .option('--author <name>', 'who (default $BANDSHELF_AUTHOR or the OS user)')
       .option('--force', 'store entries even when QC raises an error-level flag')
       .option('--atomic', 'all files in one transaction: any failure stores nothing')
+      .option('--max-file-size <MB>', 'largest input file read, in MB (default 200)')
       .option('--json', 'print {added, unchanged, failed} as JSON');
     readingOptions(command);
   },
@@ -72,6 +73,18 @@ export const addCommand: CommandSpec = {
       throw new BandshelfError('BAD_OPTION', `--${error.field}: ${error.message}`, { field: error.field });
     }
     const { timeDomain, references, ...read } = readingOptions(undefined, { flags: options });
+    let maxFileBytes: number | undefined;
+    if (options.maxFileSize !== undefined) {
+      const mb = Number(options.maxFileSize);
+      if (!(mb > 0) || !Number.isFinite(mb)) {
+        throw new BandshelfError(
+          'BAD_OPTION',
+          `--max-file-size wants a size in MB above 0 (not '${options.maxFileSize}')`,
+          { field: 'max-file-size' },
+        );
+      }
+      maxFileBytes = Math.round(mb * 1e6);
+    }
     const recipe =
       typeof options.recipe === 'string'
         ? readRecipeFile(resolve(context.cwd, options.recipe), { label: options.recipe })
@@ -100,6 +113,7 @@ export const addCommand: CommandSpec = {
           read,
           force: Boolean(options.force),
           atomic: Boolean(options.atomic),
+          ...(maxFileBytes === undefined ? {} : { maxFileBytes }),
           author,
           message,
           progress: context.progress,

@@ -1,13 +1,13 @@
 // Reads one ingest job's files and sidecar and turns it into revision inputs: parsed original, merged and validated
 // metadata (flags > --meta file > sidecar > manifest > the file's own labels), recipe and reading options.
-import { readFileSync, statSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 import { BandshelfError } from '../../error.js';
+import { MAX_INPUT_BYTES } from '../../formats/maxInputBytes.js';
 import { metaErrorFromIssues } from '../../formats/metaErrorFromIssues.js';
 import { type EntryMetaPatch, entryMetaPatchSchema, entryMetaSchema } from '../../schema/meta.js';
 import { type Recipe, timeDomainSchema } from '../../schema/recipe.js';
-import { describeIoError } from '../store/describeIoError.js';
 import { readOriginals } from '../store/readOriginals.js';
+import { readRegularFile } from '../store/readRegularFile.js';
 import { readTextFile } from '../store/readTextFile.js';
 import type { Library, ReadOptions, RevisionExtras } from '../types.js';
 import type { RevisionInput, SourceFile } from './ingestTypes.js';
@@ -24,7 +24,7 @@ export interface BuildRevisionInputsOptions {
   /** Reading options from flags (--x-unit, --y-unit, --block, --column, --time-unit). */
   read?: ReadOptions;
   /** Largest data or trace file accepted, bytes.
-   * @default 67108864 (64 MiB) */
+   * @default MAX_INPUT_BYTES (200 MB) */
   maxBytes?: number;
 }
 
@@ -61,21 +61,7 @@ function stemOf(path: string): string {
 }
 
 function readBytes(path: string, label: string, maxBytes: number): Uint8Array {
-  try {
-    const size = statSync(path).size;
-    if (size > maxBytes) {
-      throw new BandshelfError('FILE_TOO_LARGE', `the file has ${size} bytes; the limit is ${maxBytes}`, {
-        file: label,
-      });
-    }
-    return new Uint8Array(readFileSync(path));
-  } catch (error) {
-    if (error instanceof BandshelfError) throw error;
-    throw new BandshelfError('IO_ERROR', `cannot read: ${describeIoError(error)}`, {
-      file: label,
-      cause: error,
-    });
-  }
+  return readRegularFile(path, { label, maxFileBytes: maxBytes });
 }
 
 /** Labels the file carried, each kept only when valid on its own (a bad CAS in a file header is dropped, not fatal). */
@@ -108,7 +94,7 @@ export function buildRevisionInputs(
   options: BuildRevisionInputsOptions = {},
 ): RevisionInput[] {
   if (job.error) throw job.error;
-  const maxBytes = options.maxBytes ?? 64 * 1024 * 1024;
+  const maxBytes = options.maxBytes ?? MAX_INPUT_BYTES;
   const sidecarLabel =
     job.sidecarPath === undefined
       ? undefined
@@ -116,9 +102,14 @@ export function buildRevisionInputs(
         ? job.label
         : join(dirname(job.label), basename(job.sidecarPath));
   let sidecar = job.sidecar;
+  const sidecarWarnings: { message: string }[] = [];
   if (sidecar === undefined && job.sidecarPath !== undefined) {
     const label = sidecarLabel ?? job.label;
-    sidecar = loadSidecar(readTextFile(job.sidecarPath, { label }), { file: label });
+    const text = readTextFile(job.sidecarPath, {
+      label,
+      onWarning: (message) => sidecarWarnings.push({ message: `${label}: ${message}` }),
+    });
+    sidecar = loadSidecar(text, { file: label });
   }
   const timeDomain = job.samplePaths.length > 0;
   if (!timeDomain && sidecar?.timeDomain !== undefined) {
@@ -181,7 +172,7 @@ export function buildRevisionInputs(
   const stem = stemOf(stemSource).replace(/\.meta$/i, '');
   const ids = new Set<string>();
   return originals.map((o) => {
-    const warnings = [...(o.extras.warnings ?? [])];
+    const warnings = [...sidecarWarnings, ...(o.extras.warnings ?? [])];
     const fromLabels = metaFromLabels(o.labels, warnings);
     const merged: Record<string, unknown> = { ...fromLabels, ...given };
     if (merged.id === undefined) {

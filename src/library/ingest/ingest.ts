@@ -53,6 +53,9 @@ export interface IngestOptions {
   /** Why (stored with each revision).
    * @default '' */
   message?: string;
+  /** Largest data, trace, sidecar or manifest file read, bytes.
+   * @default MAX_INPUT_BYTES (200 MB) */
+  maxFileBytes?: number;
   /** Called after each job with the count done, the total and the job's label.
    * @default undefined */
   progress?: (done: number, total: number, label: string) => void;
@@ -134,6 +137,7 @@ export function ingest(
       ...(options.metaFile === undefined ? {} : { metaFile: options.metaFile }),
       ...(options.recipe === undefined ? {} : { recipe: options.recipe }),
       ...(options.read === undefined ? {} : { read: options.read }),
+      ...(options.maxFileBytes === undefined ? {} : { maxBytes: options.maxFileBytes }),
     },
     force: options.force ?? false,
     ...(options.nearDuplicateThreshold === undefined

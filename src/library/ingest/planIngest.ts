@@ -1,6 +1,6 @@
 // Turns the paths given to `add` into ingest jobs: which data or trace files make one entry, with which sidecar
 // and manifest row. Only names and sidecars are read here; a job's problems surface when it runs.
-import { existsSync, readdirSync, statSync } from 'node:fs';
+import { existsSync, readdirSync, realpathSync, statSync } from 'node:fs';
 import { basename, dirname, join, relative, resolve, sep } from 'node:path';
 import { BandshelfError } from '../../error.js';
 import { isSidecarName } from '../../formats/isSidecarName.js';
@@ -74,21 +74,81 @@ function extensionOf(name: string): string {
 /** Sub-folders with this name hold query spectra (unknowns to match), not references: `add DIR` leaves them out. */
 const QUERY_FOLDER = 'unknowns';
 
+/** A file or folder `add DIR` leaves out, and why. */
+interface Skipped {
+  path: string;
+  reason: string;
+}
+
 /**
  * Every file under `dir`, depth first in name order. Hidden files and folders are skipped, and so are sub-folders
- * named `unknowns` (listed in `skipped`).
+ * named `unknowns`. A symbolic link is followed once: to a file it is read under the link's name unless that file
+ * is added already, to a folder it is walked unless it leads back to a folder being walked (a loop); a link to
+ * nothing, and anything that is neither file nor folder (a pipe, a device), is skipped. Each skip is listed.
  */
-function walk(dir: string, skipped: string[]): string[] {
+function walk(
+  dir: string,
+  skipped: Skipped[],
+  seen: Map<string, string> = new Map(),
+  ancestors: Set<string> = new Set(),
+): string[] {
   const out: string[] = [];
+  const real = realpathSync(dir);
+  const inside = new Set(ancestors).add(real);
   const names = readdirSync(dir, { withFileTypes: true })
     .filter((d) => !d.name.startsWith('.'))
     .sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
+  type Item = { name: string; full: string; target: string; link: boolean; isDir: boolean; isFile: boolean };
+  const items: Item[] = [];
   for (const d of names) {
     const full = join(dir, d.name);
-    if (d.isDirectory()) {
-      if (d.name.toLowerCase() === QUERY_FOLDER) skipped.push(full);
-      else out.push(...walk(full, skipped));
-    } else if (d.isFile()) out.push(full);
+    if (!d.isSymbolicLink()) {
+      const isDir = d.isDirectory();
+      const isFile = d.isFile();
+      const target = isDir || isFile ? realpathSync(full) : full;
+      items.push({ name: d.name, full, target, link: false, isDir, isFile });
+      continue;
+    }
+    try {
+      const target = realpathSync(full);
+      const st = statSync(target);
+      items.push({ name: d.name, full, target, link: true, isDir: st.isDirectory(), isFile: st.isFile() });
+    } catch {
+      skipped.push({ path: full, reason: 'a symbolic link to nothing' });
+    }
+  }
+  // What is really here first, then links to folders, then links to files: a link to something added anyway is
+  // the one left out.
+  const rank = (i: Item): number => (!i.link ? 0 : i.isDir ? 1 : 2);
+  items.sort((p, q) => rank(p) - rank(q));
+  for (const item of items) {
+    const { full, target } = item;
+    const first = seen.get(target);
+    const again =
+      first === undefined
+        ? ''
+        : `the same ${item.isDir ? 'folder' : 'file'} as ${relative(dir, first)}, which is added already`;
+    if (item.isDir) {
+      if (item.link && inside.has(target)) {
+        skipped.push({ path: full, reason: 'a symbolic link back to a folder it is in (a loop)' });
+      } else if (item.name.toLowerCase() === QUERY_FOLDER) {
+        skipped.push({ path: full, reason: 'a folder of unknowns to match, not references' });
+      } else if (first !== undefined) {
+        skipped.push({ path: full, reason: `${item.link ? 'a symbolic link to ' : ''}${again}` });
+      } else {
+        seen.set(target, full);
+        out.push(...walk(full, skipped, seen, inside));
+      }
+    } else if (item.isFile) {
+      if (first !== undefined) {
+        skipped.push({ path: full, reason: `${item.link ? 'a symbolic link to ' : ''}${again}` });
+        continue;
+      }
+      seen.set(target, full);
+      out.push(full);
+    } else {
+      skipped.push({ path: full, reason: 'not a regular file (a pipe, socket or device)' });
+    }
   }
   return out;
 }
@@ -111,7 +171,10 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
       throw new BandshelfError('IO_ERROR', 'the manifest does not exist', { file: label });
     manifests.push({
       dir: dirname(abs),
-      rows: readManifest(readTextFile(abs, { label }), { file: label }),
+      rows: readManifest(
+        readTextFile(abs, { label, onWarning: (message) => warnings.push(`${label}: ${message}`) }),
+        { file: label },
+      ),
       used: new Set(),
       label,
     });
@@ -174,10 +237,9 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
       candidates.push({ abs, explicit: true });
       continue;
     }
-    const skipped: string[] = [];
+    const skipped: Skipped[] = [];
     const files = walk(abs, skipped);
-    for (const folder of skipped)
-      warnings.push(`${labelOf(folder)}: skipped (a folder of unknowns to match, not references)`);
+    for (const { path, reason } of skipped) warnings.push(`${labelOf(path)}: skipped (${reason})`);
     if (manifestPath === undefined) {
       for (const f of files) {
         if (basename(f).toLowerCase() === MANIFEST_NAME && dirname(f) === abs) loadManifest(f);
@@ -203,7 +265,10 @@ export function planIngest(paths: readonly string[], options: PlanIngestOptions 
     const label = labelOf(c.abs);
     let sidecar: LoadedSidecar;
     try {
-      sidecar = loadSidecar(readTextFile(c.abs, { label }), { file: label });
+      sidecar = loadSidecar(
+        readTextFile(c.abs, { label, onWarning: (message) => warnings.push(`${label}: ${message}`) }),
+        { file: label },
+      );
     } catch (error) {
       // A broken sidecar beside a data file is reported once, by that file's job.
       const twinExists = candidates.some((d) => !isSidecarName(d.abs) && sidecarNameFor(d.abs) === c.abs);

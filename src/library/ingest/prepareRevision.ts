@@ -4,6 +4,7 @@ import { likelyXUnit } from '../../formats/likelyXUnit.js';
 import type { XUnit } from '../../formats/types.js';
 import { cropToWindow } from '../../spectrum/cropToWindow.js';
 import { excludeWindows } from '../../spectrum/excludeWindows.js';
+import { gridAxis } from '../../spectrum/gridAxis.js';
 import { qcFlags } from '../../spectrum/qcFlags.js';
 import { resolutionOf } from '../../spectrum/resolutionOf.js';
 import { sortAndMerge } from '../../spectrum/sortAndMerge.js';
@@ -32,6 +33,23 @@ export interface PrepareRevisionOptions {
   kind?: RevisionKind;
 }
 
+/** Refuses a processed vector the Float32 blob cannot hold: a value that would become ±Infinity. (Values that
+ * round to zero or a subnormal are stored so, and `check` compares after the same rounding.) */
+function refuseUnstorable(processed: Float64Array, library: Library, file: string | undefined): void {
+  for (let i = 0; i < processed.length; i++) {
+    const v = processed[i]!;
+    if (Number.isNaN(v)) continue;
+    if (!Number.isFinite(Math.fround(v))) {
+      const axis = gridAxis(library.grid);
+      throw new BandshelfError(
+        'NOT_FINITE',
+        `the processed value at ${axis[i]} cm⁻¹ is ${v}, beyond what a stored spectrum can hold (±3.4e38); check the file's scaling`,
+        { file, field: 'processed' },
+      );
+    }
+  }
+}
+
 export function prepareRevision(
   library: Library,
   input: RevisionInput,
@@ -53,6 +71,7 @@ export function prepareRevision(
     file: input.label,
     ...(input.saturated === undefined ? {} : { saturated: input.saturated }),
   });
+  refuseUnstorable(processed, library, input.label);
   // The negative-absorbance check looks at the spectrum after the baseline step, before normalisation.
   const sorted = sortAndMerge(input.original, { file: input.label });
   const baselineCorrected = subtractBaseline(

@@ -181,7 +181,11 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
       name: f.name,
       bytes: new Uint8Array(f.bytes!),
     }));
-    const derived = readOriginals({ files: sources, read, recipe }, { label: files[0]?.name });
+    const derived = readOriginals(
+      { files: sources, read, recipe },
+      // The stored bytes passed the size limit in force when they were added (it may have been raised).
+      { label: files[0]?.name, maxBytes: Number.POSITIVE_INFINITY },
+    );
     const again = derived[0];
     if (derived.length !== 1 || again === undefined) {
       add(where, `its files yield ${derived.length} spectra, not one`);
@@ -213,18 +217,23 @@ export function checkLibrary(library: Library, options: CheckLibraryOptions = {}
       file: where,
       ...(again?.saturated === undefined ? {} : { saturated: again.saturated }),
     });
+    // The stored vector is Float32: compare with the recomputation rounded the same way, so values that underflow
+    // to zero or a subnormal on storage (a file scaled by 1e-300) compare equal rather than fail forever.
+    const rounded = Float64Array.from(recomputed.processed, Math.fround);
     let scale = 0;
     for (const v of recomputed.processed) if (Number.isFinite(v) && Math.abs(v) > scale) scale = Math.abs(v);
+    let scale32 = 0;
+    for (const v of rounded) if (Number.isFinite(v) && Math.abs(v) > scale32) scale32 = Math.abs(v);
     let covered = 0;
     for (let i = 0; i < cols; i++) {
       const a = stored[i]!;
-      const b = recomputed.processed[i]!;
+      const b = rounded[i]!;
       if (!Number.isNaN(a)) covered++;
       if (Number.isNaN(a) !== Number.isNaN(b)) {
         add(where, `processed value at ${axis[i]} cm⁻¹ is ${a} but recomputes to ${b} (coverage differs)`);
         return;
       }
-      if (!Number.isNaN(a) && !(Math.abs(a - b) <= tolerance * scale)) {
+      if (!Number.isNaN(a) && !(a === b || Math.abs(a - b) <= tolerance * scale32)) {
         add(where, `processed value at ${axis[i]} cm⁻¹ is ${a} but recomputes to ${b}`);
         return;
       }
