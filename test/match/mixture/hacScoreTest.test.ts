@@ -1,4 +1,5 @@
 // The HAC (Newey–West) test of one further column, on literal inputs worked out by hand from its definition.
+import { inverse, Matrix } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
 import { seededRandom } from '../../../src/demo/seededRandom.js';
 import { hacScoreTest } from '../../../src/match/mixture/hacScoreTest.js';
@@ -19,6 +20,30 @@ describe('hacScoreTest', () => {
     // z = (13/6)/(√0.1/6) ≈ 41.1: far in the tail.
     expect(nw.z).toBeCloseTo(13 / Math.sqrt(0.1), 9);
     expect(nw.pValue).toBeLessThan(1e-6);
+  });
+
+  it('equals the sandwich (XᵀX)⁻¹ Xᵀ diag(e²) X (XᵀX)⁻¹ of a two-column OLS fit, computed with ml-matrix', () => {
+    // The further column's weight in y = a·x₁ + c·x₂ + e with x₁ already in the fit: by Frisch–Waugh–Lovell, the
+    // direction is x₂ net of x₁, and White's HC0 variance of ĉ is the (2,2) element of the sandwich (White 1980).
+    const random = seededRandom(5);
+    const n = 40;
+    const x1 = Array.from({ length: n }, (_, t) => 1 + Math.sin(t / 5));
+    const x2 = Array.from({ length: n }, (_, t) => Math.exp(-(((t - 20) / 6) ** 2)));
+    const y = x1.map((v, t) => 2 * v + 0.7 * x2[t]! + 0.05 * (1 + t / n) * random.normal());
+    const X = new Matrix(x1.map((v, t) => [v, x2[t]!]));
+    const Y = Matrix.columnVector(y);
+    const xtxInv = inverse(X.transpose().mmul(X));
+    const beta = xtxInv.mmul(X.transpose()).mmul(Y);
+    const e = Y.sub(X.mmul(beta)).to1DArray();
+    const meat = X.transpose()
+      .mmul(Matrix.diag(e.map((v) => v * v)))
+      .mmul(X);
+    const sandwich = xtxInv.mmul(meat).mmul(xtxInv);
+    const k = x1.reduce((s, v, t) => s + v * x2[t]!, 0) / x1.reduce((s, v) => s + v * v, 0);
+    const direction = x2.map((v, t) => v - k * x1[t]!);
+    const test = hacScoreTest({ direction, query: y, residual: e });
+    expect(test.estimate).toBeCloseTo(beta.get(1, 0), 10);
+    expect(test.standardError).toBeCloseTo(Math.sqrt(sandwich.get(1, 1)), 10);
   });
 
   it('holds its level under correlated noise where the independent-points error would not (seeded)', () => {
