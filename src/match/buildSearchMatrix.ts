@@ -5,6 +5,7 @@ import { gridLength } from '../spectrum/gridLength.js';
 import { allocateMatrixMemory } from './allocateMatrixMemory.js';
 import { coveredSpan } from './coveredSpan.js';
 import { derivativeVector } from './derivativeVector.js';
+import { processedRow } from './processedRow.js';
 import { rowStatus } from './rowStatus.js';
 import { searchMatrixKey } from './searchMatrixKey.js';
 import { searchMatrixLayout } from './searchMatrixLayout.js';
@@ -43,7 +44,7 @@ export function buildSearchMatrix(set: ScoringSet, options: BuildSearchMatrixOpt
   const preparation = options.preparation ?? { centring: 'centred', derivative: null };
   const rows = set.entries.length;
   const cols = gridLength(set.grid);
-  if (set.processed.length !== rows * cols) {
+  if (set.row === undefined && set.processed.length !== rows * cols) {
     throw new BandshelfError(
       'BAD_FORMAT',
       `the search set holds ${set.processed.length} values, not ${rows} rows × ${cols} grid points`,
@@ -74,7 +75,7 @@ export function buildSearchMatrix(set: ScoringSet, options: BuildSearchMatrixOpt
   const centred = preparation.centring === 'centred';
   const scratch = new Float64Array(cols);
   for (let r = 0; r < rows; r++) {
-    const source = set.processed.subarray(r * cols, (r + 1) * cols);
+    const source = processedRow(set, r);
     // One element type in the loops below keeps them monomorphic (and fast) for both preparations.
     let v: Float64Array = scratch;
     if (preparation.derivative)

@@ -59,7 +59,7 @@ export function searchLibrary(
   queries: readonly ArrayLike<number>[],
   options: SearchLibraryOptions = {},
 ): Hit[][] {
-  const set = options.set ?? readSearchSet(library, { at: options.at });
+  const set = options.set ?? readSearchSet(library, { at: options.at, lazy: true });
   const useCache = (options.cache ?? true) && library.path !== ':memory:' && library.path !== '';
   const threads = options.threads;
   const matrices = (s: ScoringSet, preparation: MatrixPreparation, mask: Uint8Array, key: string) => {
