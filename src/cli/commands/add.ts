@@ -11,6 +11,7 @@ import { libraryPath } from '../../library/store/libraryPath.js';
 import { openLibrary } from '../../library/store/openLibrary.js';
 import { readRecipeFile } from '../../library/store/readRecipeFile.js';
 import { readTextFile } from '../../library/store/readTextFile.js';
+import { libraryNearDuplicateIndex } from '../../match/libraryNearDuplicateIndex.js';
 import type { ReadOptions } from '../../library/types.js';
 import { entryMetaPatchSchema } from '../../schema/meta.js';
 import { collectRepeated } from '../collectRepeated.js';
@@ -148,6 +149,7 @@ export const addCommand: CommandSpec = {
           author,
           message,
           progress: context.progress,
+          nearDuplicateIndex: libraryNearDuplicateIndex,
         });
       } catch (error) {
         throw error instanceof BandshelfError ? inFlagWords(error) : error;

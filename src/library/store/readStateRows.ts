@@ -1,10 +1,9 @@
 // Streams the revision rows of one library state once: entries in id order, the state key, a position-sorted
 // peak index and, when asked, the processed vectors as one Float32 matrix. readSearchSet and readPeakSet share it.
-import { createHash } from 'node:crypto';
 import { gridLength } from '../../spectrum/gridLength.js';
 import type { Library, SearchSet, SearchSetEntry } from '../types.js';
-import { canonicalJson } from './canonicalJson.js';
 import { peakOrder } from './peakOrder.js';
+import { stateKeyOf } from './stateKeyOf.js';
 import { stateSelect } from './stateSelect.js';
 
 export interface ReadStateRowsOptions {
@@ -44,7 +43,6 @@ export function readStateRows(library: Library, options: ReadStateRowsOptions = 
     const peakHeight = new Float64Array(capacity);
     const peakProminence = new Float64Array(capacity);
     const entries: SearchSetEntry[] = [];
-    const digest = createHash('sha256').update(`${canonicalJson(library.grid)}\n`);
     let row = 0;
     let k = 0;
     const statement = library.db.prepare(select.sql).raw(true);
@@ -59,7 +57,6 @@ export function readStateRows(library: Library, options: ReadStateRowsOptions = 
         Buffer | undefined,
       ];
       entries.push({ id, revision, name: name ?? id, class: cls ?? 'other', hash });
-      digest.update(`${id}@${revision}:${hash}\n`);
       if (withProcessed && row < n) {
         if (blob?.byteLength === rowBytes) bytes.set(blob, row * rowBytes);
         else processed.fill(Number.NaN, row * cols, (row + 1) * cols); // a malformed row matches nothing
@@ -90,7 +87,7 @@ export function readStateRows(library: Library, options: ReadStateRowsOptions = 
       sorted.prominence[i] = peakProminence[j]!;
     }
     return {
-      stateKey: digest.digest('hex'),
+      stateKey: stateKeyOf({ grid: library.grid, entries }),
       at: select.at,
       entries,
       processed: !withProcessed || row === n ? processed : processed.subarray(0, row * cols),
