@@ -17,6 +17,8 @@ export interface BatchFigures {
   entries: number;
   files: number;
   ms: number;
+  /** CPU time of the process over the batch (every thread, user + system), ms: comparable on a loaded machine. */
+  cpuMs: number;
   /** Resident memory after the batch, bytes. */
   rss: number;
   /** Bytes of data files (the CSVs) in the batch. */
@@ -74,6 +76,7 @@ export function benchLibrary(
       }
       originalBytes += bytes;
       const t0 = performance.now();
+      const cpu0 = process.cpuUsage();
       // As `bandshelf add` does: near-duplicates on the kernels, the search cache extended by each batch.
       const outcome = ingest(library, [scratch], {
         force: true,
@@ -81,6 +84,7 @@ export function benchLibrary(
         nearDuplicateIndex: libraryNearDuplicateIndex,
       });
       const ms = performance.now() - t0;
+      const cpu = process.cpuUsage(cpu0);
       if (outcome.failed.length > 0) {
         throw new Error(
           `bench library: ${outcome.failed.length} files failed, first: ${outcome.failed[0]!.error}`,
@@ -90,6 +94,7 @@ export function benchLibrary(
         entries: end,
         files: end - start,
         ms,
+        cpuMs: (cpu.user + cpu.system) / 1000,
         rss: process.memoryUsage().rss,
         originalBytes: bytes,
       });
