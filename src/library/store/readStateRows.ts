@@ -3,8 +3,11 @@
 import { gridLength } from '../../spectrum/gridLength.js';
 import type { Library, SearchSet, SearchSetEntry } from '../types.js';
 import { peakOrder } from './peakOrder.js';
+import { peaksCachePath } from './peaksCachePath.js';
+import { readPeaksCache } from './readPeaksCache.js';
 import { stateKeyOf } from './stateKeyOf.js';
 import { stateSelect } from './stateSelect.js';
+import { writePeaksCache } from './writePeaksCache.js';
 
 export interface ReadStateRowsOptions {
   /** A release tag, or undefined / 'current' for the working state.
@@ -13,6 +16,13 @@ export interface ReadStateRowsOptions {
   /** Also read the processed vectors; when false the SQL never names them, so they stay on disk.
    * @default false */
   processed?: boolean;
+  /**
+   * Without the processed vectors, take the sorted peak index from `<library>.cache/` when a file of this state is
+   * there (and write it when not): the peaks blob lies after the originals in each row, so reading it from SQLite
+   * walks through every row's original and processed bytes.
+   * @default true
+   */
+  cache?: boolean;
 }
 
 /** A SearchSet without the library's grid and recipe; `processed` is empty unless it was asked for. */
@@ -28,6 +38,14 @@ export function readStateRows(library: Library, options: ReadStateRowsOptions = 
   const at = { at: options.at };
   // One read transaction so the count and the rows see the same snapshot even while another process writes.
   return library.db.transaction((): StateRows => {
+    const cachePath = (stateKey: string) =>
+      withProcessed || options.cache === false
+        ? null
+        : peaksCachePath({ libraryPath: library.path, stateKey });
+    if (!withProcessed && options.cache !== false) {
+      const cached = fromPeaksCache(library, at, cachePath);
+      if (cached !== null) return { ...cached, cols };
+    }
     const counted = stateSelect(library, 'count(1) AS n, coalesce(sum(length(r.peaks)), 0) AS peakBytes', at);
     const { n, peakBytes } = library.db.prepare(counted.sql).get(...counted.params) as {
       n: number;
@@ -86,8 +104,11 @@ export function readStateRows(library: Library, options: ReadStateRowsOptions = 
       sorted.height[i] = peakHeight[j]!;
       sorted.prominence[i] = peakProminence[j]!;
     }
+    const stateKey = stateKeyOf({ grid: library.grid, entries });
+    const path = cachePath(stateKey);
+    if (path !== null) writePeaksCache(path, { stateKey, rows: row, peaks: sorted });
     return {
-      stateKey: stateKeyOf({ grid: library.grid, entries }),
+      stateKey,
       at: select.at,
       entries,
       processed: !withProcessed || row === n ? processed : processed.subarray(0, row * cols),
@@ -96,4 +117,30 @@ export function readStateRows(library: Library, options: ReadStateRowsOptions = 
       peaks: sorted,
     };
   })();
+}
+
+/** The state's entries from the columns stored before the big blobs, and its peaks from the cache file, if any. */
+function fromPeaksCache(
+  library: Library,
+  at: { at: string | null | undefined },
+  cachePath: (stateKey: string) => string | null,
+): Omit<StateRows, 'cols'> | null {
+  const select = stateSelect(
+    library,
+    `r.entry_id, r.revision, r.content_hash, r.meta ->> '$.name', r.meta ->> '$.class'`,
+    at,
+  );
+  const entries: SearchSetEntry[] = [];
+  for (const raw of library.db
+    .prepare(select.sql)
+    .raw(true)
+    .iterate(...select.params)) {
+    const [id, revision, hash, name, cls] = raw as [string, number, string, string | null, string | null];
+    entries.push({ id, revision, name: name ?? id, class: cls ?? 'other', hash });
+  }
+  const stateKey = stateKeyOf({ grid: library.grid, entries });
+  const path = cachePath(stateKey);
+  const peaks = path === null ? null : readPeaksCache(path, { stateKey, rows: entries.length });
+  if (peaks === null) return null;
+  return { stateKey, at: select.at, entries, processed: new Float32Array(0), rows: entries.length, peaks };
 }
