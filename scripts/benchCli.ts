@@ -3,8 +3,8 @@
 // folder): `match` of one unknown with and without the search cache, `add` of one file, `list`, `show`, `check`
 // and `site`. Prints one JSON line; list, show and check also per 1,000 entries.
 import { spawnSync } from 'node:child_process';
-import { copyFileSync, existsSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
-import { availableParallelism } from 'node:os';
+import { copyFileSync, cpSync, existsSync, mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { availableParallelism, loadavg } from 'node:os';
 import { join } from 'node:path';
 import { findPackageRoot } from '../src/site/findPackageRoot.js';
 import { benchArgs } from './benchArgs.js';
@@ -16,6 +16,8 @@ const runner = `import(${JSON.stringify(`file://${cli}`)}).then(async (m) => { p
 
 interface Run {
   s: number;
+  /** User + system CPU seconds (from /usr/bin/time): comparable when other work shares the cores. */
+  cpu_s: number | null;
   peak_rss_mb: number | null;
 }
 
@@ -23,7 +25,7 @@ interface Run {
 function run(args: string[], what: string): Run {
   const timeBin = existsSync('/usr/bin/time') ? '/usr/bin/time' : null;
   const node = [process.execPath, '--input-type=module', '-e', runner, ...args];
-  const argv = timeBin ? ['-f', 'BENCH_RSS_KB=%M', ...node] : node.slice(1);
+  const argv = timeBin ? ['-f', 'BENCH_RSS_KB=%M BENCH_CPU_S=%U+%S', ...node] : node.slice(1);
   const start = performance.now();
   const result = spawnSync(timeBin ?? process.execPath, argv, { encoding: 'utf8', maxBuffer: 256 * 2 ** 20 });
   const s = (performance.now() - start) / 1000;
@@ -34,7 +36,12 @@ function run(args: string[], what: string): Run {
     process.exit(1);
   }
   const rss = /BENCH_RSS_KB=(\d+)/.exec(result.stderr ?? '');
-  return { s: Math.round(s * 1000) / 1000, peak_rss_mb: rss ? Math.round(Number(rss[1]) / 1024) : null };
+  const cpu = /BENCH_CPU_S=([\d.]+)\+([\d.]+)/.exec(result.stderr ?? '');
+  return {
+    s: Math.round(s * 1000) / 1000,
+    cpu_s: cpu ? Math.round((Number(cpu[1]) + Number(cpu[2])) * 100) / 100 : null,
+    peak_rss_mb: rss ? Math.round(Number(rss[1]) / 1024) : null,
+  };
 }
 
 function perThousand(r: Run, entries: number) {
@@ -62,14 +69,17 @@ function main(): void {
     const show = run(['show', 'synthetic-0000000', ...lib], 'show');
     const check = run(['check', ...lib, '--json'], 'check');
     const site = run(['site', ...lib, '--out', join(work, 'site'), '--clean', '--json'], 'site');
-    // `add` writes: into a copy, so the cached library stays as built.
+    // `add` writes: into a copy, so the cached library stays as built. The search cache the matches left is copied
+    // with it (it is keyed by library state, not path), as an add normally finds it.
     const copy = join(work, 'copy.sqlite');
     copyFileSync(path, copy);
+    if (existsSync(`${path}.cache`)) cpSync(`${path}.cache`, `${copy}.cache`, { recursive: true });
     const add = run(['add', added, '--library', copy, '--force', '--json'], 'add');
     const result = {
       bench: 'cli',
       entries: args.entries,
       cores: availableParallelism(),
+      load_average_1m: Math.round(loadavg()[0]! * 100) / 100,
       match_no_cache: matchNoCache,
       match_cache: matchCache,
       match_mixture_cache: mixture,

@@ -3,7 +3,7 @@
 // memory per tenth of the run, and bytes on disk per entry and per original byte. The finished library is kept in
 // the system's temp folder for `bench:cli`.
 import { statSync } from 'node:fs';
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { benchArgs } from './benchArgs.js';
 import { type BatchFigures, benchLibrary } from './benchLibrary.js';
 
@@ -29,11 +29,13 @@ function main(): void {
     if (inTenth.length === 0) continue;
     const files = inTenth.reduce((s, b) => s + b.files, 0);
     const ms = inTenth.reduce((s, b) => s + b.ms, 0);
+    const cpuMs = inTenth.reduce((s, b) => s + b.cpuMs, 0);
     tenths.push({
       tenth: t + 1,
       library_entries_after: inTenth[inTenth.length - 1]!.entries,
       files,
       files_per_s: Math.round((files / ms) * 1000 * 10) / 10,
+      files_per_cpu_s: Math.round((files / cpuMs) * 1000 * 10) / 10,
       peak_rss_mb: Math.round(Math.max(...inTenth.map((b) => b.rss)) / 2 ** 20),
     });
   }
@@ -51,6 +53,7 @@ function main(): void {
     entries: args.entries,
     batch: args.batch,
     cores: availableParallelism(),
+    load_average_1m: Math.round(loadavg()[0]! * 100) / 100,
     total_s: Math.round(totalS * 10) / 10,
     tenths,
     last_over_first: first > 0 ? Math.round((last / first) * 100) / 100 : null,

@@ -45,6 +45,7 @@ export { euclideanScores } from './match/euclideanScores.js';
 export { fitMixture } from './match/fitMixture.js';
 export { identifyBands } from './match/identifyBands.js';
 export { libraryMatchSource } from './match/libraryMatchSource.js';
+export { libraryNearDuplicateIndex } from './match/libraryNearDuplicateIndex.js';
 export { nnls } from './match/nnls.js';
 export { pearsonScores } from './match/pearsonScores.js';
 export { type RunMatchPipelineOptions, runMatchPipeline } from './match/pipeline/runMatchPipeline.js';

@@ -124,7 +124,11 @@ export async function matchUnknowns(
   const forced = [...new Set(options.with ?? [])];
   const library = openLibrary(libraryPath(options.library, context.cwd), { readonly: true });
   try {
-    const set: SearchSet = readSearchSet(library, options.at === undefined ? {} : { at: options.at });
+    // Lazy: with a current disk cache the processed vectors stay in the file; hits and candidates read their rows.
+    const set: SearchSet = readSearchSet(library, {
+      lazy: true,
+      ...(options.at === undefined ? {} : { at: options.at }),
+    });
     if (set.entries.length === 0) {
       throw new BandshelfError(
         'EMPTY_LIBRARY',

@@ -100,8 +100,13 @@ export interface SearchSet {
   at: string | null;
   /** Sorted by id. */
   entries: SearchSetEntry[];
-  /** rows × cols, row-major, ascending wavenumber, NaN where the entry is not covered. */
+  /**
+   * rows × cols, row-major, ascending wavenumber, NaN where the entry is not covered. A lazily read set
+   * (`readSearchSet(…, { lazy: true })`) reads every row on the first access: code needing a few rows uses `row`.
+   */
   processed: Float32Array;
+  /** Row r of `processed` (cols values), read alone when the set is lazy. @default absent: a view on `processed` */
+  row?: (r: number) => Float32Array;
   rows: number;
   /** gridLength(grid). */
   cols: number;

@@ -5,6 +5,7 @@ import { gridLength } from '../spectrum/gridLength.js';
 import { allocateMatrixMemory } from './allocateMatrixMemory.js';
 import { coveredSpan } from './coveredSpan.js';
 import { derivativeVector } from './derivativeVector.js';
+import { processedRow } from './processedRow.js';
 import { rowStatus } from './rowStatus.js';
 import { searchMatrixKey } from './searchMatrixKey.js';
 import { searchMatrixLayout } from './searchMatrixLayout.js';
@@ -31,6 +32,13 @@ export interface BuildSearchMatrixOptions {
    * @default false
    */
   shared?: boolean;
+  /**
+   * Rows already prepared in a matrix of the same preparation and mask (an earlier state of the library):
+   * `rows[r]` is row r's index there, or −1 for a row prepared from the set. Reused rows are copied, never read
+   * from the set, so an add extends the cached matrix without reading the library's vectors.
+   * @default undefined
+   */
+  reuse?: { matrix: SearchMatrix; rows: Int32Array };
 }
 
 /**
@@ -43,7 +51,7 @@ export function buildSearchMatrix(set: ScoringSet, options: BuildSearchMatrixOpt
   const preparation = options.preparation ?? { centring: 'centred', derivative: null };
   const rows = set.entries.length;
   const cols = gridLength(set.grid);
-  if (set.processed.length !== rows * cols) {
+  if (set.row === undefined && set.processed.length !== rows * cols) {
     throw new BandshelfError(
       'BAD_FORMAT',
       `the search set holds ${set.processed.length} values, not ${rows} rows × ${cols} grid points`,
@@ -69,12 +77,21 @@ export function buildSearchMatrix(set: ScoringSet, options: BuildSearchMatrixOpt
   const norm = new Float32Array(buffer, layout.int8Norm, rows);
   const quantised = int8 ? new Int8Array(buffer, layout.i8, rows * stride) : null;
 
+  const reuse = options.reuse ?? null;
+  if (reuse !== null) checkReusable(reuse, { rows, cols, mask, preparation });
   const index = Int32Array.from(maskIndices(mask));
   const m = index.length;
   const centred = preparation.centring === 'centred';
   const scratch = new Float64Array(cols);
   for (let r = 0; r < rows; r++) {
-    const source = set.processed.subarray(r * cols, (r + 1) * cols);
+    const from = reuse === null ? -1 : reuse.rows[r]!;
+    if (reuse !== null && from >= 0) {
+      copyRow(reuse.matrix, from, { status, matrix, scale, error, norm, quantised }, r, stride);
+      if (quantised && status[r] === rowStatus.full && reuse.matrix.layout.i8 < 0)
+        quantiseRow(matrix, quantised, r * stride, index, r, scale, error, norm);
+      continue;
+    }
+    const source = processedRow(set, r);
     // One element type in the loops below keeps them monomorphic (and fast) for both preparations.
     let v: Float64Array = scratch;
     if (preparation.derivative)
@@ -123,6 +140,50 @@ export function buildSearchMatrix(set: ScoringSet, options: BuildSearchMatrixOpt
     points: m,
     overlap: coveredSpan(mask, set.grid.step),
   };
+}
+
+function checkReusable(
+  reuse: { matrix: SearchMatrix; rows: Int32Array },
+  want: { rows: number; cols: number; mask: Uint8Array; preparation: MatrixPreparation },
+): void {
+  const { layout, memory, preparation } = reuse.matrix;
+  const old = new Uint8Array(memory.buffer, layout.mask, layout.cols);
+  const same =
+    reuse.rows.length === want.rows &&
+    layout.cols === want.cols &&
+    JSON.stringify(preparation) === JSON.stringify(want.preparation) &&
+    old.every((v, i) => v === want.mask[i]);
+  if (!same) throw new Error('a matrix is reused only for the same grid, preparation and mask');
+  for (const from of reuse.rows) {
+    if (from >= layout.rows) throw new Error(`row ${from} is not in the reused matrix`);
+  }
+}
+
+/** Row `from` of an earlier matrix into row `r`: status, float32 values and, where both keep it, the int8 copy. */
+function copyRow(
+  source: SearchMatrix,
+  from: number,
+  to: {
+    status: Uint8Array;
+    matrix: Float32Array;
+    scale: Float32Array;
+    error: Float32Array;
+    norm: Float32Array;
+    quantised: Int8Array | null;
+  },
+  r: number,
+  stride: number,
+): void {
+  const { layout, memory } = source;
+  const buffer = memory.buffer;
+  to.status[r] = new Uint8Array(buffer, layout.status, layout.rows)[from]!;
+  to.matrix.set(new Float32Array(buffer, layout.f32 + from * stride * 4, stride), r * stride);
+  if (to.quantised && layout.i8 >= 0) {
+    to.quantised.set(new Int8Array(buffer, layout.i8 + from * stride, stride), r * stride);
+    to.scale[r] = new Float32Array(buffer, layout.int8Scale, layout.rows)[from]!;
+    to.error[r] = new Float32Array(buffer, layout.int8Error, layout.rows)[from]!;
+    to.norm[r] = new Float32Array(buffer, layout.int8Norm, layout.rows)[from]!;
+  }
 }
 
 function defaultMask(set: ScoringSet, cols: number): Uint8Array {

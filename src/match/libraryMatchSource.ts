@@ -14,6 +14,8 @@ export interface LibraryMatchSourceOptions {
 }
 
 /**
+ * Reads nothing per row up front: processed vectors come through the set (lazy or not), and an entry's original
+ * only when the pipeline asks for that row (mixture candidates over a partial span).
  * Originals are read once per row and kept for the life of the source, so a batch reads each at most once.
  * The scorer reuses the given search set rather than reading it again.
  */
@@ -28,12 +30,12 @@ export function libraryMatchSource(
     set.recipe,
     options.at === undefined ? {} : { at: options.at },
   );
-  const source: MatchSource = {
-    ...set,
+  // The set's own descriptors, not a spread: a lazy set's `processed` is a getter that reads every row.
+  const own: Omit<MatchSource, keyof SearchSet> = {
     name: library.name,
     references,
     wrongHitNull: cachedWrongHitNull({ libraryPath: library.path, set }),
-    originals: async (rows) => {
+    originals: async (rows: readonly number[]) => {
       const out = new Map<number, EntryOriginal>();
       for (const row of rows) {
         let view = read.get(row);
@@ -59,6 +61,7 @@ export function libraryMatchSource(
       return out;
     },
   };
+  const source = Object.defineProperties(own, Object.getOwnPropertyDescriptors(set)) as MatchSource;
   const scorer: MatchScorer = (_source, queries, scoring) =>
     searchLibrary(library, queries, { ...scoring, set });
   return { source, scorer };

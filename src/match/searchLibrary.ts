@@ -37,10 +37,10 @@ export interface SearchLibraryOptions extends Omit<SearchSpectraOptions, 'matric
    */
   threads?: number;
   /**
-   * Called with where each matrix came from.
+   * Called with where each matrix came from, and the matrix (an add extends it into the next state's cache).
    * @default undefined
    */
-  onMatrix?: (origin: 'memory' | 'disk' | 'built', key: string) => void;
+  onMatrix?: (origin: 'memory' | 'disk' | 'built', key: string, matrix: SearchMatrix) => void;
 }
 
 /** Below this many rows the kernels run on the calling thread. */
@@ -59,7 +59,7 @@ export function searchLibrary(
   queries: readonly ArrayLike<number>[],
   options: SearchLibraryOptions = {},
 ): Hit[][] {
-  const set = options.set ?? readSearchSet(library, { at: options.at });
+  const set = options.set ?? readSearchSet(library, { at: options.at, lazy: true });
   const useCache = (options.cache ?? true) && library.path !== ':memory:' && library.path !== '';
   const threads = options.threads;
   const matrices = (s: ScoringSet, preparation: MatrixPreparation, mask: Uint8Array, key: string) => {
@@ -67,17 +67,17 @@ export function searchLibrary(
     if (remembered !== undefined) {
       recent.delete(key);
       recent.set(key, remembered);
-      options.onMatrix?.('memory', key);
+      options.onMatrix?.('memory', key, remembered);
       return remembered;
     }
     const rows = s.entries.length;
     const cols = mask.length;
     const path = searchMatrixCachePath({ libraryPath: library.path, key });
     let matrix = useCache ? readCachedSearchMatrix(path, { key, rows, cols }, { shared: true }) : null;
-    if (matrix !== null) options.onMatrix?.('disk', key);
+    if (matrix !== null) options.onMatrix?.('disk', key, matrix);
     else {
       matrix = buildSearchMatrix(s, { preparation, mask, shared: true });
-      options.onMatrix?.('built', key);
+      options.onMatrix?.('built', key, matrix);
       if (useCache) writeCachedSearchMatrix(path, matrix);
     }
     recent.set(key, matrix);

@@ -8,6 +8,7 @@ import { derivativeVector } from './derivativeVector.js';
 import { maskedRowScore } from './maskedRowScore.js';
 import { matrixScores } from './matrixScores.js';
 import { metricPreparation } from './metricPreparation.js';
+import { processedRow } from './processedRow.js';
 import { rowStatus } from './rowStatus.js';
 import { scoringMask } from './scoringMask.js';
 import { searchMatrixKey } from './searchMatrixKey.js';
@@ -137,7 +138,8 @@ export function searchSpectra(
   const rows = set.entries.length;
   if (rows === 0) throw new BandshelfError('EMPTY_LIBRARY', 'the library has no entries to search');
   const cols = gridLength(set.grid);
-  if (set.processed.length !== rows * cols) {
+  // A set with a row reader may hold its rows on disk; each row it hands out has `cols` values.
+  if (set.row === undefined && set.processed.length !== rows * cols) {
     throw new BandshelfError(
       'BAD_FORMAT',
       `the search set holds ${set.processed.length} values, not ${rows} rows × ${cols} grid points`,
@@ -212,7 +214,7 @@ export function searchSpectra(
           overlap[r] = p.overlap;
           full++;
         } else if (s === rowStatus.partial) {
-          const row = set.processed.subarray(r * cols, (r + 1) * cols);
+          const row = processedRow(set, r);
           const values = preparation.derivative
             ? derivativeVector(row, { ...preparation.derivative, step })
             : row;

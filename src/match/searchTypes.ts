@@ -30,8 +30,13 @@ export interface ScoringSet {
   /** Equal keys mean equal rows: the matrix cache is keyed by it. */
   stateKey: string;
   entries: readonly ScoringEntry[];
-  /** entries.length × gridLength(grid), row-major, ascending wavenumber, NaN where not covered. */
+  /**
+   * entries.length × gridLength(grid), row-major, ascending wavenumber, NaN where not covered. A library set may
+   * read it from disk on first access, so code needing only some rows goes through `processedRow`.
+   */
   processed: Float32Array;
+  /** Row r of `processed`, read without the others where the set can. @default absent: a view on `processed` */
+  row?: (r: number) => Float32Array;
 }
 
 export interface Hit {

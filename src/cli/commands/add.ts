@@ -11,6 +11,7 @@ import { libraryPath } from '../../library/store/libraryPath.js';
 import { openLibrary } from '../../library/store/openLibrary.js';
 import { readRecipeFile } from '../../library/store/readRecipeFile.js';
 import { readTextFile } from '../../library/store/readTextFile.js';
+import { libraryNearDuplicateIndex } from '../../match/libraryNearDuplicateIndex.js';
 import { entryMetaPatchSchema } from '../../schema/meta.js';
 import type { CommandSpec } from '../command.js';
 import { flagWording } from '../flagWording.js';
@@ -117,6 +118,7 @@ export const addCommand: CommandSpec = {
           author,
           message,
           progress: context.progress,
+          nearDuplicateIndex: libraryNearDuplicateIndex,
         });
       } catch (error) {
         throw error instanceof BandshelfError ? inFlagWords(error) : error;

@@ -7,6 +7,7 @@ import { commitRevisions } from '../store/commitRevisions.js';
 import { defaultAuthor } from '../store/defaultAuthor.js';
 import type { Library, ReadOptions } from '../types.js';
 import { type IngestOutcome, type IngestSession, ingestSession } from './ingestSession.js';
+import type { NearDuplicateIndex, PreparedRevision } from './ingestTypes.js';
 import type { LoadedSidecar } from './loadSidecar.js';
 import { type IngestJob, planIngest } from './planIngest.js';
 import { waitsForAnotherEntry } from './waitsForAnotherEntry.js';
@@ -47,6 +48,12 @@ export interface IngestOptions {
   /** Correlation above which an entry is reported as a near-duplicate of another.
    * @default 0.999 */
   nearDuplicateThreshold?: number;
+  /**
+   * Makes the index that shortlists library entries for the near-duplicate check: `bandshelf add` passes the
+   * match layer's `libraryNearDuplicateIndex` (its kernels and search cache, which the add then extends).
+   * @default undefined: every current processed vector is held in memory and scored in plain JS
+   */
+  nearDuplicateIndex?: (library: Library) => NearDuplicateIndex;
   /** Who makes the revisions.
    * @default defaultAuthor() */
   author?: string;
@@ -61,41 +68,86 @@ export interface IngestOptions {
   progress?: (done: number, total: number, label: string) => void;
 }
 
+/** Whether a recipe's reference, EMSC or subtraction step names the entry. */
+function names(recipe: Recipe, id: string): boolean {
+  return (
+    recipe.reference?.id === id ||
+    recipe.emsc?.id === id ||
+    (recipe.subtract?.references.some((r) => r.id === id) ?? false)
+  );
+}
+
+/** Files processed before their near-duplicate check, which scores a block's vectors in one pass. */
+const BLOCK = 32;
+
 function commitAtomic(library: Library, session: IngestSession, jobs: IngestJob[], options: IngestOptions) {
   const { failed } = session.outcome;
-  const all = [];
+  const all: PreparedRevision[][] = [];
   let done = 0;
   for (const job of jobs) {
     try {
-      all.push(...session.prepare(job));
+      all.push(session.prepare(job));
     } catch (error) {
       failed.push({ file: job.label, error: errorLine(error) });
     }
     options.progress?.(++done, jobs.length, job.label);
   }
   if (failed.length > 0) return;
+  // Nothing is recorded before the one commit, so files are checked against the library only.
+  const flagged: PreparedRevision[] = [];
+  for (let b = 0; b < all.length; b += BLOCK)
+    flagged.push(...session.flag(all.slice(b, b + BLOCK), { withinBlock: false }).flat());
   try {
-    session.record(all, commitRevisions(library, all, commitOptions(options)));
+    session.record(flagged, commitRevisions(library, flagged, commitOptions(options)));
   } catch (error) {
-    failed.push({ file: all[0]?.label ?? jobs[0]?.label ?? '', error: errorLine(error) });
+    failed.push({ file: flagged[0]?.label ?? jobs[0]?.label ?? '', error: errorLine(error) });
   }
 }
 
+/**
+ * Jobs in order, a block at a time: prepare, check the block for near-duplicates, commit each file. A file whose
+ * recipe waits on an entry ends the block before it, so it is prepared after the earlier files are committed.
+ */
 function commitEach(library: Library, session: IngestSession, jobs: IngestJob[], options: IngestOptions) {
   const { failed } = session.outcome;
   let done = 0;
   let pending = jobs;
   for (;;) {
     const waiting: { job: IngestJob; error: unknown }[] = [];
-    for (const job of pending) {
-      try {
-        const prepared = session.prepare(job);
-        session.record(prepared, commitRevisions(library, prepared, commitOptions(options)));
-      } catch (error) {
-        if (waitsForAnotherEntry(error)) waiting.push({ job, error });
-        else failed.push({ file: job.label, error: errorLine(error) });
+    let next = 0;
+    while (next < pending.length) {
+      const block: { job: IngestJob; prepared: PreparedRevision[] }[] = [];
+      while (next < pending.length && block.length < BLOCK) {
+        const job = pending[next]!;
+        try {
+          const prepared = session.prepare(job);
+          // Its recipe pinned an entry this block is about to replace: prepare it again after the commits.
+          if (block.some((b) => b.prepared.some((q) => prepared.some((p) => names(p.recipe, q.id))))) break;
+          block.push({ job, prepared });
+        } catch (error) {
+          if (waitsForAnotherEntry(error)) {
+            if (block.length > 0) break;
+            waiting.push({ job, error });
+          } else {
+            failed.push({ file: job.label, error: errorLine(error) });
+            options.progress?.(++done, jobs.length, job.label);
+          }
+        }
+        next++;
       }
-      if (!waiting.some((w) => w.job === job)) options.progress?.(++done, jobs.length, job.label);
+      const flagged = session.flag(
+        block.map((b) => b.prepared),
+        { withinBlock: true },
+      );
+      block.forEach(({ job }, i) => {
+        const prepared = flagged[i]!;
+        try {
+          session.record(prepared, commitRevisions(library, prepared, commitOptions(options)));
+        } catch (error) {
+          failed.push({ file: job.label, error: errorLine(error) });
+        }
+        options.progress?.(++done, jobs.length, job.label);
+      });
     }
     // Retry files whose recipe names an entry while another pass still adds entries.
     if (waiting.length === 0 || waiting.length === pending.length) {
@@ -143,9 +195,11 @@ export function ingest(
     ...(options.nearDuplicateThreshold === undefined
       ? {}
       : { nearDuplicateThreshold: options.nearDuplicateThreshold }),
+    ...(options.nearDuplicateIndex === undefined ? {} : { index: options.nearDuplicateIndex(library) }),
   });
   session.outcome.notes.push(...plan.warnings);
   if (options.atomic) commitAtomic(library, session, plan.jobs, options);
   else commitEach(library, session, plan.jobs, options);
+  session.close();
   return session.outcome;
 }

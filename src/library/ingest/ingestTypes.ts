@@ -55,3 +55,26 @@ export interface CommitOutcome {
   /** QC warnings stored with the revision (errors block unless forced; forced errors are listed too). */
   qc: QcFlag[];
 }
+
+/** A revision an add stored, as a near-duplicate index keeps it. */
+export interface CommittedVector {
+  id: string;
+  revision: number;
+  /** The revision's content hash. */
+  hash: string;
+  processed: Float64Array;
+}
+
+/**
+ * Shortlists the current entries a block of new processed vectors may near-duplicate, so an add does not hold or
+ * scan every vector of the library in plain JS; the match layer supplies one on its kernels and search cache
+ * (libraryNearDuplicateIndex). The ingest then scores the shortlist exactly, as it scores the whole pool without one.
+ */
+export interface NearDuplicateIndex {
+  /** Per vector, the entries of the library as the add found it that may correlate above `floor`, best first. */
+  shortlist(vectors: readonly Float64Array[], floor: number): { id: string; revision: number }[][];
+  /** The revisions the add stored, in order (so the search cache can follow the library). */
+  committed(revisions: readonly CommittedVector[]): void;
+  /** The add is over: write what the index keeps (the next state's search cache). */
+  close(): void;
+}

@@ -1,4 +1,5 @@
-// Computes everything a new revision stores (pinned recipe, hashes, processed vector, peaks, QC) without writing.
+// Computes everything a new revision stores (pinned recipe, hashes, processed vector, peaks, QC) without writing;
+// the near-duplicate flag, which needs the rest of the library, is the ingest session's (ingestSession's `flag`).
 import { BandshelfError } from '../../error.js';
 import { likelyXUnit } from '../../formats/likelyXUnit.js';
 import type { XUnit } from '../../formats/types.js';
@@ -15,7 +16,6 @@ import { headRevision } from '../store/headRevision.js';
 import { sha256Hex } from '../store/sha256Hex.js';
 import type { Library, RevisionKind } from '../types.js';
 import type { PreparedRevision, RevisionInput } from './ingestTypes.js';
-import { type NearDuplicatePool, nearDuplicateFlag } from './nearDuplicateFlag.js';
 import { pinRecipe } from './pinRecipe.js';
 import { processOriginal } from './processOriginal.js';
 
@@ -23,12 +23,6 @@ export interface PrepareRevisionOptions {
   /** Store the revision even when QC raises an error-level flag (the flags are stored either way).
    * @default false */
   force?: boolean;
-  /** Current processed vectors to look for near-duplicates in; none means no near-duplicate check.
-   * @default undefined */
-  pool?: NearDuplicatePool;
-  /** Correlation above which another entry is reported as a near-duplicate.
-   * @default 0.999 */
-  nearDuplicateThreshold?: number;
   /** @default 'data' */
   kind?: RevisionKind;
 }
@@ -96,13 +90,6 @@ export function prepareRevision(
           },
         }),
   });
-  if (options.pool) {
-    const duplicate = nearDuplicateFlag(processed, options.pool, {
-      exclude: id,
-      ...(options.nearDuplicateThreshold === undefined ? {} : { threshold: options.nearDuplicateThreshold }),
-    });
-    if (duplicate) qc.push(duplicate);
-  }
   const errors = qc.filter((f) => f.level === 'error');
   const blocked =
     errors.length > 0 && !options.force

@@ -2,6 +2,7 @@
 import { BandshelfError } from '../../error.js';
 import type { Recipe, WavenumberWindow } from '../../schema/recipe.js';
 import type { Spectrum } from '../../spectrum/types.js';
+import { processedRow } from '../processedRow.js';
 import { reprocessOverWindow } from '../reprocessOverWindow.js';
 import { spectrumExtent } from '../spectrumExtent.js';
 import type { MixtureCandidate } from '../types.js';
@@ -43,7 +44,7 @@ export async function offerMixtureCandidates(
   const reprocessed: string[] = [];
   const candidates = rows.map((row): MixtureCandidate => {
     const e = source.entries[row]!;
-    let vector: ArrayLike<number> = source.processed.subarray(row * source.cols, (row + 1) * source.cols);
+    let vector: ArrayLike<number> = processedRow(source, row);
     const view = originals.get(row);
     if (window !== null && view !== undefined) {
       try {

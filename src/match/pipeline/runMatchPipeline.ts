@@ -9,6 +9,7 @@ import { buildMatchReport } from '../buildMatchReport.js';
 import { coveredSpan } from '../coveredSpan.js';
 import { fitMixture } from '../fitMixture.js';
 import { identifyBands } from '../identifyBands.js';
+import { processedRow } from '../processedRow.js';
 import { scoringMask } from '../scoringMask.js';
 import { type Hit, type Metric, MIN_OVERLAP_DEFAULT } from '../searchTypes.js';
 import type { BandIndex, MixtureCandidate, MixtureResult } from '../types.js';
@@ -226,6 +227,6 @@ export async function runMatchPipeline(
     mixture,
     bands,
     wrongHitNull: source.wrongHitNull ?? null,
-    referenceOf: (row) => source.processed.subarray(row * source.cols, (row + 1) * source.cols),
+    referenceOf: (row) => processedRow(source, row),
   });
 }
