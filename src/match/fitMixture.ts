@@ -117,6 +117,8 @@ export const DEFAULT_CORRELATION_WIDTH = 30;
 
 /** A residual peak is a fitted component's misfit when that component gives at least this multiple of it there. */
 const MISFIT_RATIO = 2;
+/** …and has a band maximum of its own within this many FWHM of the residual peak. */
+const MISFIT_REACH = 2;
 
 const { jStat } = jStatModule;
 
@@ -454,7 +456,8 @@ export function fitMixture(
     `component's sensitivity net of the others, their line-shape terms and the baseline. Unexplained bands: residual maxima above ` +
     `${k} × the local noise (±100 cm⁻¹, robust σ of first differences) with FWHM ≥ ${resolution} cm⁻¹, ` +
     `none at the fit's edges; a residual peak where a fitted component gives at least ${MISFIT_RATIO} × the residual ` +
-    `is that component's band differing in shape or position between benches, listed apart, not as unexplained.`;
+    `and that has a band maximum within ${MISFIT_REACH} × the peak's FWHM is that component's band differing in shape or position ` +
+    `between benches, listed apart, not as unexplained.`;
 
   return {
     components,
@@ -500,10 +503,20 @@ function separateMisfits(
       if (Math.abs(axis[at[j]!]! - peak.position) < Math.abs(axis[at[t]!]! - peak.position)) t = j;
     }
     let owner: { id: string; contribution: number } | null = null;
+    // Within MISFIT_REACH × the peak's FWHM the component must have a band maximum of its own: a narrow residual
+    // band on the wing of a broad one (a drug's band on water's combination band) is not that band's misfit.
+    const reach = Math.max(
+      2,
+      Math.ceil(
+        (MISFIT_REACH * peak.fwhm) / Math.max(1e-9, Math.abs(axis[at[1] ?? at[0]!]! - axis[at[0]!]!)),
+      ),
+    );
     selected.forEach((s, j) => {
       const id = usable[s]!.candidate.id;
-      const contribution = weights[j]! * usable[s]!.raw[t]!;
+      const raw = usable[s]!.raw;
+      const contribution = weights[j]! * raw[t]!;
       if (!kept.has(id) || !(contribution >= MISFIT_RATIO * Math.abs(peak.height))) return;
+      if (!hasMaximumNear(raw, t, reach)) return;
       if (owner === null || contribution > owner.contribution) owner = { id, contribution };
     });
     const found = owner as { id: string; contribution: number } | null;
@@ -518,4 +531,12 @@ function separateMisfits(
     }
   }
   return { bands, misfitBands };
+}
+
+/** A local maximum of `v` within ±`reach` points of `t` (the ends of the fit do not count). */
+function hasMaximumNear(v: Float64Array, t: number, reach: number): boolean {
+  for (let i = Math.max(1, t - reach); i <= Math.min(v.length - 2, t + reach); i++) {
+    if (v[i]! >= v[i - 1]! && v[i]! > v[i + 1]!) return true;
+  }
+  return false;
 }
