@@ -52,13 +52,22 @@ export function wrongHitNull(input: WrongHitNullInput, options: WrongHitNullOpti
   const step = rows > maxRows ? rows / maxRows : 1;
   const sample: number[] = [];
   for (let t = 0; t < rows && sample.length < maxRows; t += step) sample.push(Math.floor(t));
+  // Rows that cover every grid point share one set of points with each other: their Pearson r is the dot product of
+  // their centred, unit-norm vectors, computed once per row (the same r as the pairwise sums, to rounding).
+  const unit = fullRowsUnit(processed, rows, cols);
   const scores: number[] = [];
   for (const a of sample) {
     const own = new Set(keys[a]);
     let best = Number.NEGATIVE_INFINITY;
+    const ua = unit[a];
     for (let b = 0; b < rows; b++) {
       if (b === a || keys[b]!.some((k) => own.has(k))) continue;
-      const r = pairPearson(processed, a * cols, b * cols, cols, minPoints);
+      const ub = unit[b];
+      let r: number;
+      if (ua !== undefined && ub !== undefined && cols >= minPoints) {
+        r = 0;
+        for (let i = 0; i < cols; i++) r += ua[i]! * ub[i]!;
+      } else r = pairPearson(processed, a * cols, b * cols, cols, minPoints);
       if (r > best) best = r;
     }
     if (Number.isFinite(best)) scores.push(best);
@@ -98,4 +107,41 @@ function pairPearson(x: ArrayLike<number>, a: number, b: number, cols: number, m
     sbb += (v - mb) ** 2;
   }
   return saa > 0 && sbb > 0 ? sab / Math.sqrt(saa * sbb) : Number.NaN;
+}
+
+/** Centred, unit-norm copy of each row that covers every grid point (undefined for the others and flat rows). */
+function fullRowsUnit(x: ArrayLike<number>, rows: number, cols: number): (Float64Array | undefined)[] {
+  const out: (Float64Array | undefined)[] = [];
+  for (let r = 0; r < rows; r++) {
+    const v = new Float64Array(cols);
+    let mean = 0;
+    let full = true;
+    for (let i = 0; i < cols; i++) {
+      const u = x[r * cols + i]!;
+      if (Number.isNaN(u)) {
+        full = false;
+        break;
+      }
+      v[i] = u;
+      mean += u;
+    }
+    if (!full) {
+      out.push(undefined);
+      continue;
+    }
+    mean /= cols;
+    let norm = 0;
+    for (let i = 0; i < cols; i++) {
+      v[i] = v[i]! - mean;
+      norm += v[i]! * v[i]!;
+    }
+    if (!(norm > 0)) {
+      out.push(undefined);
+      continue;
+    }
+    const k = 1 / Math.sqrt(norm);
+    for (let i = 0; i < cols; i++) v[i] = v[i]! * k;
+    out.push(v);
+  }
+  return out;
 }

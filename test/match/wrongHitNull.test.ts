@@ -47,3 +47,43 @@ describe('empiricalPValue', () => {
     expect(empiricalPValue({ score: 0.5, nullScores: [] })).toBeNull();
   });
 });
+
+describe('wrongHitNull on a seeded library of fully and partly covered rows', () => {
+  it("gives each row's best wrong r as simple-statistics' sampleCorrelation over the shared points", () => {
+    const cols = 40;
+    const rows = 12;
+    let state = 7;
+    const uniform = () => {
+      state = (state * 1103515245 + 12345) % 2147483648; // LCG of the C standard's example rand(), seeded
+      return state / 2147483648;
+    };
+    const processed = new Float64Array(rows * cols);
+    for (let r = 0; r < rows; r++) {
+      for (let i = 0; i < cols; i++) processed[r * cols + i] = r % 4 === 3 && i < 10 ? Number.NaN : uniform();
+    }
+    const list = Array.from({ length: rows }, (_, r) => ({ id: `e${r}`, name: `E${r}` }));
+    const result = wrongHitNull({ cols, processed, entries: list });
+    const expected = Array.from({ length: rows }, (_, a) => {
+      let best = Number.NEGATIVE_INFINITY;
+      for (let b = 0; b < rows; b++) {
+        if (b === a) continue;
+        const x: number[] = [];
+        const y: number[] = [];
+        for (let i = 0; i < cols; i++) {
+          const u = processed[a * cols + i]!;
+          const v = processed[b * cols + i]!;
+          if (!Number.isNaN(u) && !Number.isNaN(v)) {
+            x.push(u);
+            y.push(v);
+          }
+        }
+        best = Math.max(best, sampleCorrelation(x, y));
+      }
+      return best;
+    }).sort((p, q) => p - q);
+    expect(result.scores.length).toBe(rows);
+    result.scores.forEach((s, k) => {
+      expect(s).toBeCloseTo(expected[k]!, 12);
+    });
+  });
+});
