@@ -26,6 +26,7 @@ import { MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import { type Recipe, timeDomainSchema } from '../schema/recipe.js';
+import { pinNoiseFloor } from '../spectrum/trace/pinNoiseFloor.js';
 import type { CommandContext } from './command.js';
 
 /** The pipeline's settings as the CLI takes them, plus where the library, release and recipe file are. */
@@ -152,7 +153,7 @@ function readTimeDomainUnknown(
     hash.update(bytes);
     return { role, name: basename(f), bytes };
   });
-  const step = settings.recipe.timeDomain ?? timeDomainSchema.parse({});
+  const step = pinNoiseFloor(settings.recipe.timeDomain ?? timeDomainSchema.parse({}));
   const [original] = readOriginals(
     {
       files,
