@@ -2,9 +2,9 @@
 // changed resolution under a resolution step re-pins the step and re-processes (a data revision).
 import { BandshelfError } from '../../error.js';
 import { metaErrorFromIssues } from '../../formats/metaErrorFromIssues.js';
-import { revisionForEditedMeta } from '../ingest/revisionForEditedMeta.js';
 import { entryMetaSchema } from '../../schema/meta.js';
 import type { CommitOutcome } from '../ingest/ingestTypes.js';
+import { revisionForEditedMeta } from '../ingest/revisionForEditedMeta.js';
 import type { Library } from '../types.js';
 import { commitRevisions } from './commitRevisions.js';
 import { contentHashes } from './contentHashes.js';

@@ -63,7 +63,14 @@ describe('edit of the resolution metadata', () => {
 
   it('an edit that leaves the resolution alone stays a metadata revision with the same vector', () => {
     const before = show('film');
-    const edit = bandshelf(['edit', 'film', '--set', 'notes=re-measured on the same bench', ...lib, '--json']);
+    const edit = bandshelf([
+      'edit',
+      'film',
+      '--set',
+      'notes=re-measured on the same bench',
+      ...lib,
+      '--json',
+    ]);
     expect(edit.code, edit.stderr).toBe(0);
     expect(parseJson<{ kind: string }>(edit.stdout).kind).toBe('metadata');
     expect(show('film').processed).toEqual(before.processed);

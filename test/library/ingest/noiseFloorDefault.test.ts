@@ -20,7 +20,11 @@ describe('noise floor default for time-domain adds', () => {
     const path = join(dir, 'lib.sqlite');
     // A revision as written before the default: its stored time-domain step has no noiseFloorFactor key.
     const files = [
-      { role: 'sample-trace' as const, name: sample, bytes: new Uint8Array(readFileSync(join(traces, sample))) },
+      {
+        role: 'sample-trace' as const,
+        name: sample,
+        bytes: new Uint8Array(readFileSync(join(traces, sample))),
+      },
       {
         role: 'reference-trace' as const,
         name: reference,
