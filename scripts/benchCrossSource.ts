@@ -438,7 +438,11 @@ async function syntheticPart(): Promise<Record<string, unknown>> {
     const t = tallies[method]![bench]!;
     t.queries++;
     if (top === id) t.right++;
-    else (missed[method]![bench] ??= []).push(`${id}→${top ?? 'none'}`);
+    else {
+      const list = missed[method]![bench] ?? [];
+      list.push(`${id}→${top ?? 'none'}`);
+      missed[method]![bench] = list;
+    }
   };
   try {
     // Plain Pearson on the unprocessed absorbance, 2 cm⁻¹ grid.
