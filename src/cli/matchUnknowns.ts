@@ -12,12 +12,14 @@ import { describeIoError } from '../library/store/describeIoError.js';
 import { libraryPath } from '../library/store/libraryPath.js';
 import { listAssignments } from '../library/store/listAssignments.js';
 import { openLibrary } from '../library/store/openLibrary.js';
+import { readEntry } from '../library/store/readEntry.js';
 import { readOriginals } from '../library/store/readOriginals.js';
 import { readRecipeFile } from '../library/store/readRecipeFile.js';
 import { readSearchSet } from '../library/store/readSearchSet.js';
 import { recipeReferences } from '../library/store/recipeReferences.js';
 import type { SearchSet } from '../library/types.js';
 import { buildBandIndex } from '../match/buildBandIndex.js';
+import { compareAtCoarserResolution } from '../match/compareAtCoarserResolution.js';
 import { libraryMatchSource } from '../match/libraryMatchSource.js';
 import { type RunMatchPipelineOptions, runMatchPipeline } from '../match/pipeline/runMatchPipeline.js';
 import type { MatchUnknown } from '../match/pipeline/types.js';
@@ -26,6 +28,7 @@ import { MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import { type Recipe, timeDomainSchema } from '../schema/recipe.js';
+import { resolutionOf } from '../spectrum/resolutionOf.js';
 import { pinNoiseFloor } from '../spectrum/trace/pinNoiseFloor.js';
 import type { CommandContext } from './command.js';
 
@@ -241,6 +244,8 @@ export async function matchUnknowns(
       index: buildBandIndex(set),
     };
     const assignments = [...shippedAssignments(), ...listAssignments(library)];
+    const entryResolution = (id: string, revision: number): number | undefined =>
+      readEntry(library, id, { revision }).extras.resolution?.value;
 
     const read = options.read ?? {};
     const outcomes: MatchOutcome[] = [];
@@ -281,13 +286,25 @@ export async function matchUnknowns(
           ...(unknown.column === undefined ? {} : { column: unknown.column }),
         };
         outcomes.push(outcome);
+        let notes: string[] = [];
         try {
-          outcome.report = await runMatchPipeline({ unknown, source, scorer, assignments }, unknownSettings);
+          const report = await runMatchPipeline({ unknown, source, scorer, assignments }, unknownSettings);
+          // Like with like: hits of another resolution are scored again at the coarser of the two.
+          const own = resolutionOf(given.spectrum, { stated }).value;
+          const alike = await compareAtCoarserResolution(
+            { report, unknown: given.spectrum, resolution: own, source },
+            {
+              ...(settings.references === undefined ? {} : { references: settings.references }),
+              entryResolution,
+            },
+          );
+          outcome.report = alike.report;
+          notes = alike.notes;
         } catch (error) {
           if (single && unknowns.length === 1) throw error;
           outcome.error = oneLine(error);
         }
-        for (const w of unknown.warnings) warnings.push(`${file}: ${w}`);
+        for (const w of [...unknown.warnings, ...notes]) warnings.push(`${file}: ${w}`);
       }
     }
     context.progress(files.length, files.length, 'done');
