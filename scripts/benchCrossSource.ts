@@ -21,11 +21,13 @@ import { ingest } from '../src/library/ingest/ingest.js';
 import { closeLibrary } from '../src/library/store/closeLibrary.js';
 import { initLibrary } from '../src/library/store/initLibrary.js';
 import { readSearchSet } from '../src/library/store/readSearchSet.js';
+import { compareAtCoarserResolution } from '../src/match/compareAtCoarserResolution.js';
 import { libraryMatchSource } from '../src/match/libraryMatchSource.js';
 import { runMatchPipeline } from '../src/match/pipeline/runMatchPipeline.js';
 import { resolutionForUnknown } from '../src/match/resolutionForUnknown.js';
 import type { RecipeInput } from '../src/schema/recipe.js';
 import { RECIPE_PRESETS } from '../src/schema/recipePresets.js';
+import { resolutionOf } from '../src/spectrum/resolutionOf.js';
 import type { Spectrum } from '../src/spectrum/types.js';
 import { type Bench, measureOnBench } from './measureOnBench.js';
 
@@ -267,7 +269,21 @@ async function realPart(): Promise<Record<string, unknown>> {
                   ...(pinned.recipe === source.recipe ? {} : { recipe: pinned.recipe }),
                 },
               );
-              const hits = report.hitsByMetric.pearson ?? [];
+              // As `bandshelf match` does: hits of another resolution compared again at the coarser of the two.
+              const stated = (f: string) => {
+                const r = spectra.get(f)?.resolution;
+                return typeof r === 'number' && Number.isFinite(r) && r > 0 ? r : undefined;
+              };
+              const alike = await compareAtCoarserResolution(
+                {
+                  report,
+                  unknown: spectrum,
+                  resolution: resolutionOf(spectrum, { stated: spectrum.resolution }).value,
+                  source,
+                },
+                { entryResolution: (id) => stated(bySlug.get(id) ?? '') },
+              );
+              const hits = alike.report.hitsByMetric.pearson ?? [];
               const top = hits[0]?.id;
               const ownHit = hits.find((h) => setOf.get(bySlug.get(h.id) ?? '') === set);
               const otherHit = hits.find((h) => setOf.get(bySlug.get(h.id) ?? '') !== set);
@@ -427,7 +443,11 @@ async function syntheticPart(): Promise<Record<string, unknown>> {
   const plainLo = 400;
   const plainCount = Math.round((4400 - plainLo) / PLAIN_STEP) + 1;
   const libraryPlain = library.map((s) => plainVector(s, plainLo, plainCount));
-  const methods = ['plain-pearson-2cm', ...Object.keys(recipes).map((k) => `bandshelf:${k}`)];
+  const methods = [
+    'plain-pearson-2cm',
+    ...Object.keys(recipes).map((k) => `bandshelf:${k}`),
+    ...Object.keys(recipes).map((k) => `pipeline-only:${k}`),
+  ];
   const tallies: Record<string, Record<string, { right: number; queries: number }>> = {};
   const missed: Record<string, Record<string, string[]>> = {};
   for (const m of methods) {
@@ -511,14 +531,16 @@ async function syntheticPart(): Promise<Record<string, unknown>> {
                 scorer,
                 assignments: [],
               },
-              { top: 3, ...(pinned.recipe === source.recipe ? {} : { recipe: pinned.recipe }) },
+              { top: 5, ...(pinned.recipe === source.recipe ? {} : { recipe: pinned.recipe }) },
             );
-            record(
-              `bandshelf:${name}`,
-              bench.name,
-              demoCompounds[c]!.id,
-              report.hitsByMetric.pearson?.[0]?.id,
+            // As `bandshelf match` does: hits of another resolution compared again at the coarser of the two.
+            const alike = await compareAtCoarserResolution(
+              { report, unknown: spectrum, resolution: bench.resolution, source },
+              { entryResolution: () => libraryBench!.resolution },
             );
+            const id = demoCompounds[c]!.id;
+            record(`bandshelf:${name}`, bench.name, id, alike.report.hits[0]?.id);
+            record(`pipeline-only:${name}`, bench.name, id, report.hits[0]?.id);
           }
         }
       } finally {
