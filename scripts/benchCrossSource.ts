@@ -270,19 +270,12 @@ async function realPart(): Promise<Record<string, unknown>> {
                 },
               );
               // As `bandshelf match` does: hits of another resolution compared again at the coarser of the two.
-              const stated = (f: string) => {
-                const r = spectra.get(f)?.resolution;
-                return typeof r === 'number' && Number.isFinite(r) && r > 0 ? r : undefined;
-              };
-              const alike = await compareAtCoarserResolution(
-                {
-                  report,
-                  unknown: spectrum,
-                  resolution: resolutionOf(spectrum, { stated: spectrum.resolution }).value,
-                  source,
-                },
-                { entryResolution: (id) => stated(bySlug.get(id) ?? '') },
-              );
+              const alike = await compareAtCoarserResolution({
+                report,
+                unknown: spectrum,
+                resolution: resolutionOf(spectrum, { stated: spectrum.resolution }).value,
+                source,
+              });
               const hits = alike.report.hitsByMetric.pearson ?? [];
               const top = hits[0]?.id;
               const ownHit = hits.find((h) => setOf.get(bySlug.get(h.id) ?? '') === set);
@@ -534,10 +527,12 @@ async function syntheticPart(): Promise<Record<string, unknown>> {
               { top: 5, ...(pinned.recipe === source.recipe ? {} : { recipe: pinned.recipe }) },
             );
             // As `bandshelf match` does: hits of another resolution compared again at the coarser of the two.
-            const alike = await compareAtCoarserResolution(
-              { report, unknown: spectrum, resolution: bench.resolution, source },
-              { entryResolution: () => libraryBench!.resolution },
-            );
+            const alike = await compareAtCoarserResolution({
+              report,
+              unknown: spectrum,
+              resolution: bench.resolution,
+              source,
+            });
             const id = demoCompounds[c]!.id;
             record(`bandshelf:${name}`, bench.name, id, alike.report.hits[0]?.id);
             record(`pipeline-only:${name}`, bench.name, id, report.hits[0]?.id);

@@ -12,7 +12,6 @@ import { describeIoError } from '../library/store/describeIoError.js';
 import { libraryPath } from '../library/store/libraryPath.js';
 import { listAssignments } from '../library/store/listAssignments.js';
 import { openLibrary } from '../library/store/openLibrary.js';
-import { readEntry } from '../library/store/readEntry.js';
 import { readOriginals } from '../library/store/readOriginals.js';
 import { readRecipeFile } from '../library/store/readRecipeFile.js';
 import { readSearchSet } from '../library/store/readSearchSet.js';
@@ -244,8 +243,6 @@ export async function matchUnknowns(
       index: buildBandIndex(set),
     };
     const assignments = [...shippedAssignments(), ...listAssignments(library)];
-    const entryResolution = (id: string, revision: number): number | undefined =>
-      readEntry(library, id, { revision }).extras.resolution?.value;
 
     const read = options.read ?? {};
     const outcomes: MatchOutcome[] = [];
@@ -293,10 +290,7 @@ export async function matchUnknowns(
           const own = resolutionOf(given.spectrum, { stated }).value;
           const alike = await compareAtCoarserResolution(
             { report, unknown: given.spectrum, resolution: own, source },
-            {
-              ...(settings.references === undefined ? {} : { references: settings.references }),
-              entryResolution,
-            },
+            settings.references === undefined ? {} : { references: settings.references },
           );
           outcome.report = alike.report;
           notes = alike.notes;

@@ -26,11 +26,6 @@ export interface CompareAtCoarserResolutionOptions {
   tolerance?: number;
   /** The reference spectra the unknown's recipe names. @default source.references */
   references?: ReadonlyMap<string, Spectrum>;
-  /**
-   * An entry's recorded resolution (cm⁻¹) by id and revision, where the caller keeps one (the library's
-   * `extras.resolution`). @default undefined (its recipe's pinned `own`, else two point spacings of its original)
-   */
-  entryResolution?: (id: string, revision: number) => number | undefined;
   /** Scoring windows, cm⁻¹ (as the pipeline was given). @default the report's ranges */
   ranges?: readonly WavenumberWindow[];
   /** Least shared coverage, cm⁻¹. @default the report's minOverlap */
@@ -101,11 +96,9 @@ export async function compareAtCoarserResolution(
     const row = rowOf.get(id);
     const original = row === undefined ? undefined : originals.get(row);
     if (row === undefined || original === undefined) continue;
-    const entry = source.entries[row]!;
+    // The revision's recorded resolution, else its recipe's pinned one, else two point spacings of its original.
     const own =
-      options.entryResolution?.(entry.id, entry.revision) ??
-      original.recipe.resolution?.own ??
-      resolutionOf(original.original).value;
+      original.resolution ?? original.recipe.resolution?.own ?? resolutionOf(original.original).value;
     if (!(Number.isFinite(own) && own > 0)) continue;
     const atEntry = effective(own, original.recipe);
     if (Math.abs(atEntry - atUnknown) <= tolerance * Math.min(atEntry, atUnknown)) continue;
