@@ -196,6 +196,12 @@ export const recipeSchema = z
           .array(windowSchema)
           .min(1)
           .default([{ min: 1900, max: 2300 }]),
+        /**
+         * Subtract a reference only when its scale is at least this many standard errors above 0 (one-sided z-test,
+         * weakest first, the rest refitted); one taken out is recorded with scale 0. Absent: every reference is
+         * subtracted at its fitted scale (recipes written before the key).
+         */
+        minZ: z.number().finite().nonnegative().optional(),
       })
       .strict()
       .optional(),
