@@ -45,27 +45,54 @@ beforeAll(() => {
     join(dir, 'lookalike.meta.json'),
     JSON.stringify({ id: 'lookalike', name: 'Lookalike', resolution: 2 }),
   );
-  const add = bandshelf(['add', join(dir, 'coarse.csv'), join(dir, 'lookalike.csv'), ...lib, '--force']);
+  writeSpectrumCsv(join(dir, 'sharp.csv'), SHARP, { step: 1, seed: 3 });
+  writeFileSync(join(dir, 'sharp.meta.json'), JSON.stringify({ id: 'sharp', name: 'Sharp', resolution: 2 }));
+  const add = bandshelf([
+    'add',
+    join(dir, 'coarse.csv'),
+    join(dir, 'lookalike.csv'),
+    join(dir, 'sharp.csv'),
+    ...lib,
+    '--force',
+  ]);
   expect(add.code, add.stderr).toBe(0);
 });
 
 describe('match compares like with like across resolutions', () => {
-  it('scores the coarse entry with the unknown degraded to 16 cm⁻¹, ranks it first and says so', () => {
+  it('scores the coarse entry with the unknown degraded to 16 cm⁻¹, above the lookalike, and says so', () => {
     // 1 cm⁻¹ spacing: two spacings, 2 cm⁻¹, is the unknown's estimated resolution (resolutionOf).
     const unknown = writeSpectrumCsv(join(dir, 'unknown.csv'), SHARP, { step: 1, seed: 7 });
     const r = bandshelf(['match', unknown, ...lib, '--json']);
     expect(r.code, r.stderr).toBe(0);
     const report: MatchReport = matchReportSchema.parse(parseJson(r.stdout));
-    expect(report.hits[0]!.id).toBe('coarse');
+    const coarse = report.hits.find((h) => h.id === 'coarse')!;
+    const lookalike = report.hits.find((h) => h.id === 'lookalike')!;
+    expect(coarse.rank).toBeLessThan(lookalike.rank);
     // Degraded to the entry's resolution the two are the same bands up to noise (kernel √(16² − 2²) against the
     // entry's 16: the widths differ by < 0.5 %), so r is near 1.
-    expect(report.hits[0]!.rawScore).toBeGreaterThan(0.995);
+    expect(coarse.rawScore).toBeGreaterThan(0.995);
     const note = report.query.warnings.find((w) => w.startsWith("hit 'coarse'"));
     expect(note).toMatch(/compared at the coarser 16 cm⁻¹: pearson (0\.\d+) → 0\.99\d/);
     const before = Number(/pearson (0\.\d+) →/.exec(note!)![1]);
-    expect(before).toBeLessThan(report.hits[0]!.rawScore);
+    expect(before).toBeLessThan(coarse.rawScore);
     // The lookalike shares the unknown's resolution (2 cm⁻¹, stated vs estimated): it is not compared again.
     expect(report.query.warnings.some((w) => w.startsWith("hit 'lookalike'"))).toBe(false);
     expect(report.hits.map((h) => h.rank)).toEqual(report.hits.map((_, i) => i + 1));
+  });
+
+  it("degrades the sharper entry's original to a coarse unknown's resolution", () => {
+    // 8 cm⁻¹ spacing: the unknown's estimated resolution is 16 cm⁻¹ (two spacings), the 'sharp' entry states 2.
+    const unknown = writeSpectrumCsv(join(dir, 'coarse-unknown.csv'), COARSE, { step: 8, seed: 11 });
+    const r = bandshelf(['match', unknown, ...lib, '--json']);
+    expect(r.code, r.stderr).toBe(0);
+    const report: MatchReport = matchReportSchema.parse(parseJson(r.stdout));
+    const sharp = report.hits.find((h) => h.id === 'sharp')!;
+    // Entry convolved with √(16² − 2²): its bands reach the unknown's √(w² + 16²) within 0.5 % (quadrature).
+    expect(sharp.rawScore).toBeGreaterThan(0.995);
+    expect(report.query.warnings.find((w) => w.startsWith("hit 'sharp'"))).toMatch(
+      /resolution 2 cm⁻¹\) and the unknown \(16 cm⁻¹\) compared at the coarser 16 cm⁻¹/,
+    );
+    // The coarse entry shares the unknown's resolution: scored as the pipeline scored it, no note.
+    expect(report.query.warnings.some((w) => w.startsWith("hit 'coarse'"))).toBe(false);
   });
 });
