@@ -166,7 +166,10 @@ export function buildMatchReport(
     metrics: [...input.metrics],
     hits: hitsByMetric[primary] ?? [],
     hitsByMetric,
-    standing: hitStanding(primary, hitsByMetric[primary] ?? [], wrong === null ? 0 : 1 / (1 + wrong.sampled)),
+    standing: hitStanding(
+      { metric: primary, hits: hitsByMetric[primary] ?? [] },
+      { floor: wrong === null ? 0 : 1 / (1 + wrong.sampled) },
+    ),
     confidence:
       wrong === null
         ? null

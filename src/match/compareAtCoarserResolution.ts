@@ -170,7 +170,7 @@ export async function compareAtCoarserResolution(
       query: { ...report.query, warnings: [...report.query.warnings, ...notes] },
       hits,
       hitsByMetric,
-      standing: hitStanding(primary, hits, floor),
+      standing: hitStanding({ metric: primary, hits }, { floor }),
     },
     notes,
   };

@@ -9,11 +9,20 @@ import type { Metric } from './searchTypes.js';
  * (a metric other than pearson) the verdict is weak below a score of 0.90 and ambiguous otherwise: no claim of
  * distinctness is made without a calibration.
  */
+export interface HitStandingOptions {
+  /**
+   * The smallest p-value the library's null can give, 1 / (1 + sampled); at it a small library shows no more.
+   * @default 0 (no floor)
+   */
+  floor?: number;
+}
+
 export function hitStanding(
-  metric: Metric,
-  hits: readonly MatchHit[],
-  floor: number,
+  input: { metric: Metric; hits: readonly MatchHit[] },
+  options: HitStandingOptions = {},
 ): MatchReport['standing'] {
+  const { metric, hits } = input;
+  const floor = options.floor ?? 0;
   const best = hits[0];
   if (best === undefined) return { metric, verdict: 'none', text: 'no library entry could be scored' };
   const gapText =
