@@ -12,20 +12,24 @@
 // top-1, each method's margin per query (best score of the query's own set minus the best score of anything else;
 // > 0 is a right top-1) is summarised by its median and minimum, on each method's own score scale. One JSON.
 // The sets come from the files' provenance, not from the scores; nothing here is tuned to these files.
-import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
+import { demoCompounds } from '../src/demo/demoCompounds.js';
 import { readSpectrumFile } from '../src/formats/readSpectrumFile.js';
 import { ingest } from '../src/library/ingest/ingest.js';
 import { closeLibrary } from '../src/library/store/closeLibrary.js';
 import { initLibrary } from '../src/library/store/initLibrary.js';
 import { readSearchSet } from '../src/library/store/readSearchSet.js';
+import { compareAtCoarserResolution } from '../src/match/compareAtCoarserResolution.js';
 import { libraryMatchSource } from '../src/match/libraryMatchSource.js';
 import { runMatchPipeline } from '../src/match/pipeline/runMatchPipeline.js';
 import { resolutionForUnknown } from '../src/match/resolutionForUnknown.js';
 import type { RecipeInput } from '../src/schema/recipe.js';
 import { RECIPE_PRESETS } from '../src/schema/recipePresets.js';
+import { resolutionOf } from '../src/spectrum/resolutionOf.js';
 import type { Spectrum } from '../src/spectrum/types.js';
+import { type Bench, measureOnBench } from './measureOnBench.js';
 
 /** Sets of the same substance from different sources or samples (PROVENANCE.md and the files' own titles). */
 const SETS: Record<string, string[]> = {
@@ -174,7 +178,7 @@ function median(values: readonly number[]): number | null {
   return Math.round(1e4 * m) / 1e4;
 }
 
-async function main(): Promise<void> {
+async function realPart(): Promise<Record<string, unknown>> {
   // Beside the checkout (as CI places it), or beside the folder of worktrees a checkout may sit in.
   const besides = [join('..', 'shared', 'real-spectra'), join('..', '..', 'shared', 'real-spectra')];
   const found = besides
@@ -265,7 +269,14 @@ async function main(): Promise<void> {
                   ...(pinned.recipe === source.recipe ? {} : { recipe: pinned.recipe }),
                 },
               );
-              const hits = report.hitsByMetric.pearson ?? [];
+              // As `bandshelf match` does: hits of another resolution compared again at the coarser of the two.
+              const alike = await compareAtCoarserResolution({
+                report,
+                unknown: spectrum,
+                resolution: resolutionOf(spectrum, { stated: spectrum.resolution }).value,
+                source,
+              });
+              const hits = alike.report.hitsByMetric.pearson ?? [];
               const top = hits[0]?.id;
               const ownHit = hits.find((h) => setOf.get(bySlug.get(h.id) ?? '') === set);
               const otherHit = hits.find((h) => setOf.get(bySlug.get(h.id) ?? '') !== set);
@@ -304,33 +315,272 @@ async function main(): Promise<void> {
       },
     ]),
   );
-  process.stdout.write(
-    `${JSON.stringify(
-      {
-        about:
-          'Top-1 identification across sources on real spectra (../shared/real-spectra); research use only: hits are candidates, not identifications.',
-        data: 'real-spectra (see its PROVENANCE.md)',
-        sets: Object.fromEntries(Object.entries(SETS).map(([k, v]) => [k, v.length])),
-        distractors: DISTRACTORS.length,
-        plain: { grid: `${PLAIN_STEP} cm⁻¹, linear interpolation, no processing`, minOverlap: MIN_OVERLAP },
-        recipes: RECIPES,
-        results: summary,
-        bandshelfMinusPlainPoints: Object.fromEntries(
-          Object.keys(RECIPES).map((k) => [
-            k,
-            Math.round(
-              10 *
-                ((summary[`bandshelf:${k}`]!.top1Percent ?? 0) -
-                  (summary['plain-pearson-2cm']!.top1Percent ?? 0)),
-            ) / 10,
-          ]),
-        ),
-        misses,
-      },
-      null,
-      2,
-    )}\n`,
+  return {
+    about:
+      'Top-1 identification across sources on real spectra (../shared/real-spectra); research use only: hits are candidates, not identifications.',
+    data: 'real-spectra (see its PROVENANCE.md)',
+    sets: Object.fromEntries(Object.entries(SETS).map(([k, v]) => [k, v.length])),
+    distractors: DISTRACTORS.length,
+    plain: { grid: `${PLAIN_STEP} cm⁻¹, linear interpolation, no processing`, minOverlap: MIN_OVERLAP },
+    recipes: RECIPES,
+    results: summary,
+    bandshelfMinusPlainPoints: Object.fromEntries(
+      Object.keys(RECIPES).map((k) => [
+        k,
+        Math.round(
+          10 *
+            ((summary[`bandshelf:${k}`]!.top1Percent ?? 0) -
+              (summary['plain-pearson-2cm']!.top1Percent ?? 0)),
+        ) / 10,
+      ]),
+    ),
+    misses,
+  };
+}
+
+/**
+ * Synthetic instruments (invented, labelled synthetic): the library is measured on the first, the queries on each
+ * other. They differ in resolution (Gaussian instrument line shape 2–16 cm⁻¹), point spacing (0.5–8 cm⁻¹), range,
+ * baseline (offset, slope, curvature, a scattering-like ν² term), ATR weighting vs transmission, a liquid-water
+ * background and noise. The settings are chosen to span what benches differ in, not from any score.
+ */
+const BENCHES: Bench[] = [
+  {
+    name: 'transmission-4cm-1.93',
+    resolution: 4,
+    spacing: 1.93,
+    range: { min: 600, max: 4000 },
+    technique: 'transmission',
+    baseline: { offset: 0.03, slope: 0.02, curvature: 0.01, scattering: 0 },
+    noise: 0.002,
+  },
+  {
+    name: 'atr-diamond-4cm-0.96',
+    resolution: 4,
+    spacing: 0.96,
+    range: { min: 650, max: 4000 },
+    technique: 'atr',
+    baseline: { offset: 0.02, slope: 0.01, curvature: 0, scattering: 0 },
+    noise: 0.001,
+  },
+  {
+    name: 'transmission-2cm-0.5-scattering',
+    resolution: 2,
+    spacing: 0.5,
+    range: { min: 700, max: 3900 },
+    technique: 'transmission',
+    baseline: { offset: 0.1, slope: 0.05, curvature: 0.05, scattering: 0.4 },
+    noise: 0.002,
+  },
+  {
+    name: 'transmission-16cm-8',
+    resolution: 16,
+    spacing: 8,
+    range: { min: 600, max: 4000 },
+    technique: 'transmission',
+    baseline: { offset: 0.05, slope: 0.05, curvature: 0.02, scattering: 0 },
+    noise: 0.003,
+  },
+  {
+    name: 'liquid-water-8cm-4',
+    resolution: 8,
+    spacing: 4,
+    range: { min: 800, max: 3800 },
+    technique: 'transmission',
+    baseline: { offset: 0.02, slope: 0.02, curvature: 0, scattering: 0 },
+    water: 1,
+    noise: 0.002,
+  },
+  {
+    name: 'atr-water-4cm-1.93',
+    resolution: 4,
+    spacing: 1.93,
+    range: { min: 650, max: 4000 },
+    technique: 'atr',
+    baseline: { offset: 0.02, slope: 0.02, curvature: 0.02, scattering: 0.1 },
+    water: 0.5,
+    noise: 0.002,
+  },
+];
+
+/** The synthetic part's recipes: the real part's, the liquid-biofluid preset, and the resolution step at 16 cm⁻¹. */
+const SYNTHETIC_RECIPES: Record<string, RecipeInput> = {
+  ...RECIPES,
+  'default+resolution-16': { resolution: { target: 16 } },
+  'liquid-biofluid-preset': RECIPE_PRESETS['liquid-biofluid'],
+};
+
+function csvOf(s: Spectrum): string {
+  const lines = ['wavenumber_cm-1,absorbance'];
+  for (let i = 0; i < s.wavenumber.length; i++)
+    lines.push(`${s.wavenumber[i]},${s.absorbance[i]!.toFixed(6)}`);
+  return `${lines.join('\n')}\n`;
+}
+
+/** Top-1 of every demo compound measured on each query bench against a library measured on the first bench. */
+async function syntheticPart(): Promise<Record<string, unknown>> {
+  const only = argument('recipes', '');
+  const recipes = Object.fromEntries(
+    Object.entries(SYNTHETIC_RECIPES).filter(([k]) => only === '' || only.split(',').includes(k)),
   );
+  const water = demoCompounds.find((c) => c.id === 'water-liquid')!.bands;
+  const [libraryBench, ...queryBenches] = BENCHES;
+  const work = mkdtempSync(join(tmpdir(), 'bandshelf-cross-synthetic-'));
+  // One seed per (compound, bench), fixed by their positions in the lists.
+  const measure = (c: number, b: number) =>
+    measureOnBench(demoCompounds[c]!.bands, BENCHES[b]!, { seed: 1000 * (b + 1) + c, water });
+  const library = demoCompounds.map((_, c) => measure(c, 0));
+  const queries = queryBenches.map((_, q) =>
+    demoCompounds.map((c, i) => (c.id === 'water-liquid' ? null : measure(i, q + 1))),
+  );
+  const plainLo = 400;
+  const plainCount = Math.round((4400 - plainLo) / PLAIN_STEP) + 1;
+  const libraryPlain = library.map((s) => plainVector(s, plainLo, plainCount));
+  const methods = [
+    'plain-pearson-2cm',
+    ...Object.keys(recipes).map((k) => `bandshelf:${k}`),
+    ...Object.keys(recipes).map((k) => `pipeline-only:${k}`),
+  ];
+  const tallies: Record<string, Record<string, { right: number; queries: number }>> = {};
+  const missed: Record<string, Record<string, string[]>> = {};
+  for (const m of methods) {
+    tallies[m] = Object.fromEntries(queryBenches.map((b) => [b.name, { right: 0, queries: 0 }]));
+    missed[m] = {};
+  }
+  const record = (method: string, bench: string, id: string, top: string | undefined) => {
+    const t = tallies[method]![bench]!;
+    t.queries++;
+    if (top === id) t.right++;
+    else {
+      const list = missed[method]![bench] ?? [];
+      list.push(`${id}→${top ?? 'none'}`);
+      missed[method]![bench] = list;
+    }
+  };
+  try {
+    // Plain Pearson on the unprocessed absorbance, 2 cm⁻¹ grid.
+    for (const [q, bench] of queryBenches.entries()) {
+      for (const [c, spectrum] of queries[q]!.entries()) {
+        if (spectrum === null) continue;
+        const v = plainVector(spectrum, plainLo, plainCount);
+        let best = -1;
+        let bestR = Number.NEGATIVE_INFINITY;
+        for (let e = 0; e < library.length; e++) {
+          const r = pearson(v, libraryPlain[e]!);
+          if (r !== null && r > bestR) {
+            bestR = r;
+            best = e;
+          }
+        }
+        record('plain-pearson-2cm', bench.name, demoCompounds[c]!.id, demoCompounds[best]?.id);
+      }
+    }
+    const files = library.map((s, c) => {
+      const path = join(work, `${demoCompounds[c]!.id}.csv`);
+      writeFileSync(path, csvOf(s));
+      return path;
+    });
+    for (const [name, recipe] of Object.entries(recipes)) {
+      const lib = initLibrary(join(work, `${name}.sqlite`), { recipe, name: 'cross-source synthetic bench' });
+      try {
+        // Water first: the liquid-biofluid preset subtracts the library's water-liquid entry.
+        const order = demoCompounds
+          .map((_, c) => c)
+          .sort(
+            (a, b) =>
+              Number(demoCompounds[b]!.id === 'water-liquid') -
+              Number(demoCompounds[a]!.id === 'water-liquid'),
+          );
+        for (const c of order) {
+          const compound = demoCompounds[c]!;
+          const outcome = ingest(lib, [files[c]!], {
+            meta: {
+              id: compound.id,
+              name: `${compound.name} (synthetic)`,
+              class: compound.class,
+              technique: libraryBench!.technique,
+              resolution: libraryBench!.resolution,
+              synthetic: true,
+            },
+            force: true,
+            message: 'cross-source synthetic bench',
+          });
+          if (outcome.failed.length > 0) throw new Error(`${compound.id}: ${outcome.failed[0]!.error}`);
+        }
+        const { source, scorer } = libraryMatchSource(lib, readSearchSet(lib), {});
+        for (const [q, bench] of queryBenches.entries()) {
+          for (const [c, spectrum] of queries[q]!.entries()) {
+            if (spectrum === null) continue;
+            const pinned = resolutionForUnknown(spectrum, source.recipe, { stated: bench.resolution });
+            const report = await runMatchPipeline(
+              {
+                unknown: {
+                  file: `${demoCompounds[c]!.id}@${bench.name}`,
+                  hash: '0'.repeat(64),
+                  spectrum,
+                  warnings: [],
+                },
+                source,
+                scorer,
+                assignments: [],
+              },
+              { top: 5, ...(pinned.recipe === source.recipe ? {} : { recipe: pinned.recipe }) },
+            );
+            // As `bandshelf match` does: hits of another resolution compared again at the coarser of the two.
+            const alike = await compareAtCoarserResolution({
+              report,
+              unknown: spectrum,
+              resolution: bench.resolution,
+              source,
+            });
+            const id = demoCompounds[c]!.id;
+            record(`bandshelf:${name}`, bench.name, id, alike.report.hits[0]?.id);
+            record(`pipeline-only:${name}`, bench.name, id, report.hits[0]?.id);
+          }
+        }
+      } finally {
+        closeLibrary(lib);
+      }
+    }
+  } finally {
+    rmSync(work, { recursive: true, force: true });
+  }
+  const percent = (t: { right: number; queries: number }) =>
+    t.queries === 0 ? null : Math.round((1000 * t.right) / t.queries) / 10;
+  const results = Object.fromEntries(
+    methods.map((m) => {
+      const all = Object.values(tallies[m]!).reduce(
+        (a, t) => ({ right: a.right + t.right, queries: a.queries + t.queries }),
+        { right: 0, queries: 0 },
+      );
+      return [
+        m,
+        {
+          top1Percent: percent(all),
+          ...all,
+          byBench: Object.fromEntries(Object.entries(tallies[m]!).map(([b, t]) => [b, percent(t)])),
+        },
+      ];
+    }),
+  );
+  return {
+    about:
+      'Top-1 identification across synthetic instruments: the invented demo compounds (src/demo/demoCompounds.ts) measured on synthetic benches (scripts/measureOnBench.ts); every spectrum is synthetic. Research use only: hits are candidates, not identifications.',
+    libraryBench: libraryBench,
+    queryBenches,
+    compounds: demoCompounds.length,
+    recipes,
+    results,
+    misses: missed,
+  };
+}
+
+async function main(): Promise<void> {
+  const part = argument('part', 'both');
+  const out: Record<string, unknown> = {};
+  if (part === 'both' || part === 'real') out.real = await realPart();
+  if (part === 'both' || part === 'synthetic') out.synthetic = await syntheticPart();
+  process.stdout.write(`${JSON.stringify(out, null, 2)}\n`);
 }
 
 main().catch((error: unknown) => {

@@ -15,6 +15,7 @@ import { readSearchSet } from '../library/store/readSearchSet.js';
 import { recipeReferences } from '../library/store/recipeReferences.js';
 import type { SearchSet } from '../library/types.js';
 import { buildBandIndex } from '../match/buildBandIndex.js';
+import { compareAtCoarserResolution } from '../match/compareAtCoarserResolution.js';
 import { libraryMatchSource } from '../match/libraryMatchSource.js';
 import { type RunMatchPipelineOptions, runMatchPipeline } from '../match/pipeline/runMatchPipeline.js';
 import type { MatchUnknown } from '../match/pipeline/types.js';
@@ -23,6 +24,8 @@ import { MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import { type Recipe, timeDomainSchema } from '../schema/recipe.js';
+import { resolutionOf } from '../spectrum/resolutionOf.js';
+import { pinNoiseFloor } from '../spectrum/trace/pinNoiseFloor.js';
 import type { CommandContext } from './command.js';
 import { readUnknownFile, type UnknownOfFile } from './readUnknownFile.js';
 import { spectrumFilesOf } from './spectrumFilesOf.js';
@@ -93,7 +96,7 @@ function readTimeDomainUnknown(
     hash.update(bytes);
     return { role, name: basename(f), bytes };
   });
-  const step = settings.recipe.timeDomain ?? timeDomainSchema.parse({});
+  const step = pinNoiseFloor(settings.recipe.timeDomain ?? timeDomainSchema.parse({}));
   const [original] = readOriginals(
     {
       files,
@@ -220,13 +223,22 @@ export async function matchUnknowns(
           ...(unknown.column === undefined ? {} : { column: unknown.column }),
         };
         outcomes.push(outcome);
+        let notes: string[] = [];
         try {
-          outcome.report = await runMatchPipeline({ unknown, source, scorer, assignments }, unknownSettings);
+          const report = await runMatchPipeline({ unknown, source, scorer, assignments }, unknownSettings);
+          // Like with like: hits of another resolution are scored again at the coarser of the two.
+          const own = resolutionOf(given.spectrum, { stated }).value;
+          const alike = await compareAtCoarserResolution(
+            { report, unknown: given.spectrum, resolution: own, source },
+            settings.references === undefined ? {} : { references: settings.references },
+          );
+          outcome.report = alike.report;
+          notes = alike.notes;
         } catch (error) {
           if (single && unknowns.length === 1) throw error;
           outcome.error = errorLine(error);
         }
-        for (const w of unknown.warnings) warnings.push(`${file}: ${w}`);
+        for (const w of [...unknown.warnings, ...notes]) warnings.push(`${file}: ${w}`);
       }
     }
     context.progress(files.length, files.length, 'done');

@@ -48,6 +48,7 @@ export function libraryMatchSource(
               original: entry.original,
               recipe: entry.recipe,
               references: recipeReferences(library, entry.recipe),
+              ...(entry.extras.resolution === undefined ? {} : { resolution: entry.extras.resolution.value }),
             };
           } catch (error) {
             // Without its references the entry keeps its stored vector.

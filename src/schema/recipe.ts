@@ -77,6 +77,12 @@ export const normaliseSchema = z.discriminatedUnion('method', [
 ]);
 export type NormaliseStep = z.output<typeof normaliseSchema>;
 
+/**
+ * The noise-floor factor k pinned into new time-domain adds and matches: a bin is covered only where both amplitudes
+ * exceed 3 × the noise floor, the usual 3σ detection criterion (IUPAC detection limit, k = 3; common practice).
+ */
+export const NOISE_FLOOR_FACTOR_DEFAULT = 3;
+
 export const timeDomainSchema = z
   .object({
     /** Delay unit of the trace files when their header does not say. */
@@ -95,9 +101,11 @@ export const timeDomainSchema = z
     /**
      * Coverage also needs both the sample's and the reference's spectral amplitude to exceed this many times the
      * noise floor measured on the reference trace (pre-pulse part or highest frequencies; a per-bin amplitude floor,
-     * so k = 3 keeps bins whose power is above 9 × the floor). Absent: no such test (recipes written before it).
+     * so k = 3 keeps bins whose power is above 9 × the floor). A new time-domain add or match without the key gets
+     * NOISE_FLOOR_FACTOR_DEFAULT pinned in (`pinNoiseFloor`); null turns the test off. Absent in a stored recipe
+     * (revisions written before the default): no such test, so those revisions recompute as they were.
      */
-    noiseFloorFactor: z.number().finite().positive().optional(),
+    noiseFloorFactor: z.number().finite().positive().nullable().optional(),
   })
   .strict();
 export type TimeDomainStep = z.output<typeof timeDomainSchema>;
@@ -188,6 +196,12 @@ export const recipeSchema = z
           .array(windowSchema)
           .min(1)
           .default([{ min: 1900, max: 2300 }]),
+        /**
+         * Subtract a reference only when its scale is at least this many standard errors above 0 (one-sided z-test,
+         * weakest first, the rest refitted); one taken out is recorded with scale 0. Absent: every reference is
+         * subtracted at its fitted scale (recipes written before the key).
+         */
+        minZ: z.number().finite().nonnegative().optional(),
       })
       .strict()
       .optional(),

@@ -12,14 +12,23 @@ export interface FitReferencesOptions {
   maxGap?: number;
   /** The file the spectrum came from, for error messages. @default undefined */
   file?: string;
+  /**
+   * Subtract a reference only when its scale is at least this many standard errors above 0 (a one-sided z-test
+   * that the sample holds some of it); the weakest failing reference is taken out and the rest refitted.
+   * @default undefined (every reference subtracted at its fitted scale, whatever its sign)
+   */
+  minZ?: number;
 }
 
 export interface FitReferencesResult {
   /** The spectrum minus Σ scale·reference, only where every reference covers. */
   spectrum: Spectrum;
-  /** One scale per reference, in the order given. */
+  /** One scale per reference, in the order given; 0 for a reference `minZ` took out (not subtracted). */
   scales: number[];
-  /** Standard error of each scale: √(σ̂² (XᵀX)⁻¹ⱼⱼ), σ̂² = RSS/(n − p). */
+  /**
+   * Standard error of each scale: √(σ̂² (XᵀX)⁻¹ⱼⱼ), σ̂² = RSS/(n − p); for a reference taken out, that of the fit
+   * in which it failed the test.
+   */
   standardErrors: number[];
   /** Fitted offset and slope (absorbance per cm⁻¹); part of the fit only, not subtracted. */
   offset: number;
@@ -62,38 +71,63 @@ export function fitReferences(
   let centre = 0;
   for (const i of rows) centre += x[i]!;
   centre /= rows.length;
-  // Column k of the design at row i: the references, then 1, then the centred wavenumber.
-  const column = (k: number, i: number) =>
-    k < references.length ? r[k]![i]! : k === references.length ? 1 : x[i]! - centre;
-  const xtx = new Float64Array(p * p);
-  const xty = new Float64Array(p);
-  for (const i of rows) {
-    for (let a = 0; a < p; a++) {
-      const ca = column(a, i);
-      xty[a]! += ca * y[i]!;
-      for (let b = 0; b <= a; b++) xtx[a * p + b]! += ca * column(b, i);
+  const solve = (active: readonly number[]) => {
+    const q = active.length + 2;
+    // Column k of the design at row i: the active references, then 1, then the centred wavenumber.
+    const column = (k: number, i: number) =>
+      k < active.length ? r[active[k]!]![i]! : k === active.length ? 1 : x[i]! - centre;
+    const xtx = new Float64Array(q * q);
+    const xty = new Float64Array(q);
+    for (const i of rows) {
+      for (let a = 0; a < q; a++) {
+        const ca = column(a, i);
+        xty[a]! += ca * y[i]!;
+        for (let b = 0; b <= a; b++) xtx[a * q + b]! += ca * column(b, i);
+      }
     }
+    for (let a = 0; a < q; a++) for (let b = a + 1; b < q; b++) xtx[a * q + b] = xtx[b * q + a]!;
+    const inverse = invertSymmetric(xtx, q);
+    if (inverse === undefined) {
+      throw new BandshelfError(
+        'BAD_RECIPE',
+        'the references cannot be told apart from each other or from an offset and slope inside the subtraction windows',
+        { file: options.file, field },
+      );
+    }
+    const beta = new Float64Array(q);
+    for (let a = 0; a < q; a++) for (let b = 0; b < q; b++) beta[a]! += inverse[a * q + b]! * xty[b]!;
+    let rss = 0;
+    for (const i of rows) {
+      let fit = 0;
+      for (let k = 0; k < q; k++) fit += beta[k]! * column(k, i);
+      rss += (y[i]! - fit) ** 2;
+    }
+    const variance = rss / (rows.length - q);
+    return {
+      beta,
+      errors: active.map((_, k) => Math.sqrt(variance * inverse[k * q + k]!)),
+    };
+  };
+  let active = references.map((_, k) => k);
+  let fit = solve(active);
+  const scales = references.map(() => 0);
+  const standardErrors = references.map(() => Number.NaN);
+  const minZ = options.minZ;
+  // One-sided z-tests, weakest first: a reference whose scale is not minZ standard errors above 0 is taken out and
+  // the rest refitted, until every one left passes.
+  while (minZ !== undefined && active.length > 0) {
+    let worst = 0;
+    for (let j = 1; j < active.length; j++)
+      if (fit.beta[j]! / fit.errors[j]! < fit.beta[worst]! / fit.errors[worst]!) worst = j;
+    if (fit.beta[worst]! / fit.errors[worst]! >= minZ) break;
+    standardErrors[active[worst]!] = fit.errors[worst]!;
+    active = active.filter((_, j) => j !== worst);
+    fit = solve(active);
   }
-  for (let a = 0; a < p; a++) for (let b = a + 1; b < p; b++) xtx[a * p + b] = xtx[b * p + a]!;
-  const inverse = invertSymmetric(xtx, p);
-  if (inverse === undefined) {
-    throw new BandshelfError(
-      'BAD_RECIPE',
-      'the references cannot be told apart from each other or from an offset and slope inside the subtraction windows',
-      { file: options.file, field },
-    );
-  }
-  const beta = new Float64Array(p);
-  for (let a = 0; a < p; a++) for (let b = 0; b < p; b++) beta[a]! += inverse[a * p + b]! * xty[b]!;
-  let rss = 0;
-  for (const i of rows) {
-    let fit = 0;
-    for (let k = 0; k < p; k++) fit += beta[k]! * column(k, i);
-    rss += (y[i]! - fit) ** 2;
-  }
-  const variance = rss / (rows.length - p);
-  const scales = references.map((_, k) => beta[k]!);
-  const standardErrors = references.map((_, k) => Math.sqrt(variance * inverse[k * p + k]!));
+  active.forEach((k, j) => {
+    scales[k] = fit.beta[j]!;
+    standardErrors[k] = fit.errors[j]!;
+  });
   const keep: number[] = [];
   for (let i = 0; i < x.length; i++) if (covered(i)) keep.push(i);
   const wavenumber = Float64Array.from(keep, (i) => x[i]!);
@@ -106,8 +140,8 @@ export function fitReferences(
     spectrum: { wavenumber, absorbance },
     scales,
     standardErrors,
-    offset: beta[references.length]!,
-    slope: beta[references.length + 1]!,
+    offset: fit.beta[active.length]!,
+    slope: fit.beta[active.length + 1]!,
     points: rows.length,
   };
 }

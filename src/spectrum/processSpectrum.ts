@@ -135,7 +135,11 @@ export function processSpectrum(
     const refs = subtract.references.map((r, k) =>
       raw(found(r.id, `subtract.references.${k}.id`), `reference ${r.id}`),
     );
-    const fitted = fitReferences(spectrum, refs, subtract.windows, { maxGap, ...where });
+    const fitted = fitReferences(spectrum, refs, subtract.windows, {
+      maxGap,
+      ...where,
+      ...(subtract.minZ === undefined ? {} : { minZ: subtract.minZ }),
+    });
     spectrum = fitted.spectrum;
     result.subtracted = subtract.references.map((r, k) => ({
       id: r.id,

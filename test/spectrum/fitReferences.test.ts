@@ -63,3 +63,37 @@ describe('fitReferences', () => {
     expect(() => fitReferences(spectrumOf(water), [line], whole)).toThrow(/told apart/);
   });
 });
+
+describe('fitReferences minZ', () => {
+  it('takes out a reference the sample does not hold and refits the rest as ordinary least squares would', () => {
+    const rng = seededRandom(23);
+    // Water present at scale 3, no vapour: noise alone gives the vapour scale.
+    const y = x.map((v, i) => 3 * water[i]! + 0.01 * (v / 1000) + 5e-3 * rng.normal());
+    const refs = [spectrumOf(water), spectrumOf(vapour)];
+    const all = fitReferences(spectrumOf(y), refs, whole);
+    const z = all.scales[1]! / all.standardErrors[1]!;
+    expect(z).toBeLessThan(3); // the premise: no vapour to find at 3σ (one-sided z-test; common practice)
+    const tested = fitReferences(spectrumOf(y), refs, whole, { minZ: 3 });
+    expect(tested.scales[1]).toBe(0);
+    expect(tested.standardErrors[1]).toBeCloseTo(all.standardErrors[1]!, 12);
+    // Water alone with offset and slope, as ml-matrix (a general-purpose library) solves it.
+    const centre = x.reduce((s, v) => s + v, 0) / x.length;
+    const X = new Matrix(Array.from(x, (v, i) => [water[i]!, 1, v - centre]));
+    const Y = Matrix.columnVector(Array.from(y));
+    const beta = inverse(X.transpose().mmul(X)).mmul(X.transpose()).mmul(Y);
+    expect(tested.scales[0]).toBeCloseTo(beta.get(0, 0), 8);
+    expect(tested.spectrum.absorbance[0]).toBeCloseTo(y[0]! - beta.get(0, 0) * water[0]!, 8);
+  });
+
+  it('keeps every reference that passes, and subtracts nothing when none does', () => {
+    const y = x.map((v, i) => 3 * water[i]! + 0.2 * vapour[i]! + 1e-4 * Math.sin(v));
+    const refs = [spectrumOf(water), spectrumOf(vapour)];
+    const kept = fitReferences(spectrumOf(y), refs, whole, { minZ: 3 });
+    expect(kept.scales[0]).toBeCloseTo(3, 3);
+    expect(kept.scales[1]).toBeCloseTo(0.2, 3);
+    const flat = x.map((v) => 0.1 + 1e-4 * Math.sin(v));
+    const none = fitReferences(spectrumOf(flat), [spectrumOf(water)], whole, { minZ: 3 });
+    expect(none.scales[0]).toBe(0);
+    expect(Array.from(none.spectrum.absorbance)).toEqual(Array.from(flat));
+  });
+});

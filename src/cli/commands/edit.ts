@@ -1,4 +1,4 @@
-// `bandshelf edit ID`: a metadata-only revision (same data and recipe, new metadata).
+// `bandshelf edit ID`: a metadata revision (same data and recipe, new metadata; a changed resolution re-pins it).
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
 import { metaValueFromText } from '../../formats/metaValueFromText.js';
@@ -56,7 +56,7 @@ export const editCommand: CommandSpec = {
       .option('--meta <file>', 'replace the metadata by this JSON (sidecar format)')
       .option('--message <text>', 'why', 'metadata edit')
       .option('--author <name>', 'who (default $BANDSHELF_AUTHOR or the OS user)')
-      .option('--json', 'print {id, revision, hash, status} as JSON');
+      .option('--json', 'print {id, revision, hash, status, kind} as JSON');
   },
   async run(args, options, context) {
     const id = String(args[0]);
@@ -93,12 +93,15 @@ export const editCommand: CommandSpec = {
         revision: outcome.revision,
         hash: outcome.hash,
         status: outcome.status,
+        kind: outcome.kind,
       };
       if (options.json) return { stdout: JSON.stringify(result), exitCode: 0 };
       return {
         stdout:
           outcome.status === 'added'
-            ? `${id}: revision ${outcome.revision} (metadata) ${outcome.hash.slice(0, 12)}`
+            ? outcome.kind === 'data'
+              ? `${id}: revision ${outcome.revision} (resolution re-pinned in its recipe; processed again) ${outcome.hash.slice(0, 12)}`
+              : `${id}: revision ${outcome.revision} (metadata) ${outcome.hash.slice(0, 12)}`
             : `${id}: unchanged (the metadata is already so; revision ${outcome.revision})`,
         exitCode: 0,
       };

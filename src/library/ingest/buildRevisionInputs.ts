@@ -6,6 +6,7 @@ import { MAX_INPUT_BYTES } from '../../formats/maxInputBytes.js';
 import { metaErrorFromIssues } from '../../formats/metaErrorFromIssues.js';
 import { type EntryMetaPatch, entryMetaPatchSchema, entryMetaSchema } from '../../schema/meta.js';
 import { type Recipe, timeDomainSchema } from '../../schema/recipe.js';
+import { pinNoiseFloor } from '../../spectrum/trace/pinNoiseFloor.js';
 import { readOriginals } from '../store/readOriginals.js';
 import { readRegularFile } from '../store/readRegularFile.js';
 import { readTextFile } from '../store/readTextFile.js';
@@ -128,7 +129,7 @@ export function buildRevisionInputs(
     options.recipe ?? options.metaFile?.sections.recipe ?? sidecar?.recipe ?? library.recipe;
   const read: ReadOptions = { ...sidecar?.read, ...options.metaFile?.sections.read, ...options.read };
   if (timeDomain) {
-    const step = recipe.timeDomain ?? library.recipe.timeDomain ?? timeDomainSchema.parse({});
+    const step = pinNoiseFloor(recipe.timeDomain ?? library.recipe.timeDomain ?? timeDomainSchema.parse({}));
     recipe = { ...recipe, timeDomain: read.timeUnit ? { ...step, timeUnit: read.timeUnit } : step };
     delete read.xUnit;
     delete read.yUnit;

@@ -1,8 +1,10 @@
-// Makes a metadata-only revision: same files, recipe and processed data, new metadata (and so a new content hash).
+// Makes a metadata revision: same files, recipe and processed data, new metadata (and so a new content hash); a
+// changed resolution under a resolution step re-pins the step and re-processes (a data revision).
 import { BandshelfError } from '../../error.js';
 import { metaErrorFromIssues } from '../../formats/metaErrorFromIssues.js';
 import { entryMetaSchema } from '../../schema/meta.js';
 import type { CommitOutcome } from '../ingest/ingestTypes.js';
+import { revisionForEditedMeta } from '../ingest/revisionForEditedMeta.js';
 import type { Library } from '../types.js';
 import { commitRevisions } from './commitRevisions.js';
 import { contentHashes } from './contentHashes.js';
@@ -49,16 +51,26 @@ export function editEntry(library: Library, id: string, options: EditEntryOption
   if (!parsed.success) throw metaErrorFromIssues(parsed.error.issues, { file: options.file });
   const stored = revisionFromRow(library, head);
   const meta = parsed.data as typeof stored.meta;
-  const hashes = contentHashes({
-    files: stored.files.map((f) => ({ role: f.role, sha256: sha256Hex(f.bytes) })),
-    read: stored.read,
-    recipe: stored.recipe,
-    meta,
-  });
-  const [outcome] = commitRevisions(
+  // A changed resolution re-pins the recipe's resolution step (and re-processes), so recipe and metadata agree.
+  const revision = revisionForEditedMeta(
     library,
-    [{ ...stored, label: options.file ?? id, kind: 'metadata', meta, hashes }],
-    { author: options.author, message: options.message ?? 'metadata edit', now: options.now },
+    stored,
+    meta,
+    options.file === undefined ? {} : { file: options.file },
   );
+  const hashes =
+    revision.kind === 'data'
+      ? revision.hashes
+      : contentHashes({
+          files: stored.files.map((f) => ({ role: f.role, sha256: sha256Hex(f.bytes) })),
+          read: stored.read,
+          recipe: stored.recipe,
+          meta,
+        });
+  const [outcome] = commitRevisions(library, [{ ...revision, hashes }], {
+    author: options.author,
+    message: options.message ?? 'metadata edit',
+    now: options.now,
+  });
   return outcome!;
 }

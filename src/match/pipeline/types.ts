@@ -23,6 +23,8 @@ export interface EntryOriginal {
   recipe: Recipe;
   /** The reference spectra that recipe's reference or EMSC step names, by entry id. */
   references: ReadonlyMap<string, Spectrum>;
+  /** The revision's recorded resolution, cm⁻¹ (`extras.resolution`: stated, else estimated), where known. */
+  resolution?: number;
 }
 
 /**

@@ -2,6 +2,7 @@
 // (browser-safe: the same reader, recipe, search, mixture fit and band identification, bundled for the page).
 import { readSpectrumFile } from '../../formats/readSpectrumFile.js';
 import type { SpectrumReadOptions } from '../../formats/types.js';
+import { compareAtCoarserResolution } from '../../match/compareAtCoarserResolution.js';
 import { instantiateScoreKernels } from '../../match/instantiateScoreKernels.js';
 import { jsScoreKernels } from '../../match/jsScoreKernels.js';
 import { runMatchPipeline } from '../../match/pipeline/runMatchPipeline.js';
@@ -14,6 +15,7 @@ import { singleThreadRunner } from '../../match/singleThreadRunner.js';
 import type { BandAssignment } from '../../schema/bandAssignment.js';
 import type { MatchHit, MatchReport } from '../../schema/matchReport.js';
 import type { Grid, Recipe } from '../../schema/recipe.js';
+import { resolutionOf } from '../../spectrum/resolutionOf.js';
 import { publishedMatchSource } from './publishedMatchSource.js';
 
 /** What the build writes beside the binary matrix (`assets/search-matrix.json`), plus the decoded matrix. */
@@ -117,7 +119,7 @@ export async function matchSpectrumFile(
     ...first.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
     ...matched.warnings,
   ];
-  const report = await runMatchPipeline(
+  const piped = await runMatchPipeline(
     {
       unknown: {
         file,
@@ -140,6 +142,15 @@ export async function matchSpectrumFile(
       ...(matched.recipe === source.recipe ? {} : { recipe: matched.recipe }),
     },
   );
+  // Like with like, as `bandshelf match` does: hits of another resolution scored again at the coarser of the two.
+  const alike = await compareAtCoarserResolution({
+    report: piped,
+    unknown: first.spectrum,
+    resolution: resolutionOf(first.spectrum, { stated: first.meta.resolution }).value,
+    source,
+  });
+  const report = alike.report;
+  warnings.push(...alike.notes);
   const paths = new Map(set.entries.map((e) => [e.id, e.path]));
   return {
     title: title !== undefined && title !== '' ? title : file,

@@ -9,6 +9,8 @@ import type { PublishedSearchSet } from './matchSpectrumFile.js';
 export interface PublishedEntryDocument {
   recipe: Recipe;
   original: { x: number[]; y: number[] };
+  /** The revision's extras; its recorded resolution is used to compare like with like. */
+  extras?: { resolution?: { value: number } };
 }
 
 export interface PublishedMatchSourceOptions {
@@ -98,6 +100,9 @@ export function publishedMatchSource(
           original: spectrumOf({ wavenumber: doc.original.x, absorbance: doc.original.y }),
           recipe: doc.recipe,
           references: await referencesOf(doc.recipe),
+          ...(typeof doc.extras?.resolution?.value === 'number'
+            ? { resolution: doc.extras.resolution.value }
+            : {}),
         });
       }
       return out;

@@ -183,7 +183,7 @@ export function traceToSpectrum(
   const threshold = recipe.powerThreshold * range.peakPower;
   // Both spectra must stand k × (in amplitude) above the reference trace's noise floor, so noise is not read as bands.
   const factor = recipe.noiseFloorFactor;
-  const floor = factor === undefined ? 0 : factor * factor * range.noiseFloor;
+  const floor = factor === undefined || factor === null ? 0 : factor * factor * range.noiseFloor;
   const keep: number[] = [];
   let dropped = 0;
   let belowFloor = 0;
