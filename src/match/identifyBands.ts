@@ -6,8 +6,8 @@ import { findShoulders } from '../spectrum/findShoulders.js';
 import type { Spectrum } from '../spectrum/types.js';
 import { buildBandIndex } from './buildBandIndex.js';
 import { componentAtBand } from './componentAtBand.js';
+import { entriesWithBandAt } from './entriesWithBandAt.js';
 import { rankAssignments } from './rankAssignments.js';
-import { searchBands } from './searchBands.js';
 import { shippedAssignments } from './shippedAssignments.js';
 import type { BandIndex, IdentifiedBand, MixtureCandidate, MixtureResult, PeakTable } from './types.js';
 
@@ -141,16 +141,7 @@ export function identifyBands(unknown: Spectrum, options: IdentifyBandsOptions =
             score,
           }));
     const candidates =
-      index === null || index.entries.length === 0 || maxCandidates <= 0
-        ? []
-        : searchBands(index, [{ position: band.position }], { tolerance, top: maxCandidates }).map((hit) => ({
-            id: hit.id,
-            revision: hit.revision,
-            name: hit.name,
-            class: hit.class,
-            position: hit.matches[0]!.position,
-            error: hit.matches[0]!.error,
-          }));
+      maxCandidates <= 0 ? [] : entriesWithBandAt(index, band.position, { tolerance, top: maxCandidates });
     const explained =
       mixture === null
         ? null

@@ -14,9 +14,9 @@ import type { Grid, WavenumberWindow } from '../../schema/recipe.js';
 import { gridAxis } from '../../spectrum/gridAxis.js';
 import { gridLength } from '../../spectrum/gridLength.js';
 import type { QcFlag } from '../../spectrum/types.js';
+import { entriesWithBandAt } from '../entriesWithBandAt.js';
 import type { MatchScorer, MatchSource } from '../pipeline/types.js';
 import { rankAssignments } from '../rankAssignments.js';
-import { searchBands } from '../searchBands.js';
 import { MIN_OVERLAP_DEFAULT } from '../searchTypes.js';
 import { shippedAssignments } from '../shippedAssignments.js';
 import type { BandIndex } from '../types.js';
@@ -156,19 +156,10 @@ function describeBands(
         { position, fwhm: width, relative: strongest > 0 ? Math.abs(difference) / strongest : 0 },
         rows,
       ).slice(0, options.perBand);
-      const candidates =
-        index === undefined || index.entries.length === 0
-          ? []
-          : searchBands(index, [{ position }], { tolerance: options.tolerance, top: options.top }).map(
-              (hit) => ({
-                id: hit.id,
-                revision: hit.revision,
-                name: hit.name,
-                class: hit.class,
-                position: hit.matches[0]!.position,
-                error: hit.matches[0]!.error,
-              }),
-            );
+      const candidates = entriesWithBandAt(index, position, {
+        tolerance: options.tolerance,
+        top: options.top,
+      });
       const lower = stats.lower[r.peak]!;
       const upper = stats.upper[r.peak]!;
       return {
