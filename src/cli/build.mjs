@@ -25,6 +25,7 @@ const nodeEntries = {
 
 const browserEntries = {
   'bandshelf-browser': 'src/site/browser/main.ts',
+  'bandshelf-worker': 'src/site/browser/matchWorker.ts',
 };
 
 function existing(entries) {

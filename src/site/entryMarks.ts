@@ -14,6 +14,6 @@ export function entryMarks(options: EntryMarksOptions = {}): string[] {
   const marks: string[] = [];
   const state = options.reviewState ?? 'reviewed';
   if (state !== 'reviewed') marks.push(state);
-  if (options.ownRecipe) marks.push('recipe differs from the library default');
+  if (options.ownRecipe) marks.push('recipe differs');
   return marks;
 }
