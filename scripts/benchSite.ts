@@ -1,12 +1,12 @@
 // `npm run bench:site`: build time and output size of the static site for the demo library and for a synthetic
 // library of many entries (default 10,000), each built by the real CLI in a fresh process.
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
-import { seededRandom } from '../src/demo/seededRandom.js';
 import { findPackageRoot } from '../src/site/findPackageRoot.js';
+import { syntheticSiteLibrary } from './syntheticSiteLibrary.js';
 
 interface SiteFigures {
   library: string;
@@ -23,8 +23,6 @@ interface SiteFigures {
 
 const root = findPackageRoot(import.meta.url);
 const cli = join(root, 'src', 'cli', 'bandshelf.mjs');
-/** Bump when the generator changes, so a cached synthetic library is rebuilt. */
-const GENERATOR_VERSION = 2;
 
 function parseArgs(argv: string[]): { entries: number; json: boolean; keep: boolean } {
   let entries = 10_000;
@@ -79,82 +77,6 @@ function sizeOf(dir: string): { files: number; bytes: number } {
   return { files, bytes };
 }
 
-/**
- * Band centres (cm⁻¹) per class, from the band-assignment table of the project's outside references (Barth 2007;
- * Movasaghi, Rehman & Rehman 2008): proteins amide A/I/II/III, lipids CH₂ stretches and ester C=O, carbohydrates
- * C–O stretches, nucleic acids PO₂⁻ stretches, metabolites and drugs a scatter of fingerprint bands.
- */
-const CLASS_BANDS: Record<string, number[]> = {
-  protein: [3300, 2960, 1652, 1545, 1450, 1400, 1240],
-  lipid: [3010, 2922, 2852, 1740, 1467, 1170],
-  carbohydrate: [3350, 2930, 1150, 1080, 1050, 1025],
-  'nucleic-acid': [3300, 1715, 1650, 1240, 1080, 970],
-  metabolite: [3200, 1620, 1577, 1468, 1417, 1160, 1043],
-  drug: [3300, 1760, 1680, 1600, 1510, 1370, 1240, 1010],
-};
-const CLASSES = Object.keys(CLASS_BANDS);
-
-/** One synthetic entry: a CSV file (1701 points, 4000–600 cm⁻¹ at 2 cm⁻¹, absorbance to 5 decimals) and a sidecar. */
-function writeSyntheticEntry(dir: string, k: number): void {
-  const rnd = seededRandom(0x5eed + k * 7919).uniform;
-  const cls = CLASSES[k % CLASSES.length]!;
-  const bands = CLASS_BANDS[cls]!.map((c) => ({
-    centre: c + (rnd() - 0.5) * 16,
-    width: 8 + rnd() * 22,
-    height: 0.05 + rnd() * 0.6,
-  }));
-  // A few bands of its own, so no two entries are near-duplicates.
-  for (let j = 0; j < 3 + Math.floor(rnd() * 5); j++) {
-    bands.push({ centre: 650 + rnd() * 3300, width: 5 + rnd() * 25, height: 0.02 + rnd() * 0.3 });
-  }
-  const offset = rnd() * 0.05;
-  const slope = (rnd() - 0.5) * 2e-5;
-  const noise = 2e-4 + rnd() * 3e-4;
-  const lines = ['wavenumber_cm-1,absorbance'];
-  for (let i = 0; i < 1701; i++) {
-    const x = 600 + 2 * i;
-    let y = offset + slope * (x - 600) + (rnd() + rnd() + rnd() - 1.5) * noise;
-    for (const b of bands) y += b.height * Math.exp(-0.5 * ((x - b.centre) / b.width) ** 2);
-    lines.push(`${x},${y.toFixed(5)}`);
-  }
-  const id = `synthetic-${String(k).padStart(6, '0')}`;
-  writeFileSync(join(dir, `${id}.csv`), `${lines.join('\n')}\n`);
-  writeFileSync(
-    join(dir, `${id}.meta.json`),
-    JSON.stringify({
-      id,
-      name: `Synthetic ${cls} ${k}`,
-      class: cls,
-      technique: k % 7 === 0 ? 'transmission' : 'atr',
-      sampleForm: ['dried film', 'liquid', 'powder'][k % 3],
-      tags: ['synthetic', `batch-${k % 25}`],
-      synthetic: true,
-      notes: 'Invented for the site benchmark (synthetic).',
-    }),
-  );
-}
-
-function syntheticLibrary(entries: number): string {
-  const dir = join(tmpdir(), `bandshelf-bench-site-${entries}-v${GENERATOR_VERSION}`);
-  const library = join(dir, 'library.sqlite');
-  const done = join(dir, 'complete');
-  if (existsSync(done)) return library;
-  rmSync(dir, { recursive: true, force: true });
-  const files = join(dir, 'files');
-  mkdirSync(files, { recursive: true });
-  process.stderr.write(
-    `bench:site: generating ${entries} synthetic spectra in ${dir} (kept for later runs) …\n`,
-  );
-  for (let k = 0; k < entries; k++) writeSyntheticEntry(files, k);
-  run(['init', '--library', library], 'init');
-  const start = performance.now();
-  run(['add', files, '--library', library, '--force', '--message', 'site benchmark', '--json'], 'add');
-  process.stderr.write(`bench:site: ingested in ${((performance.now() - start) / 1000).toFixed(0)} s\n`);
-  rmSync(files, { recursive: true, force: true });
-  writeFileSync(done, '');
-  return library;
-}
-
 function demoLibrary(work: string): string {
   const library = join(work, 'demo.sqlite');
   run(['init', '--library', library], 'init (demo)');
@@ -191,7 +113,7 @@ function main(): void {
     const demo = measure('demo', demoLibrary(work), join(work, 'demo-site'));
     const synthetic = measure(
       `synthetic-${args.entries}`,
-      syntheticLibrary(args.entries),
+      syntheticSiteLibrary(args.entries, { run: (a, what) => run(a, what) }),
       join(work, 'synthetic-site'),
     );
     const targets = { build_s: 60, mb: 500 };
