@@ -1,7 +1,7 @@
 // Turns the shared options of `match` and `identify` (the reading options among them) into checked values, one clear BAD_OPTION per mistake.
 import { BandshelfError } from '../error.js';
-import { type Metric, MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { rangeFromText } from '../match/rangeFromText.js';
+import { type Metric, MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import type { WavenumberWindow } from '../schema/recipe.js';
 import type { MatchUnknownsOptions } from './matchUnknowns.js';
 import { readingOptions } from './readingOptions.js';

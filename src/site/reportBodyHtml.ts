@@ -13,7 +13,13 @@ export interface ReportBodyHtmlOptions {
   jsonHref?: string;
 }
 
-const ESCAPES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+const ESCAPES: Record<string, string> = {
+  '&': '&amp;',
+  '<': '&lt;',
+  '>': '&gt;',
+  '"': '&quot;',
+  "'": '&#39;',
+};
 
 /** Text for HTML content or a quoted attribute value. */
 function esc(value: string | number): string {
@@ -83,7 +89,9 @@ function mixtureSection(mixture: NonNullable<ReportPage['mixture']>, href: Href)
   const components = mixture.components
     .map((c) => {
       const alternatives =
-        c.alternatives.length === 0 ? '–' : c.alternatives.map((a) => entryLink(a.id, a.path, href)).join(', ');
+        c.alternatives.length === 0
+          ? '–'
+          : c.alternatives.map((a) => entryLink(a.id, a.path, href)).join(', ');
       return `
       <tr data-id="${esc(c.id)}"><td>${entryLink(c.id, c.path, href)}</td><td>${esc(c.name)}</td><td class="num">${esc(c.weight)}</td><td class="num">${esc(c.interval)}</td><td>${esc(c.significant)}</td><td class="num">${esc(c.share)}</td><td class="ids">${alternatives}</td><td>${esc(c.how)}</td></tr>`;
     })

@@ -29,7 +29,10 @@ export async function loadPublishedSet(
   matrixScript: string,
   options: LoadPublishedSetOptions,
 ): Promise<PublishedData> {
-  const { meta, matrix } = await options.load<{ meta: MatrixMeta; matrix: string }>(matrixScript, 'search-matrix');
+  const { meta, matrix } = await options.load<{ meta: MatrixMeta; matrix: string }>(
+    matrixScript,
+    'search-matrix',
+  );
   const decoded = decodeSearchMatrix(base64Bytes(matrix));
   if (decoded.rows !== meta.rows || decoded.cols !== meta.cols) {
     throw new Error('the matrix and its description disagree; rebuild the site');

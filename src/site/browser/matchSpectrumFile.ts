@@ -2,11 +2,11 @@
 // (browser-safe: the same reader, recipe, search, mixture fit and band identification, bundled for the page).
 import { readSpectrumFile } from '../../formats/readSpectrumFile.js';
 import type { SpectrumReadOptions } from '../../formats/types.js';
+import { buildBandIndex } from '../../match/buildBandIndex.js';
 import { instantiateScoreKernels } from '../../match/instantiateScoreKernels.js';
 import { jsScoreKernels } from '../../match/jsScoreKernels.js';
 import { runMatchPipeline } from '../../match/pipeline/runMatchPipeline.js';
 import type { MatchScorer, MatchSource } from '../../match/pipeline/types.js';
-import { buildBandIndex } from '../../match/buildBandIndex.js';
 import { resolutionForUnknown } from '../../match/resolutionForUnknown.js';
 import { searchSpectra } from '../../match/searchSpectra.js';
 import { type Metric, MIN_OVERLAP_DEFAULT } from '../../match/searchTypes.js';

@@ -20,7 +20,9 @@ function load<T>(src: string, key: string): Promise<T> {
   try {
     if (!(key in (scope.__bandshelf ?? {}))) scope.importScripts(src);
     const value = scope.__bandshelf?.[key];
-    return value === undefined ? Promise.reject(new Error(`${src} did not hold ${key}`)) : Promise.resolve(value as T);
+    return value === undefined
+      ? Promise.reject(new Error(`${src} did not hold ${key}`))
+      : Promise.resolve(value as T);
   } catch (error) {
     return Promise.reject(error instanceof Error ? error : new Error(String(error)));
   }
@@ -33,7 +35,10 @@ scope.addEventListener('message', (event) => {
     data.then(
       ({ set }) => scope.postMessage({ kind: 'ready', rows: set.entries.length }),
       (error: unknown) =>
-        scope.postMessage({ kind: 'failed', message: error instanceof Error ? error.message : String(error) }),
+        scope.postMessage({
+          kind: 'failed',
+          message: error instanceof Error ? error.message : String(error),
+        }),
     );
     return;
   }

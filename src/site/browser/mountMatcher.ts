@@ -1,9 +1,10 @@
 // The in-browser matcher page: loads the published data, takes a dropped or chosen file with the page's settings,
 // runs the one match pipeline (in a Web Worker where the browser allows one) and shows the whole report with the
 // report pages' own renderer and plots.
+
+import type { XUnit, YUnit } from '../../formats/types.js';
 import { rangeFromText } from '../../match/rangeFromText.js';
 import type { Metric } from '../../match/searchTypes.js';
-import type { XUnit, YUnit } from '../../formats/types.js';
 import { entryMarks } from '../entryMarks.js';
 import { formatNumber } from '../formatNumber.js';
 import { reportBodyHtml } from '../reportBodyHtml.js';
@@ -90,10 +91,10 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
       },
       (error: unknown) => {
         note(
-          `This browser refused the background worker (${error instanceof Error ? error.message : String(error)}; ` +
-            'Chromium does for a page opened from disk), so matching runs on the page itself: the page may pause ' +
-            'while a file is matched.',
+          'This browser refused the background worker (Chromium does for a page opened from disk), so matching ' +
+            'runs on the page itself: the page may pause while a file is matched.',
         );
+        if (engine) engine.title = error instanceof Error ? error.message : String(error);
         zone.dataset.engine = 'page';
         return null;
       },
