@@ -1,10 +1,11 @@
 // `npm run bench:matcher`: the in-browser matcher in Chromium against a published site of many synthetic entries
-// (default 10,000): page ready, then per dropped demo unknown the time to ranked hits and to the full report (mixture
-// and bands), served over http (matching in the worker) and opened from disk (on the page's thread).
+// (default 10,000): page ready, then per dropped unknown (two demo unknowns and a three-entry synthetic mixture) the
+// time to ranked hits and to the full report (mixture and bands), served over http (matching in the worker) and
+// opened from disk (on the page's thread).
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { basename, join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { findPackageRoot } from '../src/site/findPackageRoot.js';
 import { launchChromium, serveFolder } from '../test/site/browserHarness.js';
@@ -13,7 +14,9 @@ import { syntheticSiteLibrary } from './syntheticSiteLibrary.js';
 
 const root = findPackageRoot(import.meta.url);
 const cli = join(root, 'src', 'cli', 'bandshelf.mjs');
-const UNKNOWNS = ['u01-single-compound.csv', 'u02-spiked-mixture.jdx'];
+const DEMO_UNKNOWNS = ['u01-single-compound.csv', 'u02-spiked-mixture.jdx'].map((n) =>
+  join(root, 'library', 'unknowns', n),
+);
 const REPEATS = 3;
 
 function run(args: string[], what: string): string {
@@ -44,7 +47,10 @@ const median = (values: number[]): number => {
   return Math.round(s[Math.floor(s.length / 2)]!);
 };
 
-async function measure(url: string): Promise<{ ready_ms: number; engine: string; drops: DropFigures[] }> {
+async function measure(
+  url: string,
+  unknowns: string[],
+): Promise<{ ready_ms: number; engine: string; drops: DropFigures[] }> {
   const browser = await launchChromium();
   try {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
@@ -54,8 +60,9 @@ async function measure(url: string): Promise<{ ready_ms: number; engine: string;
     const ready = Date.now() - start;
     const engine = (await page.getAttribute('#match-drop', 'data-engine')) ?? '?';
     const drops: DropFigures[] = [];
-    for (const name of UNKNOWNS) {
-      const text = readFileSync(join(root, 'library', 'unknowns', name), 'utf8');
+    for (const path of unknowns) {
+      const name = basename(path);
+      const text = readFileSync(path, 'utf8');
       const hits: number[] = [];
       const report: number[] = [];
       const shown: number[] = [];
@@ -105,7 +112,8 @@ async function measure(url: string): Promise<{ ready_ms: number; engine: string;
 
 async function main(): Promise<void> {
   const args = benchArgs(process.argv.slice(2), { entries: 10_000, batch: 1 });
-  const library = syntheticSiteLibrary(args.entries, { run });
+  const { library, mixtureUnknown } = syntheticSiteLibrary(args.entries, { run });
+  const unknowns = [...DEMO_UNKNOWNS, mixtureUnknown];
   const work = join(tmpdir(), `bandshelf-bench-matcher-${process.pid}`);
   mkdirSync(work, { recursive: true });
   try {
@@ -114,11 +122,11 @@ async function main(): Promise<void> {
     const server = await serveFolder(out);
     let served: Awaited<ReturnType<typeof measure>>;
     try {
-      served = await measure(`${server.url}match/`);
+      served = await measure(`${server.url}match/`, unknowns);
     } finally {
       await server.close();
     }
-    const disk = await measure(pathToFileURL(join(out, 'match', 'index.html')).href);
+    const disk = await measure(pathToFileURL(join(out, 'match', 'index.html')).href, unknowns);
     const targets = { hits_ms: 500, report_ms: 2000 };
     const result = { entries: args.entries, served, disk, targets, cores: availableParallelism() };
     if (args.quiet) {

@@ -113,7 +113,7 @@ function main(): void {
     const demo = measure('demo', demoLibrary(work), join(work, 'demo-site'));
     const synthetic = measure(
       `synthetic-${args.entries}`,
-      syntheticSiteLibrary(args.entries, { run: (a, what) => run(a, what) }),
+      syntheticSiteLibrary(args.entries, { run: (a, what) => run(a, what) }).library,
       join(work, 'synthetic-site'),
     );
     const targets = { build_s: 60, mb: 500 };

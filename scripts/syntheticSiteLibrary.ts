@@ -29,8 +29,17 @@ const CLASS_BANDS: Record<string, number[]> = {
 };
 const CLASSES = Object.keys(CLASS_BANDS);
 
-/** One synthetic entry: a CSV file (1701 points, 4000–600 cm⁻¹ at 2 cm⁻¹, absorbance to 5 decimals) and a sidecar. */
-function writeSyntheticEntry(dir: string, k: number): void {
+type Band = { centre: number; width: number; height: number };
+
+/** Entry k's class, bands and baseline, and its random stream positioned for the per-point noise. */
+function entryModel(k: number): {
+  cls: string;
+  bands: Band[];
+  offset: number;
+  slope: number;
+  noise: number;
+  rnd: () => number;
+} {
   const rnd = seededRandom(0x5eed + k * 7919).uniform;
   const cls = CLASSES[k % CLASSES.length]!;
   const bands = CLASS_BANDS[cls]!.map((c) => ({
@@ -45,6 +54,12 @@ function writeSyntheticEntry(dir: string, k: number): void {
   const offset = rnd() * 0.05;
   const slope = (rnd() - 0.5) * 2e-5;
   const noise = 2e-4 + rnd() * 3e-4;
+  return { cls, bands, offset, slope, noise, rnd };
+}
+
+/** One synthetic entry: a CSV file (1701 points, 4000–600 cm⁻¹ at 2 cm⁻¹, absorbance to 5 decimals) and a sidecar. */
+function writeSyntheticEntry(dir: string, k: number): void {
+  const { cls, bands, offset, slope, noise, rnd } = entryModel(k);
   const lines = ['wavenumber_cm-1,absorbance'];
   for (let i = 0; i < 1701; i++) {
     const x = 600 + 2 * i;
@@ -69,12 +84,43 @@ function writeSyntheticEntry(dir: string, k: number): void {
   );
 }
 
-export function syntheticSiteLibrary(entries: number, options: SyntheticSiteLibraryOptions): string {
+/**
+ * An unknown made of three library entries (0.5, 0.3, 0.2) plus one band no entry has at 1780 cm⁻¹ and noise: the
+ * matcher's full report then has a mixture of several components and an unexplained band to find.
+ */
+function writeMixtureUnknown(path: string, entries: number): void {
+  const parts = [1, 2, 3].map((j) => Math.floor((j * entries) / 4));
+  const weights = [0.5, 0.3, 0.2];
+  const models = parts.map(entryModel);
+  const rnd = seededRandom(0xbe11).uniform;
+  const lines = ['wavenumber_cm-1,absorbance'];
+  for (let i = 0; i < 1701; i++) {
+    const x = 600 + 2 * i;
+    let y = 0.02 + 0.05 * Math.exp(-0.5 * ((x - 1780) / 9) ** 2) + (rnd() + rnd() + rnd() - 1.5) * 3e-4;
+    models.forEach((m, n) => {
+      let v = m.offset + m.slope * (x - 600);
+      for (const b of m.bands) v += b.height * Math.exp(-0.5 * ((x - b.centre) / b.width) ** 2);
+      y += weights[n]! * v;
+    });
+    lines.push(`${x},${y.toFixed(5)}`);
+  }
+  writeFileSync(path, `${lines.join('\n')}\n`);
+}
+
+/** The library (made once) and the path of its synthetic mixture unknown. */
+export function syntheticSiteLibrary(
+  entries: number,
+  options: SyntheticSiteLibraryOptions,
+): { library: string; mixtureUnknown: string } {
   const run = options.run;
   const dir = join(tmpdir(), `bandshelf-bench-site-${entries}-v${GENERATOR_VERSION}`);
   const library = join(dir, 'library.sqlite');
+  const mixtureUnknown = join(dir, 'unknown-synthetic-mixture.csv');
   const done = join(dir, 'complete');
-  if (existsSync(done)) return library;
+  if (existsSync(done)) {
+    if (!existsSync(mixtureUnknown)) writeMixtureUnknown(mixtureUnknown, entries);
+    return { library, mixtureUnknown };
+  }
   rmSync(dir, { recursive: true, force: true });
   const files = join(dir, 'files');
   mkdirSync(files, { recursive: true });
@@ -85,6 +131,7 @@ export function syntheticSiteLibrary(entries: number, options: SyntheticSiteLibr
   run(['add', files, '--library', library, '--force', '--message', 'site benchmark', '--json'], 'add');
   process.stderr.write(`bench: ingested in ${((performance.now() - start) / 1000).toFixed(0)} s\n`);
   rmSync(files, { recursive: true, force: true });
+  writeMixtureUnknown(mixtureUnknown, entries);
   writeFileSync(done, '');
-  return library;
+  return { library, mixtureUnknown };
 }
