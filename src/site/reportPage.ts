@@ -24,7 +24,7 @@ export interface ReportPageOptions {
   /** The hits the overlay draws, by id, in place of the first `overlayHits` (the matcher's chosen hit).
    * @default the first overlayHits hits */
   overlayIds?: readonly string[];
-  /** Cautions shown beside a hit's name ('draft', 'own recipe').
+  /** Cautions shown beside a hit's name ('draft', 'recipe differs').
    * @default () => [] */
   marks?: (id: string, revision: number) => string[];
   /** Largest number of points per plotted line.

@@ -306,7 +306,7 @@ export interface ReportPage {
       extra: string;
       /** Why this hit: each region's share of r as a bar segment (percent of Σ|share|), empty when not computed. */
       why: { label: string; percent: number; negative: boolean; title: string }[];
-      /** Cautions on the entry hit ('draft', 'own recipe'); empty when none. */
+      /** Cautions on the entry hit ('draft', 'recipe differs'); empty when none. */
       marks: string[];
     }[];
   }[];
