@@ -173,7 +173,9 @@ describe.skipIf(!browserTestsRun())('the matcher page in a browser', () => {
     const page = await openMatcher(pathToFileURL(join(out, 'match', 'index.html')).href);
     // Chromium refuses `new Worker()` of a file:// script (origin 'null'): the page says so and matches itself.
     expect(await page.getAttribute('#match-drop', 'data-engine')).toBe('page');
-    expect(await page.textContent('#match-engine')).toMatch(/refused the background worker.*runs on the page itself/);
+    expect(await page.textContent('#match-engine')).toMatch(
+      /refused the background worker.*runs on the page itself/,
+    );
     const name = 'u02-spiked-mixture.jdx';
     await drop(page, name);
     expect((await shown(page)).hits[0]).toBe(cli(name).hits[0]!.id);
