@@ -1,12 +1,12 @@
 // `npm run bench:site`: build time and output size of the static site for the demo library and for a synthetic
 // library of many entries (default 10,000), each built by the real CLI in a fresh process.
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { findPackageRoot } from '../src/site/findPackageRoot.js';
-import { syntheticReferenceCsv } from './syntheticReferenceCsv.js';
+import { syntheticSiteLibrary } from './syntheticSiteLibrary.js';
 
 interface SiteFigures {
   library: string;
@@ -23,8 +23,6 @@ interface SiteFigures {
 
 const root = findPackageRoot(import.meta.url);
 const cli = join(root, 'src', 'cli', 'bandshelf.mjs');
-/** Bump when the generator changes, so a cached synthetic library is rebuilt. */
-const GENERATOR_VERSION = 2;
 
 function parseArgs(argv: string[]): { entries: number; json: boolean; keep: boolean } {
   let entries = 10_000;
@@ -79,53 +77,6 @@ function sizeOf(dir: string): { files: number; bytes: number } {
   return { files, bytes };
 }
 
-/** One synthetic entry: a CSV file (1701 points, 4000–600 cm⁻¹ at 2 cm⁻¹, absorbance to 5 decimals) and a sidecar. */
-function writeSyntheticEntry(dir: string, k: number): void {
-  const { class: cls, csv } = syntheticReferenceCsv(k, {
-    points: 1701,
-    start: 600,
-    step: 2,
-    decimals: 5,
-    seed: 0x5eed,
-  });
-  const id = `synthetic-${String(k).padStart(6, '0')}`;
-  writeFileSync(join(dir, `${id}.csv`), csv);
-  writeFileSync(
-    join(dir, `${id}.meta.json`),
-    JSON.stringify({
-      id,
-      name: `Synthetic ${cls} ${k}`,
-      class: cls,
-      technique: k % 7 === 0 ? 'transmission' : 'atr',
-      sampleForm: ['dried film', 'liquid', 'powder'][k % 3],
-      tags: ['synthetic', `batch-${k % 25}`],
-      synthetic: true,
-      notes: 'Invented for the site benchmark (synthetic).',
-    }),
-  );
-}
-
-function syntheticLibrary(entries: number): string {
-  const dir = join(tmpdir(), `bandshelf-bench-site-${entries}-v${GENERATOR_VERSION}`);
-  const library = join(dir, 'library.sqlite');
-  const done = join(dir, 'complete');
-  if (existsSync(done)) return library;
-  rmSync(dir, { recursive: true, force: true });
-  const files = join(dir, 'files');
-  mkdirSync(files, { recursive: true });
-  process.stderr.write(
-    `bench:site: generating ${entries} synthetic spectra in ${dir} (kept for later runs) …\n`,
-  );
-  for (let k = 0; k < entries; k++) writeSyntheticEntry(files, k);
-  run(['init', '--library', library], 'init');
-  const start = performance.now();
-  run(['add', files, '--library', library, '--force', '--message', 'site benchmark', '--json'], 'add');
-  process.stderr.write(`bench:site: ingested in ${((performance.now() - start) / 1000).toFixed(0)} s\n`);
-  rmSync(files, { recursive: true, force: true });
-  writeFileSync(done, '');
-  return library;
-}
-
 function demoLibrary(work: string): string {
   const library = join(work, 'demo.sqlite');
   run(['init', '--library', library], 'init (demo)');
@@ -162,7 +113,7 @@ function main(): void {
     const demo = measure('demo', demoLibrary(work), join(work, 'demo-site'));
     const synthetic = measure(
       `synthetic-${args.entries}`,
-      syntheticLibrary(args.entries),
+      syntheticSiteLibrary(args.entries, { run: (a, what) => run(a, what) }).library,
       join(work, 'synthetic-site'),
     );
     const targets = { build_s: 60, mb: 500 };

@@ -16,6 +16,7 @@ const nodeEntries = {
   schema: 'scripts/writeSchemas.ts',
   bench: 'scripts/bench.ts',
   'bench-site': 'scripts/benchSite.ts',
+  'bench-matcher': 'scripts/benchMatcher.ts',
   'bench-ingest': 'scripts/benchIngest.ts',
   'bench-cli': 'scripts/benchCli.ts',
   validate: 'scripts/validateMixture.ts',
@@ -27,6 +28,7 @@ const nodeEntries = {
 
 const browserEntries = {
   'bandshelf-browser': 'src/site/browser/main.ts',
+  'bandshelf-worker': 'src/site/browser/matchWorker.ts',
 };
 
 function existing(entries) {

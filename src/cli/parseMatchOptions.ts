@@ -1,5 +1,6 @@
 // Turns the shared options of `match` and `identify` (the reading options among them) into checked values, one clear BAD_OPTION per mistake.
 import { BandshelfError } from '../error.js';
+import { rangeFromText } from '../match/rangeFromText.js';
 import { type Metric, MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import type { WavenumberWindow } from '../schema/recipe.js';
 import type { MatchUnknownsOptions } from './matchUnknowns.js';
@@ -44,19 +45,7 @@ function list(value: unknown): string[] {
 
 /** `--range 1800:900` (either order, repeatable) → windows. */
 function ranges(value: unknown): WavenumberWindow[] {
-  return list(value).map((text) => {
-    const m = /^\s*([-+]?\d+(?:\.\d+)?)\s*:\s*([-+]?\d+(?:\.\d+)?)\s*$/.exec(text);
-    const a = m ? Number(m[1]) : Number.NaN;
-    const b = m ? Number(m[2]) : Number.NaN;
-    if (!m || a === b) {
-      throw new BandshelfError(
-        'BAD_OPTION',
-        `--range takes two different wavenumbers as HIGH:LOW (e.g. 1800:900), not '${text}'`,
-        { field: 'range' },
-      );
-    }
-    return { min: Math.min(a, b), max: Math.max(a, b) };
-  });
+  return list(value).map((text) => rangeFromText(text, { label: '--range' }));
 }
 
 export function parseMatchOptions(

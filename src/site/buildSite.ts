@@ -3,6 +3,7 @@
 import { existsSync, mkdirSync, realpathSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
+import { canonicalJson } from '../library/store/canonicalJson.js';
 import { BAND_TOLERANCE_CM1 } from '../match/bandTolerance.js';
 import { buildManifestPath } from './buildManifestPath.js';
 import { buildSearchIndex, type SearchIndexEntry } from './buildSearchIndex.js';
@@ -10,6 +11,7 @@ import { copySiteAssets } from './copySiteAssets.js';
 import { dataScript } from './dataScript.js';
 import { encodeSearchMatrix } from './encodeSearchMatrix.js';
 import { entryJson } from './entryJson.js';
+import { entryMarks } from './entryMarks.js';
 import { entryPage } from './entryPage.js';
 import { findPackageRoot } from './findPackageRoot.js';
 import { float32Bytes } from './float32Bytes.js';
@@ -175,10 +177,14 @@ async function writeSite(
   const slugs = new Map(source.entries.map((e) => [e.id, slugFor(e.id, taken)]));
   const entryPages: EntryPage[] = [];
   const searchEntries: SearchIndexEntry[] = [];
+  // Entries processed with a recipe of their own: a hit on one is marked, on report pages and in the matcher.
+  const libraryRecipe = canonicalJson(source.recipe);
+  const ownRecipe = new Set<string>();
   const total = source.entries.length;
   for (const [i, summary] of source.entries.entries()) {
     const slug = slugs.get(summary.id)!;
     const detail = source.loadEntry(summary.id);
+    if (canonicalJson(detail.recipe) !== libraryRecipe) ownRecipe.add(summary.id);
     const folder = `entries/${slug}/`;
     const processed = float32Bytes(detail.processed);
     const processedBytes = write(`${folder}${slug}.processed.f32`, processed);
@@ -233,6 +239,8 @@ async function writeSite(
         name: summary?.name ?? id,
         class: summary?.class ?? 'other',
         path: slugs.has(id) ? `entries/${slugs.get(id)}/` : null,
+        reviewState: summary?.reviewState ?? 'reviewed',
+        ownRecipe: ownRecipe.has(id),
       };
     }),
     references: Object.fromEntries(
@@ -287,7 +295,9 @@ async function writeSite(
     const slug = slugFor(r.slug, reportTaken);
     // The report as published (redacted where asked), beside its page, for the page's download link.
     const jsonBytes = write(`reports/${slug}/${slug}.json`, `${JSON.stringify(r.report, null, 2)}\n`);
-    return reportPage(r, { slugs, slug, vector, jsonBytes });
+    const marks = (id: string): string[] =>
+      entryMarks({ reviewState: summaries.get(id)?.reviewState, ownRecipe: ownRecipe.has(id) });
+    return reportPage(r, { slugs, slug, vector, jsonBytes, marks });
   });
   const view = siteView(source, {
     entryPages,

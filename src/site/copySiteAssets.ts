@@ -24,6 +24,7 @@ function assetSources(root: string): [string, string][] {
     ['assets/vendor/LICENSE-vega-interpreter.txt', join(modules, 'vega-interpreter', 'LICENSE')],
     ['assets/vendor/LICENSE-lunr.txt', join(modules, 'lunr', 'LICENSE')],
     ['assets/bandshelf-browser.js', join(root, 'dist', 'browser', 'bandshelf-browser.js')],
+    ['assets/bandshelf-worker.js', join(root, 'dist', 'browser', 'bandshelf-worker.js')],
   ];
   const own = join(root, 'site', 'assets');
   if (existsSync(own)) {

@@ -21,6 +21,12 @@ export interface ReportPageOptions {
   /** How many hits the overlay draws.
    * @default 3 */
   overlayHits?: number;
+  /** The hits the overlay draws, by id, in place of the first `overlayHits` (the matcher's chosen hit).
+   * @default the first overlayHits hits */
+  overlayIds?: readonly string[];
+  /** Cautions shown beside a hit's name ('draft', 'recipe differs').
+   * @default () => [] */
+  marks?: (id: string, revision: number) => string[];
   /** Largest number of points per plotted line.
    * @default 900 */
   maxPlotPoints?: number;
@@ -129,6 +135,7 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
           score: formatNumber(h.score, { decimals: 4 }),
           extra: extras.join(', '),
           why: whyBar(h.contributions),
+          marks: options.marks?.(h.id, h.revision) ?? [],
         };
       }),
     };
@@ -147,12 +154,19 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
           share: `${formatNumber(c.share * 100, { decimals: 1 })} %`,
           how: c.forced
             ? 'forced in (match --with)'
-            : `added by the selection, −${formatNumber(100 * (c.improvement ?? 0), { decimals: 1 })} % RSS`,
+            : `added by the selection, −${formatNumber(100 * (c.improvement ?? 0), { decimals: 1 })} % RSS` +
+              (c.pValue === null ? '' : `, p = ${formatNumber(c.pValue, { significant: 2 })}`),
+          significant: c.significant ? 'yes' : 'no (the interval reaches 0)',
+          alternatives: (c.alternatives ?? []).map((id) => ({ id, path: pathOf(id) })),
         })),
         forced: m.components.filter((c) => c.forced).map((c) => c.id),
         criterion: m.criterion,
         rule: m.rule,
         stopReason: m.stopReason,
+        residual:
+          `RSS ${formatNumber(m.rss, { significant: 3 })}; noise σ ${formatNumber(m.noise, { significant: 3 })} ` +
+          `(${m.noiseSource === 'band-free-window' ? 'from a band-free window' : 'from residual differences'}); ` +
+          `${m.misfitBands.length === 0 ? 'no misfit on a fitted band' : `misfit on fitted bands at ${m.misfitBands.map((b) => `${formatNumber(b.position, { decimals: 0 })} (${b.component})`).join(', ')} cm⁻¹`}`,
         unexplained: m.residualBands.map((b) => ({
           position: formatNumber(b.position, { decimals: 1 }),
           height: formatNumber(b.height),
@@ -181,7 +195,10 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
   let plotJson = '';
   if (unknown) {
     const overlay: ReportPlotSeries[] = [unknown];
-    for (const h of r.hits.slice(0, options.overlayHits ?? 3)) {
+    const chosen = options.overlayIds
+      ? r.hits.filter((h) => options.overlayIds!.includes(h.id))
+      : r.hits.slice(0, options.overlayHits ?? 3);
+    for (const h of chosen) {
       const v = options.vector?.(h.id, h.revision);
       const s = v ? series(`${h.rank}. ${h.name || h.id}`, 'hit', v) : null;
       if (s) overlay.push(s);

@@ -3,7 +3,8 @@ import type { EleventyUserConfig } from '@11ty/eleventy';
 import { z } from 'zod';
 import { metaErrorFromIssues } from '../formats/metaErrorFromIssues.js';
 import { relativeUrl } from './relativeUrl.js';
-import type { SiteView } from './types.js';
+import { reportBodyHtml } from './reportBodyHtml.js';
+import type { ReportPage, SiteView } from './types.js';
 
 export interface SiteEleventyPluginOptions {
   /** The global data every template reads as `bs`. */
@@ -79,6 +80,11 @@ export function siteEleventyPlugin(
   // and from disk; `--base` then needs no rewriting of links at all.
   eleventyConfig.addFilter('url', function (this: { page?: { url?: string } }, path: string) {
     return relativeUrl(String(path), { from: this.page?.url ?? '/' });
+  });
+  // A report's body, from the one renderer the in-browser matcher uses too.
+  eleventyConfig.addFilter('reportBody', function (this: { page?: { url?: string } }, page: ReportPage) {
+    const from = this.page?.url ?? '/';
+    return reportBodyHtml(page, { href: (path) => relativeUrl(`/${path}`, { from }) });
   });
   eleventyConfig.addGlobalData('bs', deepFreeze(options.view));
 }

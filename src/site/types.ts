@@ -286,6 +286,8 @@ export interface ReportPage {
       extra: string;
       /** Why this hit: each region's share of r as a bar segment (percent of Σ|share|), empty when not computed. */
       why: { label: string; percent: number; negative: boolean; title: string }[];
+      /** Cautions on the entry hit ('draft', 'recipe differs'); empty when none. */
+      marks: string[];
     }[];
   }[];
   mixture: {
@@ -300,6 +302,10 @@ export interface ReportPage {
       share: string;
       /** How it entered: forced in by the user, or added by the selection (with its RSS drop). */
       how: string;
+      /** 'yes', or why not (the interval reaches 0): a component that is not significant is not reported as found. */
+      significant: string;
+      /** Candidates this spectrum cannot tell apart from it (the report's `alternatives`). */
+      alternatives: { id: string; path: string | null }[];
     }[];
     /** Ids the user forced into the fit (`match --with`). */
     forced: string[];
@@ -308,6 +314,8 @@ export interface ReportPage {
     /** The selection, uncertainty, detection-limit and residual-band rules in words. */
     rule: string;
     stopReason: string;
+    /** The residual in one line: RSS, noise level and its source, bands on fitted components that misfit. */
+    residual: string;
     unexplained: { position: string; height: string }[];
   } | null;
   /** The report's JSON file beside the page (a download), and its size for the link. */

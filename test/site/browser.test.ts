@@ -345,9 +345,9 @@ describe.skipIf(!browserTestsRun())('the site in a browser', () => {
     );
     await page.dispatchEvent('#match-drop', 'drop', { dataTransfer });
     await page.waitForSelector('#match-drop[data-matched="u01-single-compound.csv"]');
-    const hits = await page.$$eval('#match-results tbody tr', (trs) =>
+    const hits = await page.$$eval('#match-report table.hits tbody tr', (trs) =>
       trs.map((tr) => ({
-        id: tr.querySelector('td:nth-child(2) .muted')?.textContent?.trim() ?? '',
+        id: (tr as HTMLElement).dataset.id ?? '',
         score: Number(tr.querySelector('td:nth-child(4)')?.textContent),
       })),
     );
@@ -358,12 +358,12 @@ describe.skipIf(!browserTestsRun())('the site in a browser', () => {
     const cliMixture = parseJson<{ mixture: { components: { id: string }[] } }>(
       bandshelf(['match', file, '--library', fx.library, '--json', '--mixture']).stdout,
     );
-    const components = await page.$$eval('#match-mixture tbody tr', (trs) =>
+    const components = await page.$$eval('#match-report table.mixture-components tbody tr', (trs) =>
       trs.map((tr) => tr.querySelector('td')?.textContent ?? ''),
     );
     expect(components.length).toBe(cliMixture.mixture.components.length);
     expect(components[0]).toContain(cliMixture.mixture.components[0]!.id);
-    expect(await page.$$('#match-bands tbody tr')).not.toHaveLength(0);
+    expect(await page.$$('#match-report table.band-table tbody tr')).not.toHaveLength(0);
     await page.screenshot({ path: join(SHOTS, 'matcher-u01.png'), fullPage: true });
 
     // A file that is not a spectrum gives one clear line, not a crash.

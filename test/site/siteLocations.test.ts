@@ -169,8 +169,8 @@ describe.skipIf(!browserTestsRun())(
         await page.dispatchEvent('#match-drop', 'drop', { dataTransfer });
         await page.waitForSelector(`#match-drop[data-matched="${UNKNOWN}"]`);
         const top = await page.$eval(
-          '#match-results tbody tr td:nth-child(2) .muted',
-          (el) => el.textContent?.trim() ?? '',
+          '#match-report table.hits tbody tr',
+          (el) => (el as HTMLElement).dataset.id ?? '',
         );
         expect(top).toBe(cliTop);
         await page.screenshot({ path: join(SHOTS, `location-${slug}match.png`), fullPage: true });

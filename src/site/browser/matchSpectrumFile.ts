@@ -2,6 +2,7 @@
 // (browser-safe: the same reader, recipe, search, mixture fit and band identification, bundled for the page).
 import { readSpectrumFile } from '../../formats/readSpectrumFile.js';
 import type { SpectrumReadOptions } from '../../formats/types.js';
+import { buildBandIndex } from '../../match/buildBandIndex.js';
 import { compareAtCoarserResolution } from '../../match/compareAtCoarserResolution.js';
 import { instantiateScoreKernels } from '../../match/instantiateScoreKernels.js';
 import { jsScoreKernels } from '../../match/jsScoreKernels.js';
@@ -9,12 +10,13 @@ import { runMatchPipeline } from '../../match/pipeline/runMatchPipeline.js';
 import type { MatchScorer, MatchSource } from '../../match/pipeline/types.js';
 import { resolutionForUnknown } from '../../match/resolutionForUnknown.js';
 import { searchSpectra } from '../../match/searchSpectra.js';
-import { MIN_OVERLAP_DEFAULT } from '../../match/searchTypes.js';
+import { type Metric, MIN_OVERLAP_DEFAULT } from '../../match/searchTypes.js';
 import { shippedAssignments } from '../../match/shippedAssignments.js';
 import { singleThreadRunner } from '../../match/singleThreadRunner.js';
+import type { BandIndex } from '../../match/types.js';
 import type { BandAssignment } from '../../schema/bandAssignment.js';
 import type { MatchHit, MatchReport } from '../../schema/matchReport.js';
-import type { Grid, Recipe } from '../../schema/recipe.js';
+import type { Grid, Recipe, WavenumberWindow } from '../../schema/recipe.js';
 import { resolutionOf } from '../../spectrum/resolutionOf.js';
 import { publishedMatchSource } from './publishedMatchSource.js';
 
@@ -33,6 +35,10 @@ export interface PublishedSearchSet {
     name: string;
     class: string;
     path: string | null;
+    /** The newest review decision (older sites publish none). @default 'reviewed' */
+    reviewState?: string;
+    /** Processed with its own recipe, not the library default. @default false */
+    ownRecipe?: boolean;
   }[];
   /** rows × gridLength(grid), NaN where not covered. */
   processed: Float32Array;
@@ -59,6 +65,12 @@ export interface MatchSpectrumFileOptions {
   minOverlap?: number;
   /** Run the mixture fit, as `bandshelf match --mixture`. @default true */
   mixture?: boolean;
+  /** Scoring windows, cm⁻¹, as `bandshelf match --range`. @default [] (the whole grid) */
+  ranges?: readonly WavenumberWindow[];
+  /** The metric the hits are ranked by, as `bandshelf match --metric`. @default 'pearson' */
+  metric?: Metric;
+  /** Classes left out of the hits and the fit, as `bandshelf match --exclude-class`. @default [] */
+  excludeClass?: readonly string[];
   /** The published source already built from `set` (keeps loaded entries across files). @default built from set */
   source?: MatchSource;
   /**
@@ -77,7 +89,12 @@ export interface FileMatch {
   hits: (MatchHit & { path: string | null })[];
   /** The full report, as `bandshelf match --json --mixture` writes it. */
   report: MatchReport;
+  /** Milliseconds from the file's bytes to the ranked hits (read, process, score) and to the full report. */
+  timings: { hits: number; report: number };
 }
+
+/** A source's band index, built once per source (the pipeline would otherwise build it for every file). */
+const bandIndexes = new WeakMap<MatchSource, BandIndex>();
 
 /**
  * The WebAssembly kernels `bandshelf match` runs, so scores agree to the last bit; where the engine or the page's
@@ -103,6 +120,8 @@ export async function matchSpectrumFile(
   set: PublishedSearchSet,
   options: MatchSpectrumFileOptions = {},
 ): Promise<FileMatch> {
+  const started = performance.now();
+  let scored = started;
   const read = options.read ?? {};
   const parsed = readSpectrumFile(bytes, {
     file,
@@ -114,6 +133,11 @@ export async function matchSpectrumFile(
   const first = parsed[0]!;
   const title = typeof first.meta.title === 'string' ? first.meta.title : undefined;
   const source = options.source ?? publishedMatchSource(set);
+  let index = bandIndexes.get(source);
+  if (index === undefined) {
+    index = buildBandIndex(source);
+    bandIndexes.set(source, index);
+  }
   const matched = resolutionForUnknown(first.spectrum, source.recipe, { stated: first.meta.resolution });
   const warnings = [
     ...first.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
@@ -132,13 +156,22 @@ export async function matchSpectrumFile(
         warnings,
       },
       source,
-      scorer: pageScorer,
+      // The last search ends before the fit: its end is when the hits are ranked.
+      scorer: async (...args) => {
+        const hits = await pageScorer(...args);
+        scored = performance.now();
+        return hits;
+      },
       assignments: set.assignments ?? shippedAssignments(),
     },
     {
       top: options.k ?? 10,
       minOverlap: options.minOverlap ?? MIN_OVERLAP_DEFAULT,
       mixture: options.mixture ?? true,
+      ranges: options.ranges ?? [],
+      metrics: [options.metric ?? 'pearson'],
+      excludeClass: options.excludeClass ?? [],
+      index,
       ...(matched.recipe === source.recipe ? {} : { recipe: matched.recipe }),
     },
   );
@@ -156,7 +189,8 @@ export async function matchSpectrumFile(
     title: title !== undefined && title !== '' ? title : file,
     spectra: parsed.length,
     warnings,
-    hits: (report.hitsByMetric.pearson ?? []).map((h) => ({ ...h, path: paths.get(h.id) ?? null })),
+    hits: report.hits.map((h) => ({ ...h, path: paths.get(h.id) ?? null })),
     report,
+    timings: { hits: scored - started, report: performance.now() - started },
   };
 }

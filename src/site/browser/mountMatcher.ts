@@ -1,194 +1,230 @@
-// The in-browser matcher page: loads the published data, takes a dropped or chosen file, and shows the match
-// pipeline's report: top hits, the mixture (components, unexplained bands) and the identified bands.
-import { BandshelfError } from '../../error.js';
-import type { MatchSource } from '../../match/pipeline/types.js';
-import type { MatchReport } from '../../schema/matchReport.js';
-import { decodeSearchMatrix } from '../decodeSearchMatrix.js';
+// The in-browser matcher page: loads the published data, takes a dropped or chosen file with the page's settings,
+// runs the one match pipeline (in a Web Worker where the browser allows one) and shows the whole report with the
+// report pages' own renderer and plots.
+
+import type { XUnit, YUnit } from '../../formats/types.js';
+import { rangeFromText } from '../../match/rangeFromText.js';
+import type { Metric } from '../../match/searchTypes.js';
+import { entryMarks } from '../entryMarks.js';
 import { formatNumber } from '../formatNumber.js';
-import { base64Bytes } from './base64Bytes.js';
-import { matchSpectrumFile, type PublishedSearchSet } from './matchSpectrumFile.js';
+import { reportBodyHtml } from '../reportBodyHtml.js';
+import { reportPage } from '../reportPage.js';
+import { loadPublishedSet, type PublishedData } from './loadPublishedSet.js';
+import { matchErrorText } from './matchErrorText.js';
+import { type FileMatch, matchSpectrumFile } from './matchSpectrumFile.js';
+import { mountReportPlots } from './mountReportPlots.js';
 import { pageHref } from './pageHref.js';
-import { type PublishedEntryDocument, publishedMatchSource } from './publishedMatchSource.js';
 import { siteData } from './siteData.js';
+import { type MatchWorker, startMatchWorker } from './startMatchWorker.js';
+import type { WorkerMatchOptions } from './workerMessages.js';
 
 export interface MountMatcherOptions {
   /** Hits listed.
    * @default 10 */
   k?: number;
+  /** Try to run the matching in a Web Worker (false: always on the page's thread).
+   * @default true */
+  worker?: boolean;
 }
 
-type MatrixMeta = Omit<PublishedSearchSet, 'processed'> & { rows: number; cols: number };
-
-/** A small table of header labels and rows of cell texts. */
-function tableOf(doc: Document, head: string[], rows: string[][]): HTMLTableElement {
-  const table = doc.createElement('table');
-  const tr = table.createTHead().insertRow();
-  for (const h of head) {
-    const th = doc.createElement('th');
-    th.textContent = h;
-    tr.append(th);
-  }
-  const body = table.createTBody();
-  for (const cells of rows) {
-    const row = body.insertRow();
-    for (const c of cells) row.insertCell().textContent = c;
-  }
-  return table;
+/** The settings form as match options; a malformed range throws the BandshelfError the CLI's --range would. */
+function settingsOf(form: HTMLFormElement | null, k: number): WorkerMatchOptions {
+  if (!form) return { k };
+  const data = new FormData(form);
+  const text = (name: string): string => String(data.get(name) ?? '').trim();
+  const ranges = text('ranges')
+    .split(/[,;]/)
+    .map((s) => s.trim())
+    .filter((s) => s !== '')
+    .map((s) => rangeFromText(s, { label: 'a scoring range' }));
+  const read: WorkerMatchOptions['read'] = {};
+  if (text('xUnit') !== '') read.xUnit = text('xUnit') as XUnit;
+  if (text('yUnit') !== '') read.yUnit = text('yUnit') as YUnit;
+  if (text('block') !== '') read.block = Number(text('block'));
+  const column = text('column');
+  if (column !== '') read.column = /^\d+$/.test(column) ? Number(column) : column;
+  return {
+    k,
+    ranges,
+    metric: (text('metric') || 'pearson') as Metric,
+    mixture: data.get('mixture') !== null,
+    excludeClass: data.getAll('excludeClass').map(String),
+    read,
+  };
 }
 
-/** The mixture and band sections of a report, as the report pages show them. */
-function reportSections(doc: Document, report: MatchReport): HTMLElement[] {
-  const out: HTMLElement[] = [];
-  const mixture = report.mixture;
-  if (mixture) {
-    const section = doc.createElement('section');
-    section.id = 'match-mixture';
-    const h = doc.createElement('h2');
-    h.textContent = 'Mixture fit';
-    const note = doc.createElement('p');
-    note.className = 'muted';
-    note.textContent = `R² ${mixture.r2 === null ? '–' : formatNumber(mixture.r2, { decimals: 4 })}; ${mixture.criterion}`;
-    section.append(
-      h,
-      note,
-      tableOf(
-        doc,
-        ['Component', 'Class', 'Share', 'Forced'],
-        mixture.components.map((c) => [
-          `${c.name ?? c.id} ${c.id}`,
-          c.class ?? '',
-          formatNumber(c.share, { decimals: 3 }),
-          c.forced ? 'yes' : 'no',
-        ]),
-      ),
-    );
-    const residual = doc.createElement('p');
-    residual.className = 'match-residual-bands';
-    residual.textContent =
-      mixture.residualBands.length === 0
-        ? 'Unexplained bands: none above the noise.'
-        : `Unexplained bands (cm⁻¹): ${mixture.residualBands.map((b) => formatNumber(b.position, { decimals: 1 })).join(', ')}`;
-    section.append(residual);
-    out.push(section);
-  }
-  const bands = doc.createElement('section');
-  bands.id = 'match-bands';
-  const h = doc.createElement('h2');
-  h.textContent = 'Band identification';
-  bands.append(
-    h,
-    tableOf(
-      doc,
-      ['Band (cm⁻¹)', 'Assignments', 'Library candidates', 'Explained by the fit'],
-      report.bands.map((b) => [
-        formatNumber(b.position, { decimals: 1 }),
-        b.assignments.map((a) => a.label).join('; '),
-        b.candidates.map((c) => c.id).join(', '),
-        b.explained === null ? '–' : b.explained ? 'yes' : 'no',
-      ]),
-    ),
-  );
-  out.push(bands);
-  return out;
+/** Where the worker script and data scripts are, as absolute URLs (a worker resolves against its own URL). */
+function absolute(doc: Document, relative: string): string {
+  return new URL(relative, doc.location.href).href;
 }
 
 export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): void {
   const zone = doc.getElementById('match-drop');
   const input = doc.getElementById('match-file') as HTMLInputElement | null;
   const status = doc.getElementById('match-status');
-  const table = doc.getElementById('match-results') as HTMLTableElement | null;
+  const engine = doc.getElementById('match-engine');
+  const target = doc.getElementById('match-report');
+  const form = doc.getElementById('match-options') as HTMLFormElement | null;
+  const overlay = doc.getElementById('match-overlay') as HTMLSelectElement | null;
   const base = doc.body.dataset.base ?? '/';
-  if (!zone || !input || !status || !table) return;
-  let set: PublishedSearchSet | undefined;
-  let source: MatchSource | undefined;
-  const sections = doc.createElement('div');
-  sections.id = 'match-report';
-  table.after(sections);
+  if (!zone || !input || !status || !target) return;
+  const k = options.k ?? 10;
+  const matrixScript = zone.dataset.script ?? `${base}assets/search-matrix.js`;
   // Script files, not fetch: a browser refuses fetch from file:// but loads scripts (the page lists the matrix's).
-  const ready = siteData<{ meta: MatrixMeta; matrix: string }>(
-    zone.dataset.script ?? `${base}assets/search-matrix.js`,
-    'search-matrix',
-    { doc },
-  ).then(({ meta, matrix }) => {
-    const decoded = decodeSearchMatrix(base64Bytes(matrix));
-    if (decoded.rows !== meta.rows || decoded.cols !== meta.cols) {
-      throw new Error('the matrix and its description disagree; rebuild the site');
-    }
-    set = { ...meta, processed: decoded.matrix };
-    // An entry's data script sits in its folder under the folder's own name.
-    const loadEntry = (path: string): Promise<PublishedEntryDocument> => {
-      const slug = path.replace(/\/$/, '').split('/').pop() ?? '';
-      return siteData<{ document: PublishedEntryDocument }>(
-        `${base}${path}${slug}.data.js`,
-        `entry:${slug}`,
-        {
-          doc,
+  const ready = loadPublishedSet(matrixScript, {
+    load: (src, key) => siteData(src, key, { doc }),
+    base,
+  });
+  let worker: Promise<MatchWorker | null> = Promise.resolve(null);
+  const note = (text: string): void => {
+    if (engine) engine.textContent = text;
+  };
+  if (options.worker !== false && typeof Worker === 'function' && zone.dataset.worker) {
+    worker = startMatchWorker(absolute(doc, zone.dataset.worker), {
+      matrixScript: absolute(doc, matrixScript),
+      base: absolute(doc, base),
+    }).then(
+      (w) => {
+        note('Matching runs in a background worker: the page stays responsive.');
+        zone.dataset.engine = 'worker';
+        return w;
+      },
+      (error: unknown) => {
+        note(
+          'This browser refused the background worker (Chromium does for a page opened from disk), so matching ' +
+            'runs on the page itself: the page may pause while a file is matched.',
+        );
+        if (engine) engine.title = error instanceof Error ? error.message : String(error);
+        zone.dataset.engine = 'page';
+        return null;
+      },
+    );
+  } else {
+    note('Matching runs on the page itself: the page may pause while a file is matched.');
+    zone.dataset.engine = 'page';
+  }
+  ready.then(
+    ({ set }) => {
+      status.textContent = `Ready: ${set.entries.length} reference spectra loaded.`;
+      zone.dataset.ready = 'true';
+    },
+    (error: unknown) => {
+      status.textContent = `The reference vectors could not be loaded (${error instanceof Error ? error.message : String(error)}).`;
+    },
+  );
+
+  let last: { file: File; result: FileMatch; data: PublishedData } | undefined;
+  let lastFile: File | undefined;
+  let jsonUrl = '';
+
+  /** The report through the report pages' renderer, its plots drawn as there. */
+  const render = (result: FileMatch, data: PublishedData): void => {
+    const { set } = data;
+    const rowOf = new Map(set.entries.map((e, i) => [e.id, i]));
+    const cols = set.processed.length / Math.max(1, set.entries.length);
+    const slugs = new Map(
+      set.entries.filter((e) => e.path).map((e) => [e.id, e.path!.replace(/\/$/, '').split('/').pop() ?? '']),
+    );
+    const byId = new Map(set.entries.map((e) => [e.id, e]));
+    const json = `${JSON.stringify(result.report, null, 2)}\n`;
+    if (jsonUrl) URL.revokeObjectURL(jsonUrl);
+    jsonUrl = URL.createObjectURL(new Blob([json], { type: 'application/json' }));
+    const chosen = overlay?.value ?? '';
+    const page = reportPage(
+      { slug: 'match', file: result.report.query.file, report: result.report },
+      {
+        slugs,
+        slug: 'match',
+        jsonBytes: json.length,
+        vector: (id, revision) => {
+          const row = rowOf.get(id);
+          if (row === undefined || set.entries[row]!.revision !== revision) return undefined;
+          return set.processed.subarray(row * cols, (row + 1) * cols);
         },
-      ).then((d) => d.document);
+        marks: (id) => {
+          const e = byId.get(id);
+          return entryMarks({ reviewState: e?.reviewState, ownRecipe: e?.ownRecipe });
+        },
+        ...(chosen === '' ? {} : { overlayIds: chosen === 'none' ? [] : [chosen] }),
+      },
+    );
+    target.innerHTML = reportBodyHtml(page, {
+      href: (path) => pageHref(doc, path, { base }),
+      heading: false,
+      jsonHref: jsonUrl,
+    });
+    mountReportPlots(doc);
+  };
+
+  /** The overlay chooser: the top three hits (as the report pages draw), one hit, or none (the fit plot stays). */
+  const fillOverlay = (result: FileMatch): void => {
+    if (!overlay) return;
+    const keep = overlay.value;
+    overlay.replaceChildren();
+    const add = (value: string, text: string): void => {
+      const option = doc.createElement('option');
+      option.value = value;
+      option.textContent = text;
+      overlay.append(option);
     };
-    source = publishedMatchSource(set, { loadEntry });
-    status.textContent = `Ready: ${meta.rows} reference spectra loaded.`;
-    zone.dataset.ready = 'true';
-  });
-  ready.catch((error: unknown) => {
-    status.textContent = `The reference vectors could not be loaded (${error instanceof Error ? error.message : String(error)}).`;
-  });
+    add('', 'the top three hits');
+    for (const h of result.report.hits) add(h.id, `${h.rank}. ${h.name || h.id}`);
+    add('none', 'no hit (the unknown alone)');
+    overlay.value = Array.from(overlay.options).some((o) => o.value === keep) ? keep : '';
+    overlay.closest('label')?.removeAttribute('hidden');
+  };
 
   const show = async (file: File): Promise<void> => {
+    lastFile = file;
     status.textContent = `Reading ${file.name} …`;
-    table.hidden = true;
-    sections.replaceChildren();
+    delete zone.dataset.matched;
+    delete zone.dataset.failed;
+    // A failure inside the worker arrives as the status line already written there.
+    let viaWorker = false;
     try {
-      await ready;
+      const settings = settingsOf(form, k);
+      const data = await ready;
       const bytes = new Uint8Array(await file.arrayBuffer());
-      const result = await matchSpectrumFile(bytes, file.name, set!, { k: options.k ?? 10, source: source! });
-      const body = table.tBodies[0]!;
-      body.replaceChildren();
-      result.hits.forEach((hit, i) => {
-        const row = body.insertRow();
-        row.insertCell().textContent = String(i + 1);
-        const cell = row.insertCell();
-        if (hit.path) {
-          const link = doc.createElement('a');
-          link.href = pageHref(doc, hit.path, { base });
-          link.textContent = hit.name;
-          cell.append(link);
-        } else cell.textContent = hit.name;
-        const id = doc.createElement('span');
-        id.className = 'muted';
-        id.textContent = ` ${hit.id}`;
-        cell.append(id);
-        row.insertCell().textContent = hit.class;
-        const score = row.insertCell();
-        score.className = 'num';
-        score.textContent = formatNumber(hit.score, { decimals: 4 });
-        const overlap = row.insertCell();
-        overlap.className = 'num';
-        overlap.textContent = formatNumber(hit.overlap, { decimals: 0 });
-      });
-      table.hidden = result.hits.length === 0;
-      sections.replaceChildren(...reportSections(doc, result.report));
+      const w = await worker;
+      viaWorker = w !== null;
+      const result = w
+        ? await w.match(bytes, file.name, settings)
+        : await matchSpectrumFile(bytes, file.name, data.set, { ...settings, source: data.source });
+      last = { file, result, data };
+      fillOverlay(result);
+      render(result, data);
       const notes = [
         result.spectra > 1 ? `the file holds ${result.spectra} spectra; the first was matched` : '',
         ...result.warnings,
       ].filter((n) => n !== '');
+      const top = result.hits[0];
       status.textContent =
-        `${result.title}: ${result.hits.length} hits, best ${result.hits[0] ? formatNumber(result.hits[0].score, { decimals: 4 }) : '–'}` +
+        `${result.title}: ${result.hits.length} hits, best ${top ? `${top.name || top.id} ${formatNumber(top.score, { decimals: 4 })}` : '–'}` +
+        ` · hits in ${formatNumber(result.timings.hits, { decimals: 0 })} ms, full report in ${formatNumber(result.timings.report, { decimals: 0 })} ms` +
         (notes.length > 0 ? ` (${notes.join('; ')})` : '.');
+      zone.dataset.hitsMs = String(result.timings.hits);
+      zone.dataset.reportMs = String(result.timings.report);
       zone.dataset.matched = file.name;
     } catch (error) {
+      target.replaceChildren();
       status.textContent =
-        error instanceof BandshelfError
-          ? error.file === undefined
-            ? `${file.name}: ${error.oneLine()}`
-            : error.oneLine()
-          : `${file.name} could not be matched: ${error instanceof Error ? error.message : String(error)}`;
+        viaWorker && error instanceof Error ? error.message : matchErrorText(error, file.name);
+      zone.dataset.matched = file.name;
+      zone.dataset.failed = 'true';
     }
   };
 
   input.addEventListener('change', () => {
     const file = input.files?.[0];
     if (file) void show(file);
+  });
+  // A changed setting matches the last file again; a changed overlay only redraws.
+  form?.addEventListener('change', () => {
+    if (lastFile) void show(lastFile);
+  });
+  form?.addEventListener('submit', (event) => event.preventDefault());
+  overlay?.addEventListener('change', () => {
+    if (last) render(last.result, last.data);
   });
   zone.addEventListener('dragover', (event) => {
     event.preventDefault();
