@@ -38,8 +38,15 @@ function buildProgram(
   return program;
 }
 
-/** A reader that closed the pipe (`| head`) wants no more output: end quietly with the status the command had. */
+let closedOutputHandled = false;
+
+/**
+ * A reader that closed the pipe (`| head`) wants no more output: end quietly with the status the command had. Installed
+ * once per process (the demo calls `main` many times in one process).
+ */
 function quietOnClosedOutput(): void {
+  if (closedOutputHandled) return;
+  closedOutputHandled = true;
   process.stdout.on('error', (error: NodeJS.ErrnoException) => {
     if (error.code === 'EPIPE') process.exit(process.exitCode ?? 0);
     throw error;
