@@ -23,13 +23,7 @@ export function readUnknownFile(file: string, options: ReadUnknownFileOptions = 
   const bytes = readRegularFile(resolve(options.cwd ?? process.cwd(), file), { label: file });
   const hash = createHash('sha256').update(bytes).digest('hex');
   const read = options.read ?? {};
-  const parsed = readSpectrumFile(bytes, {
-    file,
-    ...(read.xUnit === undefined ? {} : { xUnit: read.xUnit }),
-    ...(read.yUnit === undefined ? {} : { yUnit: read.yUnit }),
-    ...(read.block === undefined ? {} : { block: read.block }),
-    ...(read.column === undefined ? {} : { column: read.column }),
-  });
+  const parsed = readSpectrumFile(bytes, { ...read, file });
   return parsed.map((p) => {
     const title = typeof p.meta.title === 'string' ? p.meta.title : undefined;
     return {

@@ -123,13 +123,7 @@ export async function matchSpectrumFile(
   const started = performance.now();
   let scored = started;
   const read = options.read ?? {};
-  const parsed = readSpectrumFile(bytes, {
-    file,
-    ...(read.xUnit === undefined ? {} : { xUnit: read.xUnit }),
-    ...(read.yUnit === undefined ? {} : { yUnit: read.yUnit }),
-    ...(read.block === undefined ? {} : { block: read.block }),
-    ...(read.column === undefined ? {} : { column: read.column }),
-  });
+  const parsed = readSpectrumFile(bytes, { ...read, file });
   const first = parsed[0]!;
   const title = typeof first.meta.title === 'string' ? first.meta.title : undefined;
   const source = options.source ?? publishedMatchSource(set);
