@@ -4,6 +4,7 @@ import type { BandAssignment } from '../schema/bandAssignment.js';
 import { findPeaks } from '../spectrum/findPeaks.js';
 import { findShoulders } from '../spectrum/findShoulders.js';
 import type { Spectrum } from '../spectrum/types.js';
+import { assignmentReport } from './assignmentReport.js';
 import { buildBandIndex } from './buildBandIndex.js';
 import { componentAtBand } from './componentAtBand.js';
 import { entriesWithBandAt } from './entriesWithBandAt.js';
@@ -126,20 +127,7 @@ export function identifyBands(unknown: Spectrum, options: IdentifyBandsOptions =
               relative: strongest > 0 ? band.height / strongest : 0,
             },
             assignments,
-          ).map(({ row, score }) => ({
-            ...(row.id === undefined ? {} : { id: row.id }),
-            label: row.label,
-            vibration: row.vibration,
-            group: row.group,
-            class: [...row.class],
-            source: row.source,
-            basis: row.basis,
-            origin: row.origin,
-            min: row.min,
-            max: row.max,
-            tolerance: row.tolerance,
-            score,
-          }));
+          ).map(assignmentReport);
     const candidates =
       maxCandidates <= 0 ? [] : entriesWithBandAt(index, band.position, { tolerance, top: maxCandidates });
     const explained =

@@ -8,7 +8,8 @@ import { z } from 'zod';
 export const assignmentBasisSchema = z.enum(['seen', 'memory', 'lab']);
 export type AssignmentBasis = z.output<typeof assignmentBasisSchema>;
 
-export const bandAssignmentSchema = z
+/** The row's fields, before the cross-field checks. */
+const bandAssignmentFields = z
   .object({
     /** Stable short name of the row (shipped rows carry one; a lab row may), shown with every match. */
     id: z
@@ -45,7 +46,9 @@ export const bandAssignmentSchema = z
     /** Whether the row ships with bandshelf or was added by the lab to its library. */
     origin: z.enum(['shipped', 'lab']).default('shipped'),
   })
-  .strict()
+  .strict();
+
+export const bandAssignmentSchema = bandAssignmentFields
   .refine((row) => row.max >= row.min, { message: 'max must not be below min', path: ['max'] })
   .refine((row) => row.centre === undefined || (row.centre >= row.min && row.centre <= row.max), {
     message: 'centre must lie inside min–max',
@@ -57,3 +60,13 @@ export type BandAssignmentInput = z.input<typeof bandAssignmentSchema>;
 
 /** The whole table as shipped or as stored by a lab. */
 export const bandAssignmentTableSchema = z.array(bandAssignmentSchema);
+
+/** A table row offered for a measured band, as reports carry it (lab rows' `region` flag left out). */
+export const rankedAssignmentSchema = bandAssignmentFields
+  .omit({ centre: true, region: true })
+  .extend({
+    /** 0–1 ranking score: position agreement × width agreement × relative-intensity weight. */
+    score: z.number().finite().min(0).max(1),
+  })
+  .strict();
+export type RankedAssignmentReport = z.output<typeof rankedAssignmentSchema>;

@@ -1,6 +1,8 @@
 // The contrast report: two groups of spectra compared point by point, printed by `contrast --json`.
 import { z } from 'zod';
-import { gridSchema, windowSchema } from './recipe.js';
+import { rankedAssignmentSchema } from './bandAssignment.js';
+import { bandCandidateSchema, matchHitSchema } from './matchReport.js';
+import { gridSchema, gridVectorSchema, windowSchema } from './recipe.js';
 
 /** Bump on any change a reader must know about; readers refuse versions they do not know. */
 export const CONTRAST_REPORT_VERSION = 1;
@@ -10,9 +12,6 @@ export const CONTRAST_CAUTION =
   'Research use only: a difference between groups is an association, not a diagnosis; band assignments and ' +
   'library hits are candidates, not identifications; confirm by orthogonal methods; defer to local regulations ' +
   'and licensed clinical practice.';
-
-/** A vector on the library grid, ascending wavenumber; null where not covered or not tested (JSON has no NaN). */
-const gridVectorSchema = z.array(z.number().finite().nullable());
 
 export const contrastSpectrumSchema = z
   .object({
@@ -48,17 +47,9 @@ export const contrastGroupSchema = z
   })
   .strict();
 
-export const contrastHitSchema = z
-  .object({
-    rank: z.number().int().positive(),
-    id: z.string().min(1),
-    revision: z.number().int().positive(),
-    name: z.string(),
-    class: z.string(),
-    /** Pearson correlation clamped to 0–1. */
-    score: z.number().finite(),
-    rawScore: z.number().finite(),
-  })
+/** A library hit of a difference part (Pearson, clamped to 0–1 as in match reports). */
+export const contrastHitSchema = matchHitSchema
+  .pick({ rank: true, id: true, revision: true, name: true, class: true, score: true, rawScore: true })
   .strict();
 
 export const differenceBandSchema = z
@@ -81,32 +72,9 @@ export const differenceBandSchema = z
     /** The smallest Benjamini–Hochberg q-value in the region. */
     smallestQ: z.number().finite().min(0).max(1),
     /** Band-assignment table rows for a band at `position` with the region's width, best first. */
-    assignments: z.array(
-      z
-        .object({
-          id: z.string().optional(),
-          label: z.string(),
-          vibration: z.string(),
-          group: z.string(),
-          class: z.array(z.string()),
-          source: z.string(),
-          score: z.number().finite(),
-        })
-        .strict(),
-    ),
+    assignments: z.array(rankedAssignmentSchema),
     /** Library entries with a stored peak within the band tolerance of `position`, closest first. */
-    candidates: z.array(
-      z
-        .object({
-          id: z.string(),
-          revision: z.number().int().positive(),
-          name: z.string(),
-          class: z.string(),
-          position: z.number().finite(),
-          error: z.number().finite(),
-        })
-        .strict(),
-    ),
+    candidates: z.array(bandCandidateSchema),
   })
   .strict();
 

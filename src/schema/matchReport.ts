@@ -1,6 +1,7 @@
 // The match report: one versioned JSON document per unknown, printed by `match --json` and read by the site.
 import { z } from 'zod';
-import { gridSchema, recipeSchema, windowSchema } from './recipe.js';
+import { rankedAssignmentSchema } from './bandAssignment.js';
+import { gridSchema, gridVectorSchema, recipeSchema, windowSchema } from './recipe.js';
 
 /** Bump on any change a reader must know about; readers refuse versions they do not know. */
 export const MATCH_REPORT_VERSION = 1;
@@ -11,9 +12,6 @@ export const MATCH_CAUTION =
   'and licensed clinical practice.';
 
 export const metricSchema = z.enum(['pearson', 'derivative', 'cosine', 'euclidean']);
-
-/** A vector on the library grid, ascending wavenumber; null where not covered (JSON has no NaN). */
-const gridVectorSchema = z.array(z.number().finite().nullable());
 
 export const matchHitSchema = z
   .object({
@@ -79,6 +77,7 @@ export const detectionLimitSchema = z
     share: z.number().finite().min(0).max(1),
   })
   .strict();
+export type DetectionLimitReport = z.output<typeof detectionLimitSchema>;
 
 export const mixtureComponentSchema = z
   .object({
@@ -111,6 +110,7 @@ export const mixtureComponentSchema = z
     alternatives: z.array(z.string().min(1)).optional(),
   })
   .strict();
+export type MixtureComponentReport = z.output<typeof mixtureComponentSchema>;
 
 /** An offered candidate the fit did not keep, with what this spectrum could have shown of it. */
 export const unselectedCandidateSchema = z
@@ -122,6 +122,7 @@ export const unselectedCandidateSchema = z
     detectionLimit: detectionLimitSchema,
   })
   .strict();
+export type UnselectedCandidateReport = z.output<typeof unselectedCandidateSchema>;
 
 export const residualBandSchema = z
   .object({
@@ -137,6 +138,7 @@ export const residualBandSchema = z
     localNoise: z.number().finite().nonnegative(),
   })
   .strict();
+export type ResidualBandReport = z.output<typeof residualBandSchema>;
 
 /** A residual peak on a band of a fitted component that gives at least twice the residual there: a shape mismatch. */
 export const misfitBandSchema = z
@@ -149,6 +151,7 @@ export const misfitBandSchema = z
     contribution: z.number().finite(),
   })
   .strict();
+export type MisfitBandReport = z.output<typeof misfitBandSchema>;
 
 export const mixtureReportSchema = z
   .object({
@@ -193,33 +196,28 @@ export const mixtureReportSchema = z
   .strict();
 export type MixtureReport = z.output<typeof mixtureReportSchema>;
 
+/** A library entry with a stored peak near a band. */
+export const bandCandidateSchema = z
+  .object({
+    id: z.string().min(1),
+    revision: z.number().int().positive(),
+    name: z.string(),
+    class: z.string(),
+    /** The entry's peak position, cm⁻¹. */
+    position: z.number().finite(),
+    /** Peak position minus band position, cm⁻¹. */
+    error: z.number().finite(),
+  })
+  .strict();
+
 export const identifiedBandSchema = z
   .object({
     position: z.number().finite(),
     height: z.number().finite(),
     fwhm: z.number().finite().nullable(),
     kind: z.enum(['peak', 'shoulder']),
-    assignments: z.array(
-      z
-        .object({
-          /** The matched table row's id. */
-          id: z.string().optional(),
-          label: z.string().min(1),
-          vibration: z.string(),
-          group: z.string(),
-          class: z.array(z.string().min(1)).min(1),
-          source: z.string().min(1),
-          basis: z.string(),
-          origin: z.string(),
-          min: z.number().finite(),
-          max: z.number().finite(),
-          /** The row's own tolerance beyond min–max, cm⁻¹. */
-          tolerance: z.number().finite().nonnegative(),
-          /** 0–1: position agreement × width agreement × relative-intensity weight. */
-          score: z.number().finite().min(0).max(1),
-        })
-        .strict(),
-    ),
+    /** Table rows offered for a band no fitted component carries, best first (empty when `assignedTo` is set). */
+    assignments: z.array(rankedAssignmentSchema),
     /** The fitted mixture component that carries most of the band's height; table rows are then not offered. */
     assignedTo: z
       .object({
@@ -237,18 +235,8 @@ export const identifiedBandSchema = z
         z.object({ id: z.string().optional(), label: z.string().min(1), source: z.string().min(1) }).strict(),
       )
       .default([]),
-    candidates: z.array(
-      z
-        .object({
-          id: z.string().min(1),
-          revision: z.number().int().positive(),
-          name: z.string(),
-          class: z.string(),
-          position: z.number().finite(),
-          error: z.number().finite(),
-        })
-        .strict(),
-    ),
+    /** Library entries with a stored peak within tolerance, closest first. */
+    candidates: z.array(bandCandidateSchema),
     /** Whether the mixture fit explains the band; null when no fit was made. */
     explained: z.boolean().nullable(),
   })

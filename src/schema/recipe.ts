@@ -16,6 +16,9 @@ const MAX_GRID_POINTS = 1_000_001;
  * The library grid: `start` and `stop` in cm⁻¹ (either order, both > 0), `step` > 0, at most 1,000,001
  * points. Vectors on it run ascending.
  */
+/** A vector on the grid, ascending wavenumber; null where not covered or not computed (JSON has no NaN). */
+export const gridVectorSchema = z.array(z.number().finite().nullable());
+
 export const gridSchema = z
   .object({
     start: z.number().finite(),

@@ -14,6 +14,7 @@ import type { Grid, WavenumberWindow } from '../../schema/recipe.js';
 import { gridAxis } from '../../spectrum/gridAxis.js';
 import { gridLength } from '../../spectrum/gridLength.js';
 import type { QcFlag } from '../../spectrum/types.js';
+import { assignmentReport } from '../assignmentReport.js';
 import { entriesWithBandAt } from '../entriesWithBandAt.js';
 import type { MatchScorer, MatchSource } from '../pipeline/types.js';
 import { rankAssignments } from '../rankAssignments.js';
@@ -173,15 +174,7 @@ function describeBands(
         upper: Number.isFinite(upper) ? upper : difference,
         g: Number.isFinite(stats.g[r.peak]!) ? stats.g[r.peak]! : 0,
         smallestQ: r.smallestQ,
-        assignments: ranked.map(({ row, score }) => ({
-          ...(row.id === undefined ? {} : { id: row.id }),
-          label: row.label,
-          vibration: row.vibration,
-          group: row.group,
-          class: [...row.class],
-          source: row.source,
-          score,
-        })),
+        assignments: ranked.map(assignmentReport),
         candidates,
       };
     })
