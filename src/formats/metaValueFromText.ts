@@ -1,7 +1,7 @@
 // Converts one metadata value written as text (a manifest cell, `edit --set field=value`) to its typed form.
 import { BandshelfError } from '../error.js';
 import { type EntryMetaField, type EntryMetaPatch, entryMetaPatchSchema } from '../schema/meta.js';
-import { metaErrorFromIssues } from './metaErrorFromIssues.js';
+import { metaErrorFromIssues } from '../schema/metaErrorFromIssues.js';
 
 /** A field name and the text given for it. `concentration.value` and `concentration.unit` address the parts. */
 export interface MetaText {

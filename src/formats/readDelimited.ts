@@ -1,6 +1,8 @@
 // Reads delimited text (CSV, semicolon, tab or whitespace) with one x column and one or more y columns into spectra in
 // cm⁻¹ and absorbance, one per y column.
 import { BandshelfError } from '../error.js';
+import { finiteRange } from '../spectrum/finiteRange.js';
+import { looksPercentTransmittance } from './looksPercentTransmittance.js';
 import { markSaturated } from './markSaturated.js';
 import { spectrumFromPoints } from './spectrumFromPoints.js';
 import { toWavenumberAbsorbance } from './toWavenumberAbsorbance.js';
@@ -336,16 +338,6 @@ function headerFields(line: string, delimiter: Delimiter): string[] {
   return cells;
 }
 
-function range(v: Float64Array): { min: number; max: number } {
-  let min = Number.POSITIVE_INFINITY;
-  let max = Number.NEGATIVE_INFINITY;
-  for (const a of v) {
-    if (a < min) min = a;
-    if (a > max) max = a;
-  }
-  return { min, max };
-}
-
 /** A unit word standing alone or between separators, so `um` matches `wavelength_um` but not `wavenumber`. */
 function word(cell: string, pattern: string): boolean {
   return new RegExp(`(^|[^a-zµμ])(${pattern})([^a-zµμ]|$)`, 'i').test(cell);
@@ -399,7 +391,7 @@ function detectXUnit(cell: string, x: Float64Array, warnings: ParseWarning[], wh
   // A terahertz axis is an optical frequency bandshelf converts (ν̃ = f / c); other frequencies are refused below.
   if (word(c, 'thz|terahertz')) return 'thz';
   refuseForeign(c, FOREIGN_X, 'x', 'a wavenumber (cm-1) or wavelength (µm, nm)', where);
-  const { min, max } = range(x);
+  const { min, max } = finiteRange(x);
   if (min >= 2 && max <= 25) {
     warnings.push({
       line,
@@ -427,8 +419,7 @@ function detectYUnit(cell: string, y: Float64Array, warnings: ParseWarning[], wh
   const { line } = where;
   const c = cell.toLowerCase();
   refuseForeign(c, FOREIGN_Y, 'y', 'absorbance or transmittance', where);
-  const { min, max } = range(y);
-  const looksPercent = min >= 0 && max <= 100.5 && max > 3;
+  const { min, max } = finiteRange(y);
   const percentWords = /%|percent/.test(c);
   if (percentWords || /transmittance|transmission/.test(c) || word(c, 't')) {
     const scale = transmittanceScale(y, {
@@ -443,7 +434,7 @@ function detectYUnit(cell: string, y: Float64Array, warnings: ParseWarning[], wh
   if (/absorbance|optical density/.test(c) || word(c, 'a|abs|au|od')) return 'absorbance';
   warnings.push({
     line,
-    message: looksPercent
+    message: looksPercentTransmittance(y)
       ? `no y unit in a header; read as absorbance, though values from ${min} to ${max} look like %T (give the y unit if so)`
       : 'no y unit in a header; y read as absorbance (give the y unit if not)',
   });

@@ -4,6 +4,7 @@ import { finiteRange } from '../spectrum/finiteRange.js';
 import { decodeAsdfLines } from './decodeAsdfLines.js';
 import { decodeXyPairs } from './decodeXyPairs.js';
 import type { JcampBlock, JcampRecord } from './jcampTypes.js';
+import { looksPercentTransmittance } from './looksPercentTransmittance.js';
 import { markSaturated } from './markSaturated.js';
 import { spectrumFromPoints } from './spectrumFromPoints.js';
 import { splitJcampRecords } from './splitJcampRecords.js';
@@ -250,7 +251,9 @@ function readYUnit(
       line: block.line,
       message:
         'no ##YUNITS; y read as absorbance' +
-        (looksPercent(y) ? ` (values reach ${max}, which looks like %T: give the y unit if so)` : ''),
+        (looksPercentTransmittance(y)
+          ? ` (values reach ${max}, which looks like %T: give the y unit if so)`
+          : ''),
     });
     return 'absorbance';
   }
@@ -301,12 +304,6 @@ function isAbsorbanceShaped(v: string): boolean {
     /BASE ?10|DECADIC|ABSORPTIVITY|ABSORPTION COEFFICIENT|EXTINCTION COEFFICIENT/.test(v) ||
     /^\(?[A-ZΜµ/ ]+\)?-1 ?\(?[A-Z]+\)?-1$/.test(v)
   );
-}
-
-/** Transmittance on a 0–100 scale: every value inside it and some well above what a fraction or absorbance reaches. */
-function looksPercent(y: Float64Array): boolean {
-  const { min, max } = finiteRange(y);
-  return min >= 0 && max <= 100.5 && max > 3;
 }
 
 function readBlock(

@@ -1,7 +1,7 @@
 // Reads a folder's metadata manifest: a CSV table, one row per data file and one column per metadata field.
 import { BandshelfError } from '../error.js';
 import { type EntryMetaPatch, entryMetaFields, entryMetaPatchSchema } from '../schema/meta.js';
-import { metaErrorFromIssues } from './metaErrorFromIssues.js';
+import { metaErrorFromIssues } from '../schema/metaErrorFromIssues.js';
 import { metaValueFromText } from './metaValueFromText.js';
 
 export interface ReadManifestOptions {

@@ -2,8 +2,8 @@
 import { z } from 'zod';
 import { BandshelfError } from '../error.js';
 import { type EntryMetaPatch, entryMetaPatchSchema } from '../schema/meta.js';
+import { metaErrorFromIssues } from '../schema/metaErrorFromIssues.js';
 import { type Recipe, recipeSchema } from '../schema/recipe.js';
-import { metaErrorFromIssues } from './metaErrorFromIssues.js';
 
 /** The trace files of a field-resolved measurement, named relative to the sidecar's folder. */
 export interface SidecarTimeDomain {

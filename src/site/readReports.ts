@@ -2,7 +2,7 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { BandshelfError } from '../error.js';
-import { metaErrorFromIssues } from '../formats/metaErrorFromIssues.js';
+import { metaErrorFromIssues } from '../schema/metaErrorFromIssues.js';
 import { matchReportSchema } from '../schema/matchReport.js';
 import type { SiteReport } from './types.js';
 

@@ -1,7 +1,7 @@
 // The Eleventy configuration of the site, as a plugin: checks its options before Eleventy reads a template.
 import type { EleventyUserConfig } from '@11ty/eleventy';
 import { z } from 'zod';
-import { metaErrorFromIssues } from '../formats/metaErrorFromIssues.js';
+import { metaErrorFromIssues } from '../schema/metaErrorFromIssues.js';
 import { relativeUrl } from './relativeUrl.js';
 import { reportBodyHtml } from './reportBodyHtml.js';
 import type { ReportPage, SiteView } from './types.js';

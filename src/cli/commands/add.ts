@@ -1,7 +1,7 @@
 // `bandshelf add`: parses the flags, calls the ingest pipeline and prints its outcome (table or --json).
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
-import { metaErrorFromIssues } from '../../formats/metaErrorFromIssues.js';
+import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import { type IngestOutcome, ingest } from '../../library/ingest/ingest.js';
 import type { CommitOutcome } from '../../library/ingest/ingestTypes.js';
 import { type LoadedSidecar, loadSidecar } from '../../library/ingest/loadSidecar.js';

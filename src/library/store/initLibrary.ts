@@ -1,7 +1,7 @@
 // Creates a new, empty library file with its grid and default recipe.
 import { existsSync } from 'node:fs';
 import { BandshelfError } from '../../error.js';
-import { metaErrorFromIssues } from '../../formats/metaErrorFromIssues.js';
+import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import { type Grid, gridSchema, type RecipeInput, recipeSchema } from '../../schema/recipe.js';
 import type { Library } from '../types.js';
 import { appendSeal } from './appendSeal.js';

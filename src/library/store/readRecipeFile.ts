@@ -1,6 +1,6 @@
 // Reads and validates a recipe JSON file (`init --recipe`, `add --recipe`), naming the file and field on error.
 import { BandshelfError } from '../../error.js';
-import { metaErrorFromIssues } from '../../formats/metaErrorFromIssues.js';
+import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import { type Recipe, recipeSchema } from '../../schema/recipe.js';
 import { readTextFile } from './readTextFile.js';
 

@@ -11,6 +11,7 @@
 // revision. Throws BandshelfError (BAD_RECIPE, BAD_FORMAT, TOO_FEW_POINTS, NOT_FINITE, NOT_MONOTONIC, NOT_A_SPECTRUM).
 import type { z } from 'zod';
 import { BandshelfError } from '../../error.js';
+import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import { type TimeDomainStep, timeDomainSchema } from '../../schema/recipe.js';
 import type { Spectrum } from '../types.js';
 import { alignTraces } from './alignTraces.js';
@@ -98,9 +99,10 @@ export function traceToSpectrum(
 ): TraceToSpectrumResult {
   const parsed = timeDomainSchema.safeParse(step);
   if (!parsed.success) {
-    const issue = parsed.error.issues[0];
-    throw new BandshelfError('BAD_RECIPE', issue?.message ?? 'invalid time-domain step', {
-      field: ['timeDomain', ...(issue?.path ?? [])].join('.'),
+    throw metaErrorFromIssues(parsed.error.issues, {
+      code: 'BAD_RECIPE',
+      prefix: 'timeDomain',
+      knownFields: Object.keys(timeDomainSchema.shape),
     });
   }
   const recipe = parsed.data;

@@ -1,7 +1,7 @@
 // Turns zod's validation issues on metadata into one BandshelfError that names the file, line and field.
 import type { z } from 'zod';
 import { BandshelfError, type ErrorCode } from '../error.js';
-import { entryMetaFields } from '../schema/meta.js';
+import { entryMetaFields } from './meta.js';
 
 export interface MetaErrorFromIssuesOptions {
   /**
