@@ -2,8 +2,8 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { BandshelfError } from '../error.js';
-import { metaErrorFromIssues } from '../schema/metaErrorFromIssues.js';
 import { matchReportSchema } from '../schema/matchReport.js';
+import { metaErrorFromIssues } from '../schema/metaErrorFromIssues.js';
 import type { SiteReport } from './types.js';
 
 export interface ReadReportsOptions {

@@ -1,7 +1,6 @@
 // `bandshelf add`: parses the flags, calls the ingest pipeline and prints its outcome (table or --json).
 import { resolve } from 'node:path';
 import { BandshelfError } from '../../error.js';
-import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import { type IngestOutcome, ingest } from '../../library/ingest/ingest.js';
 import type { CommitOutcome } from '../../library/ingest/ingestTypes.js';
 import { type LoadedSidecar, loadSidecar } from '../../library/ingest/loadSidecar.js';
@@ -13,6 +12,7 @@ import { readRecipeFile } from '../../library/store/readRecipeFile.js';
 import { readTextFile } from '../../library/store/readTextFile.js';
 import { libraryNearDuplicateIndex } from '../../match/libraryNearDuplicateIndex.js';
 import { entryMetaPatchSchema } from '../../schema/meta.js';
+import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import type { CommandSpec } from '../command.js';
 import { flagWording } from '../flagWording.js';
 import { readingOptions } from '../readingOptions.js';

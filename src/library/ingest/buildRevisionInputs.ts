@@ -3,8 +3,8 @@
 import { basename, dirname, join } from 'node:path';
 import { BandshelfError } from '../../error.js';
 import { MAX_INPUT_BYTES } from '../../formats/maxInputBytes.js';
-import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import { type EntryMetaPatch, entryMetaPatchSchema, entryMetaSchema } from '../../schema/meta.js';
+import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import { type Recipe, timeDomainSchema } from '../../schema/recipe.js';
 import { pinNoiseFloor } from '../../spectrum/trace/pinNoiseFloor.js';
 import { readOriginals } from '../store/readOriginals.js';

@@ -1,8 +1,8 @@
 // Reads a sidecar (or a `--meta` file) into its sections, adding the one key only the library uses: `read`, the
 // reading options (units, JCAMP-DX block) that `export --all` records so a re-add parses the bytes the same way.
 import { z } from 'zod';
-import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import { readSidecarSections, type SidecarSections } from '../../formats/readSidecarSections.js';
+import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import type { ReadOptions } from '../types.js';
 
 const readOptionsSchema = z

@@ -1,7 +1,7 @@
 // Stores a lab's own band-assignment rows in its library, each validated by the band-assignment schema.
 import { BandshelfError } from '../../error.js';
-import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import { type BandAssignment, bandAssignmentSchema } from '../../schema/bandAssignment.js';
+import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import type { Library } from '../types.js';
 import { canonicalJson } from './canonicalJson.js';
 import { writeTransaction } from './writeTransaction.js';

@@ -1,8 +1,8 @@
 // Makes a metadata revision: same files, recipe and processed data, new metadata (and so a new content hash); a
 // changed resolution under a resolution step re-pins the step and re-processes (a data revision).
 import { BandshelfError } from '../../error.js';
-import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import { entryMetaSchema } from '../../schema/meta.js';
+import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import type { CommitOutcome } from '../ingest/ingestTypes.js';
 import { revisionForEditedMeta } from '../ingest/revisionForEditedMeta.js';
 import type { Library } from '../types.js';
