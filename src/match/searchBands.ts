@@ -111,6 +111,26 @@ export function searchBands(
   const tolerance = options.tolerance ?? BAND_TOLERANCE_CM1;
   const requireAll = options.requireAll ?? false;
   const top = options.top ?? 20;
+  checkQuery(bands, tolerance, top);
+  const windows: Windows = { from: new Int32Array(bands.length), to: new Int32Array(bands.length) };
+  for (let j = 0; j < bands.length; j++) {
+    windows.from[j] = lowerBound(index.position, bands[j]!.position - tolerance);
+    windows.to[j] = upperBound(index.position, bands[j]!.position + tolerance);
+  }
+  const scratch = scratchFor(index);
+  const selected = entriesWorthScoring(index, windows, requireAll ? bands.length : 0, top);
+  const touched = accumulateKeys(index, bands, windows, selected, scratch, 1 / (2 * tolerance));
+  const slots = topKeys(scratch, touched, top, requireAll ? 4 * bands.length : 0);
+  return exactHits(index, bands, windows, slots, scratch, 1 / (2 * tolerance));
+}
+
+/** Each query band's range of peak indices in the sorted index: [from, to). */
+interface Windows {
+  from: Int32Array;
+  to: Int32Array;
+}
+
+function checkQuery(bands: readonly BandQuery[], tolerance: number, top: number): void {
   if (!(Number.isFinite(tolerance) && tolerance > 0)) {
     throw new BandshelfError(
       'BAD_OPTION',
@@ -134,25 +154,27 @@ export function searchBands(
       });
     }
   }
-  const { bandBest, key, touched, bandRows, slot } = scratchFor(index);
-  const { position, entry, relative } = index;
-  const inverse = 1 / (2 * tolerance);
-  const n = bands.length;
-  const perBand = 1 / n;
-  const rows = index.entries.length;
-  const words = (rows + 31) >>> 5;
-  const from = new Int32Array(n);
-  const to = new Int32Array(n);
-  for (let j = 0; j < n; j++) {
-    from[j] = lowerBound(position, bands[j]!.position - tolerance);
-    to[j] = upperBound(position, bands[j]!.position + tolerance);
-  }
+}
 
-  // Stage 1: one bit per entry and band (a few kB, cache-resident), so counting matched bands costs little.
+function popcount(v: number): number {
+  let c = v - ((v >>> 1) & 0x55555555);
+  c = (c & 0x33333333) + ((c >>> 2) & 0x33333333);
+  return (Math.imul((c + (c >>> 4)) & 0x0f0f0f0f, 0x01010101) >>> 24) & 0xff;
+}
+
+/**
+ * Stage 1: one bit per entry and band (a few kB, cache-resident), counted in bit-sliced planes, so counting matched
+ * bands costs little. Returns the bit set of entries whose matched-band count can still reach the top `top`
+ * (`required` > 0: exactly those matching that many bands).
+ */
+function entriesWorthScoring(index: BandIndex, windows: Windows, required: number, top: number): Int32Array {
+  const { entry } = index;
+  const n = windows.from.length;
+  const words = (index.entries.length + 31) >>> 5;
   const bits = new Uint32Array(words * n);
   for (let j = 0; j < n; j++) {
     const base = j * words;
-    for (let k = from[j]!; k < to[j]!; k++) {
+    for (let k = windows.from[j]!; k < windows.to[j]!; k++) {
       const row = entry[k]!;
       bits[base + (row >>> 5)]! |= 1 << (row & 31);
     }
@@ -186,14 +208,9 @@ export function searchBands(
     }
     return greater | equal;
   };
-  const popcount = (v: number): number => {
-    v -= (v >>> 1) & 0x55555555;
-    v = (v & 0x33333333) + ((v >>> 2) & 0x33333333);
-    return (Math.imul((v + (v >>> 4)) & 0x0f0f0f0f, 0x01010101) >>> 24) & 0xff;
-  };
   // The lowest band count that still has to be scored: the top-k can only come from counts ≥ it.
-  let floor = requireAll ? n : 1;
-  if (!requireAll) {
+  let floor = required > 0 ? required : 1;
+  if (required === 0) {
     for (let m = n; m >= 1; m--) {
       let have = 0;
       for (let w = 0; w < words; w++) have += popcount(atLeast(m, w));
@@ -205,15 +222,31 @@ export function searchBands(
   }
   const selected = new Int32Array(words);
   for (let w = 0; w < words; w++) selected[w] = atLeast(floor, w);
+  return selected;
+}
 
-  // Stage 2: scores for the selected entries only, one sweep per band keeping each entry's best peak; the few
-  // selected entries of the window are then added to their keys once and cleared.
+/**
+ * Stage 2: ranking keys for the selected entries only, one sweep per band keeping each entry's best peak; the few
+ * selected entries of the window are then added to their keys once and cleared. Returns how many entries of
+ * `scratch.touched` now hold a key.
+ */
+function accumulateKeys(
+  index: BandIndex,
+  bands: readonly BandQuery[],
+  windows: Windows,
+  selected: Int32Array,
+  scratch: Scratch,
+  inverse: number,
+): number {
+  const { position, entry, relative } = index;
+  const { bandBest, key, touched, bandRows } = scratch;
+  const perBand = 1 / bands.length;
   let touchedCount = 0;
-  for (let j = 0; j < n; j++) {
+  for (let j = 0; j < bands.length; j++) {
     const band = bands[j]!;
     const wanted = band.strength === undefined ? -1 : STRENGTH_RANK[band.strength];
     let inBand = 0;
-    for (let k = from[j]!; k < to[j]!; k++) {
+    for (let k = windows.from[j]!; k < windows.to[j]!; k++) {
       const row = entry[k]!;
       if ((selected[row >>> 5]! & (1 << (row & 31))) === 0) continue;
       const s = peakScore(position[k]! - band.position, relative[k]!, wanted, inverse);
@@ -228,12 +261,15 @@ export function searchBands(
       bandBest[row] = 0;
     }
   }
+  return touchedCount;
+}
 
-  // Bounded top-k by key (bands matched dominate: scores add at most 1).
+/** Bounded top-k by key (bands matched dominate: scores add at most 1); clears the keys it reads. */
+function topKeys(scratch: Scratch, touchedCount: number, top: number, needed: number): Int32Array {
+  const { key, touched } = scratch;
   const slotRow = new Int32Array(top);
   const slotKey = new Float64Array(top);
   let filled = 0;
-  const needed = requireAll ? 4 * n : 0;
   for (let i = 0; i < touchedCount; i++) {
     const row = touched[i]!;
     const value = key[row]!;
@@ -250,9 +286,23 @@ export function searchBands(
     slotKey[at] = value;
     slotRow[at] = row;
   }
+  return slotRow.subarray(0, filled);
+}
 
-  // Second pass over the same windows for the returned hits only: exact scores and the matched peaks.
-  const returned = new Int32Array(words);
+/** Second pass over the same windows for the returned entries only: exact scores and the matched peaks. */
+function exactHits(
+  index: BandIndex,
+  bands: readonly BandQuery[],
+  windows: Windows,
+  slotRow: Int32Array,
+  scratch: Scratch,
+  inverse: number,
+): BandHit[] {
+  const { position, entry, relative } = index;
+  const { slot } = scratch;
+  const filled = slotRow.length;
+  const perBand = 1 / bands.length;
+  const returned = new Int32Array((index.entries.length + 31) >>> 5);
   for (let i = 0; i < filled; i++) {
     const row = slotRow[i]!;
     slot[row] = i;
@@ -262,17 +312,16 @@ export function searchBands(
   const scoreOf = new Float64Array(filled);
   const bestK = new Int32Array(filled);
   const bestS = new Float64Array(filled);
-  for (let j = 0; j < n && filled > 0; j++) {
+  for (let j = 0; j < bands.length && filled > 0; j++) {
     const band = bands[j]!;
     const wanted = band.strength === undefined ? -1 : STRENGTH_RANK[band.strength];
     bestK.fill(-1);
     bestS.fill(0);
-    for (let k = from[j]!; k < to[j]!; k++) {
+    for (let k = windows.from[j]!; k < windows.to[j]!; k++) {
       const row = entry[k]!;
       if ((returned[row >>> 5]! & (1 << (row & 31))) === 0) continue;
-      const p = position[k]!;
       const at = slot[row]!;
-      const s = peakScore(p - band.position, relative[k]!, wanted, inverse);
+      const s = peakScore(position[k]! - band.position, relative[k]!, wanted, inverse);
       if (s > bestS[at]!) {
         bestS[at] = s;
         bestK[at] = k;
@@ -292,14 +341,11 @@ export function searchBands(
     }
   }
   for (let i = 0; i < filled; i++) slot[slotRow[i]!] = -1;
-
-  const hits: BandHit[] = [];
-  for (let i = 0; i < filled; i++) {
-    const row = slotRow[i]!;
+  const hits = Array.from(slotRow, (row, i): BandHit => {
     const e = index.entries[row]!;
     const matches = matchesOf[i]!;
     const meanError = matches.reduce((sum, m) => sum + Math.abs(m.error), 0) / Math.max(1, matches.length);
-    hits.push({
+    return {
       row,
       id: e.id,
       revision: e.revision,
@@ -309,8 +355,8 @@ export function searchBands(
       score: scoreOf[i]!,
       meanError,
       matches,
-    });
-  }
+    };
+  });
   // Equal keys: smaller mean error first, then id (the bounded insert above kept row order only).
   hits.sort(
     (a, b) =>

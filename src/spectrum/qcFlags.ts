@@ -98,9 +98,6 @@ export interface QcFlagsOptions {
   minDynamicRangeOrders?: number;
 }
 
-/** The name the task contracts use for these options. */
-export type QcOptions = QcFlagsOptions;
-
 /**
  * Checks, in this order: saturation inside the crop window (a warning above the limit, and for a flat top: points
  * clipped at the absorbance ceiling are already kept out of the processed vector, and a spectrum with nothing usable
@@ -128,12 +125,25 @@ export function qcFlags(
       { field: 'processed' },
     );
   }
-  const flags: QcFlag[] = [];
-  const { wavenumber: x, absorbance: y } = ascending(original);
-  const n = x.length;
-  const exclude = options.exclude ?? [];
+  const sorted = ascending(original);
+  return [
+    ...saturationFlags(sorted, options),
+    ...negativeAbsorbanceFlags(options),
+    ...snrFlags(sorted, options),
+    ...spikeFlags(sorted, options),
+    ...gapFlags(sorted, grid, options),
+    ...spacingFlags(sorted, grid, options),
+    ...coverageFlags(processed, grid, options),
+    ...resolutionFlags(options),
+    ...dynamicRangeFlags(options),
+  ];
+}
 
-  // Saturation.
+/** Saturation inside the crop window: above the limit, and a flat (clipped) band top. */
+function saturationFlags(spectrum: Spectrum, options: QcFlagsOptions): QcFlag[] {
+  const { wavenumber: x, absorbance: y } = spectrum;
+  const n = x.length;
+  const flags: QcFlag[] = [];
   const limit = options.saturationLimit ?? 2.0;
   const crop = options.crop ?? null;
   const lo = crop === null ? Number.NEGATIVE_INFINITY : Math.min(crop.min, crop.max);
@@ -143,86 +153,96 @@ export function qcFlags(
     if (x[i]! < lo || x[i]! > hi) continue;
     if (Number.isFinite(y[i]!) && (iMax < 0 || y[i]! > y[iMax]!)) iMax = i;
   }
-  if (iMax >= 0) {
-    const max = y[iMax]!;
-    if (max > limit) {
-      flags.push({
-        code: 'saturation',
-        level: 'warning',
-        message: `The maximum absorbance ${num(max)} at ${wn(x[iMax]!)} exceeds the saturation limit of ${num(limit)}: band heights there are not linear in concentration.`,
-        value: max,
-      });
-    }
-    const flat = longestFlatTop(x, y, max, options.flatTolerance ?? 1e-4);
-    if (flat.points >= (options.flatPoints ?? 5) && flat.width >= (options.flatWidth ?? 8)) {
-      flags.push({
-        code: 'saturation',
-        level: 'warning',
-        message: `The band top at ${wn(flat.from)}–${wn(flat.to)} is flat: ${flat.points} points within ${num(options.flatTolerance ?? 1e-4)} of the maximum ${num(max)}, as when the detector clips.`,
-        value: flat.points,
-      });
-    }
+  if (iMax < 0) return flags;
+  const max = y[iMax]!;
+  if (max > limit) {
+    flags.push({
+      code: 'saturation',
+      level: 'warning',
+      message: `The maximum absorbance ${num(max)} at ${wn(x[iMax]!)} exceeds the saturation limit of ${num(limit)}: band heights there are not linear in concentration.`,
+      value: max,
+    });
   }
-
-  // Negative absorbance after the baseline.
-  if (options.baselineCorrected) {
-    const c = options.baselineCorrected;
-    let lo = -1;
-    let hiValue = Number.NEGATIVE_INFINITY;
-    for (let i = 0; i < c.absorbance.length; i++) {
-      const v = c.absorbance[i]!;
-      if (!Number.isFinite(v)) continue;
-      if (lo < 0 || v < c.absorbance[lo]!) lo = i;
-      if (v > hiValue) hiValue = v;
-    }
-    const tolerance = options.negativeTolerance ?? 0.02;
-    if (lo >= 0) {
-      const min = c.absorbance[lo]!;
-      const threshold = tolerance * Math.max(Math.abs(hiValue), Number.MIN_VALUE);
-      if (min < -threshold) {
-        flags.push({
-          code: 'negative-absorbance',
-          level: 'warning',
-          message: `After baseline correction the absorbance falls to ${num(min)} at ${wn(c.wavenumber[lo]!)}, more than ${num(tolerance * 100)} % of the maximum below zero.`,
-          value: min,
-        });
-      }
-    }
+  const flat = longestFlatTop(x, y, max, options.flatTolerance ?? 1e-4);
+  if (flat.points >= (options.flatPoints ?? 5) && flat.width >= (options.flatWidth ?? 8)) {
+    flags.push({
+      code: 'saturation',
+      level: 'warning',
+      message: `The band top at ${wn(flat.from)}–${wn(flat.to)} is flat: ${flat.points} points within ${num(options.flatTolerance ?? 1e-4)} of the maximum ${num(max)}, as when the detector clips.`,
+      value: flat.points,
+    });
   }
+  return flags;
+}
 
-  // Noise and SNR.
+/** Negative absorbance after the baseline step (skipped without the corrected spectrum). */
+function negativeAbsorbanceFlags(options: QcFlagsOptions): QcFlag[] {
+  const c = options.baselineCorrected;
+  if (!c) return [];
+  let lo = -1;
+  let hiValue = Number.NEGATIVE_INFINITY;
+  for (let i = 0; i < c.absorbance.length; i++) {
+    const v = c.absorbance[i]!;
+    if (!Number.isFinite(v)) continue;
+    if (lo < 0 || v < c.absorbance[lo]!) lo = i;
+    if (v > hiValue) hiValue = v;
+  }
+  const tolerance = options.negativeTolerance ?? 0.02;
+  if (lo < 0) return [];
+  const min = c.absorbance[lo]!;
+  const threshold = tolerance * Math.max(Math.abs(hiValue), Number.MIN_VALUE);
+  if (min >= -threshold) return [];
+  return [
+    {
+      code: 'negative-absorbance',
+      level: 'warning',
+      message: `After baseline correction the absorbance falls to ${num(min)} at ${wn(c.wavenumber[lo]!)}, more than ${num(tolerance * 100)} % of the maximum below zero.`,
+      value: min,
+    },
+  ];
+}
+
+/** Low SNR in the band-free noise window (no flag when the window is not covered). */
+function snrFlags(spectrum: Spectrum, options: QcFlagsOptions): QcFlag[] {
   const window = options.noiseWindow ?? { min: 1900, max: 2000 };
   const snrOptions = options.baselineCorrected ? { window, signal: options.baselineCorrected } : { window };
-  const { noise, snr } = estimateSnr({ wavenumber: x, absorbance: y }, snrOptions);
+  const { noise, snr } = estimateSnr(spectrum, snrOptions);
   const minSnr = options.minSnr ?? 100;
-  if (Number.isFinite(noise) && snr < minSnr) {
-    flags.push({
+  if (!(Number.isFinite(noise) && snr < minSnr)) return [];
+  return [
+    {
       code: 'low-snr',
       level: 'warning',
       message: `The signal-to-noise ratio is ${num(snr)} (noise ${num(noise)} RMS in ${wn(Math.min(window.min, window.max), false)}–${wn(Math.max(window.min, window.max))}), below ${num(minSnr)}.`,
       value: snr,
-    });
-  }
+    },
+  ];
+}
 
-  // Spikes.
-  const spikes = findSpikes(x, y, options.spikeThreshold ?? 8);
-  if (spikes.count > 0) {
-    flags.push({
+function spikeFlags(spectrum: Spectrum, options: QcFlagsOptions): QcFlag[] {
+  const spikes = findSpikes(spectrum.wavenumber, spectrum.absorbance, options.spikeThreshold ?? 8);
+  if (spikes.count === 0) return [];
+  return [
+    {
       code: 'spikes',
       level: 'warning',
       message: `${spikes.count} single-point spike${spikes.count === 1 ? '' : 's'} found; the largest, ${num(spikes.largest)} absorbance units, at ${wn(spikes.at)}.`,
       value: spikes.count,
-    });
-  }
+    },
+  ];
+}
 
-  // Gaps in the source coverage, where they touch the grid and are not an excluded window.
+/** Gaps in the source coverage, where they touch the grid and are not an excluded window. */
+function gapFlags(spectrum: Spectrum, grid: Grid, options: QcFlagsOptions): QcFlag[] {
+  const x = spectrum.wavenumber;
+  const exclude = options.exclude ?? [];
   const gridLo = Math.min(grid.start, grid.stop);
   const gridHi = Math.max(grid.start, grid.stop);
   const maxGap = options.maxGap ?? 16;
   let gaps = 0;
   let widest = 0;
   let widestFrom = 0;
-  for (let i = 1; i < n; i++) {
+  for (let i = 1; i < x.length; i++) {
     const a = x[i - 1]!;
     const b = x[i]!;
     if (b - a <= maxGap || b < gridLo || a > gridHi) continue;
@@ -235,38 +255,48 @@ export function qcFlags(
       widestFrom = a;
     }
   }
-  if (gaps > 0) {
-    flags.push({
+  if (gaps === 0) return [];
+  return [
+    {
       code: 'coverage-gap',
       level: 'warning',
       message: `${gaps} gap${gaps === 1 ? '' : 's'} wider than ${num(maxGap)} cm⁻¹ between data points; the widest is ${num(widest)} cm⁻¹ (${wn(widestFrom, false)}–${wn(widestFrom + widest)}), left not covered.`,
       value: widest,
-    });
-  }
+    },
+  ];
+}
 
-  // Coarse point spacing.
-  if (n >= 2) {
-    const spacing = new Float64Array(n - 1);
-    for (let i = 1; i < n; i++) spacing[i - 1] = x[i]! - x[i - 1]!;
-    const median = medianOf(spacing);
-    const factor = options.coarseFactor ?? 2;
-    if (median > factor * grid.step) {
-      flags.push({
-        code: 'coarse-spacing',
-        level: 'warning',
-        message: `The median point spacing is ${num(median)} cm⁻¹, coarser than ${num(factor)} × the grid step of ${num(grid.step)} cm⁻¹.`,
-        value: median,
-      });
-    }
-  }
+/** Median point spacing coarser than `coarseFactor` × the grid step. */
+function spacingFlags(spectrum: Spectrum, grid: Grid, options: QcFlagsOptions): QcFlag[] {
+  const x = spectrum.wavenumber;
+  const n = x.length;
+  if (n < 2) return [];
+  const spacing = new Float64Array(n - 1);
+  for (let i = 1; i < n; i++) spacing[i - 1] = x[i]! - x[i - 1]!;
+  const median = medianOf(spacing);
+  const factor = options.coarseFactor ?? 2;
+  if (median <= factor * grid.step) return [];
+  return [
+    {
+      code: 'coarse-spacing',
+      level: 'warning',
+      message: `The median point spacing is ${num(median)} cm⁻¹, coarser than ${num(factor)} × the grid step of ${num(grid.step)} cm⁻¹.`,
+      value: median,
+    },
+  ];
+}
 
-  // Narrow coverage of the grid.
+/** Narrow coverage of the grid outside the excluded windows: an error when nothing is covered. */
+function coverageFlags(processed: Float64Array, grid: Grid, options: QcFlagsOptions): QcFlag[] {
+  const exclude = options.exclude ?? [];
+  const gridLo = Math.min(grid.start, grid.stop);
+  const gridHi = Math.max(grid.start, grid.stop);
   const axis = gridAxis(grid);
   let counted = 0;
   let covered = 0;
   let first = -1;
   let last = -1;
-  for (let i = 0; i < length; i++) {
+  for (let i = 0; i < processed.length; i++) {
     const v = axis[i]!;
     if (exclude.some((w) => v >= Math.min(w.min, w.max) && v <= Math.max(w.min, w.max))) continue;
     counted++;
@@ -280,46 +310,54 @@ export function qcFlags(
   const minCoverage = options.minCoverage ?? 0.9;
   if (covered === 0) {
     // Nothing on the grid means nothing to match or plot: an error, so such a file is not stored by mistake.
-    flags.push({
-      code: 'narrow-coverage',
-      level: 'error',
-      message: `The spectrum covers none of the library grid ${wn(gridLo, false)}–${wn(gridHi)} outside the excluded windows; it cannot be matched.`,
-      value: 0,
-    });
-  } else if (fraction < minCoverage) {
-    const span = first >= 0 ? ` (data over ${wn(axis[first]!, false)}–${wn(axis[last]!)})` : '';
-    flags.push({
+    return [
+      {
+        code: 'narrow-coverage',
+        level: 'error',
+        message: `The spectrum covers none of the library grid ${wn(gridLo, false)}–${wn(gridHi)} outside the excluded windows; it cannot be matched.`,
+        value: 0,
+      },
+    ];
+  }
+  if (fraction >= minCoverage) return [];
+  const span = first >= 0 ? ` (data over ${wn(axis[first]!, false)}–${wn(axis[last]!)})` : '';
+  return [
+    {
       code: 'narrow-coverage',
       level: 'warning',
       message: `The spectrum covers ${num(fraction * 100)} % of the library grid ${wn(gridLo, false)}–${wn(gridHi)}${span}, below ${num(minCoverage * 100)} %; matching uses the overlap only.`,
       value: fraction,
-    });
-  }
+    },
+  ];
+}
 
-  // Resolution coarser than the recipe's common target.
+/** A resolution coarser than the recipe's common target. */
+function resolutionFlags(options: QcFlagsOptions): QcFlag[] {
   const resolution = options.resolution;
-  if (resolution !== undefined && resolution.value > resolution.target) {
-    flags.push({
+  if (resolution === undefined || resolution.value <= resolution.target) return [];
+  return [
+    {
       code: 'coarse-resolution',
       level: 'warning',
       message: `The resolution is ${num(resolution.value)} cm⁻¹${resolution.estimated ? ' (estimated from the point spacing)' : ''}, coarser than the recipe's common ${num(resolution.target)} cm⁻¹: kept as it is, so its bands are broader than those of entries brought to the target.`,
       value: resolution.value,
-    });
-  }
+    },
+  ];
+}
 
-  // Dynamic range of a field-resolved reference.
-  if (options.dynamicRangeOrders !== undefined) {
-    const minOrders = options.minDynamicRangeOrders ?? 3;
-    if (!(options.dynamicRangeOrders >= minOrders)) {
-      flags.push({
-        code: 'low-dynamic-range',
-        level: 'warning',
-        message: `The reference's spectral dynamic range is ${num(options.dynamicRangeOrders)} orders of magnitude, below ${num(minOrders)}.`,
-        value: options.dynamicRangeOrders,
-      });
-    }
-  }
-  return flags;
+/** Low spectral dynamic range of a field-resolved reference. */
+function dynamicRangeFlags(options: QcFlagsOptions): QcFlag[] {
+  if (options.dynamicRangeOrders === undefined) return [];
+  const minOrders = options.minDynamicRangeOrders ?? 3;
+  if (options.dynamicRangeOrders >= minOrders) return [];
+  return [
+    {
+      code: 'low-dynamic-range',
+      level: 'warning',
+      message: `The reference's spectral dynamic range is ${num(options.dynamicRangeOrders)} orders of magnitude, below ${num(minOrders)}.`,
+      value: options.dynamicRangeOrders,
+    },
+  ];
 }
 
 /** The spectrum in ascending wavenumber; a copy only when the input is not already ascending. */
