@@ -1,7 +1,7 @@
 // One synthetic reference spectrum as CSV text for the scale benchmarks (invented, labelled synthetic): by default
 // 3,350 points from 650 to 3999 cm⁻¹ at 1 cm⁻¹, Gaussian bands at class-typical positions plus a few of its own, a
 // sloping offset and noise. The same k and options always give the same bytes.
-import { seededRandom } from '../src/demo/seededRandom.js';
+import { syntheticReferenceModel } from './syntheticReferenceModel.js';
 
 export interface SyntheticReferenceCsvOptions {
   /** Points in the file.
@@ -21,40 +21,12 @@ export interface SyntheticReferenceCsvOptions {
   seed?: number;
 }
 
-/**
- * Band centres (cm⁻¹) per class, from the band-assignment table of the project's outside references (Barth 2007;
- * Movasaghi, Rehman & Rehman 2008): proteins amide A/I/II/III, lipids CH₂ stretches and ester C=O, carbohydrates
- * C–O stretches, nucleic acids PO₂⁻ stretches, metabolites and drugs a scatter of fingerprint bands.
- */
-const CLASS_BANDS: Record<string, number[]> = {
-  protein: [3300, 2960, 1652, 1545, 1450, 1400, 1240],
-  lipid: [3010, 2922, 2852, 1740, 1467, 1170],
-  carbohydrate: [3350, 2930, 1150, 1080, 1050, 1025],
-  'nucleic-acid': [3300, 1715, 1650, 1240, 1080, 970],
-  metabolite: [3200, 1620, 1577, 1468, 1417, 1160, 1043],
-  drug: [3300, 1760, 1680, 1600, 1510, 1370, 1240, 1010],
-};
-const CLASSES = Object.keys(CLASS_BANDS);
-
 export function syntheticReferenceCsv(
   k: number,
   options: SyntheticReferenceCsvOptions = {},
 ): { id: string; class: string; csv: string } {
   const { points = 3350, start = 650, step = 1, decimals = 6, seed = 0x5ca1e } = options;
-  const rnd = seededRandom(seed + k * 7919).uniform;
-  const cls = CLASSES[k % CLASSES.length]!;
-  const bands = CLASS_BANDS[cls]!.map((c) => ({
-    centre: c + (rnd() - 0.5) * 16,
-    width: 8 + rnd() * 22,
-    height: 0.05 + rnd() * 0.6,
-  }));
-  // A few bands of its own, so no two entries are near-duplicates.
-  for (let j = 0; j < 3 + Math.floor(rnd() * 5); j++) {
-    bands.push({ centre: 650 + rnd() * 3300, width: 5 + rnd() * 25, height: 0.02 + rnd() * 0.3 });
-  }
-  const offset = rnd() * 0.05;
-  const slope = (rnd() - 0.5) * 2e-5;
-  const noise = 2e-4 + rnd() * 3e-4;
+  const { cls, bands, offset, slope, noise, rnd } = syntheticReferenceModel(k, { seed });
   const lines = ['wavenumber_cm-1,absorbance'];
   for (let i = 0; i < points; i++) {
     const x = start + step * i;

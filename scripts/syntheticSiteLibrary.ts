@@ -5,6 +5,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { seededRandom } from '../src/demo/seededRandom.js';
+import { syntheticReferenceCsv } from './syntheticReferenceCsv.js';
+import { syntheticReferenceModel } from './syntheticReferenceModel.js';
 
 export interface SyntheticSiteLibraryOptions {
   /** Runs the CLI with these arguments (exiting on failure); `what` names the step in a failure message. */
@@ -14,61 +16,20 @@ export interface SyntheticSiteLibraryOptions {
 /** Bump when the generator changes, so a cached synthetic library is rebuilt. */
 const GENERATOR_VERSION = 2;
 
-/**
- * Band centres (cm⁻¹) per class, from the band-assignment table of the project's outside references (Barth 2007;
- * Movasaghi, Rehman & Rehman 2008): proteins amide A/I/II/III, lipids CH₂ stretches and ester C=O, carbohydrates
- * C–O stretches, nucleic acids PO₂⁻ stretches, metabolites and drugs a scatter of fingerprint bands.
- */
-const CLASS_BANDS: Record<string, number[]> = {
-  protein: [3300, 2960, 1652, 1545, 1450, 1400, 1240],
-  lipid: [3010, 2922, 2852, 1740, 1467, 1170],
-  carbohydrate: [3350, 2930, 1150, 1080, 1050, 1025],
-  'nucleic-acid': [3300, 1715, 1650, 1240, 1080, 970],
-  metabolite: [3200, 1620, 1577, 1468, 1417, 1160, 1043],
-  drug: [3300, 1760, 1680, 1600, 1510, 1370, 1240, 1010],
-};
-const CLASSES = Object.keys(CLASS_BANDS);
+/** The site benchmarks' own stream of synthetic references. */
+const SEED = 0x5eed;
 
-type Band = { centre: number; width: number; height: number };
-
-/** Entry k's class, bands and baseline, and its random stream positioned for the per-point noise. */
-function entryModel(k: number): {
-  cls: string;
-  bands: Band[];
-  offset: number;
-  slope: number;
-  noise: number;
-  rnd: () => number;
-} {
-  const rnd = seededRandom(0x5eed + k * 7919).uniform;
-  const cls = CLASSES[k % CLASSES.length]!;
-  const bands = CLASS_BANDS[cls]!.map((c) => ({
-    centre: c + (rnd() - 0.5) * 16,
-    width: 8 + rnd() * 22,
-    height: 0.05 + rnd() * 0.6,
-  }));
-  // A few bands of its own, so no two entries are near-duplicates.
-  for (let j = 0; j < 3 + Math.floor(rnd() * 5); j++) {
-    bands.push({ centre: 650 + rnd() * 3300, width: 5 + rnd() * 25, height: 0.02 + rnd() * 0.3 });
-  }
-  const offset = rnd() * 0.05;
-  const slope = (rnd() - 0.5) * 2e-5;
-  const noise = 2e-4 + rnd() * 3e-4;
-  return { cls, bands, offset, slope, noise, rnd };
-}
-
-/** One synthetic entry: a CSV file (1701 points, 4000–600 cm⁻¹ at 2 cm⁻¹, absorbance to 5 decimals) and a sidecar. */
+/** One synthetic entry: a CSV file (1701 points, 600–4000 cm⁻¹ at 2 cm⁻¹, absorbance to 5 decimals) and a sidecar. */
 function writeSyntheticEntry(dir: string, k: number): void {
-  const { cls, bands, offset, slope, noise, rnd } = entryModel(k);
-  const lines = ['wavenumber_cm-1,absorbance'];
-  for (let i = 0; i < 1701; i++) {
-    const x = 600 + 2 * i;
-    let y = offset + slope * (x - 600) + (rnd() + rnd() + rnd() - 1.5) * noise;
-    for (const b of bands) y += b.height * Math.exp(-0.5 * ((x - b.centre) / b.width) ** 2);
-    lines.push(`${x},${y.toFixed(5)}`);
-  }
+  const { class: cls, csv } = syntheticReferenceCsv(k, {
+    points: 1701,
+    start: 600,
+    step: 2,
+    decimals: 5,
+    seed: SEED,
+  });
   const id = `synthetic-${String(k).padStart(6, '0')}`;
-  writeFileSync(join(dir, `${id}.csv`), `${lines.join('\n')}\n`);
+  writeFileSync(join(dir, `${id}.csv`), csv);
   writeFileSync(
     join(dir, `${id}.meta.json`),
     JSON.stringify({
@@ -91,7 +52,7 @@ function writeSyntheticEntry(dir: string, k: number): void {
 function writeMixtureUnknown(path: string, entries: number): void {
   const parts = [1, 2, 3].map((j) => Math.floor((j * entries) / 4));
   const weights = [0.5, 0.3, 0.2];
-  const models = parts.map(entryModel);
+  const models = parts.map((k) => syntheticReferenceModel(k, { seed: SEED }));
   const rnd = seededRandom(0xbe11).uniform;
   const lines = ['wavenumber_cm-1,absorbance'];
   for (let i = 0; i < 1701; i++) {
