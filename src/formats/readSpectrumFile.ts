@@ -1,10 +1,9 @@
 // Reads any spectrum file bandshelf accepts from its bytes: sniffs JCAMP-DX or delimited text and parses it.
 import { BandshelfError } from '../error.js';
 import { decodeText } from './decodeText.js';
-import { MAX_INPUT_BYTES } from './maxInputBytes.js';
 import { readDelimited } from './readDelimited.js';
 import { readJcampDx } from './readJcampDx.js';
-import type { ParsedSpectrum, XUnit, YUnit } from './types.js';
+import { MAX_INPUT_BYTES, type ParsedSpectrum, type XUnit, type YUnit } from './types.js';
 
 export interface ReadSpectrumFileOptions {
   /** The file's name as the user gave it; every error and warning is about it. @default undefined */

@@ -9,7 +9,7 @@
 import { BandshelfError } from '../error.js';
 import type { Trace, TraceWarning } from '../spectrum/trace/types.js';
 import { decodeText } from './decodeText.js';
-import { MAX_INPUT_BYTES } from './maxInputBytes.js';
+import { MAX_INPUT_BYTES } from './types.js';
 
 export type TimeUnit = 'fs' | 'ps';
 

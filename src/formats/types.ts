@@ -60,3 +60,9 @@ export interface SpectrumReadOptions {
   /** Delay unit of time-domain traces, overriding their headers. */
   timeUnit?: 'fs' | 'ps';
 }
+
+/**
+ * The one default size limit of an input file (spectrum, trace, sidecar, manifest), 200 MB: larger than any spectrum
+ * or trace file seen in practice, small enough to read into memory.
+ */
+export const MAX_INPUT_BYTES = 200_000_000;

@@ -1,7 +1,13 @@
 // Band-position search: entries with stored peaks near the given positions, by binary search over the band index.
 import { BandshelfError } from '../error.js';
-import { BAND_TOLERANCE_CM1 } from './bandTolerance.js';
-import type { BandHit, BandIndex, BandMatch, BandQuery, BandStrength } from './types.js';
+import {
+  BAND_TOLERANCE_CM1,
+  type BandHit,
+  type BandIndex,
+  type BandMatch,
+  type BandQuery,
+  type BandStrength,
+} from './types.js';
 
 export interface SearchBandsOptions {
   /**

@@ -129,3 +129,10 @@ export type MixtureResult = Omit<
 
 /** One band of the unknown with what may explain it; `fwhm` NaN where it could not be measured. */
 export type IdentifiedBand = Omit<IdentifiedBandReport, 'fwhm'> & { fwhm: number };
+
+/**
+ * The one default of the band-position search's tolerance, shared by `bandshelf bands`, searchBands, identify and the
+ * site: a stored peak within this many cm⁻¹ of a query band matches it (common practice for condensed-phase mid-IR
+ * band positions, whose tables quote bands to a few cm⁻¹).
+ */
+export const BAND_TOLERANCE_CM1 = 4;

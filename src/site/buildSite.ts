@@ -4,7 +4,7 @@ import { existsSync, mkdirSync, realpathSync, renameSync, rmSync, writeFileSync 
 import { basename, dirname, join, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
 import { canonicalJson } from '../library/store/canonicalJson.js';
-import { BAND_TOLERANCE_CM1 } from '../match/bandTolerance.js';
+import { BAND_TOLERANCE_CM1 } from '../match/types.js';
 import { buildManifestPath } from './buildManifestPath.js';
 import { buildSearchIndex, type SearchIndexEntry } from './buildSearchIndex.js';
 import { copySiteAssets } from './copySiteAssets.js';

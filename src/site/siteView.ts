@@ -1,5 +1,5 @@
 // Assembles the global data the templates read: counts, browse rows, releases with diffs, the assignment table.
-import { BAND_TOLERANCE_CM1 } from '../match/bandTolerance.js';
+import { BAND_TOLERANCE_CM1 } from '../match/types.js';
 import type { Grid } from '../schema/recipe.js';
 import { gridLength } from '../spectrum/gridLength.js';
 import { formatNumber } from './formatNumber.js';

@@ -2,7 +2,7 @@
 // metadata (flags > --meta file > sidecar > manifest > the file's own labels), recipe and reading options.
 import { basename, dirname, join } from 'node:path';
 import { BandshelfError } from '../../error.js';
-import { MAX_INPUT_BYTES } from '../../formats/maxInputBytes.js';
+import { MAX_INPUT_BYTES } from '../../formats/types.js';
 import { type EntryMetaPatch, entryMetaPatchSchema, entryMetaSchema } from '../../schema/meta.js';
 import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import { type Recipe, timeDomainSchema } from '../../schema/recipe.js';

@@ -2,7 +2,7 @@
 // and anything over the size limit, so no input can block `add` or exhaust its memory.
 import { closeSync, constants, fstatSync, openSync, readSync } from 'node:fs';
 import { BandshelfError } from '../../error.js';
-import { MAX_INPUT_BYTES } from '../../formats/maxInputBytes.js';
+import { MAX_INPUT_BYTES } from '../../formats/types.js';
 import { describeIoError } from './describeIoError.js';
 
 export interface ReadRegularFileOptions {
