@@ -1,7 +1,7 @@
 // The reading options every command that reads a spectrum takes, declared once: flags in, SpectrumReadOptions out.
 import type { Command } from 'commander';
 import { BandshelfError } from '../error.js';
-import type { SpectrumReadOptions, XUnit, YUnit } from '../formats/types.js';
+import { type SpectrumReadOptions, X_UNITS, type XUnit, Y_UNITS, type YUnit } from '../formats/types.js';
 import { unitFromText } from '../formats/unitFromText.js';
 import { collectRepeated } from './collectRepeated.js';
 
@@ -22,11 +22,11 @@ export function readingOptions(
 ): SpectrumReadOptions {
   if (options.flags === undefined) {
     command
-      ?.option('--x-unit <unit>', 'abscissa unit of the files: cm-1|um|nm|thz (also 1/cm, µm, micron, THz)')
-      .option(
-        '--y-unit <unit>',
-        'ordinate unit: absorbance|transmittance|percent-transmittance (also A, T, %T)',
+      ?.option(
+        '--x-unit <unit>',
+        `abscissa unit of the files: ${X_UNITS.join('|')} (also 1/cm, µm, micron, THz)`,
       )
+      .option('--y-unit <unit>', `ordinate unit: ${Y_UNITS.join('|')} (also A, T, %T)`)
       .option('--block <n>', 'take only this 1-based block of a multi-block JCAMP-DX file')
       .option(
         '--column <name|n>',

@@ -2,6 +2,7 @@
 // cm⁻¹ and absorbance, one per y column.
 import { BandshelfError } from '../error.js';
 import { finiteRange } from '../spectrum/finiteRange.js';
+import { checkReadingUnits } from './checkReadingUnits.js';
 import { looksPercentTransmittance } from './looksPercentTransmittance.js';
 import { markSaturated } from './markSaturated.js';
 import { spectrumFromPoints } from './spectrumFromPoints.js';
@@ -36,8 +37,7 @@ export interface ReadDelimitedOptions {
  */
 export function readDelimited(text: string, options: ReadDelimitedOptions = {}): ParsedSpectrum[] {
   const { file } = options;
-  checkUnitOption(options.xUnit, X_UNITS, 'xUnit', file);
-  checkUnitOption(options.yUnit, Y_UNITS, 'yUnit', file);
+  checkReadingUnits(options, file === undefined ? {} : { file });
   const lines = text.split(/\r\n|\r|\n/);
   const { header, firstData, delimiter } = findHeader(lines, file);
   const table = readTable(lines, firstData, delimiter, file);
@@ -243,29 +243,12 @@ function pickColumns(
   return all;
 }
 
-const X_UNITS: readonly string[] = ['cm-1', 'um', 'nm', 'thz'];
-const Y_UNITS: readonly string[] = ['absorbance', 'transmittance', 'percent-transmittance'];
-
 type Delimiter = ';' | '\t' | ',' | ' ';
 const DELIMITERS: readonly Delimiter[] = [';', '\t', ',', ' '];
 
 const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 const NUMBER_DECIMAL_COMMA = /^[+-]?(?:\d+,?\d*|,\d+)(?:[eE][+-]?\d+)?$/;
 const NOT_FINITE_WORD = /^[+-]?(nan|inf|infinity|∞)$/i;
-
-function checkUnitOption(
-  value: string | undefined,
-  allowed: readonly string[],
-  field: string,
-  file?: string,
-): void {
-  if (value !== undefined && !allowed.includes(value)) {
-    throw new BandshelfError('BAD_OPTION', `${field} ${show(value)} is not one of ${allowed.join(', ')}`, {
-      file,
-      field,
-    });
-  }
-}
 
 function splitCells(line: string, delimiter: Delimiter): string[] {
   const raw = delimiter === ' ' ? line.split(/\s+/) : line.split(delimiter);

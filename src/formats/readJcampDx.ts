@@ -1,6 +1,7 @@
 // Reads JCAMP-DX 4.24 (and tolerated 5.01) infrared spectra: one ParsedSpectrum per spectrum block.
 import { BandshelfError } from '../error.js';
 import { finiteRange } from '../spectrum/finiteRange.js';
+import { checkReadingUnits } from './checkReadingUnits.js';
 import { decodeAsdfLines } from './decodeAsdfLines.js';
 import { decodeXyPairs } from './decodeXyPairs.js';
 import type { JcampBlock, JcampRecord } from './jcampTypes.js';
@@ -10,7 +11,7 @@ import { spectrumFromPoints } from './spectrumFromPoints.js';
 import { splitJcampRecords } from './splitJcampRecords.js';
 import { toWavenumberAbsorbance } from './toWavenumberAbsorbance.js';
 import { transmittanceScale } from './transmittanceScale.js';
-import type { ParsedSpectrum, ParseWarning, XUnit, YUnit } from './types.js';
+import { type ParsedSpectrum, type ParseWarning, type XUnit, Y_UNITS, type YUnit } from './types.js';
 
 export interface ReadJcampDxOptions {
   /** File named in errors and warnings. @default undefined */
@@ -34,21 +35,7 @@ export interface ReadJcampDxOptions {
  */
 export function readJcampDx(text: string, options: ReadJcampDxOptions = {}): ParsedSpectrum[] {
   const { file } = options;
-  for (const [field, value, allowed] of [
-    ['xUnit', options.xUnit, ['cm-1', 'um', 'nm', 'thz']],
-    ['yUnit', options.yUnit, ['absorbance', 'transmittance', 'percent-transmittance']],
-  ] as const) {
-    if (value !== undefined && !(allowed as readonly string[]).includes(value)) {
-      throw new BandshelfError(
-        'BAD_OPTION',
-        `${field} ${JSON.stringify(value)} is not one of ${allowed.join(', ')}`,
-        {
-          file,
-          field,
-        },
-      );
-    }
-  }
+  checkReadingUnits(options, file === undefined ? {} : { file });
   if (text.trim() === '') throw new BandshelfError('EMPTY_FILE', 'the file is empty', { file });
   const { lines, blocks, warnings: fileWarnings } = splitJcampRecords(text);
   if (blocks.length === 0) {
@@ -286,7 +273,7 @@ function readYUnit(
   if (/^ARBITRARY/.test(v)) {
     throw new BandshelfError(
       'UNKNOWN_UNIT',
-      `##${rec.rawLabel}=${clip(rec.value)} does not say absorbance or transmittance; give the y unit (--y-unit absorbance|transmittance|percent-transmittance)`,
+      `##${rec.rawLabel}=${clip(rec.value)} does not say absorbance or transmittance; give the y unit (--y-unit ${Y_UNITS.join('|')})`,
       { file, line: rec.line, field: rec.rawLabel },
     );
   }

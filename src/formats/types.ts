@@ -1,11 +1,13 @@
 // Shapes shared by the readers and writers: what a parsed spectrum file gives the library.
 import type { Spectrum } from '../spectrum/types.js';
 
-/** Abscissa unit of a source file; readers always convert to cm⁻¹. */
-export type XUnit = 'cm-1' | 'um' | 'nm' | 'thz';
+/** The abscissa units a source file may be in (the one declaration); readers always convert to cm⁻¹. */
+export const X_UNITS = ['cm-1', 'um', 'nm', 'thz'] as const;
+export type XUnit = (typeof X_UNITS)[number];
 
-/** Ordinate unit of a source file; readers always convert to decadic absorbance. */
-export type YUnit = 'absorbance' | 'transmittance' | 'percent-transmittance';
+/** The ordinate units a source file may be in (the one declaration); readers always convert to decadic absorbance. */
+export const Y_UNITS = ['absorbance', 'transmittance', 'percent-transmittance'] as const;
+export type YUnit = (typeof Y_UNITS)[number];
 
 /** Something a reader tolerated but the user should hear about (a bent rule, a guessed unit …). */
 export interface ParseWarning {

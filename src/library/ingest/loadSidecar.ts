@@ -2,13 +2,14 @@
 // reading options (units, JCAMP-DX block) that `export --all` records so a re-add parses the bytes the same way.
 import { z } from 'zod';
 import { readSidecarSections, type SidecarSections } from '../../formats/readSidecarSections.js';
+import { X_UNITS, Y_UNITS } from '../../formats/types.js';
 import { metaErrorFromIssues } from '../../schema/metaErrorFromIssues.js';
 import type { ReadOptions } from '../types.js';
 
 const readOptionsSchema = z
   .object({
-    xUnit: z.enum(['cm-1', 'um', 'nm', 'thz']).optional(),
-    yUnit: z.enum(['absorbance', 'transmittance', 'percent-transmittance']).optional(),
+    xUnit: z.enum(X_UNITS).optional(),
+    yUnit: z.enum(Y_UNITS).optional(),
     block: z.number().int().positive().optional(),
     column: z.union([z.string().min(1), z.number().int().positive()]).optional(),
     timeUnit: z.enum(['fs', 'ps']).optional(),
