@@ -20,7 +20,6 @@ import { libraryMatchSource } from '../match/libraryMatchSource.js';
 import { type RunMatchPipelineOptions, runMatchPipeline } from '../match/pipeline/runMatchPipeline.js';
 import type { MatchUnknown } from '../match/pipeline/types.js';
 import { resolutionForUnknown } from '../match/resolutionForUnknown.js';
-import { MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import { type Recipe, timeDomainSchema } from '../schema/recipe.js';
@@ -168,18 +167,18 @@ export async function matchUnknowns(
             references: recipeReferences(library, recipe, options.at === undefined ? {} : { at: options.at }),
           }),
       ranges: options.ranges ?? [],
-      metrics: options.metrics ?? ['pearson'],
-      top: options.top ?? 10,
-      minOverlap: options.minOverlap ?? MIN_OVERLAP_DEFAULT,
+      ...(options.metrics === undefined ? {} : { metrics: options.metrics }),
+      ...(options.top === undefined ? {} : { top: options.top }),
+      ...(options.minOverlap === undefined ? {} : { minOverlap: options.minOverlap }),
       mixture: options.mixture === true,
       with: forced,
       excludeClass: options.excludeClass ?? [],
       exclude: options.exclude ?? [],
       onlyClass: options.onlyClass ?? [],
-      maxComponents: options.maxComponents ?? 6,
-      candidates: options.candidates ?? 30,
+      ...(options.maxComponents === undefined ? {} : { maxComponents: options.maxComponents }),
+      ...(options.candidates === undefined ? {} : { candidates: options.candidates }),
       ...(options.baselineDegree === undefined ? {} : { baselineDegree: options.baselineDegree }),
-      tolerance: options.tolerance ?? 4,
+      ...(options.tolerance === undefined ? {} : { tolerance: options.tolerance }),
       index: buildBandIndex(set),
     };
     const assignments = [...shippedAssignments(), ...listAssignments(library)];

@@ -97,19 +97,25 @@ export function parseMatchOptions(
     excludeClass: list(options.excludeClass),
     exclude: list(options.exclude),
     onlyClass: list(options.onlyClass),
-    maxComponents:
-      number(
-        options.maxComponents,
-        'max-components',
-        (n) => Number.isInteger(n) && n >= 1,
-        'a whole number ≥ 1',
-      ) ?? 6,
-    candidates:
-      number(options.candidates, 'candidates', (n) => Number.isInteger(n) && n >= 1, 'a whole number ≥ 1') ??
-      30,
     ...(baselineDegree === undefined ? {} : { baselineDegree }),
-    tolerance: number(options.tolerance, 'tolerance', (n) => n > 0, 'a positive number of cm⁻¹') ?? 4,
   };
+  // Left unset when not given: the match pipeline owns the defaults.
+  const maxComponents = number(
+    options.maxComponents,
+    'max-components',
+    (n) => Number.isInteger(n) && n >= 1,
+    'a whole number ≥ 1',
+  );
+  if (maxComponents !== undefined) parsed.maxComponents = maxComponents;
+  const candidates = number(
+    options.candidates,
+    'candidates',
+    (n) => Number.isInteger(n) && n >= 1,
+    'a whole number ≥ 1',
+  );
+  if (candidates !== undefined) parsed.candidates = candidates;
+  const tolerance = number(options.tolerance, 'tolerance', (n) => n > 0, 'a positive number of cm⁻¹');
+  if (tolerance !== undefined) parsed.tolerance = tolerance;
   const read = readingOptions(undefined, { flags: options });
   if (Object.keys(read).length > 0) parsed.read = read;
   if (typeof options.at === 'string') parsed.at = options.at;

@@ -12,9 +12,18 @@ import { identifyBands } from '../identifyBands.js';
 import { processedRow } from '../processedRow.js';
 import { scoringMask } from '../scoringMask.js';
 import { type Hit, type Metric, MIN_OVERLAP_DEFAULT } from '../searchTypes.js';
-import type { BandIndex, MixtureCandidate, MixtureResult } from '../types.js';
+import { BAND_TOLERANCE_CM1, type BandIndex, type MixtureCandidate, type MixtureResult } from '../types.js';
 import { offerMixtureCandidates } from './offerMixtureCandidates.js';
 import type { MatchPipelineInput } from './types.js';
+
+/** The match pipeline's defaults, owned here: the CLI and the site pass only what the user set. */
+export const MATCH_DEFAULTS = {
+  metrics: ['pearson'] as readonly Metric[],
+  top: 10,
+  maxComponents: 6,
+  candidates: 30,
+  tolerance: BAND_TOLERANCE_CM1,
+} as const;
 
 export interface RunMatchPipelineOptions {
   /** A recipe overriding the source's default (e.g. `--recipe FILE`). @default source.recipe */
@@ -41,7 +50,7 @@ export interface RunMatchPipelineOptions {
   candidates?: number;
   /** Baseline polynomial degree of the fit (null: no baseline). @default fitMixture's DEFAULT_BASELINE_DEGREE (2) */
   baselineDegree?: number | null;
-  /** Band tolerance for identification, cm⁻¹. @default 4 */
+  /** Band tolerance for identification, cm⁻¹. @default BAND_TOLERANCE_CM1 (4) */
   tolerance?: number;
   /** Classes left out of the hit lists and the fit. @default [] */
   excludeClass?: readonly string[];
@@ -118,7 +127,7 @@ async function fitOffered(
   const fit = fitMixture(processed, offered.candidates, {
     grid: source.grid,
     with: forced,
-    maxComponents: options.maxComponents ?? 6,
+    maxComponents: options.maxComponents ?? MATCH_DEFAULTS.maxComponents,
     ...(options.baselineDegree === undefined ? {} : { baselineDegree: options.baselineDegree }),
     ranges: ranges.length === 0 ? null : ranges,
   });
@@ -168,13 +177,13 @@ export async function runMatchPipeline(
     }
   }
   const recipe = options.recipe ?? source.recipe;
-  const metrics = options.metrics ?? ['pearson'];
-  const top = options.top ?? 10;
+  const metrics = options.metrics ?? MATCH_DEFAULTS.metrics;
+  const top = options.top ?? MATCH_DEFAULTS.top;
   const minOverlap = options.minOverlap ?? MIN_OVERLAP_DEFAULT;
   const ranges = options.ranges ?? [];
-  const poolSize = options.candidates ?? 30;
-  const tolerance = options.tolerance ?? 4;
-  const maxComponents = options.maxComponents ?? 6;
+  const poolSize = options.candidates ?? MATCH_DEFAULTS.candidates;
+  const tolerance = options.tolerance ?? MATCH_DEFAULTS.tolerance;
+  const maxComponents = options.maxComponents ?? MATCH_DEFAULTS.maxComponents;
   const processed = processUnknown(input, recipe, options);
 
   const withMixture = options.mixture === true;
