@@ -13,6 +13,7 @@ const FLAGS: Record<string, string> = {
   'meta.id': '--id',
   maxFileBytes: '--max-file-size (in MB)',
   nearDuplicateThreshold: '--near-duplicate',
+  with: '--with',
 };
 
 /** `text` with each backticked API option name that has a flag replaced by that flag. */

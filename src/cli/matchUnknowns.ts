@@ -17,6 +17,7 @@ import type { SearchSet } from '../library/types.js';
 import { buildBandIndex } from '../match/buildBandIndex.js';
 import { compareAtCoarserResolution } from '../match/compareAtCoarserResolution.js';
 import { libraryMatchSource } from '../match/libraryMatchSource.js';
+import { checkMatchSource } from '../match/pipeline/checkMatchSource.js';
 import { type RunMatchPipelineOptions, runMatchPipeline } from '../match/pipeline/runMatchPipeline.js';
 import type { MatchUnknown } from '../match/pipeline/types.js';
 import { resolutionForUnknown } from '../match/resolutionForUnknown.js';
@@ -26,6 +27,7 @@ import { type Recipe, timeDomainSchema } from '../schema/recipe.js';
 import { resolutionOf } from '../spectrum/resolutionOf.js';
 import { pinNoiseFloor } from '../spectrum/trace/pinNoiseFloor.js';
 import type { CommandContext } from './command.js';
+import { flagWording } from './flagWording.js';
 import { readUnknownFile, type UnknownOfFile } from './readUnknownFile.js';
 import { spectrumFilesOf } from './spectrumFilesOf.js';
 
@@ -131,29 +133,19 @@ export async function matchUnknowns(
       lazy: true,
       ...(options.at === undefined ? {} : { at: options.at }),
     });
-    if (set.entries.length === 0) {
-      throw new BandshelfError(
-        'EMPTY_LIBRARY',
-        set.at === null
-          ? 'the library has no entries to match against (add some with `bandshelf add`)'
-          : `release '${set.at}' holds no entries to match against`,
-      );
-    }
-    const ids = new Set(set.entries.map((e) => e.id));
-    for (const id of forced) {
-      if (!ids.has(id)) {
-        throw new BandshelfError(
-          'NOT_FOUND',
-          `--with names '${id}', which is not an entry of ${set.at === null ? 'the library' : `release '${set.at}'`}`,
-          { field: 'with' },
-        );
-      }
-    }
     const { source, scorer } = libraryMatchSource(
       library,
       set,
       options.at === undefined ? {} : { at: options.at },
     );
+    try {
+      checkMatchSource(source, { with: forced });
+    } catch (error) {
+      if (!(error instanceof BandshelfError)) throw error;
+      const hint =
+        error.code === 'EMPTY_LIBRARY' && set.at === null ? ' (add some with `bandshelf add`)' : '';
+      throw new BandshelfError(error.code, `${flagWording(error.message)}${hint}`, { field: error.field });
+    }
     const recipe =
       options.recipe === undefined
         ? undefined

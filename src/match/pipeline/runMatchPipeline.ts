@@ -13,6 +13,7 @@ import { processedRow } from '../processedRow.js';
 import { scoringMask } from '../scoringMask.js';
 import { type Hit, type Metric, MIN_OVERLAP_DEFAULT } from '../searchTypes.js';
 import { BAND_TOLERANCE_CM1, type BandIndex, type MixtureCandidate, type MixtureResult } from '../types.js';
+import { checkMatchSource } from './checkMatchSource.js';
 import { offerMixtureCandidates } from './offerMixtureCandidates.js';
 import type { MatchPipelineInput } from './types.js';
 
@@ -157,25 +158,8 @@ export async function runMatchPipeline(
   options: RunMatchPipelineOptions = {},
 ): Promise<MatchReport> {
   const { unknown, source, scorer } = input;
-  if (source.entries.length === 0) {
-    throw new BandshelfError(
-      'EMPTY_LIBRARY',
-      source.at === null
-        ? 'the library has no entries to match against'
-        : `release '${source.at}' holds no entries to match against`,
-    );
-  }
+  checkMatchSource(source, options.with === undefined ? {} : { with: options.with });
   const forced = [...new Set(options.with ?? [])];
-  const ids = new Set(source.entries.map((e) => e.id));
-  for (const id of forced) {
-    if (!ids.has(id)) {
-      throw new BandshelfError(
-        'NOT_FOUND',
-        `'with' names '${id}', which is not an entry of ${source.at === null ? 'the library' : `release '${source.at}'`}`,
-        { field: 'with' },
-      );
-    }
-  }
   const recipe = options.recipe ?? source.recipe;
   const metrics = options.metrics ?? MATCH_DEFAULTS.metrics;
   const top = options.top ?? MATCH_DEFAULTS.top;
