@@ -4,8 +4,8 @@ import { scoringMask } from './scoringMask.js';
 import type { Hit } from './searchTypes.js';
 
 /**
- * Scores a block of processed rows (at most 32, each covering the whole grid) against every row of the set as the
- * match does, returning each query's best `k` hits, best first.
+ * Scores a block of processed rows (at most 32, all of one coverage) against every row of the set as the match
+ * does, returning each query's best `k` hits, best first.
  */
 export type WrongHitSearch = (queries: readonly Float32Array[], k: number) => readonly (readonly Hit[])[];
 
@@ -22,11 +22,12 @@ export interface WrongHitNullOptions {
    */
   minPoints?: number;
   /**
-   * The match's own search (kernels, search matrix). With it, the sampled rows are fully covered ones (a partly
-   * covered sample point moves on to the next fully covered row before the next sample point) scored in blocks
-   * of 32 against every row, over the grid outside the recipe's exclusion windows as a match scores; no row but
-   * the sampled ones is read. Without it, or when fewer than half the sample points find a fully covered row,
-   * each pair is scored exactly in plain JS over the points both rows cover.
+   * The match's own search (kernels, search matrix). With it, the sampled rows are those of the coverage most
+   * sample points share (so one search matrix serves them all; a sample point of another coverage moves on to the
+   * next row of that coverage before the next sample point), scored in blocks of 32 against every row over the
+   * points both cover outside the recipe's exclusion windows, as a match scores; no row but the sampled ones is
+   * read. Without it, or when fewer than half the sample points find such a row, each pair is scored exactly in
+   * plain JS over the points both rows cover.
    * @default undefined
    */
   search?: WrongHitSearch;
@@ -40,8 +41,8 @@ export interface WrongHitNullInput {
   processed: ArrayLike<number>;
   /** Row r alone (a lazily read set's reader). @default a view on `processed` */
   row?: (r: number) => ArrayLike<number>;
-  /** The grid and the recipe's exclusion windows: with `search`, a row is fully covered when it is finite at every
-   * grid point outside them. @default every point counts */
+  /** The grid and the recipe's exclusion windows: with `search`, a row's coverage is where it is finite outside
+   * them. @default every point counts */
   grid?: Grid;
   exclude?: readonly WavenumberWindow[];
   /** One per row; rows of the same substance (equal id, or equal name ignoring case and spaces) never count. */
@@ -136,17 +137,23 @@ function searchedNull(
     input.grid === undefined
       ? new Uint8Array(cols).fill(1)
       : scoringMask(new Float64Array(cols), input.grid, { exclude: input.exclude ?? [] });
+  // One search matrix serves every query of one coverage: the coverage most sample points share is the one used.
+  const atPoint = sample.map((r) => coverageOf(row(r), scored));
+  const tally = new Map<string, number>();
+  for (const c of atPoint) if (c !== null) tally.set(c.key, (tally.get(c.key) ?? 0) + 1);
+  let common = '';
+  for (const [key, count] of tally) if (count > (tally.get(common) ?? 0)) common = key;
   const chosen: { row: number; vector: Float32Array }[] = [];
-  for (const point of sample) {
+  sample.forEach((point, j) => {
     const end = Math.min(rows, Math.max(point + 1, Math.floor(point + step)));
     for (let r = point; r < end; r++) {
-      const vector = fullRow(row(r), scored);
-      if (vector !== null) {
-        chosen.push({ row: r, vector });
+      const c = r === point ? atPoint[j]! : coverageOf(row(r), scored);
+      if (c !== null && c.key === common) {
+        chosen.push({ row: r, vector: c.vector });
         break;
       }
     }
-  }
+  });
   if (chosen.length * 2 < sample.length || chosen.length === 0) return null;
   const scores: number[] = [];
   for (let first = 0; first < chosen.length; first += 32) {
@@ -182,28 +189,32 @@ function searchedNull(
   return { metric: 'pearson', scores: Float64Array.from(scores).sort(), entries: rows, sampled: scores.length };
 }
 
-/** The row as float32 when it is finite at every scored point and not flat there, else null. */
-function fullRow(values: ArrayLike<number>, scored: Uint8Array): Float32Array | null {
-  const out = Float32Array.from(values);
+/** The row as float32 and its scored points (finite, outside the exclusions) as index runs; null when flat there. */
+function coverageOf(values: ArrayLike<number>, scored: Uint8Array): { key: string; vector: Float32Array } | null {
+  const vector = Float32Array.from(values);
+  const runs: number[] = [];
   let sum = 0;
   let n = 0;
-  for (let i = 0; i < scored.length; i++) {
-    if (scored[i] === 0) continue;
-    const v = out[i]!;
-    if (Number.isNaN(v)) return null;
-    sum += v;
-    n++;
+  let open = false;
+  for (let i = 0; i <= scored.length; i++) {
+    const on = i < scored.length && scored[i] !== 0 && !Number.isNaN(vector[i]!);
+    if (on !== open) runs.push(i);
+    open = on;
+    if (on) {
+      sum += vector[i]!;
+      n++;
+    }
   }
   const mean = sum / n;
   let ss = 0;
   let power = 0;
   for (let i = 0; i < scored.length; i++) {
-    if (scored[i] === 0) continue;
-    ss += (out[i]! - mean) ** 2;
-    power += out[i]! ** 2;
+    if (scored[i] === 0 || Number.isNaN(vector[i]!)) continue;
+    ss += (vector[i]! - mean) ** 2;
+    power += vector[i]! ** 2;
   }
   // The search refuses a flat query (under 1e-20 of its power left after centring); a flat row has no best r.
-  return n > 0 && ss > 1e-12 * power ? out : null;
+  return n > 0 && ss > 1e-12 * power ? { key: runs.join(','), vector } : null;
 }
 
 function pairPearson(x: ArrayLike<number>, a: number, b: number, cols: number, minPoints: number): number {
