@@ -29,7 +29,12 @@ export function cachedWrongHitNull(
   const { cache, ...nullOptions } = options;
   const { search, ...sampling } = nullOptions;
   // The kernel path scores outside the exclusion windows, the plain-JS path over every shared point.
-  const key = JSON.stringify({ format: FORMAT, state: set.stateKey, ...sampling, kernels: search !== undefined });
+  const key = JSON.stringify({
+    format: FORMAT,
+    state: set.stateKey,
+    ...sampling,
+    kernels: search !== undefined,
+  });
   const useCache = (cache ?? true) && libraryPath !== '' && libraryPath !== ':memory:';
   const path = `${libraryPath}.cache/wrong-hit-null-${createHash('sha256').update(key).digest('hex').slice(0, 32)}.json`;
   if (useCache) {

@@ -128,9 +128,9 @@ function searchedNull(
   const byKey = new Map<string, Set<number>>();
   keys.forEach((ks, r) => {
     for (const k of ks) {
-      let members = byKey.get(k);
-      if (members === undefined) byKey.set(k, (members = new Set()));
+      const members = byKey.get(k) ?? new Set<number>();
       members.add(r);
+      byKey.set(k, members);
     }
   });
   const scored =
@@ -186,11 +186,19 @@ function searchedNull(
       if (wrong !== undefined && Number.isFinite(wrong.rawScore)) scores.push(wrong.rawScore);
     });
   }
-  return { metric: 'pearson', scores: Float64Array.from(scores).sort(), entries: rows, sampled: scores.length };
+  return {
+    metric: 'pearson',
+    scores: Float64Array.from(scores).sort(),
+    entries: rows,
+    sampled: scores.length,
+  };
 }
 
 /** The row as float32 and its scored points (finite, outside the exclusions) as index runs; null when flat there. */
-function coverageOf(values: ArrayLike<number>, scored: Uint8Array): { key: string; vector: Float32Array } | null {
+function coverageOf(
+  values: ArrayLike<number>,
+  scored: Uint8Array,
+): { key: string; vector: Float32Array } | null {
   const vector = Float32Array.from(values);
   const runs: number[] = [];
   let sum = 0;

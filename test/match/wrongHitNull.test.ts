@@ -109,7 +109,10 @@ describe('wrongHitNull through the match search', () => {
   };
 
   it("gives each sampled row's best wrong r as simple-statistics' sampleCorrelation outside the exclusions", () => {
-    const result = wrongHitNull({ cols, processed, entries, grid: set.grid, exclude: set.recipe.exclude }, { search });
+    const result = wrongHitNull(
+      { cols, processed, entries, grid: set.grid, exclude: set.recipe.exclude },
+      { search },
+    );
     const expected: number[] = [];
     for (let a = 0; a < 40; a++) {
       if (a % 4 === 3) continue; // of the less common coverage: not sampled on this path
