@@ -179,9 +179,9 @@ export function buildMatchReport(
             entries: wrong.entries,
             text:
               `pValue: the share of the library's own best wrong hits scoring at least as high, (1 + count) / ` +
-              `(1 + ${wrong.sampled}); the null matches ${wrong.sampled === wrong.entries ? `all ${wrong.entries} entries` : `${wrong.sampled} evenly spaced of the ${wrong.entries} entries`} ` +
+              `(1 + ${wrong.sampled}); the null matches ${wrong.sampled === wrong.entries ? `all ${wrong.entries} entries` : `${wrong.sampled} evenly spaced of the ${wrong.entries} entries (of one coverage)`} ` +
               `against the rest (its own id and name left out) by Pearson r over ` +
-              `the points both cover. A per-hit score calibration, not the probability that the identification is right.`,
+              `the points both cover (outside the recipe's exclusion windows, as a match scores). A per-hit score calibration, not the probability that the identification is right.`,
           },
     mixture:
       mixture === null

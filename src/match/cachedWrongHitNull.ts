@@ -13,16 +13,28 @@ export interface CachedWrongHitNullOptions extends WrongHitNullOptions {
   cache?: boolean;
 }
 
-const FORMAT = 1;
+const FORMAT = 2;
 
 /** Keyed by the state key and the sampling options; a cache file that cannot be read or written is ignored. */
 export function cachedWrongHitNull(
-  input: { libraryPath: string; set: Pick<SearchSet, 'stateKey' | 'grid' | 'entries' | 'processed'> },
+  input: {
+    libraryPath: string;
+    set: Pick<SearchSet, 'stateKey' | 'grid' | 'entries' | 'processed' | 'row'> & {
+      recipe: Pick<SearchSet['recipe'], 'exclude'>;
+    };
+  },
   options: CachedWrongHitNullOptions = {},
 ): WrongHitNull {
   const { libraryPath, set } = input;
   const { cache, ...nullOptions } = options;
-  const key = JSON.stringify({ format: FORMAT, state: set.stateKey, ...nullOptions });
+  const { search, ...sampling } = nullOptions;
+  // The kernel path scores outside the exclusion windows, the plain-JS path over every shared point.
+  const key = JSON.stringify({
+    format: FORMAT,
+    state: set.stateKey,
+    ...sampling,
+    kernels: search !== undefined,
+  });
   const useCache = (cache ?? true) && libraryPath !== '' && libraryPath !== ':memory:';
   const path = `${libraryPath}.cache/wrong-hit-null-${createHash('sha256').update(key).digest('hex').slice(0, 32)}.json`;
   if (useCache) {
@@ -41,7 +53,17 @@ export function cachedWrongHitNull(
     }
   }
   const computed = wrongHitNull(
-    { cols: gridLength(set.grid), processed: set.processed, entries: set.entries },
+    {
+      cols: gridLength(set.grid),
+      // A lazy set's `processed` reads every row: only the plain-JS path touches it.
+      get processed() {
+        return set.processed;
+      },
+      ...(set.row === undefined ? {} : { row: set.row }),
+      entries: set.entries,
+      grid: set.grid,
+      exclude: set.recipe.exclude,
+    },
     nullOptions,
   );
   if (useCache) {

@@ -34,7 +34,10 @@ export function libraryMatchSource(
   const own: Omit<MatchSource, keyof SearchSet> = {
     name: library.name,
     references,
-    wrongHitNull: cachedWrongHitNull({ libraryPath: library.path, set }),
+    wrongHitNull: cachedWrongHitNull(
+      { libraryPath: library.path, set },
+      { search: (queries, k) => searchLibrary(library, queries, { set, k, metric: 'pearson' }) },
+    ),
     originals: async (rows: readonly number[]) => {
       const out = new Map<number, EntryOriginal>();
       for (const row of rows) {

@@ -11,6 +11,7 @@ import { readRelease } from '../library/store/readRelease.js';
 import { readSearchSet } from '../library/store/readSearchSet.js';
 import type { EntrySummary, Library } from '../library/types.js';
 import { cachedWrongHitNull } from '../match/cachedWrongHitNull.js';
+import { searchLibrary } from '../match/searchLibrary.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { WrongHitNull } from '../match/wrongHitNull.js';
 import type { Spectrum } from '../spectrum/types.js';
@@ -132,7 +133,12 @@ export function collectSiteData(library: Library, options: CollectSiteDataOption
       hashes: set.entries.map((e) => e.hash),
       peaks: set.peaks,
       assignments: [...shippedAssignments(), ...listAssignments(library)],
-      wrongHitNull: publishedNull(cachedWrongHitNull({ libraryPath: library.path, set })),
+      wrongHitNull: publishedNull(
+        cachedWrongHitNull(
+          { libraryPath: library.path, set },
+          { search: (queries, k) => searchLibrary(library, queries, { set, k, metric: 'pearson' }) },
+        ),
+      ),
     },
     references,
     loadEntry(id) {

@@ -2,7 +2,10 @@
 import { sampleCorrelation } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
 import { empiricalPValue } from '../../src/match/empiricalPValue.js';
+import { scoringMask } from '../../src/match/scoringMask.js';
+import { searchSpectra } from '../../src/match/searchSpectra.js';
 import { wrongHitNull } from '../../src/match/wrongHitNull.js';
+import { syntheticSet } from './searchFixtures.js';
 
 // Rows 0 and 3 are the same substance (same name), so neither may be the other's wrong hit.
 const entries = [
@@ -85,5 +88,88 @@ describe('wrongHitNull on a seeded library of fully and partly covered rows', ()
     result.scores.forEach((s, k) => {
       expect(s).toBeCloseTo(expected[k]!, 12);
     });
+  });
+});
+
+describe('wrongHitNull through the match search', () => {
+  // Seeded families of similar band spectra (rows of a family are each other's best hits), a CO₂-like exclusion
+  // window, no row covering the grid's first 3 points, every fourth row missing 9 more, and rows 0 and 1 one
+  // substance (same name, other ids).
+  const base = syntheticSet({ rows: 40, family: 4, exclude: [{ min: 1400, max: 1360 }] });
+  const cols = base.processed.length / base.entries.length;
+  const processed = Float32Array.from(base.processed);
+  for (let r = 0; r < 40; r++) processed.fill(Number.NaN, r * cols, r * cols + (r % 4 === 3 ? 12 : 3));
+  const entries = base.entries.map((e, r) => (r === 1 ? { ...e, name: base.entries[0]!.name } : e));
+  const set = { ...base, processed, entries };
+  const excluded = scoringMask(new Float64Array(cols), set.grid, { exclude: set.recipe.exclude });
+  let searched = 0;
+  const search = (queries: readonly Float32Array[], k: number) => {
+    searched += queries.length;
+    return searchSpectra(set, queries, { k });
+  };
+
+  it("gives each sampled row's best wrong r as simple-statistics' sampleCorrelation outside the exclusions", () => {
+    const result = wrongHitNull(
+      { cols, processed, entries, grid: set.grid, exclude: set.recipe.exclude },
+      { search },
+    );
+    const expected: number[] = [];
+    for (let a = 0; a < 40; a++) {
+      if (a % 4 === 3) continue; // of the less common coverage: not sampled on this path
+      let best = Number.NEGATIVE_INFINITY;
+      for (let b = 0; b < 40; b++) {
+        if (b === a || (a <= 1 && b <= 1)) continue;
+        const x: number[] = [];
+        const y: number[] = [];
+        for (let i = 0; i < cols; i++) {
+          const u = processed[a * cols + i]!;
+          const v = processed[b * cols + i]!;
+          if (excluded[i] === 1 && !Number.isNaN(u) && !Number.isNaN(v)) {
+            x.push(u);
+            y.push(v);
+          }
+        }
+        best = Math.max(best, sampleCorrelation(x, y));
+      }
+      expected.push(best);
+    }
+    expected.sort((p, q) => p - q);
+    // 40 sample points; each of the less common coverage moves on to the next row, of the common one.
+    expect([result.entries, result.sampled, searched]).toEqual([40, 30, 30]);
+    result.scores.forEach((s, k) => {
+      expect(s).toBeCloseTo(expected[k]!, 5); // float32 kernels
+    });
+  });
+
+  it('reads only the sampled rows (the lazy reader), never the whole matrix', () => {
+    const read: number[] = [];
+    const input = {
+      cols,
+      get processed(): Float32Array {
+        throw new Error('the whole matrix was read');
+      },
+      row: (r: number) => {
+        read.push(r);
+        return processed.subarray(r * cols, (r + 1) * cols);
+      },
+      entries,
+      grid: set.grid,
+      exclude: set.recipe.exclude,
+    };
+    const result = wrongHitNull(input, { search, maxRows: 8 });
+    // Sample points 0, 5, 10, …, 35 first; points 15 and 35 are of the less common coverage (r % 4 = 3) and move
+    // on to rows 16 and 36.
+    expect(read).toEqual([0, 5, 10, 15, 20, 25, 30, 35, 16, 36]);
+    expect(result.sampled).toBe(8);
+  });
+
+  it('falls back to exact pairs when most sample points find no row of the common coverage', () => {
+    // Each row misses one grid point of its own: 40 coverages.
+    const partial = Float32Array.from(processed);
+    for (let r = 0; r < 40; r++) partial[r * cols + 20 + r] = Number.NaN;
+    const viaSearch = wrongHitNull({ cols, processed: partial, entries, grid: set.grid }, { search });
+    const plain = wrongHitNull({ cols, processed: partial, entries });
+    expect(Array.from(viaSearch.scores)).toEqual(Array.from(plain.scores));
+    expect(viaSearch.sampled).toBe(40);
   });
 });
