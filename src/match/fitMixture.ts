@@ -10,6 +10,7 @@ import { lineShapeTerms } from './mixture/lineShapeTerms.js';
 import { polynomialBasis } from './mixture/polynomialBasis.js';
 import { residualBands } from './mixture/residualBands.js';
 import { residualNoise } from './mixture/residualNoise.js';
+import { shareInterval } from './mixture/shareInterval.js';
 import type {
   MisfitBand,
   MixtureCandidate,
@@ -375,6 +376,19 @@ export function fitMixture(
       sigma: noiseError * sensitivity,
     };
   };
+  // The share's interval: the weights' HAC covariance with each one's model part added to its own variance (the
+  // line-shape parts of different components are taken as independent), propagated to area·w / Σ area·w.
+  const p = selected.length;
+  const covariance = Float64Array.from(selection.covariance);
+  selected.forEach((s, j) => {
+    const shift = selection.modelShiftOf.get(s) ?? 0;
+    covariance[j * p + j] = covariance[j * p + j]! + (shift * shift) / 3;
+  });
+  const shares = shareInterval({
+    weights: current.x,
+    areas: selected.map((s) => absArea(usable[s]!.raw)),
+    covariance,
+  });
   const components: MixtureComponent[] = [];
   selected.forEach((s, j) => {
     const u = usable[s]!;
@@ -387,6 +401,7 @@ export function fitMixture(
       revision: u.candidate.revision,
       weight,
       share: signal > 0 ? area[j]! / signal : 0,
+      shareInterval95: shares[j]!.interval,
       forced: u.forced,
       improvement: selection.improvementOf.get(s) ?? null,
       pValue: selection.pValueOf.get(s) ?? null,
@@ -452,7 +467,9 @@ export function fitMixture(
     `Each weight's standard error combines a Newey–West (HAC, Bartlett, ${correlationWidth} cm⁻¹) error from the final ` +
     `residual (structure the model leaves widens it)${withShapes ? " with the model's part: the weight's change when the line-shape terms are left out, taken as the half-width of a rectangular distribution (÷√3, GUM)" : ''}; ` +
     `the 95 % interval is ± 1.96 of it (normal reference); a component whose interval reaches 0 is not ` +
-    `significant. Detection limit 3.3 σ/S (ICH Q2(R1)) with σ/S that standard error, S the ` +
+    `significant. The share's 95 % interval propagates the weights' HAC covariance (model parts independent) to ` +
+    `area × weight / Σ area × weight to first order (delta method); the share is of the processed signal over the fit ` +
+    `points (each reference as the recipe leaves it), not of the raw absorbance before the recipe's baseline step. Detection limit 3.3 σ/S (ICH Q2(R1)) with σ/S that standard error, S the ` +
     `component's sensitivity net of the others, their line-shape terms and the baseline. Unexplained bands: residual maxima above ` +
     `${k} × the local noise (±100 cm⁻¹, robust σ of first differences) with FWHM ≥ ${resolution} cm⁻¹, ` +
     `none at the fit's edges; a residual peak where a fitted component gives at least ${MISFIT_RATIO} × the residual ` +

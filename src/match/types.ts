@@ -82,6 +82,11 @@ export interface MixtureComponent {
   weight: number;
   /** Share of the fitted signal: weight × Σ|vector| over the fitted points, over the same sum of all components. */
   share: number;
+  /**
+   * 95 % interval of the share (delta method on the weights' HAC covariance), clipped to [0, 1]. The share is of the
+   * processed signal over the fit points, not of the raw integrated absorbance.
+   */
+  shareInterval95: [number, number];
   /** True when the user forced it in with `with`. */
   forced: boolean;
   /** Fractional drop of the residual sum of squares when it was added (null for forced components). */
