@@ -83,6 +83,8 @@ interface Tally {
   fitsWithFalseComponent: number;
   trueComponents: number;
   recalled: number;
+  detectable: number;
+  detectableRecalled: number;
   shareIntervals: number;
   sharesCovered: number;
   shareErrors: number[];
@@ -94,6 +96,8 @@ const tally = (): Tally => ({
   fitsWithFalseComponent: 0,
   trueComponents: 0,
   recalled: 0,
+  detectable: 0,
+  detectableRecalled: 0,
   shareIntervals: 0,
   sharesCovered: 0,
   shareErrors: [],
@@ -132,8 +136,14 @@ function scoreFit(
   for (const [id, share] of truth) {
     t.trueComponents++;
     const c = found.find((x) => x.id === id);
+    // Detectable: its share at least 3 × its detection limit (as a share) in this fit.
+    const limit = (c ?? m.components.find((x) => x.id === id) ?? m.notSelected.find((x) => x.id === id))
+      ?.detectionLimit.share;
+    const detectable = limit !== undefined && share >= 3 * limit;
+    if (detectable) t.detectable++;
     if (c === undefined) continue;
     t.recalled++;
+    if (detectable) t.detectableRecalled++;
     const trueShare = share / total;
     t.shareIntervals++;
     if (trueShare >= c.shareInterval95[0] && trueShare <= c.shareInterval95[1]) t.sharesCovered++;
@@ -149,6 +159,8 @@ function summary(t: Tally) {
     fitsWithAnyFalseComponent: t.fits > 0 ? t.fitsWithFalseComponent / t.fits : null,
     recallOfTrueComponents: t.trueComponents > 0 ? t.recalled / t.trueComponents : null,
     trueComponents: t.trueComponents,
+    recallAt3xDetectionLimit: t.detectable > 0 ? t.detectableRecalled / t.detectable : null,
+    trueComponentsAt3xDetectionLimit: t.detectable,
     shareInterval95Coverage: t.shareIntervals > 0 ? t.sharesCovered / t.shareIntervals : null,
     shareAbsoluteErrorMedian: sorted.length > 0 ? sorted[Math.floor(sorted.length / 2)]! : null,
   };
