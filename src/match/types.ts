@@ -93,7 +93,7 @@ export interface MixtureComponent {
   improvement: number | null;
   /** p-value of the partial F-test that admitted it (null for forced components). */
   pValue: number | null;
-  /** Standard error of the weight: HAC error from the final residual combined with the line-shape model part. */
+  /** Standard error of the weight: HAC error from the final residual combined with the line-shape and baseline model parts. */
   standardError: number;
   /** 95 % interval of the weight, lower end clipped at 0. */
   interval95: [number, number];

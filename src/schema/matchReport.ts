@@ -101,7 +101,7 @@ export const mixtureComponentSchema = z
     /** p-value of the partial F-test that admitted it; null when forced. */
     pValue: z.number().min(0).max(1).nullable(),
     /**
-     * Standard error of the weight (HAC error from the final residual combined with the line-shape model part); null if
+     * Standard error of the weight (HAC error from the final residual combined with the line-shape and baseline model parts); null if
      * infinite.
      */
     standardError: z.number().finite().nonnegative().nullable(),
