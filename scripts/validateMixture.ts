@@ -9,6 +9,8 @@
 //   lineshape  — albumin/triolein/glucose (+5 % paracetamol every second run) with another Lorentzian share of the
 //                pseudo-Voigt bands (0.3–0.7 against the references' 0.5): a mismatch no instrument function makes,
 //                kept as a harder case.
+// A third part, `real`, fits mixtures of the real files of ../shared/real-spectra through the match pipeline (see
+// validateRealMixtures.ts; `--no-real` leaves it out, `--real-runs N` sets its synthetic count).
 // Printed as one JSON per scenario: fits with any false component, false components per fit, recall of true
 // components present at ≥ 3 × their detection limit, coverage of true weights by the 95 % intervals, unexplained
 // bands per spectrum that are not the spike, and recall of the spike.
@@ -19,6 +21,7 @@ import { type FitMixtureOptions, fitMixture } from '../src/match/fitMixture.js';
 import type { MixtureCandidate } from '../src/match/types.js';
 import type { Grid } from '../src/schema/recipe.js';
 import { gridAxis } from '../src/spectrum/gridAxis.js';
+import { validateRealMixtures } from './validateRealMixtures.js';
 
 const GRID: Grid = { start: 4000, stop: 600, step: 2 };
 /** The fine axis the bench scenario's spectra are drawn on before the instrument function and binning. */
@@ -135,6 +138,9 @@ function lineShapeCase(random: Random, pure: typeof demoCompounds, axis: Float64
 
 function score(cases: Case[], candidates: MixtureCandidate[], options: FitMixtureOptions) {
   let fitsWithFalse = 0;
+  let fitsWithFalseGroup = 0;
+  let shareIntervals = 0;
+  let sharesCovered = 0;
   let falseComponents = 0;
   let unflagged = 0;
   let detectable = 0;
@@ -153,6 +159,10 @@ function score(cases: Case[], candidates: MixtureCandidate[], options: FitMixtur
     // named, but the report says so; counted apart.
     unflagged += extra.filter((c) => !(c.alternatives ?? []).some((id) => truth.has(id))).length;
     if (extra.length > 0) fitsWithFalse++;
+    // As reported: a component with alternatives names the group "one of {it, …}"; the group is false only when
+    // no member is in the mixture.
+    if (extra.some((c) => ![c.id, ...(c.alternatives ?? [])].some((id) => truth.has(id))))
+      fitsWithFalseGroup++;
     for (const c of extra) falseIds.set(c.id, (falseIds.get(c.id) ?? 0) + 1);
     if (process.argv.includes('--details')) {
       const shown = fit.components.map(
@@ -179,6 +189,12 @@ function score(cases: Case[], candidates: MixtureCandidate[], options: FitMixtur
         intervals++;
         const [lo, hi] = found.interval95;
         if (w >= lo && (hi === null || w <= hi)) covered++;
+        // The true share among the true components the fit reports (the truth's weights are on unit-area vectors,
+        // as the candidates are, so they are shares of the same signal).
+        const reported = [...truth].filter(([t]) => fit.components.some((c) => c.id === t && c.significant));
+        const trueShare = w / reported.reduce((sum, [, x]) => sum + x, 0);
+        shareIntervals++;
+        if (trueShare >= found.shareInterval95[0] && trueShare <= found.shareInterval95[1]) sharesCovered++;
       }
     }
     const nearSpike = (b: { position: number }) => spike !== null && Math.abs(b.position - spike) <= 10;
@@ -191,6 +207,7 @@ function score(cases: Case[], candidates: MixtureCandidate[], options: FitMixtur
   const n = cases.length;
   return {
     fits: n,
+    fitsWithAnyFalseCandidateGroup: fitsWithFalseGroup / n,
     fitsWithAnyFalseComponent: fitsWithFalse / n,
     falseComponentsPerFit: falseComponents / n,
     falseComponentIds: Object.fromEntries(falseIds),
@@ -198,12 +215,13 @@ function score(cases: Case[], candidates: MixtureCandidate[], options: FitMixtur
     recallAt3xDetectionLimit: detectable > 0 ? recalled / detectable : null,
     trueComponentsAt3xDetectionLimit: detectable,
     interval95Coverage: intervals > 0 ? covered / intervals : null,
+    shareInterval95Coverage: shareIntervals > 0 ? sharesCovered / shareIntervals : null,
     unexplainedBandsPerSpectrumBesideSpike: otherBands / n,
     spikeRecall: spikes > 0 ? spikesFound / spikes : null,
   };
 }
 
-function main(): void {
+async function main(): Promise<void> {
   const runs = argument('runs', 60);
   const seed = argument('seed', 1);
   const axis = gridAxis(GRID);
@@ -230,8 +248,11 @@ function main(): void {
       note: 'synthetic demo compounds; a component counts as found (or false) only when reported significant',
       bench: score(bench, candidates, options),
       lineshape: score(lineshape, candidates, options),
+      real: process.argv.includes('--no-real')
+        ? null
+        : await validateRealMixtures({ runs: argument('real-runs', 40), seed }),
     }),
   );
 }
 
-main();
+await main();

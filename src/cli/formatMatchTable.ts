@@ -96,7 +96,7 @@ export function formatMatchTable(report: MatchReport, options: FormatMatchTableO
       out.push(
         textTable(
           [
-            ['ID', 'REV', 'NAME', 'WEIGHT', '95 % INTERVAL', 'SHARE', 'HOW'],
+            ['ID', 'REV', 'NAME', 'WEIGHT', '95 % INTERVAL', 'SHARE', 'SHARE 95 %', 'HOW'],
             ...m.components.map((c) => [
               c.id,
               String(c.revision),
@@ -104,17 +104,19 @@ export function formatMatchTable(report: MatchReport, options: FormatMatchTableO
               c.weight.toPrecision(4),
               `${c.interval95[0].toPrecision(3)} – ${c.interval95[1] === null ? '∞' : c.interval95[1].toPrecision(3)}`,
               `${(100 * c.share).toFixed(1)} %`,
+              `${(100 * c.shareInterval95[0]).toFixed(1)} – ${(100 * c.shareInterval95[1]).toFixed(1)} %`,
               c.forced ? 'forced (--with)' : `added, −${(100 * (c.improvement ?? 0)).toFixed(1)} % RSS`,
             ]),
           ],
-          { right: [1, 3, 5] },
+          { right: [1, 3, 5, 6] },
         ),
       );
     }
     for (const c of m.components) {
       if (c.alternatives !== undefined && c.alternatives.length > 0) {
         out.push(
-          `Not told apart from ${c.id} by this spectrum (fit as well in its place): ${c.alternatives.join(', ')}`,
+          `${c.id} stands for one of {${[c.id, ...c.alternatives].join(', ')}}: each fits as well in its place, ` +
+            'so this spectrum names the group, not one member',
         );
       }
       if (!c.significant) out.push(`${c.id}: its interval reaches 0 — not significant, not found`);

@@ -10,6 +10,7 @@ import { lineShapeTerms } from './mixture/lineShapeTerms.js';
 import { polynomialBasis } from './mixture/polynomialBasis.js';
 import { residualBands } from './mixture/residualBands.js';
 import { residualNoise } from './mixture/residualNoise.js';
+import { shareInterval } from './mixture/shareInterval.js';
 import type {
   MisfitBand,
   MixtureCandidate,
@@ -300,6 +301,32 @@ export function fitMixture(
   );
   const { selected } = selection;
   const current = { x: selection.weights, rss: selection.rss };
+  // The baseline's part of each weight's uncertainty: how far it moves when the same components are fitted with a
+  // baseline one degree higher (a bench's baseline is no polynomial of any stated degree).
+  const baselineShiftOf = new Map<number, number>();
+  if (basis !== null && degree !== null && degree < 6 && selected.length > 0) {
+    const higher = polynomialBasis(
+      Float64Array.from(at, (i) => (axis[i]! - centre) / halfWidth),
+      degree + 1,
+    ).q;
+    const refit = forwardSelection(
+      {
+        columns: selected.map((s) => project(usable[s]!.raw, higher)),
+        query: project(b, higher),
+        forced: selected.map((_, j) => j),
+        shapes: selected.map((s) => shapesRaw[s]!.map((v) => project(v, higher))),
+      },
+      { alpha, maxComponents: selected.length, bandwidth: Math.round(correlationWidth / grid.step) },
+    );
+    selected.forEach((s, j) => {
+      baselineShiftOf.set(s, Math.abs(refit.weights[j]! - current.x[j]!));
+    });
+  }
+  const modelVariance = (s: number): number => {
+    const shift = selection.modelShiftOf.get(s) ?? 0;
+    const base = baselineShiftOf.get(s) ?? 0;
+    return (shift * shift + base * base) / 3;
+  };
   const stopReason =
     selection.rejected === null
       ? selection.stopReason
@@ -362,9 +389,9 @@ export function fitMixture(
   const z975 = jStat.normal.inv(0.975, 0, 1);
   const uncertaintyOf = (s: number, weight: number) => {
     const noiseError = selection.standardErrorOf.get(s) ?? Number.POSITIVE_INFINITY;
-    const shift = selection.modelShiftOf.get(s) ?? 0;
-    // The model part as a rectangular distribution of half-width |shift| (u = shift/√3, GUM JCGM 100:2008 §4.3.7).
-    const standardError = Math.sqrt(noiseError * noiseError + (shift * shift) / 3);
+    // The model parts (line shape, baseline) each as a rectangular distribution of half-width |shift|
+    // (u = shift/√3, GUM JCGM 100:2008 §4.3.7).
+    const standardError = Math.sqrt(noiseError * noiseError + modelVariance(s));
     const sensitivity = selection.sensitivityOf.get(s) ?? 0;
     const low = weight - z975 * standardError;
     return {
@@ -375,6 +402,18 @@ export function fitMixture(
       sigma: noiseError * sensitivity,
     };
   };
+  // The share's interval: the weights' HAC covariance with each one's model part added to its own variance (the
+  // line-shape parts of different components are taken as independent), propagated to area·w / Σ area·w.
+  const p = selected.length;
+  const covariance = Float64Array.from(selection.covariance);
+  selected.forEach((s, j) => {
+    covariance[j * p + j] = covariance[j * p + j]! + modelVariance(s);
+  });
+  const shares = shareInterval({
+    weights: current.x,
+    areas: selected.map((s) => absArea(usable[s]!.raw)),
+    covariance,
+  });
   const components: MixtureComponent[] = [];
   selected.forEach((s, j) => {
     const u = usable[s]!;
@@ -387,6 +426,7 @@ export function fitMixture(
       revision: u.candidate.revision,
       weight,
       share: signal > 0 ? area[j]! / signal : 0,
+      shareInterval95: shares[j]!.interval,
       forced: u.forced,
       improvement: selection.improvementOf.get(s) ?? null,
       pValue: selection.pValueOf.get(s) ?? null,
@@ -450,9 +490,11 @@ export function fitMixture(
     `${maxComponents < c ? `; at most ${maxComponents} components` : ''}. ` +
     `${withShapes ? "Each selected component's first and second derivatives join the fit as free-sign terms, so its bands may shift and broaden a little between benches without leaving a residual for another candidate (they leave its area unchanged). " : ''}` +
     `Each weight's standard error combines a Newey–West (HAC, Bartlett, ${correlationWidth} cm⁻¹) error from the final ` +
-    `residual (structure the model leaves widens it)${withShapes ? " with the model's part: the weight's change when the line-shape terms are left out, taken as the half-width of a rectangular distribution (÷√3, GUM)" : ''}; ` +
+    `residual (structure the model leaves widens it) with the model's parts: the weight's change ${[withShapes ? 'when the line-shape terms are left out' : '', degree !== null && degree < 6 ? 'when the baseline is one degree higher' : ''].filter((t) => t !== '').join(' and ') || '(none)'}, each taken as the half-width of a rectangular distribution (÷√3, GUM); ` +
     `the 95 % interval is ± 1.96 of it (normal reference); a component whose interval reaches 0 is not ` +
-    `significant. Detection limit 3.3 σ/S (ICH Q2(R1)) with σ/S that standard error, S the ` +
+    `significant. The share's 95 % interval propagates the weights' HAC covariance (model parts independent) to ` +
+    `area × weight / Σ area × weight to first order (delta method); the share is of the processed signal over the fit ` +
+    `points (each reference as the recipe leaves it), not of the raw absorbance before the recipe's baseline step. Detection limit 3.3 σ/S (ICH Q2(R1)) with σ/S that standard error, S the ` +
     `component's sensitivity net of the others, their line-shape terms and the baseline. Unexplained bands: residual maxima above ` +
     `${k} × the local noise (±100 cm⁻¹, robust σ of first differences) with FWHM ≥ ${resolution} cm⁻¹, ` +
     `none at the fit's edges; a residual peak where a fitted component gives at least ${MISFIT_RATIO} × the residual ` +

@@ -88,13 +88,19 @@ export const mixtureComponentSchema = z
     weight: z.number().finite().nonnegative(),
     /** Share of the fitted signal (component area over the summed component area), 0–1. */
     share: z.number().finite().min(0).max(1),
+    /**
+     * 95 % interval of the share [low, high] within [0, 1]: the weights' HAC covariance propagated to first order
+     * (delta method). The share is of the processed signal over the fit points (each reference as the recipe leaves
+     * it), not of the raw integrated absorbance.
+     */
+    shareInterval95: z.tuple([z.number().finite().min(0).max(1), z.number().finite().min(0).max(1)]),
     forced: z.boolean(),
     /** Fractional drop of the residual sum of squares when forward selection added it; null when forced. */
     improvement: z.number().finite().nullable(),
     /** p-value of the partial F-test that admitted it; null when forced. */
     pValue: z.number().min(0).max(1).nullable(),
     /**
-     * Standard error of the weight (HAC error from the final residual combined with the line-shape model part); null if
+     * Standard error of the weight (HAC error from the final residual combined with the line-shape and baseline model parts); null if
      * infinite.
      */
     standardError: z.number().finite().nonnegative().nullable(),

@@ -119,7 +119,7 @@ function mixtureSection(mixture: NonNullable<ReportPage['mixture']>, href: Href)
   <details class="mixture-rule-text"><summary>The fit's rules in full</summary><p>${esc(mixture.rule)}</p></details>
   <div class="table-scroll">
   <table class="data mixture-components">
-    <thead><tr><th scope="col">Component</th><th scope="col">Name</th><th scope="col" class="num">Weight</th><th scope="col" class="num">95 % interval</th><th scope="col">Significant</th><th scope="col" class="num">Share of fitted signal</th><th scope="col">Not told apart from</th><th scope="col">How</th></tr></thead>
+    <thead><tr><th scope="col">Component</th><th scope="col">Name</th><th scope="col" class="num">Weight</th><th scope="col" class="num">95 % interval</th><th scope="col">Significant</th><th scope="col" class="num">Share of fitted signal (95 % interval)</th><th scope="col">Not told apart from (it names one of the group)</th><th scope="col">How</th></tr></thead>
     <tbody>${components}
     </tbody>
   </table>

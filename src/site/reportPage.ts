@@ -151,7 +151,7 @@ export function reportPage(site: SiteReport, options: ReportPageOptions = {}): R
           name: `${c.name ?? ''}${c.forced ? ' (forced in)' : ''}`,
           weight: formatNumber(c.weight),
           interval: `${formatNumber(c.interval95[0])} – ${c.interval95[1] === null ? '∞' : formatNumber(c.interval95[1])}`,
-          share: `${formatNumber(c.share * 100, { decimals: 1 })} %`,
+          share: `${formatNumber(c.share * 100, { decimals: 1 })} % (${formatNumber(c.shareInterval95[0] * 100, { decimals: 1 })} – ${formatNumber(c.shareInterval95[1] * 100, { decimals: 1 })} %)`,
           how: c.forced
             ? 'forced in (match --with)'
             : `added by the selection, −${formatNumber(100 * (c.improvement ?? 0), { decimals: 1 })} % RSS` +

@@ -251,6 +251,7 @@ describe('identifyBands', () => {
             revision: 1,
             weight: 1,
             share: 1,
+            shareInterval95: [1, 1],
             forced: false,
             improvement: 0.9,
             pValue: 1e-6,

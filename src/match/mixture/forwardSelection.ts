@@ -1,6 +1,7 @@
 // Forward selection of mixture components by a nested-model partial F-test against the fit's own residual.
 import jStatModule from 'jstat';
 import { nnlsNormal } from '../nnlsNormal.js';
+import { hacCovariance } from './hacCovariance.js';
 import { hacScoreTest } from './hacScoreTest.js';
 import { invertSymmetric } from './invertSymmetric.js';
 import { ownBandShare } from './ownBandShare.js';
@@ -47,6 +48,11 @@ export interface ForwardSelection {
    * structure the model leaves (a band shape differing between benches) widens it.
    */
   standardErrorOf: Map<number, number>;
+  /**
+   * HAC (Newey–West, Bartlett, `bandwidth`) covariance matrix of the selected weights in the order of `selected`,
+   * row-major, from the final residual; its diagonal is the square of `standardErrorOf`.
+   */
+  covariance: Float64Array;
   /** Per selected column, the columns that fit as well in its place (see the swap test above the return). */
   alternativesOf: Map<number, number[]>;
   /** Per selected column, |its weight with − without the line-shape terms| (0 without them). */
@@ -355,13 +361,19 @@ export function forwardSelection(
   );
   const standardErrorOf = new Map<number, number>();
   const sensitivityOf = new Map<number, number>();
+  const directionOf = new Map<number, Float64Array>();
   for (let i = 0; i < c; i++) {
     const others = selected.filter((s) => s !== i);
     const d = unmimicked(i, [...others, ...finalFree]);
+    if (selected.includes(i)) directionOf.set(i, d);
     sensitivityOf.set(i, Math.sqrt(dot(d, d)));
     const test = hacScoreTest({ direction: d, query, residual: finalResidual }, { bandwidth });
     standardErrorOf.set(i, test.standardError);
   }
+  const covariance = hacCovariance(
+    { directions: selected.map((s) => directionOf.get(s)!), residual: finalResidual },
+    { bandwidth },
+  );
   const termOf = new Map<number, { column: number; term: number }>();
   shapeIndex.forEach((list, column) => {
     list.forEach((at, term) => {
@@ -392,6 +404,7 @@ export function forwardSelection(
     weights: current.x,
     rss: current.rss,
     standardErrorOf,
+    covariance,
     sensitivityOf,
     modelShiftOf,
     shapeTerms: finalFree.map((at, j) => ({ ...termOf.get(at)!, weight: current.z[j]! })),
