@@ -75,9 +75,14 @@ export function searchBandsOfSpectrum(
   if (covered === 0) {
     const hi = Math.max(input.grid.start, input.grid.stop);
     const lo = Math.min(input.grid.start, input.grid.stop);
+    const clipped = input.saturated?.reduce((n, v) => n + v, 0) ?? 0;
+    const why =
+      clipped === 0
+        ? 'check its x unit (--x-unit)'
+        : `${clipped} of its points are saturated (at or beyond the absorbance ceiling) and kept out`;
     throw new BandshelfError(
       'SMALL_OVERLAP',
-      `the spectrum covers none of the library grid (${hi}–${lo} cm⁻¹): check its x unit (--x-unit)`,
+      `the spectrum covers none of the library grid (${hi}–${lo} cm⁻¹): ${why}`,
       { ...(input.file === undefined ? {} : { file: input.file }) },
     );
   }
