@@ -26,6 +26,7 @@ export type ErrorCode =
   | 'UNKNOWN_RELEASE'
   | 'QC_FAILED'
   | 'SMALL_OVERLAP'
+  | 'NO_BANDS'
   | 'CHECK_FAILED'
   | 'IO_ERROR'
   | 'OUT_NOT_EMPTY'

@@ -57,6 +57,7 @@ export type {
   MatchUnknown,
 } from './match/pipeline/types.js';
 export { searchBands } from './match/searchBands.js';
+export { searchBandsOfSpectrum } from './match/searchBandsOfSpectrum.js';
 export { searchLibrary } from './match/searchLibrary.js';
 export { searchSpectra } from './match/searchSpectra.js';
 export { shippedAssignments } from './match/shippedAssignments.js';

@@ -1,16 +1,12 @@
 // Runs the whole match of one or more unknown files against a library: read, process, search, fit, identify, report.
-import { createHash } from 'node:crypto';
 import { basename, resolve } from 'node:path';
 import { BandshelfError, errorLine } from '../error.js';
 import type { SpectrumReadOptions } from '../formats/types.js';
-import type { SourceFile } from '../library/ingest/ingestTypes.js';
 import { closeLibrary } from '../library/store/closeLibrary.js';
 import { libraryPath } from '../library/store/libraryPath.js';
 import { listAssignments } from '../library/store/listAssignments.js';
 import { openLibrary } from '../library/store/openLibrary.js';
-import { readOriginals } from '../library/store/readOriginals.js';
 import { readRecipeFile } from '../library/store/readRecipeFile.js';
-import { readRegularFile } from '../library/store/readRegularFile.js';
 import { readSearchSet } from '../library/store/readSearchSet.js';
 import { recipeReferences } from '../library/store/recipeReferences.js';
 import type { SearchSet } from '../library/types.js';
@@ -23,11 +19,10 @@ import type { MatchUnknown } from '../match/pipeline/types.js';
 import { resolutionForUnknown } from '../match/resolutionForUnknown.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
-import { type Recipe, timeDomainSchema } from '../schema/recipe.js';
 import { resolutionOf } from '../spectrum/resolutionOf.js';
-import { pinNoiseFloor } from '../spectrum/trace/pinNoiseFloor.js';
 import type { CommandContext } from './command.js';
 import { flagWording } from './flagWording.js';
+import { readTimeDomainUnknown } from './readTimeDomainUnknown.js';
 import { readUnknownFile, type UnknownOfFile } from './readUnknownFile.js';
 import { spectrumFilesOf } from './spectrumFilesOf.js';
 
@@ -68,50 +63,6 @@ export interface MatchRun {
   /** More than one unknown (a folder, several files, a multi-block or a multi-column file). */
   batch: boolean;
   warnings: string[];
-}
-
-function readBytes(file: string, cwd: string): Uint8Array {
-  return readRegularFile(resolve(cwd, file), { label: file });
-}
-
-function warningLines(warnings: readonly { line?: number; message: string }[]): string[] {
-  return warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`));
-}
-
-/**
- * Sample traces and reference traces → one unknown, through the same conversion `add --time-domain` uses (the
- * recipe's time-domain step, the library default's, or the step's defaults). Its hash is the SHA-256 of the
- * sample files' bytes followed by the references', in the order given.
- */
-function readTimeDomainUnknown(
-  samples: readonly string[],
-  references: readonly string[],
-  settings: { cwd: string; keepPath: boolean; recipe: Recipe; timeUnit?: 'fs' | 'ps' },
-): MatchUnknown {
-  const hash = createHash('sha256');
-  const files: SourceFile[] = [
-    ...samples.map((f) => ({ role: 'sample-trace' as const, f })),
-    ...references.map((f) => ({ role: 'reference-trace' as const, f })),
-  ].map(({ role, f }) => {
-    const bytes = readBytes(f, settings.cwd);
-    hash.update(bytes);
-    return { role, name: basename(f), bytes };
-  });
-  const step = pinNoiseFloor(settings.recipe.timeDomain ?? timeDomainSchema.parse({}));
-  const [original] = readOriginals(
-    {
-      files,
-      read: settings.timeUnit === undefined ? {} : { timeUnit: settings.timeUnit },
-      recipe: { ...settings.recipe, timeDomain: step },
-    },
-    { label: samples[0] },
-  );
-  return {
-    file: settings.keepPath ? samples[0]! : basename(samples[0]!),
-    hash: hash.digest('hex'),
-    spectrum: original!.spectrum,
-    warnings: warningLines(original!.extras.warnings ?? []),
-  };
 }
 
 /**
@@ -179,12 +130,14 @@ export async function matchUnknowns(
     const outcomes: MatchOutcome[] = [];
     const warnings: string[] = [];
     if (read.timeDomain === true) {
-      const unknown = readTimeDomainUnknown(targets, read.references ?? [], {
-        cwd: context.cwd,
-        keepPath: options.keepPath === true,
-        recipe: recipe ?? source.recipe,
-        ...(read.timeUnit === undefined ? {} : { timeUnit: read.timeUnit }),
-      });
+      const unknown = readTimeDomainUnknown(
+        { samples: targets, references: read.references ?? [], recipe: recipe ?? source.recipe },
+        {
+          cwd: context.cwd,
+          keepPath: options.keepPath === true,
+          ...(read.timeUnit === undefined ? {} : { timeUnit: read.timeUnit }),
+        },
+      );
       const report = await runMatchPipeline({ unknown, source, scorer, assignments }, settings);
       for (const w of unknown.warnings) warnings.push(`${targets[0]}: ${w}`);
       return { outcomes: [{ file: targets[0]!, report }], batch: false, warnings };

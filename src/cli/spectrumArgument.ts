@@ -5,7 +5,7 @@ import { BandshelfError } from '../error.js';
 import { readEntry } from '../library/store/readEntry.js';
 import type { Library } from '../library/types.js';
 import type { Spectrum } from '../spectrum/types.js';
-import { readUnknownFile } from './readUnknownFile.js';
+import { type ReadUnknownFileOptions, readUnknownFile } from './readUnknownFile.js';
 
 export interface SpectrumArgumentOptions {
   /** The folder relative files are read against. @default process.cwd() */
@@ -14,6 +14,8 @@ export interface SpectrumArgumentOptions {
   library?: () => Library;
   /** A release tag for entry ids without `@revision`. @default undefined (working state) */
   at?: string;
+  /** How a file is read (units, block, column), as for a `match` unknown. @default {} (as the file says) */
+  read?: ReadUnknownFileOptions['read'];
 }
 
 export interface SpectrumArgument {
@@ -33,7 +35,10 @@ export interface SpectrumArgument {
 export function spectrumArgument(argument: string, options: SpectrumArgumentOptions = {}): SpectrumArgument {
   const cwd = options.cwd ?? process.cwd();
   if (existsSync(resolve(cwd, argument))) {
-    const [unknown] = readUnknownFile(argument, { cwd });
+    const [unknown] = readUnknownFile(argument, {
+      cwd,
+      ...(options.read === undefined ? {} : { read: options.read }),
+    });
     return {
       label: unknown!.file,
       original: unknown!.spectrum,

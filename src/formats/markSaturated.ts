@@ -39,7 +39,7 @@ export function markSaturated(spectrum: Spectrum, options: MarkSaturatedOptions 
   return {
     saturated: mask,
     warning: {
-      message: `${count} point${count === 1 ? '' : 's'} at or beyond the absorbance ceiling ${absorbanceCeiling} (transmittance ≤ ${10 ** -absorbanceCeiling}, noise of a saturated band) clipped and marked saturated, kept out of scoring: ${ranges.join(', ')} cm⁻¹`,
+      message: `${count} point${count === 1 ? '' : 's'} at or beyond the absorbance ceiling ${absorbanceCeiling} (transmittance ≤ ${(10 ** -absorbanceCeiling).toPrecision(1)}, noise of a saturated band) clipped and marked saturated, kept out of scoring: ${ranges.join(', ')} cm⁻¹`,
     },
   };
 }

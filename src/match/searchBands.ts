@@ -1,5 +1,6 @@
 // Band-position search: entries with stored peaks near the given positions, by binary search over the band index.
 import { BandshelfError } from '../error.js';
+import { bandStrength } from './bandStrength.js';
 import {
   BAND_TOLERANCE_CM1,
   type BandHit,
@@ -25,14 +26,6 @@ export interface SearchBandsOptions {
    * @default 20
    */
   top?: number;
-}
-
-/**
- * Relative-height classes behind `s`/`m`/`w`: our own convention (IR tables use the letters qualitatively):
- * strong ≥ 0.6 of the entry's strongest peak, medium ≥ 0.25, weak below.
- */
-function strengthOf(relative: number): BandStrength {
-  return relative >= 0.6 ? 's' : relative >= 0.25 ? 'm' : 'w';
 }
 
 const STRENGTH_RANK: Record<BandStrength, number> = { w: 0, m: 1, s: 2 };
@@ -75,7 +68,7 @@ function scratchFor(index: BandIndex): Scratch {
 function peakScore(error: number, relative: number, wanted: number, inverse: number): number {
   const s = 1 - Math.abs(error) * inverse;
   if (wanted < 0) return s;
-  const have = relative >= 0.6 ? 2 : relative >= 0.25 ? 1 : 0;
+  const have = STRENGTH_RANK[bandStrength(relative)];
   return s * (1 - 0.25 * Math.abs(have - wanted));
 }
 
@@ -342,7 +335,7 @@ function exactHits(
         position: position[k]!,
         error: position[k]! - band.position,
         relative: relative[k]!,
-        strength: strengthOf(relative[k]!),
+        strength: bandStrength(relative[k]!),
       });
     }
   }

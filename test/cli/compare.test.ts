@@ -1,8 +1,15 @@
 // `bandshelf compare` end to end: files and library entries on the library grid, the matrix, an SVG overlay.
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { type Band, bandshelf, parseJson, tempDir, writeSpectrumCsv } from './bandshelfCli.js';
+import {
+  type Band,
+  bandshelf,
+  parseJson,
+  syntheticSpectrum,
+  tempDir,
+  writeSpectrumCsv,
+} from './bandshelfCli.js';
 
 // Invented (synthetic) compounds.
 const PROTEIN: Band[] = [
@@ -21,6 +28,12 @@ beforeAll(() => {
   writeSpectrumCsv(join(dir, 'protein.csv'), PROTEIN, { seed: 1 });
   writeSpectrumCsv(join(dir, 'lipid.csv'), LIPID, { seed: 2 });
   writeSpectrumCsv(join(dir, 'protein-again.csv'), PROTEIN, { seed: 3, offset: 0.1 });
+  // protein.csv's own values as a header-less %T file: %T = 100 · 10^(−A) (Beer–Lambert, common practice).
+  const { x, y } = syntheticSpectrum(PROTEIN, { seed: 1 });
+  writeFileSync(
+    join(dir, 'protein-t.txt'),
+    x.map((w, i) => `${w}\t${(100 * 10 ** -y[i]!).toPrecision(12)}`).join('\n'),
+  );
   expect(bandshelf(['init', '--library', 'lib.sqlite'], { cwd: dir }).code).toBe(0);
   const add = bandshelf(['add', 'protein.csv', 'lipid.csv', '--class', 'other', '--library', 'lib.sqlite'], {
     cwd: dir,
@@ -62,5 +75,17 @@ describe('bandshelf compare', () => {
     const one = run(['compare', 'protein']);
     expect(one.code).toBe(2);
     expect(one.stderr).toMatch(/at least two spectra/);
+  });
+
+  it('takes the reading options for its files, and refuses a trace pair in one line', () => {
+    const r = run(['compare', 'protein', 'protein-t.txt', '--y-unit', 'percent-transmittance', '--json']);
+    expect(r.code, r.stderr).toBe(0);
+    const out = parseJson<{ matrix: number[][] }>(r.stdout);
+    // The entry and its own values written as %T: the same processed vector, r = 1 to the %T file's 12 digits.
+    expect(out.matrix[0]![1]).toBeCloseTo(1, 6);
+    const pair = run(['compare', 'protein', 'protein.csv', '--time-domain', '--reference', 'lipid.csv']);
+    expect(pair.code).toBe(2);
+    expect(pair.stderr.trim().split('\n')).toHaveLength(1);
+    expect(pair.stderr).toMatch(/compare reads spectrum files and entries, not trace pairs.*\[BAD_OPTION\]/);
   });
 });

@@ -1,4 +1,4 @@
-// The reading options on `match` and `identify` through the real CLI: a header-less %T unknown given its unit
+// The reading options on `match`, `identify` and `bands --from` through the real CLI: a header-less %T unknown given its unit
 // matches like its absorbance twin, and field-resolved sample and reference traces match as one unknown.
 import { cpSync, existsSync, mkdirSync, readdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -167,6 +167,69 @@ describe('match --time-domain', () => {
       lib,
     );
     expect(r.hits.slice(0, 2).map((h) => h.id)).toEqual(['glucose-field-resolved', 'glucose']);
+  });
+
+  it('identifies the bands of a trace pair, and of repeated traces, like match matches them', () => {
+    const pair = report(
+      'identify',
+      [
+        '--time-domain',
+        '--reference',
+        join(traces, 'paracetamol-field-resolved-reference.csv'),
+        join(traces, 'paracetamol-field-resolved-sample.csv'),
+      ],
+      lib,
+    );
+    expect(pair.query.file).toBe('paracetamol-field-resolved-sample.csv');
+    expect(pair.hits[0]!.id).toBe('paracetamol');
+    // The demo's paracetamol bands (src/demo/demoCompounds.ts, invented from recalled positions: 1654, 1507 cm⁻¹).
+    for (const c of [1654, 1507]) {
+      expect(
+        pair.bands.some((b) => Math.abs(b.position - c) < 4),
+        `${c}`,
+      ).toBe(true);
+    }
+    const repeated = report(
+      'identify',
+      [
+        '--time-domain',
+        '--reference',
+        join(traces, 'glucose-field-resolved-reference-1.csv'),
+        '--reference',
+        join(traces, 'glucose-field-resolved-reference-2.csv'),
+        join(traces, 'glucose-field-resolved-sample-1.csv'),
+        join(traces, 'glucose-field-resolved-sample-2.csv'),
+      ],
+      lib,
+    );
+    expect(repeated.hits.slice(0, 2).map((h) => h.id)).toEqual(['glucose-field-resolved', 'glucose']);
+    // Several files are sample traces only with --time-domain.
+    const two = bandshelf(['identify', 'protein-a.txt', 'protein-t.txt', '--library', fx.library], {
+      cwd: fx.dir,
+    });
+    expect(two.code).toBe(2);
+    expect(two.stderr.trim()).toMatch(/identify takes one spectrum file.*\[BAD_OPTION\]$/);
+  });
+
+  it('searches the bands of a trace pair with bands --from', () => {
+    const r = bandshelf(
+      [
+        'bands',
+        '--from',
+        join(traces, 'paracetamol-field-resolved-sample.csv'),
+        '--time-domain',
+        '--reference',
+        join(traces, 'paracetamol-field-resolved-reference.csv'),
+        '--library',
+        lib,
+        '--json',
+      ],
+      { cwd: fx.dir },
+    );
+    expect(r.code, r.stderr).toBe(0);
+    const out = parseJson<{ query: { from: string }; hits: { id: string }[] }>(r.stdout);
+    expect(out.query.from).toBe('paracetamol-field-resolved-sample.csv');
+    expect(out.hits[0]!.id).toBe('paracetamol');
   });
 
   it('refuses --time-domain without --reference on match and identify alike', () => {

@@ -1,10 +1,17 @@
 // `bandshelf subtract` end to end: a fitted and a given scale, CSV and JCAMP-DX output, a library entry as reference.
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { readDelimited } from '../../src/formats/readDelimited.js';
 import { readJcampDx } from '../../src/formats/readJcampDx.js';
-import { type Band, bandshelf, parseJson, tempDir, writeSpectrumCsv } from './bandshelfCli.js';
+import {
+  type Band,
+  bandshelf,
+  parseJson,
+  syntheticSpectrum,
+  tempDir,
+  writeSpectrumCsv,
+} from './bandshelfCli.js';
 
 // Invented (synthetic) liquid water: the combination band near 2130 cm⁻¹, the bend near 1640, the stretch.
 const WATER: Band[] = [
@@ -24,6 +31,19 @@ beforeAll(() => {
     [...WATER.map((b) => ({ ...b, height: 0.8 * b.height })), ...SOLUTE],
     { noise: 0.0002, seed: 3, offset: 0.01 },
   );
+  // water.csv's and plasma.csv's own values with x in µm (λ = 10⁴ / ν̃, common practice) and no header.
+  const water = syntheticSpectrum(WATER, { noise: 0.0001, seed: 2, offset: 0 });
+  const plasma = syntheticSpectrum([...WATER.map((b) => ({ ...b, height: 0.8 * b.height })), ...SOLUTE], {
+    noise: 0.0002,
+    seed: 3,
+    offset: 0.01,
+  });
+  for (const [name, { x, y }] of [
+    ['water-um.txt', water],
+    ['plasma-um.txt', plasma],
+  ] as const) {
+    writeFileSync(join(dir, name), x.map((w, i) => `${(1e4 / w).toPrecision(12)}\t${y[i]}`).join('\n'));
+  }
   expect(bandshelf(['init', '--library', 'lib.sqlite'], { cwd: dir }).code).toBe(0);
   const add = bandshelf(
     ['add', 'water.csv', '--id', 'water-liquid', '--class', 'solvent', '--library', 'lib.sqlite'],
@@ -66,6 +86,17 @@ describe('bandshelf subtract', () => {
     expect(r.stdout.split('\n')[0]).toBe('# bandshelf subtract: plasma.csv − scale × water.csv');
     const [read] = readDelimited(r.stdout);
     expect(read!.spectrum.wavenumber.length).toBe(1701); // 4000–600 cm⁻¹ at 2 cm⁻¹ steps
+  });
+
+  it('reads its files with the reading options', () => {
+    const um = parseJson<{ scale: number }>(
+      run(['subtract', 'plasma-um.txt', 'water-um.txt', '--x-unit', 'um', '--json']).stdout,
+    );
+    const cm = parseJson<{ scale: number }>(run(['subtract', 'plasma.csv', 'water.csv', '--json']).stdout);
+    // The same values on the same wavenumbers to 12 digits (a window edge point may fall either side): the same
+    // fitted scale, and by construction the plasma holds 0.8 × the water spectrum.
+    expect(um.scale).toBeCloseTo(cm.scale, 3);
+    expect(um.scale).toBeCloseTo(0.8, 2);
   });
 
   it('takes a library entry as the reference', () => {

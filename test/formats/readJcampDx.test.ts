@@ -155,6 +155,32 @@ describe('readJcampDx: abscissae, factors and units', () => {
     expect(err.field).toBe('xUnit');
   });
 
+  it('reads decadic absorption-coefficient units as absorbance-shaped, keeping the unit text, with a warning', () => {
+    // The YUNITS text of gas-phase reference spectra in an open data set (the 28 real files): a decadic
+    // absorption coefficient per amount fraction and path length, shaped like absorbance (common practice).
+    for (const unit of ['(micromol/mol)-1m-1 (base 10)', 'DECADIC ABSORPTION COEFFICIENT', 'L mol-1 cm-1']) {
+      const [p] = readJcampDx(jdx(['0 0.1 0.2 0.3'], { YUNITS: unit, LASTX: '2', NPOINTS: '3' }));
+      expect(Array.from(p!.spectrum.absorbance), unit).toEqual([0.1, 0.2, 0.3]);
+      expect(p!.source.yUnit).toBe('absorbance');
+      expect(p!.meta.yUnitsText).toBe(unit);
+      expect(p!.warnings.map((w) => w.message).join(), unit).toMatch(
+        /decadic absorption coefficient.*absorbance-shaped/,
+      );
+    }
+  });
+
+  it('asks for the y unit of ARBITRARY UNITS in one line naming the option', () => {
+    const err = bandshelfErrorOf(() =>
+      readJcampDx(jdx(['0 100 10 1'], { YUNITS: 'ARBITRARY UNITS', LASTX: '2', NPOINTS: '3' }), {
+        file: 'a.jdx',
+      }),
+    );
+    expect(err.code).toBe('UNKNOWN_UNIT');
+    expect(err.file).toBe('a.jdx');
+    expect(err.message).toMatch(/--y-unit absorbance\|transmittance\|percent-transmittance/);
+    expect(err.message).not.toContain('\n');
+  });
+
   it('lets options override the units', () => {
     const [p] = readJcampDx(jdx(['0 100 10 1'], { YUNITS: 'ARBITRARY UNITS', LASTX: '2', NPOINTS: '3' }), {
       yUnit: 'percent-transmittance',

@@ -379,6 +379,41 @@ describe.skipIf(!browserTestsRun())('the site in a browser', () => {
     await page.close();
   });
 
+  it('the in-browser matcher matches a time-domain sample and reference trace pair as match --time-domain does', async () => {
+    // The demo's synthetic field-resolved paracetamol traces (src/demo).
+    const traces = join(DEMO_LIBRARY, 'time-domain');
+    const sample = join(traces, 'paracetamol-field-resolved-sample.csv');
+    const reference = join(traces, 'paracetamol-field-resolved-reference.csv');
+    const cli = parseJson<{ hits: { id: string; score: number }[] }>(
+      bandshelf([
+        'match',
+        sample,
+        '--time-domain',
+        '--reference',
+        reference,
+        '--library',
+        fx.library,
+        '--json',
+      ]).stdout,
+    );
+    const page = await open('match/');
+    await page.waitForSelector('#match-drop[data-ready="true"]');
+    await page.setInputFiles('#match-reference', reference);
+    await page.setInputFiles('#match-file', sample);
+    await page.waitForSelector('#match-drop[data-matched="paracetamol-field-resolved-sample.csv"]');
+    expect(await page.getAttribute('#match-drop', 'data-failed')).toBeNull();
+    const hits = await page.$$eval('#match-report table.hits tbody tr', (trs) =>
+      trs.map((tr) => ({
+        id: (tr as HTMLElement).dataset.id ?? '',
+        score: Number(tr.querySelector('td:nth-child(4)')?.textContent),
+      })),
+    );
+    expect(hits[0]!.id).toBe(cli.hits[0]!.id);
+    // Same conversion and pipeline; only the published vectors are int16-quantised.
+    expect(Math.abs(hits[0]!.score - cli.hits[0]!.score)).toBeLessThan(1e-3);
+    await page.close();
+  });
+
   it('the home page lists counts and the newest revisions; no page logged an error or asked another host', async () => {
     const page = await open('');
     expect(await page.textContent('main')).toMatch(/\d+ entries/);

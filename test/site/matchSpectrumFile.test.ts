@@ -1,14 +1,19 @@
 // The in-browser matcher, run here in Node on the published binary matrix: it reads a dropped file with the
 // project's reader, processes it with the library recipe and ranks with the project's kernels, so its hits equal
 // those of searchSpectra on the unquantised vectors.
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { BandshelfError } from '../../src/error.js';
 import { writeCsv } from '../../src/formats/writeCsv.js';
+import { readOriginals } from '../../src/library/store/readOriginals.js';
 import { searchSpectra } from '../../src/match/searchSpectra.js';
-import { recipeSchema } from '../../src/schema/recipe.js';
+import { recipeSchema, timeDomainSchema } from '../../src/schema/recipe.js';
 import { matchSpectrumFile, type PublishedSearchSet } from '../../src/site/browser/matchSpectrumFile.js';
 import { decodeSearchMatrix } from '../../src/site/decodeSearchMatrix.js';
 import { encodeSearchMatrix } from '../../src/site/encodeSearchMatrix.js';
+import { pinNoiseFloor } from '../../src/spectrum/trace/pinNoiseFloor.js';
+import { ROOT } from '../cli/bandshelfCli.js';
 import { detail, GRID } from './fixtureObjects.js';
 
 const library = [
@@ -145,5 +150,39 @@ describe('matchSpectrumFile', () => {
       expect((error as BandshelfError).file).toBe('notes.csv');
       expect((error as BandshelfError).oneLine()).toMatch(/^notes\.csv(:\d+)?: .*\[[A-Z_]+\]$/);
     }
+  });
+
+  it('matches a time-domain sample and reference trace pair as `match --time-domain --reference` reads it', async () => {
+    // The demo's synthetic field-resolved glucose traces (src/demo; glucose band positions from memory).
+    const folder = join(ROOT, 'library', 'time-domain');
+    const sample = readFileSync(join(folder, 'glucose-field-resolved-sample-1.csv'));
+    const reference = {
+      name: 'glucose-field-resolved-reference-1.csv',
+      bytes: readFileSync(join(folder, 'glucose-field-resolved-reference-1.csv')),
+    };
+    const result = await matchSpectrumFile(sample, 'glucose-field-resolved-sample-1.csv', published, {
+      k: 4,
+      timeDomain: { references: [reference] },
+    });
+    expect(result.hits[0]!.id).toBe('glucose');
+    expect(result.report.query.file).toBe('glucose-field-resolved-sample-1.csv');
+    // The CLI's reading of the same pair (readOriginals, as add and match --time-domain read it), written out as a
+    // spectrum file: the same hits and scores.
+    const [converted] = readOriginals({
+      files: [
+        { role: 'sample-trace', name: 'glucose-field-resolved-sample-1.csv', bytes: sample },
+        { role: 'reference-trace', name: reference.name, bytes: reference.bytes },
+      ],
+      read: {},
+      recipe: { ...recipe, timeDomain: pinNoiseFloor(timeDomainSchema.parse({})) },
+    });
+    const asFile = await matchSpectrumFile(
+      new TextEncoder().encode(writeCsv(converted!.spectrum)),
+      'converted.csv',
+      published,
+      { k: 4, mixture: true },
+    );
+    expect(result.hits.map((h) => h.id)).toEqual(asFile.hits.map((h) => h.id));
+    for (let i = 0; i < 4; i++) expect(result.hits[i]!.score).toBeCloseTo(asFile.hits[i]!.score, 4);
   });
 });

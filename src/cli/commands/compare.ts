@@ -13,6 +13,8 @@ import { gridAxis } from '../../spectrum/gridAxis.js';
 import { interpolateAtWavenumbers } from '../../spectrum/interpolateAtWavenumbers.js';
 import { processSpectrum } from '../../spectrum/processSpectrum.js';
 import type { CommandSpec } from '../command.js';
+import { fileReadingOptions } from '../fileReadingOptions.js';
+import { readingOptions } from '../readingOptions.js';
 import { renderSvg } from '../renderSvg.js';
 import { spectrumArgument } from '../spectrumArgument.js';
 import { textTable } from '../textTable.js';
@@ -35,12 +37,14 @@ export const compareCommand: CommandSpec = {
       .option('--original', 'compare the original spectra, not the processed ones')
       .option('--plot <file.svg>', 'write an overlay plot as SVG')
       .option('--json', 'print the matrix as JSON');
+    readingOptions(command);
   },
   async run(args, options, context) {
     const names = (args[0] as string[] | undefined) ?? [];
     if (names.length < 2) {
       throw new BandshelfError('BAD_OPTION', 'name at least two spectra to compare', { field: 'spectra' });
     }
+    const read = fileReadingOptions(readingOptions(undefined, { flags: options }), { command: 'compare' });
     const library = openLibrary(libraryPath(options.library, context.cwd), { readonly: true });
     try {
       const at = typeof options.at === 'string' ? options.at : undefined;
@@ -51,6 +55,7 @@ export const compareCommand: CommandSpec = {
       const spectra = names.map((name) =>
         spectrumArgument(name, {
           cwd: context.cwd,
+          read,
           library: () => library,
           ...(at === undefined ? {} : { at }),
         }),

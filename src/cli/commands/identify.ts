@@ -17,13 +17,17 @@ export const identifyCommand: CommandSpec = {
     'bandshelf identify unknown-serum.csv --with albumin,water --json',
     'bandshelf identify unknown-serum.csv --no-mixture --tolerance 6',
     'bandshelf identify old-bench.txt --y-unit percent-transmittance',
+    'bandshelf identify s1.csv --time-domain --reference r1.csv   # field-resolved sample and reference traces',
     '',
     'Bands are peaks plus shoulders (minima of the negative second derivative). Each table assignment names its',
     'published source. A band is "explained" when the mixture fit leaves no residual peak above 3 × noise on it.',
   ].join('\n'),
   configure(command) {
     command
-      .argument('<file>', 'the unknown spectrum file')
+      .argument(
+        '<files...>',
+        'the unknown spectrum file (with --time-domain: the sample traces of one unknown)',
+      )
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
       .option('--keep-path', 'keep the unknown’s folder in the report (default: file name and SHA-256 only)')
       .option('--at <tag>', 'use a release instead of the working state')
@@ -42,10 +46,18 @@ export const identifyCommand: CommandSpec = {
     readingOptions(command);
   },
   async run(args, options, context) {
-    const file = args[0];
-    if (typeof file !== 'string') throw new BandshelfError('BAD_OPTION', 'name the unknown spectrum file');
+    const files = (args[0] as string[] | undefined) ?? [];
+    const file = files[0];
+    if (file === undefined) throw new BandshelfError('BAD_OPTION', 'name the unknown spectrum file');
     const parsed = parseMatchOptions({ ...options, metric: 'pearson', top: '5' }, { mixtureByDefault: true });
-    const run = await matchUnknowns([file], parsed, context);
+    if (files.length > 1 && parsed.read?.timeDomain !== true) {
+      throw new BandshelfError(
+        'BAD_OPTION',
+        'identify takes one spectrum file (several only as the sample traces of --time-domain); use match for several',
+        { field: 'files' },
+      );
+    }
+    const run = await matchUnknowns(files, parsed, context);
     const notes = [...run.warnings];
     if (run.batch) {
       notes.push(

@@ -11,7 +11,9 @@ import { openLibrary } from '../../library/store/openLibrary.js';
 import type { Library } from '../../library/types.js';
 import { subtractScaled } from '../../spectrum/subtractScaled.js';
 import type { CommandSpec } from '../command.js';
+import { fileReadingOptions } from '../fileReadingOptions.js';
 import { parseWindow } from '../parseWindow.js';
+import { readingOptions } from '../readingOptions.js';
 import { spectrumArgument } from '../spectrumArgument.js';
 
 function scaleOf(text: string): 'auto' | number {
@@ -50,6 +52,7 @@ export const subtractCommand: CommandSpec = {
       .option('--library <path>', 'library file for an entry id', 'bandshelf.sqlite')
       .option('--at <tag>', 'take an entry id from this release')
       .option('--json', 'print the fitted scale and what was written as JSON');
+    readingOptions(command);
   },
   async run(args, options, context) {
     const scale = scaleOf(String(options.scale ?? 'auto'));
@@ -57,6 +60,7 @@ export const subtractCommand: CommandSpec = {
       flag: 'window',
       example: '2300:1900',
     });
+    const read = fileReadingOptions(readingOptions(undefined, { flags: options }), { command: 'subtract' });
     let opened: Library | undefined;
     const library = () => {
       opened ??= openLibrary(libraryPath(options.library, context.cwd), { readonly: true });
@@ -64,9 +68,10 @@ export const subtractCommand: CommandSpec = {
     };
     try {
       const at = typeof options.at === 'string' ? options.at : undefined;
-      const unknown = spectrumArgument(String(args[0]), { cwd: context.cwd });
+      const unknown = spectrumArgument(String(args[0]), { cwd: context.cwd, read });
       const reference = spectrumArgument(String(args[1]), {
         cwd: context.cwd,
+        read,
         library,
         ...(at === undefined ? {} : { at }),
       });

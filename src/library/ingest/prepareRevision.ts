@@ -129,6 +129,33 @@ function shortNumber(v: number): string {
 }
 
 /**
+ * When the file does reach the grid (and the recipe's crop window) but every point there is saturated or too
+ * sparse between saturated ones to cover a grid cell: the range and the count, not unit advice or `force`.
+ */
+function nothingUsable(input: RevisionInput, span: { min: number; max: number }): string | null {
+  const saturated = input.saturated;
+  if (saturated === undefined) return null;
+  const crop = input.recipe.crop;
+  const lo = crop === null ? span.min : Math.max(span.min, Math.min(crop.min, crop.max));
+  const hi = crop === null ? span.max : Math.min(span.max, Math.max(crop.min, crop.max));
+  const w = input.original.wavenumber;
+  let inside = 0;
+  let clipped = 0;
+  for (let i = 0; i < w.length; i++) {
+    if (w[i]! < lo || w[i]! > hi) continue;
+    inside++;
+    if (saturated[i] === 1) clipped++;
+  }
+  if (inside === 0 || clipped === 0) return null;
+  return (
+    `nothing usable is left inside the recipe's range ${shortNumber(hi)}–${shortNumber(lo)} cm⁻¹: ${clipped} of its ` +
+    `${inside} points there are saturated (at or beyond the absorbance ceiling)` +
+    `${clipped < inside ? ' and the rest cover no grid cell' : ''}; ` +
+    'measure a thinner sample or a shorter path'
+  );
+}
+
+/**
  * The blocking flags and what to do. A spectrum that covers none of the grid is stored in vain even with `force`:
  * the advice names the file's x range and the grid, and the unit its values more likely are in.
  */
@@ -141,6 +168,8 @@ function qcAdvice(library: Library, input: RevisionInput, errors: readonly QcFla
   if (used === undefined || w.length === 0) return `${flags}; check the data's x axis and the library grid`;
   const { start, stop } = library.grid;
   const span = { min: Math.min(start, stop), max: Math.max(start, stop) };
+  const saturation = nothingUsable(input, span);
+  if (saturation !== null) return saturation;
   const guess = likelyXUnit({ min: w[0]!, max: w[w.length - 1]! }, { used, span });
   const values = `${shortNumber(guess.values.min)}–${shortNumber(guess.values.max)}`;
   const grid = `${shortNumber(span.min)}–${shortNumber(span.max)} cm⁻¹`;

@@ -96,10 +96,15 @@ function processUnknown(
   const mask = scoringMask(processed, source.grid, { ranges: options.ranges ?? [], exclude: recipe.exclude });
   const overlap = coveredSpan(mask, source.grid.step);
   if (overlap < minOverlap || overlap === 0) {
+    const clipped = unknown.saturated?.reduce((n, v) => n + v, 0) ?? 0;
+    const why =
+      clipped === 0
+        ? '(lower minOverlap or widen the ranges)'
+        : `(${clipped} of its points are saturated, at or beyond the absorbance ceiling, and kept out)`;
     throw new BandshelfError(
       'SMALL_OVERLAP',
       `the unknown covers only ${overlap} cm⁻¹ of the library grid inside the scoring ranges; at least ` +
-        `${minOverlap} cm⁻¹ are needed (lower minOverlap or widen the ranges)`,
+        `${minOverlap} cm⁻¹ are needed ${why}`,
       { file: unknown.file, field: 'minOverlap' },
     );
   }

@@ -1,7 +1,8 @@
 // Matches a dropped spectrum file against the published data with the one match pipeline `bandshelf match` runs
 // (browser-safe: the same reader, recipe, search, mixture fit and band identification, bundled for the page).
 import { readSpectrumFile } from '../../formats/readSpectrumFile.js';
-import type { SpectrumReadOptions } from '../../formats/types.js';
+import { readTraceSpectrum, type TraceFile } from '../../formats/readTraceSpectrum.js';
+import type { ParsedSpectrum, SpectrumReadOptions } from '../../formats/types.js';
 import { buildBandIndex } from '../../match/buildBandIndex.js';
 import { compareAtCoarserResolution } from '../../match/compareAtCoarserResolution.js';
 import { instantiateScoreKernels } from '../../match/instantiateScoreKernels.js';
@@ -16,8 +17,9 @@ import { singleThreadRunner } from '../../match/singleThreadRunner.js';
 import type { BandIndex } from '../../match/types.js';
 import type { BandAssignment } from '../../schema/bandAssignment.js';
 import type { MatchHit, MatchReport } from '../../schema/matchReport.js';
-import type { Grid, Recipe, WavenumberWindow } from '../../schema/recipe.js';
+import { type Grid, type Recipe, timeDomainSchema, type WavenumberWindow } from '../../schema/recipe.js';
 import { resolutionOf } from '../../spectrum/resolutionOf.js';
+import { pinNoiseFloor } from '../../spectrum/trace/pinNoiseFloor.js';
 import { publishedMatchSource } from './publishedMatchSource.js';
 
 /** What the build writes beside the binary matrix (`assets/search-matrix.json`), plus the decoded matrix. */
@@ -74,10 +76,15 @@ export interface MatchSpectrumFileOptions {
   /** The published source already built from `set` (keeps loaded entries across files). @default built from set */
   source?: MatchSource;
   /**
-   * How to read the file, as `bandshelf match --x-unit/--y-unit/--block/--column` (time-domain pairs are a
-   * CLI matter: they need two files). @default {} (as the file says)
+   * How to read the file, as `bandshelf match --x-unit/--y-unit/--block/--column`. @default {} (as the file says)
    */
   read?: Pick<SpectrumReadOptions, 'xUnit' | 'yUnit' | 'block' | 'column'>;
+  /**
+   * The file is a field-resolved sample trace and these are its reference traces, as `bandshelf match
+   * --time-domain --reference FILE [--time-unit U]`: converted with the published recipe's time-domain step (or the
+   * step's defaults), its noise floor pinned as the CLI pins it. @default undefined (a spectrum file)
+   */
+  timeDomain?: { references: readonly TraceFile[]; timeUnit?: 'fs' | 'ps' };
 }
 
 export interface FileMatch {
@@ -114,6 +121,26 @@ async function sha256(bytes: Uint8Array): Promise<string> {
   return Array.from(new Uint8Array(digest), (b) => b.toString(16).padStart(2, '0')).join('');
 }
 
+/** What the match reads of a file: a parsed spectrum, or a converted trace pair (which has no block or column). */
+type ReadUnknown = Pick<ParsedSpectrum, 'spectrum' | 'meta' | 'warnings' | 'saturated'> & {
+  source: Partial<Pick<ParsedSpectrum['source'], 'block' | 'column'>>;
+};
+
+/** A sample trace and its references as the one unknown the rest of the match reads. */
+function traceUnknown(
+  bytes: Uint8Array,
+  file: string,
+  recipe: Recipe,
+  traces: NonNullable<MatchSpectrumFileOptions['timeDomain']>,
+): ReadUnknown {
+  const step = pinNoiseFloor(recipe.timeDomain ?? timeDomainSchema.parse({}));
+  const result = readTraceSpectrum(
+    { samples: [{ name: file, bytes }], references: traces.references, step },
+    traces.timeUnit === undefined ? {} : { timeUnit: traces.timeUnit },
+  );
+  return { spectrum: result.spectrum, meta: {}, warnings: result.warnings, source: {} };
+}
+
 export async function matchSpectrumFile(
   bytes: Uint8Array,
   file: string,
@@ -123,7 +150,11 @@ export async function matchSpectrumFile(
   const started = performance.now();
   let scored = started;
   const read = options.read ?? {};
-  const parsed = readSpectrumFile(bytes, { ...read, file });
+  const traces = options.timeDomain;
+  const parsed: ReadUnknown[] =
+    traces === undefined
+      ? readSpectrumFile(bytes, { ...read, file })
+      : [traceUnknown(bytes, file, options.source?.recipe ?? set.recipe, traces)];
   const first = parsed[0]!;
   const title = typeof first.meta.title === 'string' ? first.meta.title : undefined;
   const source = options.source ?? publishedMatchSource(set);
@@ -132,7 +163,11 @@ export async function matchSpectrumFile(
     index = buildBandIndex(source);
     bandIndexes.set(source, index);
   }
-  const matched = resolutionForUnknown(first.spectrum, source.recipe, { stated: first.meta.resolution });
+  // As `bandshelf match --time-domain`: a converted trace pair is matched as converted (no resolution step).
+  const matched =
+    traces === undefined
+      ? resolutionForUnknown(first.spectrum, source.recipe, { stated: first.meta.resolution })
+      : { recipe: source.recipe, warnings: [] };
   const warnings = [
     ...first.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
     ...matched.warnings,
@@ -170,12 +205,15 @@ export async function matchSpectrumFile(
     },
   );
   // Like with like, as `bandshelf match` does: hits of another resolution scored again at the coarser of the two.
-  const alike = await compareAtCoarserResolution({
-    report: piped,
-    unknown: first.spectrum,
-    resolution: resolutionOf(first.spectrum, { stated: first.meta.resolution }).value,
-    source,
-  });
+  const alike =
+    traces === undefined
+      ? await compareAtCoarserResolution({
+          report: piped,
+          unknown: first.spectrum,
+          resolution: resolutionOf(first.spectrum, { stated: first.meta.resolution }).value,
+          source,
+        })
+      : { report: piped, notes: [] };
   const report = alike.report;
   warnings.push(...alike.notes);
   const paths = new Map(set.entries.map((e) => [e.id, e.path]));

@@ -61,6 +61,7 @@ function absolute(doc: Document, relative: string): string {
 export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): void {
   const zone = doc.getElementById('match-drop');
   const input = doc.getElementById('match-file') as HTMLInputElement | null;
+  const referenceInput = doc.getElementById('match-reference') as HTMLInputElement | null;
   const status = doc.getElementById('match-status');
   const engine = doc.getElementById('match-engine');
   const target = doc.getElementById('match-report');
@@ -183,6 +184,15 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
     let viaWorker = false;
     try {
       const settings = settingsOf(form, k);
+      // With reference traces chosen, the file is a field-resolved sample trace (match --time-domain --reference).
+      const referenceFiles = Array.from(referenceInput?.files ?? []);
+      if (referenceFiles.length > 0) {
+        const references = await Promise.all(
+          referenceFiles.map(async (f) => ({ name: f.name, bytes: new Uint8Array(await f.arrayBuffer()) })),
+        );
+        const unit = form ? String(new FormData(form).get('timeUnit') ?? '') : '';
+        settings.timeDomain = { references, ...(unit === 'fs' || unit === 'ps' ? { timeUnit: unit } : {}) };
+      }
       const data = await ready;
       const bytes = new Uint8Array(await file.arrayBuffer());
       const w = await worker;
