@@ -174,77 +174,11 @@ export function fitMixture(
   const minOwnShare = options.minOwnShare ?? 0.5;
   const withShapes = options.lineShapeTerms ?? true;
   const cols = gridLength(grid);
-  if (query.length !== cols) {
-    throw new BandshelfError('BAD_OPTION', `the query has ${query.length} points; the grid has ${cols}`, {
-      field: 'query',
-    });
-  }
-  if (!(Number.isInteger(maxComponents) && maxComponents >= 1)) {
-    throw new BandshelfError(
-      'BAD_OPTION',
-      `max components must be a whole number ≥ 1, not ${maxComponents}`,
-      {
-        field: 'maxComponents',
-      },
-    );
-  }
-  if (!(alpha > 0 && alpha < 1)) {
-    throw new BandshelfError('BAD_OPTION', `the significance level must lie between 0 and 1, not ${alpha}`, {
-      field: 'alpha',
-    });
-  }
-  if (degree !== null && !(Number.isInteger(degree) && degree >= 0 && degree <= 6)) {
-    throw new BandshelfError('BAD_OPTION', `the baseline degree must be 0–6 or none, not ${degree}`, {
-      field: 'baselineDegree',
-    });
-  }
-  // One entry per id; the first occurrence wins.
-  const pool: MixtureCandidate[] = [];
-  const seen = new Set<string>();
-  for (const c of candidates) {
-    if (c.vector.length !== cols) {
-      throw new BandshelfError(
-        'BAD_OPTION',
-        `candidate '${c.id}' has ${c.vector.length} points; the grid has ${cols}`,
-        {
-          field: 'candidates',
-        },
-      );
-    }
-    if (!seen.has(c.id)) {
-      seen.add(c.id);
-      pool.push(c);
-    }
-  }
-  for (const id of forcedIds) {
-    if (!seen.has(id)) {
-      throw new BandshelfError('NOT_FOUND', `no library entry '${id}' to force into the mixture`, {
-        field: 'with',
-      });
-    }
-  }
-  const forced = pool.filter((c) => forcedIds.includes(c.id));
+  checkFitOptions(query.length, cols, maxComponents, alpha, degree);
+  const pool = candidatePool(candidates, forcedIds, cols);
 
-  // The fit points: covered by the query (inside the ranges) and by every forced candidate; then narrowed to
-  // what every candidate that covers nearly all of them covers too, so a reference missing a few edge points
-  // still takes part while one covering only part of the range (a tunable-laser entry) is left out.
   const axis = gridAxis(grid);
-  const inRanges = (x: number): boolean => ranges === null || ranges.some((w) => x >= w.min && x <= w.max);
-  let at: number[] = [];
-  for (let i = 0; i < cols; i++) {
-    if (!Number.isFinite(query[i]!) || !inRanges(axis[i]!)) continue;
-    if (forced.some((c) => !Number.isFinite(c.vector[i]!))) continue;
-    at.push(i);
-  }
-  const skipped: string[] = [];
-  const taking: MixtureCandidate[] = [];
-  for (const c of pool) {
-    let covered = 0;
-    for (const i of at) if (Number.isFinite(c.vector[i]!)) covered++;
-    if (forcedIds.includes(c.id) || covered >= minCoverage * at.length) taking.push(c);
-    else skipped.push(c.id);
-  }
-  at = at.filter((i) => taking.every((c) => Number.isFinite(c.vector[i]!)));
+  const { at, skipped, taking } = fitPoints(query, pool, forcedIds, { axis, ranges, minCoverage });
   const n = at.length;
   const columnsNeeded = Math.min(maxComponents, pool.length) + (degree === null ? 0 : degree + 1) + 2;
   if (n < columnsNeeded) {
@@ -335,20 +269,323 @@ export function fitMixture(
           `candidate ('${usable[selection.rejected]!.candidate.id}')`,
         );
 
-  // Final vectors on the fit points from the original (unprojected) columns, so the reported residual is exact.
+  const { baseline, fitted, residual, rss, tss } = assembleFit({
+    b,
+    at,
+    cols,
+    columns: selected.map((s) => usable[s]!.raw),
+    weights: current.x,
+    shapes: selection.shapeTerms.map((term) => ({
+      raw: shapesRaw[term.column]![term.term]!,
+      weight: term.weight,
+    })),
+    basis: basis === null || degree === null ? null : { ...basis, q, degree, centre, halfWidth },
+  });
+
+  const noiseFigures = residualNoise(Float64Array.from(at, (i) => residual[i]!));
+  const { components, notSelected } = componentReports({
+    usable,
+    selected,
+    weights: current.x,
+    selection,
+    modelVariance,
+  });
+
+  const peaks = residualBands({ wavenumber: axis, absorbance: residual }, query, {
+    k,
+    resolution,
+    smoothWindow,
+  });
+  const { bands, misfitBands } = separateMisfits(peaks, components, usable, selected, current.x, at, axis);
+  const rule = ruleText({
+    candidates: c,
+    degree,
+    defaultDegree: options.baselineDegree === undefined,
+    minOwnShare,
+    correlationWidth,
+    alpha,
+    maxComponents,
+    withShapes,
+    k,
+    resolution,
+  });
+
+  return {
+    components,
+    r2: tss > 0 ? 1 - rss / tss : Number.NaN,
+    rss,
+    baseline,
+    fitted,
+    residual,
+    noise: noiseFigures.sigma,
+    noiseSource: 'residual-differences',
+    noiseLag1: noiseFigures.lag1,
+    effectivePoints: n / noiseFigures.inflation,
+    alpha,
+    rule,
+    notSelected,
+    k,
+    residualBands: bands,
+    misfitBands,
+    points: n,
+    span: { min: lo, max: hi },
+    criterion: rule,
+    stopReason,
+    skipped,
+  };
+}
+
+/** Splits residual peaks into unexplained bands and misfits of the fitted components' own bands. */
+function separateMisfits(
+  peaks: readonly ResidualBand[],
+  components: readonly MixtureComponent[],
+  usable: readonly { candidate: MixtureCandidate; raw: Float64Array }[],
+  selected: readonly number[],
+  weights: Float64Array,
+  at: readonly number[],
+  axis: ArrayLike<number>,
+): { bands: ResidualBand[]; misfitBands: MisfitBand[] } {
+  const kept = new Set(components.map((c) => c.id));
+  const bands: ResidualBand[] = [];
+  const misfitBands: MisfitBand[] = [];
+  for (const peak of peaks) {
+    let t = 0;
+    for (let j = 1; j < at.length; j++) {
+      if (Math.abs(axis[at[j]!]! - peak.position) < Math.abs(axis[at[t]!]! - peak.position)) t = j;
+    }
+    let owner: { id: string; contribution: number } | null = null;
+    // Within MISFIT_REACH × the peak's FWHM the component must have a band maximum of its own: a narrow residual
+    // band on the wing of a broad one (a drug's band on water's combination band) is not that band's misfit.
+    const reach = Math.max(
+      2,
+      Math.ceil(
+        (MISFIT_REACH * peak.fwhm) / Math.max(1e-9, Math.abs(axis[at[1] ?? at[0]!]! - axis[at[0]!]!)),
+      ),
+    );
+    selected.forEach((s, j) => {
+      const id = usable[s]!.candidate.id;
+      const raw = usable[s]!.raw;
+      const contribution = weights[j]! * raw[t]!;
+      if (!kept.has(id) || !(contribution >= MISFIT_RATIO * Math.abs(peak.height))) return;
+      if (!hasMaximumNear(raw, t, reach)) return;
+      if (owner === null || contribution > owner.contribution) owner = { id, contribution };
+    });
+    const found = owner as { id: string; contribution: number } | null;
+    if (found === null) bands.push(peak);
+    else {
+      misfitBands.push({
+        position: peak.position,
+        height: peak.height,
+        component: found.id,
+        contribution: found.contribution,
+      });
+    }
+  }
+  return { bands, misfitBands };
+}
+
+/** A local maximum of `v` within ±`reach` points of `t` (the ends of the fit do not count). */
+function hasMaximumNear(v: Float64Array, t: number, reach: number): boolean {
+  for (let i = Math.max(1, t - reach); i <= Math.min(v.length - 2, t + reach); i++) {
+    if (v[i]! >= v[i - 1]! && v[i]! > v[i + 1]!) return true;
+  }
+  return false;
+}
+
+/** Refuses a query off the grid and options outside their ranges (BAD_OPTION naming the option). */
+function checkFitOptions(
+  queryLength: number,
+  cols: number,
+  maxComponents: number,
+  alpha: number,
+  degree: number | null,
+): void {
+  if (queryLength !== cols) {
+    throw new BandshelfError('BAD_OPTION', `the query has ${queryLength} points; the grid has ${cols}`, {
+      field: 'query',
+    });
+  }
+  if (!(Number.isInteger(maxComponents) && maxComponents >= 1)) {
+    throw new BandshelfError(
+      'BAD_OPTION',
+      `max components must be a whole number ≥ 1, not ${maxComponents}`,
+      {
+        field: 'maxComponents',
+      },
+    );
+  }
+  if (!(alpha > 0 && alpha < 1)) {
+    throw new BandshelfError('BAD_OPTION', `the significance level must lie between 0 and 1, not ${alpha}`, {
+      field: 'alpha',
+    });
+  }
+  if (degree !== null && !(Number.isInteger(degree) && degree >= 0 && degree <= 6)) {
+    throw new BandshelfError('BAD_OPTION', `the baseline degree must be 0–6 or none, not ${degree}`, {
+      field: 'baselineDegree',
+    });
+  }
+}
+
+/** One candidate per id (the first occurrence wins), each on the grid; every forced id must be among them. */
+function candidatePool(
+  candidates: readonly MixtureCandidate[],
+  forcedIds: readonly string[],
+  cols: number,
+): MixtureCandidate[] {
+  // One entry per id; the first occurrence wins.
+  const pool: MixtureCandidate[] = [];
+  const seen = new Set<string>();
+  for (const c of candidates) {
+    if (c.vector.length !== cols) {
+      throw new BandshelfError(
+        'BAD_OPTION',
+        `candidate '${c.id}' has ${c.vector.length} points; the grid has ${cols}`,
+        {
+          field: 'candidates',
+        },
+      );
+    }
+    if (!seen.has(c.id)) {
+      seen.add(c.id);
+      pool.push(c);
+    }
+  }
+  for (const id of forcedIds) {
+    if (!seen.has(id)) {
+      throw new BandshelfError('NOT_FOUND', `no library entry '${id}' to force into the mixture`, {
+        field: 'with',
+      });
+    }
+  }
+  return pool;
+}
+
+/**
+ * The fit points: covered by the query (inside the ranges) and by every forced candidate; then narrowed to what
+ * every candidate that covers nearly all of them covers too, so a reference missing a few edge points still takes
+ * part while one covering only part of the range (a tunable-laser entry) is left out.
+ */
+function fitPoints(
+  query: ArrayLike<number>,
+  pool: readonly MixtureCandidate[],
+  forcedIds: readonly string[],
+  settings: { axis: ArrayLike<number>; ranges: readonly WavenumberWindow[] | null; minCoverage: number },
+): { at: number[]; skipped: string[]; taking: MixtureCandidate[] } {
+  const { axis, ranges, minCoverage } = settings;
+  const cols = query.length;
+  const forced = pool.filter((c) => forcedIds.includes(c.id));
+  const inRanges = (x: number): boolean => ranges === null || ranges.some((w) => x >= w.min && x <= w.max);
+  let at: number[] = [];
+  for (let i = 0; i < cols; i++) {
+    if (!Number.isFinite(query[i]!) || !inRanges(axis[i]!)) continue;
+    if (forced.some((c) => !Number.isFinite(c.vector[i]!))) continue;
+    at.push(i);
+  }
+  const skipped: string[] = [];
+  const taking: MixtureCandidate[] = [];
+  for (const c of pool) {
+    let covered = 0;
+    for (const i of at) if (Number.isFinite(c.vector[i]!)) covered++;
+    if (forcedIds.includes(c.id) || covered >= minCoverage * at.length) taking.push(c);
+    else skipped.push(c.id);
+  }
+  at = at.filter((i) => taking.every((c) => Number.isFinite(c.vector[i]!)));
+  return { at, skipped, taking };
+}
+
+/** The selection, uncertainty, detection-limit and residual-band rules in words, for reports. */
+function ruleText(settings: {
+  candidates: number;
+  degree: number | null;
+  defaultDegree: boolean;
+  minOwnShare: number;
+  correlationWidth: number;
+  alpha: number;
+  maxComponents: number;
+  withShapes: boolean;
+  k: number;
+  resolution: number;
+}): string {
+  const {
+    candidates: c,
+    degree,
+    minOwnShare,
+    correlationWidth,
+    alpha,
+    maxComponents,
+    withShapes,
+    k,
+    resolution,
+  } = settings;
+  const baselineText =
+    degree === null
+      ? 'no baseline'
+      : `a free-sign polynomial baseline of degree ${degree}${settings.defaultDegree ? ' (the default: it absorbs offset, slope and bow between benches without mimicking broad bands)' : ''}`;
+  return (
+    `stepwise selection from ${c} candidate(s) with ${baselineText}: at each step every remaining candidate is ` +
+    `tried; one is taken in only if (1) it explains at least ${(100 * minOwnShare).toFixed(0)} % of what the fit without it leaves at its own ` +
+    `bands beyond the noise (a compound present accounts for its bands; one that only trims another component's ` +
+    `misfit does not), and (2) a one-sided z-test of its weight, with a Newey–West (HAC, Bartlett, ` +
+    `${correlationWidth} cm⁻¹) standard error robust to correlated and unequal residuals, rejects 0 at α = ${alpha} ` +
+    `after a Bonferroni correction for the number of candidates tried; a component a later one makes fail (1) is ` +
+    `left out again` +
+    `${maxComponents < c ? `; at most ${maxComponents} components` : ''}. ` +
+    `${withShapes ? "Each selected component's first and second derivatives join the fit as free-sign terms, so its bands may shift and broaden a little between benches without leaving a residual for another candidate (they leave its area unchanged). " : ''}` +
+    `Each weight's standard error combines a Newey–West (HAC, Bartlett, ${correlationWidth} cm⁻¹) error from the final ` +
+    `residual (structure the model leaves widens it) with the model's parts: the weight's change ${[withShapes ? 'when the line-shape terms are left out' : '', degree !== null && degree < 6 ? 'when the baseline is one degree higher' : ''].filter((t) => t !== '').join(' and ') || '(none)'}, each taken as the half-width of a rectangular distribution (÷√3, GUM); ` +
+    `the 95 % interval is ± 1.96 of it (normal reference); a component whose interval reaches 0 is not ` +
+    `significant. The share's 95 % interval propagates the weights' HAC covariance (model parts independent) to ` +
+    `area × weight / Σ area × weight to first order (delta method); the share is of the processed signal over the fit ` +
+    `points (each reference as the recipe leaves it), not of the raw absorbance before the recipe's baseline step. Detection limit 3.3 σ/S (ICH Q2(R1)) with σ/S that standard error, S the ` +
+    `component's sensitivity net of the others, their line-shape terms and the baseline. Unexplained bands: residual maxima above ` +
+    `${k} × the local noise (±100 cm⁻¹, robust σ of first differences) with FWHM ≥ ${resolution} cm⁻¹, ` +
+    `none at the fit's edges; a residual peak where a fitted component gives at least ${MISFIT_RATIO} × the residual ` +
+    `and that has a band maximum within ${MISFIT_REACH} × the peak's FWHM is that component's band differing in shape or position ` +
+    `between benches, listed apart, not as unexplained.`
+  );
+}
+
+/**
+ * The final model on the fit points from the original (unprojected) columns, so the reported residual is exact: the
+ * weighted components and line-shape terms, then the least-squares polynomial of what they leave (in the orthonormal
+ * basis, back-substituted to the plain powers of u). Fitted and residual are on the whole grid, NaN off the fit points.
+ */
+function assembleFit(input: {
+  b: Float64Array;
+  at: readonly number[];
+  cols: number;
+  columns: readonly Float64Array[];
+  weights: ArrayLike<number>;
+  shapes: readonly { raw: Float64Array; weight: number }[];
+  basis: {
+    q: readonly Float64Array[];
+    r: ArrayLike<number>;
+    degree: number;
+    centre: number;
+    halfWidth: number;
+  } | null;
+}): {
+  baseline: MixtureResult['baseline'];
+  fitted: Float64Array;
+  residual: Float64Array;
+  rss: number;
+  tss: number;
+} {
+  const { b, at, cols, columns, weights, shapes, basis } = input;
+  const n = at.length;
   const model = new Float64Array(n);
-  for (let s = 0; s < selected.length; s++) {
-    const w = current.x[s]!;
+  for (let s = 0; s < columns.length; s++) {
+    const w = weights[s]!;
     if (w === 0) continue;
-    const raw = usable[selected[s]!]!.raw;
+    const raw = columns[s]!;
     for (let t = 0; t < n; t++) model[t] = model[t]! + w * raw[t]!;
   }
-  for (const term of selection.shapeTerms) {
-    const raw = shapesRaw[term.column]![term.term]!;
-    for (let t = 0; t < n; t++) model[t] = model[t]! + term.weight * raw[t]!;
+  for (const shape of shapes) {
+    for (let t = 0; t < n; t++) model[t] = model[t]! + shape.weight * shape.raw[t]!;
   }
   let baseline: MixtureResult['baseline'] = null;
-  if (basis !== null && degree !== null) {
+  if (basis !== null) {
+    const { q, degree, centre, halfWidth } = basis;
     const left = Float64Array.from(b, (v, t) => v - model[t]!);
     const m = degree + 1;
     const coefQ = q.map((qi) => dot(qi, left));
@@ -381,10 +618,25 @@ export function fitMixture(
     tss += (b[t]! - mean) ** 2;
   }
 
+  return { baseline, fitted, residual, rss, tss };
+}
+
+/**
+ * The kept components, each with its share, standard error, intervals, significance, detection limit and "not told
+ * apart" alternatives, and the offered candidates not kept, each with the detection limit it would have had.
+ */
+function componentReports(input: {
+  usable: readonly { candidate: MixtureCandidate; raw: Float64Array; forced: boolean }[];
+  selected: readonly number[];
+  weights: Float64Array;
+  selection: ReturnType<typeof forwardSelection>;
+  modelVariance: (s: number) => number;
+}): { components: MixtureComponent[]; notSelected: UnselectedCandidate[] } {
+  const { usable, selected, selection, modelVariance } = input;
+  const current = { x: input.weights };
   const absArea = (v: Float64Array): number => v.reduce((sum, x) => sum + Math.abs(x), 0);
   const area = selected.map((s, j) => current.x[j]! * absArea(usable[s]!.raw));
   const signal = area.reduce((sum, a) => sum + a, 0);
-  const noiseFigures = residualNoise(Float64Array.from(at, (i) => residual[i]!));
   // Weight ± z₀.₉₇₅ × its HAC standard error (normal reference, many points); ICH's σ/S of a weight is that error.
   const z975 = jStat.normal.inv(0.975, 0, 1);
   const uncertaintyOf = (s: number, weight: number) => {
@@ -469,116 +721,5 @@ export function fitMixture(
     notSelected.push(entry);
   });
 
-  const peaks = residualBands({ wavenumber: axis, absorbance: residual }, query, {
-    k,
-    resolution,
-    smoothWindow,
-  });
-  const { bands, misfitBands } = separateMisfits(peaks, components, usable, selected, current.x, at, axis);
-  const baselineText =
-    degree === null
-      ? 'no baseline'
-      : `a free-sign polynomial baseline of degree ${degree}${options.baselineDegree === undefined ? ' (the default: it absorbs offset, slope and bow between benches without mimicking broad bands)' : ''}`;
-  const rule =
-    `stepwise selection from ${c} candidate(s) with ${baselineText}: at each step every remaining candidate is ` +
-    `tried; one is taken in only if (1) it explains at least ${(100 * minOwnShare).toFixed(0)} % of what the fit without it leaves at its own ` +
-    `bands beyond the noise (a compound present accounts for its bands; one that only trims another component's ` +
-    `misfit does not), and (2) a one-sided z-test of its weight, with a Newey–West (HAC, Bartlett, ` +
-    `${correlationWidth} cm⁻¹) standard error robust to correlated and unequal residuals, rejects 0 at α = ${alpha} ` +
-    `after a Bonferroni correction for the number of candidates tried; a component a later one makes fail (1) is ` +
-    `left out again` +
-    `${maxComponents < c ? `; at most ${maxComponents} components` : ''}. ` +
-    `${withShapes ? "Each selected component's first and second derivatives join the fit as free-sign terms, so its bands may shift and broaden a little between benches without leaving a residual for another candidate (they leave its area unchanged). " : ''}` +
-    `Each weight's standard error combines a Newey–West (HAC, Bartlett, ${correlationWidth} cm⁻¹) error from the final ` +
-    `residual (structure the model leaves widens it) with the model's parts: the weight's change ${[withShapes ? 'when the line-shape terms are left out' : '', degree !== null && degree < 6 ? 'when the baseline is one degree higher' : ''].filter((t) => t !== '').join(' and ') || '(none)'}, each taken as the half-width of a rectangular distribution (÷√3, GUM); ` +
-    `the 95 % interval is ± 1.96 of it (normal reference); a component whose interval reaches 0 is not ` +
-    `significant. The share's 95 % interval propagates the weights' HAC covariance (model parts independent) to ` +
-    `area × weight / Σ area × weight to first order (delta method); the share is of the processed signal over the fit ` +
-    `points (each reference as the recipe leaves it), not of the raw absorbance before the recipe's baseline step. Detection limit 3.3 σ/S (ICH Q2(R1)) with σ/S that standard error, S the ` +
-    `component's sensitivity net of the others, their line-shape terms and the baseline. Unexplained bands: residual maxima above ` +
-    `${k} × the local noise (±100 cm⁻¹, robust σ of first differences) with FWHM ≥ ${resolution} cm⁻¹, ` +
-    `none at the fit's edges; a residual peak where a fitted component gives at least ${MISFIT_RATIO} × the residual ` +
-    `and that has a band maximum within ${MISFIT_REACH} × the peak's FWHM is that component's band differing in shape or position ` +
-    `between benches, listed apart, not as unexplained.`;
-
-  return {
-    components,
-    r2: tss > 0 ? 1 - rss / tss : Number.NaN,
-    rss,
-    baseline,
-    fitted,
-    residual,
-    noise: noiseFigures.sigma,
-    noiseSource: 'residual-differences',
-    noiseLag1: noiseFigures.lag1,
-    effectivePoints: n / noiseFigures.inflation,
-    alpha,
-    rule,
-    notSelected,
-    k,
-    residualBands: bands,
-    misfitBands,
-    points: n,
-    span: { min: lo, max: hi },
-    criterion: rule,
-    stopReason,
-    skipped,
-  };
-}
-
-/** Splits residual peaks into unexplained bands and misfits of the fitted components' own bands. */
-function separateMisfits(
-  peaks: readonly ResidualBand[],
-  components: readonly MixtureComponent[],
-  usable: readonly { candidate: MixtureCandidate; raw: Float64Array }[],
-  selected: readonly number[],
-  weights: Float64Array,
-  at: readonly number[],
-  axis: ArrayLike<number>,
-): { bands: ResidualBand[]; misfitBands: MisfitBand[] } {
-  const kept = new Set(components.map((c) => c.id));
-  const bands: ResidualBand[] = [];
-  const misfitBands: MisfitBand[] = [];
-  for (const peak of peaks) {
-    let t = 0;
-    for (let j = 1; j < at.length; j++) {
-      if (Math.abs(axis[at[j]!]! - peak.position) < Math.abs(axis[at[t]!]! - peak.position)) t = j;
-    }
-    let owner: { id: string; contribution: number } | null = null;
-    // Within MISFIT_REACH × the peak's FWHM the component must have a band maximum of its own: a narrow residual
-    // band on the wing of a broad one (a drug's band on water's combination band) is not that band's misfit.
-    const reach = Math.max(
-      2,
-      Math.ceil(
-        (MISFIT_REACH * peak.fwhm) / Math.max(1e-9, Math.abs(axis[at[1] ?? at[0]!]! - axis[at[0]!]!)),
-      ),
-    );
-    selected.forEach((s, j) => {
-      const id = usable[s]!.candidate.id;
-      const raw = usable[s]!.raw;
-      const contribution = weights[j]! * raw[t]!;
-      if (!kept.has(id) || !(contribution >= MISFIT_RATIO * Math.abs(peak.height))) return;
-      if (!hasMaximumNear(raw, t, reach)) return;
-      if (owner === null || contribution > owner.contribution) owner = { id, contribution };
-    });
-    const found = owner as { id: string; contribution: number } | null;
-    if (found === null) bands.push(peak);
-    else {
-      misfitBands.push({
-        position: peak.position,
-        height: peak.height,
-        component: found.id,
-        contribution: found.contribution,
-      });
-    }
-  }
-  return { bands, misfitBands };
-}
-
-/** A local maximum of `v` within ±`reach` points of `t` (the ends of the fit do not count). */
-function hasMaximumNear(v: Float64Array, t: number, reach: number): boolean {
-  for (let i = Math.max(1, t - reach); i <= Math.min(v.length - 2, t + reach); i++) {
-    if (v[i]! >= v[i - 1]! && v[i]! > v[i + 1]!) return true;
-  }
-  return false;
+  return { components, notSelected };
 }
