@@ -24,7 +24,6 @@ import { readSearchSet } from '../src/library/store/readSearchSet.js';
 import { compareAtCoarserResolution } from '../src/match/compareAtCoarserResolution.js';
 import { libraryMatchSource } from '../src/match/libraryMatchSource.js';
 import { runMatchPipeline } from '../src/match/pipeline/runMatchPipeline.js';
-import { resolutionForUnknown } from '../src/match/resolutionForUnknown.js';
 import type { RecipeInput } from '../src/schema/recipe.js';
 import { RECIPE_PRESETS } from '../src/schema/recipePresets.js';
 import { resolutionOf } from '../src/spectrum/resolutionOf.js';
@@ -196,8 +195,12 @@ async function realPart(): Promise<Record<string, unknown>> {
   const plainLo = 400;
   const plainCount = Math.round((4400 - plainLo) / PLAIN_STEP) + 1;
   const plain = new Map([...spectra].map(([f, s]) => [f, plainVector(s, plainLo, plainCount)]));
-  const results: Record<string, Tally> = { 'plain-pearson-2cm': tally() };
-  for (const name of Object.keys(RECIPES)) results[`bandshelf:${name}`] = tally();
+  const methods = ['plain-pearson-2cm', ...Object.keys(RECIPES).map((k) => `bandshelf:${k}`)];
+  const results: Record<string, Tally> = Object.fromEntries(methods.map((m) => [m, tally()]));
+  const degraded: Record<string, Record<string, Tally>> = Object.fromEntries(
+    REAL_QUERY_BENCHES.map((b) => [b.name, Object.fromEntries(methods.map((m) => [m, tally()]))]),
+  );
+  const fileIndex = new Map([...spectra.keys()].map((f, i) => [f, i]));
   const misses: Record<string, { query: string; library: string; top: string }[]> = {};
   let libraryMember = '';
   const miss = (method: string, query: string, top: string) => {
@@ -217,14 +220,41 @@ async function realPart(): Promise<Record<string, unknown>> {
         const queries = members.filter((m) => m !== member);
         libraryMember = member;
 
+        // Each query as recorded, then as each degrading bench would record it (seeded by bench and file).
+        const variants = queries.flatMap((q) => [
+          {
+            query: q,
+            tally: results,
+            bench: null as Bench | null,
+            spectrum: spectra.get(q)! as Spectrum,
+            resolution: spectra.get(q)!.resolution,
+            plain: plain.get(q)!,
+          },
+          ...REAL_QUERY_BENCHES.map((bench, b) => {
+            const measured = measureOnBench(spectra.get(q)!, bench, {
+              seed: 1000 * (b + 1) + fileIndex.get(q)!,
+            });
+            const own = resolutionOf(spectra.get(q)!, { stated: spectra.get(q)!.resolution }).value;
+            return {
+              query: q,
+              tally: degraded[bench.name]!,
+              bench,
+              spectrum: measured,
+              // What the degrading bench would state: its line shape on top of the recording's (widths in quadrature).
+              resolution: Math.sqrt(own * own + bench.resolution * bench.resolution),
+              plain: plainVector(measured, plainLo, plainCount),
+            };
+          }),
+        ]);
+
         // Plain Pearson on the unprocessed absorbance.
-        for (const q of queries) {
+        for (const { query: q, tally: t, bench, plain: vector } of variants) {
           let best = '';
           let bestR = Number.NEGATIVE_INFINITY;
           let own = Number.NEGATIVE_INFINITY;
           let other = Number.NEGATIVE_INFINITY;
           for (const f of libraryFiles) {
-            const r = pearson(plain.get(q)!, plain.get(f)!);
+            const r = pearson(vector, plain.get(f)!);
             if (r === null) continue;
             if (setOf.get(f) === set) own = Math.max(own, r);
             else other = Math.max(other, r);
@@ -233,9 +263,10 @@ async function realPart(): Promise<Record<string, unknown>> {
               best = f;
             }
           }
-          count(results['plain-pearson-2cm']!, set, setOf.get(best) === set);
-          results['plain-pearson-2cm']!.margins.push(own - other);
-          if (setOf.get(best) !== set) miss('plain-pearson-2cm', q, best);
+          count(t['plain-pearson-2cm']!, set, setOf.get(best) === set);
+          t['plain-pearson-2cm']!.margins.push(own - other);
+          if (setOf.get(best) !== set)
+            miss(bench === null ? 'plain-pearson-2cm' : `plain-pearson-2cm@${bench.name}`, q, best);
         }
 
         // bandshelf: the ingest and match pipeline `add` and `match` run, under each recipe.
@@ -254,39 +285,36 @@ async function realPart(): Promise<Record<string, unknown>> {
             const searchSet = readSearchSet(library);
             const { source, scorer } = libraryMatchSource(library, searchSet, {});
             const bySlug = new Map(libraryFiles.map((f) => [slug(f), f]));
-            for (const q of queries) {
-              const spectrum = spectra.get(q)!;
-              const pinned = resolutionForUnknown(spectrum, source.recipe, { stated: spectrum.resolution });
+            for (const { query: q, tally: t, bench, spectrum, resolution } of variants) {
               const report = await runMatchPipeline(
                 {
-                  unknown: { file: q, hash: '0'.repeat(64), spectrum, warnings: [] },
+                  unknown: {
+                    file: q,
+                    hash: '0'.repeat(64),
+                    spectrum,
+                    warnings: [],
+                    resolution,
+                    ...(bench?.technique === 'atr' ? { technique: 'atr' } : {}),
+                  },
                   source,
                   scorer,
                   assignments: [],
                 },
-                {
-                  top: libraryFiles.length,
-                  ...(pinned.recipe === source.recipe ? {} : { recipe: pinned.recipe }),
-                },
+                { top: libraryFiles.length },
               );
-              // As `bandshelf match` does: hits of another resolution compared again at the coarser of the two.
-              const alike = await compareAtCoarserResolution({
-                report,
-                unknown: spectrum,
-                resolution: resolutionOf(spectrum, { stated: spectrum.resolution }).value,
-                source,
-              });
-              const hits = alike.report.hitsByMetric.pearson ?? [];
+              // runMatchPipeline compares like with like, as `bandshelf match` does.
+              const hits = report.hitsByMetric.pearson ?? [];
               const top = hits[0]?.id;
               const ownHit = hits.find((h) => setOf.get(bySlug.get(h.id) ?? '') === set);
               const otherHit = hits.find((h) => setOf.get(bySlug.get(h.id) ?? '') !== set);
-              results[`bandshelf:${name}`]!.margins.push(
+              const method = `bandshelf:${name}`;
+              t[method]!.margins.push(
                 (ownHit?.score ?? Number.NEGATIVE_INFINITY) - (otherHit?.score ?? Number.NEGATIVE_INFINITY),
               );
               const topFile = top === undefined ? '' : (bySlug.get(top) ?? '');
               const right = setOf.get(topFile) === set;
-              count(results[`bandshelf:${name}`]!, set, right);
-              if (!right) miss(`bandshelf:${name}`, q, topFile);
+              count(t[method]!, set, right);
+              if (!right) miss(bench === null ? method : `${method}@${bench.name}`, q, topFile);
             }
           } finally {
             closeLibrary(library);
@@ -300,21 +328,45 @@ async function realPart(): Promise<Record<string, unknown>> {
 
   const percent = (t: { right: number; queries: number }) =>
     t.queries === 0 ? null : Math.round((1000 * t.right) / t.queries) / 10;
-  const summary = Object.fromEntries(
-    Object.entries(results).map(([k, t]) => [
-      k,
-      {
-        top1Percent: percent(t),
-        right: t.right,
-        queries: t.queries,
-        marginMedian: median(t.margins),
-        marginMin: Math.round(1e4 * Math.min(...t.margins)) / 1e4,
-        bySet: Object.fromEntries(
-          Object.entries(t.bySet).map(([s, v]) => [s, { top1Percent: percent(v), ...v }]),
-        ),
-      },
-    ]),
+  const summarise = (tallies: Record<string, Tally>) =>
+    Object.fromEntries(
+      Object.entries(tallies).map(([k, t]) => [
+        k,
+        {
+          top1Percent: percent(t),
+          right: t.right,
+          queries: t.queries,
+          marginMedian: median(t.margins),
+          marginMin: Math.round(1e4 * Math.min(...t.margins)) / 1e4,
+          bySet: Object.fromEntries(
+            Object.entries(t.bySet).map(([s, v]) => [s, { top1Percent: percent(v), ...v }]),
+          ),
+        },
+      ]),
+    );
+  const summary = summarise(results);
+  const degradedSummary = Object.fromEntries(
+    Object.entries(degraded).map(([bench, tallies]) => [bench, summarise(tallies)]),
   );
+  // Every degraded query of every bench pooled, per method.
+  const pooled = Object.fromEntries(
+    methods.map((m) => {
+      const all = Object.values(degraded).reduce(
+        (a, t) => ({ right: a.right + t[m]!.right, queries: a.queries + t[m]!.queries }),
+        { right: 0, queries: 0 },
+      );
+      return [m, { top1Percent: percent(all), ...all }];
+    }),
+  );
+  const minusPlain = (of: Record<string, { top1Percent: number | null }>) =>
+    Object.fromEntries(
+      Object.keys(RECIPES).map((k) => [
+        k,
+        Math.round(
+          10 * ((of[`bandshelf:${k}`]!.top1Percent ?? 0) - (of['plain-pearson-2cm']!.top1Percent ?? 0)),
+        ) / 10,
+      ]),
+    );
   return {
     about:
       'Top-1 identification across sources on real spectra (../shared/real-spectra); research use only: hits are candidates, not identifications.',
@@ -324,16 +376,15 @@ async function realPart(): Promise<Record<string, unknown>> {
     plain: { grid: `${PLAIN_STEP} cm⁻¹, linear interpolation, no processing`, minOverlap: MIN_OVERLAP },
     recipes: RECIPES,
     results: summary,
-    bandshelfMinusPlainPoints: Object.fromEntries(
-      Object.keys(RECIPES).map((k) => [
-        k,
-        Math.round(
-          10 *
-            ((summary[`bandshelf:${k}`]!.top1Percent ?? 0) -
-              (summary['plain-pearson-2cm']!.top1Percent ?? 0)),
-        ) / 10,
-      ]),
-    ),
+    bandshelfMinusPlainPoints: minusPlain(summary),
+    degradedQueries: {
+      about:
+        'The same queries as each bench below would record them (scripts/measureOnBench.ts applied to the real recording: its line shape, spacing, range, baseline, ATR weighting and noise on top of the recording own; the library is unchanged; ATR queries are declared as technique atr, as `match --technique atr` does). Synthetic degradations of real spectra, fixed before scoring.',
+      benches: REAL_QUERY_BENCHES,
+      pooled,
+      bandshelfMinusPlainPoints: minusPlain(pooled),
+      byBench: degradedSummary,
+    },
     misses,
   };
 }
@@ -402,6 +453,12 @@ const BENCHES: Bench[] = [
     noise: 0.002,
   },
 ];
+
+/**
+ * The real part's degrading benches: the synthetic query benches without a water background (the real part's
+ * recipes have no water step, and the real substances are not aqueous), applied to each real query.
+ */
+const REAL_QUERY_BENCHES: Bench[] = BENCHES.slice(1).filter((b) => b.water === undefined);
 
 /** The synthetic part's recipes: the real part's, the liquid-biofluid preset, and the resolution step at 16 cm⁻¹. */
 const SYNTHETIC_RECIPES: Record<string, RecipeInput> = {
@@ -511,7 +568,6 @@ async function syntheticPart(): Promise<Record<string, unknown>> {
         for (const [q, bench] of queryBenches.entries()) {
           for (const [c, spectrum] of queries[q]!.entries()) {
             if (spectrum === null) continue;
-            const pinned = resolutionForUnknown(spectrum, source.recipe, { stated: bench.resolution });
             const report = await runMatchPipeline(
               {
                 unknown: {
@@ -519,14 +575,17 @@ async function syntheticPart(): Promise<Record<string, unknown>> {
                   hash: '0'.repeat(64),
                   spectrum,
                   warnings: [],
+                  resolution: bench.resolution,
+                  ...(bench.technique === 'atr' ? { technique: 'atr' } : {}),
                 },
                 source,
                 scorer,
                 assignments: [],
               },
-              { top: 5, ...(pinned.recipe === source.recipe ? {} : { recipe: pinned.recipe }) },
+              { top: 5, likeWithLike: false },
             );
-            // As `bandshelf match` does: hits of another resolution compared again at the coarser of the two.
+            // As runMatchPipeline does by default (and so `bandshelf match`): hits of another resolution compared
+            // again at the coarser of the two; kept apart here to report the pipeline's own ranking beside it.
             const alike = await compareAtCoarserResolution({
               report,
               unknown: spectrum,

@@ -189,6 +189,20 @@ export const mixtureReportSchema = z
     criterion: z.string().min(1),
     stopReason: z.string(),
     skipped: z.array(z.string()),
+    /**
+     * Like with like: the common resolution (cm⁻¹, Gaussian line shape) the unknown and its references were fitted
+     * at, the unknown's own (as compared under its recipe), the references degraded to it and whether the unknown
+     * was. Absent when every resolution already agreed (and in reports written before this field).
+     */
+    resolution: z
+      .object({
+        common: z.number().finite().positive(),
+        unknown: z.number().finite().positive(),
+        degraded: z.array(z.string()),
+        unknownDegraded: z.boolean(),
+      })
+      .strict()
+      .optional(),
   })
   .strict();
 export type MixtureReport = z.output<typeof mixtureReportSchema>;

@@ -22,6 +22,8 @@ export interface ReadOriginalsOptions {
   /** Largest file accepted, bytes (passed to the reader).
    * @default the reader's default */
   maxBytes?: number;
+  /** The library grid's step, cm⁻¹, for the time-domain record-length warning. @default undefined (no such warning) */
+  gridStep?: number;
 }
 
 export interface OriginalRead {
@@ -67,6 +69,7 @@ export function readOriginals(input: ReadOriginalsInput, options: ReadOriginalsO
     );
     const result = traceToSpectrum(sampleTraces, referenceTraces, recipe.timeDomain, {
       files: [...samples, ...references].map((f) => f.name),
+      ...(options.gridStep === undefined ? {} : { gridStep: options.gridStep }),
     });
     const extras: RevisionExtras = {
       dynamicRangeOrders: result.dynamicRangeOrders,
@@ -75,7 +78,10 @@ export function readOriginals(input: ReadOriginalsInput, options: ReadOriginalsO
     if (result.timingSpreadAs !== null) extras.timingSpreadAs = result.timingSpreadAs;
     const warnings = [...result.warnings, ...traceWarnings];
     if (warnings.length > 0) extras.warnings = warnings;
-    return [{ spectrum: result.spectrum, labels: {}, blocks: 1, extras }];
+    // The record length fixes the resolution (1/(c·T)), as a file's ##RESOLUTION= would state it.
+    return [
+      { spectrum: result.spectrum, labels: { resolution: result.recordResolution }, blocks: 1, extras },
+    ];
   }
   const data = files.find((f) => f.role === 'data');
   if (data === undefined || files.length !== 1) {

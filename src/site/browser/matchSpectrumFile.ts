@@ -3,12 +3,10 @@
 import { readSpectrumFile } from '../../formats/readSpectrumFile.js';
 import type { SpectrumReadOptions } from '../../formats/types.js';
 import { buildBandIndex } from '../../match/buildBandIndex.js';
-import { compareAtCoarserResolution } from '../../match/compareAtCoarserResolution.js';
 import { instantiateScoreKernels } from '../../match/instantiateScoreKernels.js';
 import { jsScoreKernels } from '../../match/jsScoreKernels.js';
 import { runMatchPipeline } from '../../match/pipeline/runMatchPipeline.js';
 import type { MatchScorer, MatchSource } from '../../match/pipeline/types.js';
-import { resolutionForUnknown } from '../../match/resolutionForUnknown.js';
 import { searchSpectra } from '../../match/searchSpectra.js';
 import { type Metric, MIN_OVERLAP_DEFAULT } from '../../match/searchTypes.js';
 import { shippedAssignments } from '../../match/shippedAssignments.js';
@@ -17,7 +15,6 @@ import type { BandIndex } from '../../match/types.js';
 import type { BandAssignment } from '../../schema/bandAssignment.js';
 import type { MatchHit, MatchReport } from '../../schema/matchReport.js';
 import type { Grid, Recipe, WavenumberWindow } from '../../schema/recipe.js';
-import { resolutionOf } from '../../spectrum/resolutionOf.js';
 import { publishedMatchSource } from './publishedMatchSource.js';
 
 /** What the build writes beside the binary matrix (`assets/search-matrix.json`), plus the decoded matrix. */
@@ -78,6 +75,11 @@ export interface MatchSpectrumFileOptions {
    * CLI matter: they need two files). @default {} (as the file says)
    */
   read?: Pick<SpectrumReadOptions, 'xUnit' | 'yUnit' | 'block' | 'column'>;
+  /**
+   * How the file was measured, as `bandshelf match --technique` (`atr`: the ATR correction ATR entries get).
+   * @default the file's own label, if any (else no ATR correction)
+   */
+  technique?: string;
 }
 
 export interface FileMatch {
@@ -132,12 +134,9 @@ export async function matchSpectrumFile(
     index = buildBandIndex(source);
     bandIndexes.set(source, index);
   }
-  const matched = resolutionForUnknown(first.spectrum, source.recipe, { stated: first.meta.resolution });
-  const warnings = [
-    ...first.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
-    ...matched.warnings,
-  ];
-  const piped = await runMatchPipeline(
+  const technique =
+    options.technique ?? (typeof first.meta.technique === 'string' ? first.meta.technique : undefined);
+  const report = await runMatchPipeline(
     {
       unknown: {
         file,
@@ -147,7 +146,11 @@ export async function matchSpectrumFile(
         ...(title === undefined ? {} : { title }),
         spectrum: first.spectrum,
         ...(first.saturated === undefined ? {} : { saturated: first.saturated }),
-        warnings,
+        warnings: first.warnings.map((w) =>
+          w.line === undefined ? w.message : `line ${w.line}: ${w.message}`,
+        ),
+        resolution: first.meta.resolution,
+        ...(technique === undefined ? {} : { technique }),
       },
       source,
       // The last search ends before the fit: its end is when the hits are ranked.
@@ -166,18 +169,10 @@ export async function matchSpectrumFile(
       metrics: [options.metric ?? 'pearson'],
       excludeClass: options.excludeClass ?? [],
       index,
-      ...(matched.recipe === source.recipe ? {} : { recipe: matched.recipe }),
     },
   );
-  // Like with like, as `bandshelf match` does: hits of another resolution scored again at the coarser of the two.
-  const alike = await compareAtCoarserResolution({
-    report: piped,
-    unknown: first.spectrum,
-    resolution: resolutionOf(first.spectrum, { stated: first.meta.resolution }).value,
-    source,
-  });
-  const report = alike.report;
-  warnings.push(...alike.notes);
+  // The reader's, the resolution step's and the like-with-like notes, as the report records them.
+  const warnings = [...report.query.warnings];
   const paths = new Map(set.entries.map((e) => [e.id, e.path]));
   return {
     title: title !== undefined && title !== '' ? title : file,
