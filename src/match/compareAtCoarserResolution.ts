@@ -1,7 +1,7 @@
 // Like with like across resolutions: a hit whose entry and unknown differ in resolution is scored again with the
 // sharper of the two degraded to the coarser, and marked.
 import type { MatchHit, MatchReport } from '../schema/matchReport.js';
-import type { Recipe, WavenumberWindow } from '../schema/recipe.js';
+import type { WavenumberWindow } from '../schema/recipe.js';
 import { processSpectrum } from '../spectrum/processSpectrum.js';
 import type { Spectrum } from '../spectrum/types.js';
 import { comparedResolution, LIKE_RESOLUTION_TOLERANCE } from './comparedResolution.js';

@@ -25,7 +25,7 @@ export interface FitAtCommonResolutionInput {
   /** The unknown's span when the candidates were processed again over it, else null. */
   window: WavenumberWindow | null;
   /** The fit itself (fitMixture with the caller's settings). */
-  fit: (processed: Float64Array, candidates: MixtureCandidate[]) => MixtureResult;
+  fitWith: (processed: Float64Array, candidates: MixtureCandidate[]) => MixtureResult;
 }
 
 export interface FitAtCommonResolutionOptions {
@@ -59,13 +59,13 @@ export async function fitAtCommonResolution(
   input: FitAtCommonResolutionInput,
   options: FitAtCommonResolutionOptions = {},
 ): Promise<CommonResolutionFit> {
-  const { source, unknown, recipe, candidates, window, fit } = input;
+  const { source, unknown, recipe, candidates, window, fitWith } = input;
   const tolerance = options.tolerance ?? LIKE_RESOLUTION_TOLERANCE;
   const atUnknown = Number.isFinite(unknown.resolution)
     ? comparedResolution(unknown.resolution, recipe)
     : Number.NaN;
   if (!(atUnknown > 0) || candidates.length === 0) {
-    const mixture = fit(input.processed, [...candidates]);
+    const mixture = fitWith(input.processed, [...candidates]);
     return { mixture, candidates: [...candidates], processed: input.processed, resolution: null };
   }
   const originals: ReadonlyMap<number, EntryOriginal> = await source.originals([
@@ -128,7 +128,7 @@ export async function fitAtCommonResolution(
 
   let common = atUnknown;
   let round = at(common);
-  let mixture = fit(round.processed, round.fitted);
+  let mixture = fitWith(round.processed, round.fitted);
   const rowOf = new Map(candidates.map((c) => [c.id, c.row]));
   for (let k = 0; k < (options.rounds ?? 3); k++) {
     const coarsest = Math.max(
@@ -138,7 +138,7 @@ export async function fitAtCommonResolution(
     if (!sharper(common, coarsest)) break;
     common = coarsest;
     round = at(common);
-    mixture = fit(round.processed, round.fitted);
+    mixture = fitWith(round.processed, round.fitted);
   }
   const changed = round.degraded.length > 0 || round.unknownDegraded;
   return {

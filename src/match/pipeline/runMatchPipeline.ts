@@ -162,7 +162,7 @@ async function fitOffered(
           references: options.references ?? source.references,
           candidates: offered.candidates.map((c, i) => ({ ...c, row: rows[i]! })),
           window: offered.window,
-          fit: fitWith,
+          fitWith,
         });
   const fit = alike.mixture;
   const common = alike.resolution;

@@ -57,7 +57,8 @@ function source(resolutions: Record<string, number>): MatchSource {
   const cols = gridAxis(grid).length;
   const processed = new Float32Array(ids.length * cols);
   const originals = ids.map((id) => measured(bandsOf[id]!, resolutions[id]!));
-  originals.forEach((s, r) => processed.set(processSpectrum(s, recipe, grid).processed, r * cols));
+  for (const [r, s] of originals.entries())
+    processed.set(processSpectrum(s, recipe, grid).processed, r * cols);
   return {
     name: 'in-memory',
     at: null,
@@ -102,7 +103,7 @@ function blendAt(resolution: number): Spectrum {
   };
 }
 
-async function fit(src: MatchSource, unknown: Spectrum, resolution: number, likeWithLike: boolean) {
+async function fitted(src: MatchSource, unknown: Spectrum, resolution: number, likeWithLike: boolean) {
   const report = await runMatchPipeline(
     {
       unknown: { file: 'blend.csv', hash: 'b'.repeat(64), spectrum: unknown, warnings: [], resolution },
@@ -121,8 +122,8 @@ describe('the mixture fit at a common resolution', () => {
     // References at 2 cm⁻¹, the unknown at 12 cm⁻¹.
     const src = source({ narrow: 2, other: 2, decoy: 2 });
     const unknown = blendAt(12);
-    const alike = await fit(src, unknown, 12, true);
-    const unlike = await fit(src, unknown, 12, false);
+    const alike = await fitted(src, unknown, 12, true);
+    const unlike = await fitted(src, unknown, 12, false);
     expect(alike.resolution).toEqual({
       common: 12,
       unknown: 12,
@@ -142,8 +143,8 @@ describe('the mixture fit at a common resolution', () => {
     // The unknown at 4 cm⁻¹; 'narrow' was recorded at 16 cm⁻¹, 'other' at 4.
     const src = source({ narrow: 16, other: 4, decoy: 4 });
     const unknown = blendAt(4);
-    const alike = await fit(src, unknown, 4, true);
-    const unlike = await fit(src, unknown, 4, false);
+    const alike = await fitted(src, unknown, 4, true);
+    const unlike = await fitted(src, unknown, 4, false);
     expect(alike.resolution).toMatchObject({ common: 16, unknown: 4, unknownDegraded: true });
     expect(alike.resolution!.degraded).toContain('other');
     expect(alike.resolution!.degraded).not.toContain('narrow');
@@ -154,8 +155,8 @@ describe('the mixture fit at a common resolution', () => {
 
   it('changes nothing when every resolution agrees', async () => {
     const src = source({ narrow: 8, other: 8, decoy: 8 });
-    const alike = await fit(src, blendAt(8), 8, true);
-    const unlike = await fit(src, blendAt(8), 8, false);
+    const alike = await fitted(src, blendAt(8), 8, true);
+    const unlike = await fitted(src, blendAt(8), 8, false);
     expect(alike.resolution).toBeUndefined();
     expect(alike.rss).toBe(unlike.rss);
   });
