@@ -12,6 +12,10 @@
 // top-1, each method's margin per query (best score of the query's own set minus the best score of anything else;
 // > 0 is a right top-1) is summarised by its median and minimum, on each method's own score scale. One JSON.
 // The sets come from the files' provenance, not from the scores; nothing here is tuned to these files.
+// As recorded, that set is at its ceiling for every method, so each query is also scored as the synthetic query
+// benches without water (below) would record it: measureOnBench applied to the real recording (a coarser Gaussian
+// line shape and spacing, ATR weighting — declared as technique atr, as `match --technique atr` does — baselines
+// and seeded noise), the library left as recorded (`degradedQueries` in the JSON).
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';

@@ -108,6 +108,12 @@ describe('match and identify with the reading options', () => {
     expect(r.code).toBe(2);
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
     expect(r.stderr).toMatch(/--y-unit "furlongs" is not a unit.*\[BAD_OPTION\]/);
+    const t = bandshelf(['match', 'protein-t.txt', '--technique', 'sonar', '--library', fx.library], {
+      cwd: fx.dir,
+    });
+    expect(t.code).toBe(2);
+    expect(t.stderr.trim().split('\n')).toHaveLength(1);
+    expect(t.stderr).toMatch(/--technique must be one of atr, transmission.*not 'sonar'.*\[BAD_OPTION\]/);
   });
 });
 
@@ -150,6 +156,10 @@ describe('match --time-domain', () => {
     );
     expect(r.query.file).toBe('paracetamol-field-resolved-sample.csv');
     expect(r.hits[0]!.id).toBe('paracetamol');
+    // The record length sets the unknown's resolution, 1/(c·T) (standard Fourier pair, common practice), so the
+    // FTIR entry is compared with it like with like, and the record's coarseness against the grid is named.
+    expect(r.query.warnings.some((w) => /resolution 1\/\(c·T\) is [\d.]+ cm⁻¹/.test(w))).toBe(true);
+    expect(r.query.warnings.some((w) => /^hit 'paracetamol' .*compared at the coarser/.test(w))).toBe(true);
   });
 
   it('matches repeated glucose traces to their own library entry first, the FTIR glucose next', () => {
