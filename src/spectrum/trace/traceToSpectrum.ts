@@ -19,6 +19,7 @@ import { averageTraces } from './averageTraces.js';
 import { fieldSpectrum } from './fieldSpectrum.js';
 import { mainPulseIndex } from './mainPulseIndex.js';
 import { removeMean } from './removeMean.js';
+import { sampleEchoes } from './sampleEchoes.js';
 import { type NoiseSource, spectralDynamicRange } from './spectralDynamicRange.js';
 import { timeGate } from './timeGate.js';
 import { traceTimeStep } from './traceTimeStep.js';
@@ -170,6 +171,15 @@ export function traceToSpectrum(
     hi = Math.min(hi, gate.end * unit);
   }
   const halfWidth = Math.max(Math.abs(centre - lo), Math.abs(hi - centre), dt);
+  // A pulse replica only the sample has (a reflection in the sample cell) is read as absorbance unless gated out.
+  const [echo] = sampleEchoes(sample.trace, ref, {
+    window: gate === null ? null : { start: gate.start * unit, end: gate.end * unit },
+  });
+  if (echo !== undefined) {
+    warnings.push({
+      message: `the sample trace shows a replica of the pulse ${Math.abs(echo.delay).toFixed(0)} fs ${echo.delay > 0 ? 'after' : 'before'} its main pulse (${(100 * echo.sample).toPrecision(2)} % of it in field) that the reference lacks: its interference is read as absorbance; gate it out (timeDomain.gate) or record the reference with the same echo`,
+    });
+  }
   // T in fs; 1/(c·T) in cm⁻¹.
   const recordResolution = 1e15 / (C_CM_PER_S * Math.max(hi - lo, dt));
   if (options.gridStep !== undefined && recordResolution > 2 * options.gridStep) {
