@@ -128,6 +128,10 @@ export const residualBandSchema = z
     position: z.number().finite(),
     height: z.number().finite(),
     prominence: z.number().finite(),
+    /**
+     * Width at half prominence, cm⁻¹ (findPeaks): the FWHM for a band standing alone on a flat baseline, narrower
+     * for a band sitting on a neighbour's flank. The key keeps its older name.
+     */
     fwhm: z.number().finite().nullable(),
     /** FWHM of the residual band, cm⁻¹ (at least the instrument resolution). */
     width: z.number().finite().nullable(),
@@ -211,6 +215,10 @@ export const identifiedBandSchema = z
   .object({
     position: z.number().finite(),
     height: z.number().finite(),
+    /**
+     * A peak's width at half prominence (findPeaks: the FWHM for a band alone on a flat baseline), a shoulder's
+     * FWHM estimated from its second-derivative trough assuming a Gaussian shape (findShoulders), cm⁻¹.
+     */
     fwhm: z.number().finite().nullable(),
     kind: z.enum(['peak', 'shoulder']),
     assignments: z.array(
