@@ -1,7 +1,9 @@
-// A synthetic "measurement" of an invented band set as one instrument would record it (for bench:cross-source).
+// A synthetic "measurement" of an invented band set (or of a recorded spectrum) as one instrument would record it
+// (for bench:cross-source).
 //
 // Every spectrum made here is synthetic: the true absorbance is the demo compound's pseudo-Voigt band set
-// (src/demo/bandProfile.ts); the instrument is modelled as (1) ATR weighting or transmission, (2) an added water
+// (src/demo/bandProfile.ts), or a real recorded spectrum taken as the truth (bench:cross-source's real part, its
+// degraded queries: the bench's effects are then added on top of that recording's own); the instrument is modelled as (1) ATR weighting or transmission, (2) an added water
 // background, (3) convolution with a Gaussian instrument line shape of the bench's resolution, (4) sampling at the
 // bench's point spacing over its range, (5) a baseline (offset, slope, curvature and a scattering-like ν² term) and
 // (6) white noise. Nothing here is a measurement, and nothing is fitted to a result.
@@ -60,21 +62,63 @@ function convolve(y: Float64Array, fwhm: number): Float64Array {
 }
 
 /**
- * The band set measured on `bench`: wavenumber descending (as many benches export), absorbance. ATR weighting is
- * the effective thickness ∝ penetration depth ∝ λ (Harrick's d_p, weak absorber; common practice), normalised at
- * 1000 cm⁻¹.
+ * A recorded spectrum taken as the true absorbance: linearly interpolated onto `fine` (its end values held beyond
+ * its range) and scaled so its largest |A| is 1, so a bench's baseline and water terms are in units of its
+ * strongest band, as they are for a band set whose strongest band is about 1.
+ */
+function truthOfSpectrum(spectrum: Spectrum, fine: Float64Array): Float64Array {
+  const order = Array.from(spectrum.wavenumber.keys()).sort(
+    (a, b) => spectrum.wavenumber[a]! - spectrum.wavenumber[b]!,
+  );
+  const x = Float64Array.from(order, (i) => spectrum.wavenumber[i]!);
+  const y = Float64Array.from(order, (i) => spectrum.absorbance[i]!);
+  let peak = 0;
+  for (const v of y) if (Number.isFinite(v)) peak = Math.max(peak, Math.abs(v));
+  const out = new Float64Array(fine.length);
+  let j = 0;
+  for (let i = 0; i < fine.length; i++) {
+    const g = fine[i]!;
+    if (g <= x[0]!) out[i] = y[0]!;
+    else if (g >= x[x.length - 1]!) out[i] = y[y.length - 1]!;
+    else {
+      while (j < x.length - 2 && x[j + 1]! < g) j++;
+      const t = x[j + 1]! === x[j]! ? 0 : (g - x[j]!) / (x[j + 1]! - x[j]!);
+      out[i] = y[j]! + t * (y[j + 1]! - y[j]!);
+    }
+    out[i] = peak > 0 ? out[i]! / peak : out[i]!;
+  }
+  return out;
+}
+
+/**
+ * The band set (or a recorded spectrum taken as the truth: see truthOfSpectrum; the bench's range is then cut to
+ * the spectrum's own) measured on `bench`: wavenumber descending (as many benches export), absorbance. ATR
+ * weighting is the effective thickness ∝ penetration depth ∝ λ (Harrick's d_p, weak absorber; common practice),
+ * normalised at 1000 cm⁻¹.
  */
 export function measureOnBench(
-  bands: readonly Band[],
-  bench: Bench,
+  source: readonly Band[] | Spectrum,
+  given: Bench,
   options: MeasureOnBenchOptions = {},
 ): Spectrum {
   const random = seededRandom(options.seed ?? 1);
+  const recorded = 'wavenumber' in source ? source : null;
+  let bench = given;
+  if (recorded !== null) {
+    let min = Number.POSITIVE_INFINITY;
+    let max = Number.NEGATIVE_INFINITY;
+    for (const v of recorded.wavenumber) {
+      min = Math.min(min, v);
+      max = Math.max(max, v);
+    }
+    bench = { ...given, range: { min: Math.max(given.range.min, min), max: Math.min(given.range.max, max) } };
+  }
   const lo = bench.range.min - 4 * bench.resolution;
   const hi = bench.range.max + 4 * bench.resolution;
   const n = Math.round((hi - lo) / FINE) + 1;
   const fine = Float64Array.from({ length: n }, (_, i) => lo + i * FINE);
-  const truth = bandProfile(fine, bands);
+  const truth =
+    recorded === null ? bandProfile(fine, source as readonly Band[]) : truthOfSpectrum(recorded, fine);
   if (bench.water !== undefined && bench.water > 0) {
     const water = bandProfile(fine, options.water ?? []);
     const share = bench.water * (0.5 + random.uniform());

@@ -11,19 +11,16 @@ import { readSearchSet } from '../library/store/readSearchSet.js';
 import { recipeReferences } from '../library/store/recipeReferences.js';
 import type { SearchSet } from '../library/types.js';
 import { buildBandIndex } from '../match/buildBandIndex.js';
-import { compareAtCoarserResolution } from '../match/compareAtCoarserResolution.js';
 import { libraryMatchSource } from '../match/libraryMatchSource.js';
 import { checkMatchSource } from '../match/pipeline/checkMatchSource.js';
 import { type RunMatchPipelineOptions, runMatchPipeline } from '../match/pipeline/runMatchPipeline.js';
 import type { MatchUnknown } from '../match/pipeline/types.js';
-import { resolutionForUnknown } from '../match/resolutionForUnknown.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
 import type { MatchReport } from '../schema/matchReport.js';
-import { resolutionOf } from '../spectrum/resolutionOf.js';
 import type { CommandContext } from './command.js';
 import { flagWording } from './flagWording.js';
 import { readTimeDomainUnknown } from './readTimeDomainUnknown.js';
-import { readUnknownFile, type UnknownOfFile } from './readUnknownFile.js';
+import { readUnknownFile } from './readUnknownFile.js';
 import { spectrumFilesOf } from './spectrumFilesOf.js';
 
 /** The pipeline's settings as the CLI takes them, plus where the library, release and recipe file are. */
@@ -45,6 +42,11 @@ export interface MatchUnknownsOptions
    * make one unknown together, as `add --time-domain` makes one entry). @default {} (as the files say)
    */
   read?: SpectrumReadOptions;
+  /**
+   * How the unknowns were measured, as entry metadata says it (`atr` → the ATR correction ATR entries get).
+   * @default undefined (the file's own label, if any; else no ATR correction)
+   */
+  technique?: string;
 }
 
 export interface MatchOutcome {
@@ -136,53 +138,46 @@ export async function matchUnknowns(
           cwd: context.cwd,
           keepPath: options.keepPath === true,
           ...(read.timeUnit === undefined ? {} : { timeUnit: read.timeUnit }),
+          gridStep: source.grid.step,
+          ...(options.technique === undefined ? {} : { technique: options.technique }),
         },
       );
       const report = await runMatchPipeline({ unknown, source, scorer, assignments }, settings);
-      for (const w of unknown.warnings) warnings.push(`${targets[0]}: ${w}`);
+      for (const w of report.query.warnings) warnings.push(`${targets[0]}: ${w}`);
       return { outcomes: [{ file: targets[0]!, report }], batch: false, warnings };
     }
     const files = targets.flatMap((t) => spectrumFilesOf(t, { cwd: context.cwd }));
     const single = files.length === 1;
     for (const [i, file] of files.entries()) {
       context.progress(i, files.length, basename(file));
-      let unknowns: UnknownOfFile[];
+      let unknowns: MatchUnknown[];
       try {
-        unknowns = readUnknownFile(file, { cwd: context.cwd, keepPath: options.keepPath === true, read });
+        unknowns = readUnknownFile(file, {
+          cwd: context.cwd,
+          keepPath: options.keepPath === true,
+          read,
+          ...(options.technique === undefined ? {} : { technique: options.technique }),
+        });
       } catch (error) {
         if (single) throw error;
         outcomes.push({ file, error: errorLine(error) });
         continue;
       }
-      for (const { resolution: stated, ...given } of unknowns) {
-        const matched = resolutionForUnknown(given.spectrum, settings.recipe ?? source.recipe, { stated });
-        const unknown: MatchUnknown = { ...given, warnings: [...given.warnings, ...matched.warnings] };
-        const unknownSettings =
-          matched.recipe === (settings.recipe ?? source.recipe)
-            ? settings
-            : { ...settings, recipe: matched.recipe };
+      for (const unknown of unknowns) {
         const outcome: MatchOutcome = {
           file,
           ...(unknown.block === undefined ? {} : { block: unknown.block }),
           ...(unknown.column === undefined ? {} : { column: unknown.column }),
         };
         outcomes.push(outcome);
-        let notes: string[] = [];
         try {
-          const report = await runMatchPipeline({ unknown, source, scorer, assignments }, unknownSettings);
-          // Like with like: hits of another resolution are scored again at the coarser of the two.
-          const own = resolutionOf(given.spectrum, { stated }).value;
-          const alike = await compareAtCoarserResolution(
-            { report, unknown: given.spectrum, resolution: own, source },
-            settings.references === undefined ? {} : { references: settings.references },
-          );
-          outcome.report = alike.report;
-          notes = alike.notes;
+          outcome.report = await runMatchPipeline({ unknown, source, scorer, assignments }, settings);
         } catch (error) {
           if (single && unknowns.length === 1) throw error;
           outcome.error = errorLine(error);
         }
-        for (const w of [...unknown.warnings, ...notes]) warnings.push(`${file}: ${w}`);
+        // The reader's warnings, the resolution step's and the like-with-like notes, as the report records them.
+        for (const w of outcome.report?.query.warnings ?? unknown.warnings) warnings.push(`${file}: ${w}`);
       }
     }
     context.progress(files.length, files.length, 'done');

@@ -2,6 +2,7 @@
 import { BandshelfError } from '../error.js';
 import { rangeFromText } from '../match/rangeFromText.js';
 import { type Metric, MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
+import { techniques } from '../schema/meta.js';
 import type { WavenumberWindow } from '../schema/recipe.js';
 import type { MatchUnknownsOptions } from './matchUnknowns.js';
 import { readingOptions } from './readingOptions.js';
@@ -120,6 +121,17 @@ export function parseMatchOptions(
   if (Object.keys(read).length > 0) parsed.read = read;
   if (typeof options.at === 'string') parsed.at = options.at;
   if (typeof options.recipe === 'string') parsed.recipe = options.recipe;
+  if (options.technique !== undefined) {
+    const technique = String(options.technique).trim().toLowerCase();
+    if (!(techniques as readonly string[]).includes(technique)) {
+      throw new BandshelfError(
+        'BAD_OPTION',
+        `--technique must be one of ${techniques.join(', ')}, not '${String(options.technique)}'`,
+        { field: 'technique' },
+      );
+    }
+    parsed.technique = technique;
+  }
   if (parsed.with!.length > 0 && !mixture) {
     throw new BandshelfError('BAD_OPTION', '--with forces entries into the mixture fit: add --mixture', {
       field: 'with',

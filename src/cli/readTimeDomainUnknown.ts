@@ -24,6 +24,10 @@ export interface ReadTimeDomainUnknownOptions {
   keepPath?: boolean;
   /** Delay unit overriding the traces' headers. @default undefined (from the headers) */
   timeUnit?: 'fs' | 'ps';
+  /** The library grid's step, cm⁻¹, for the record-length resolution warning. @default undefined */
+  gridStep?: number;
+  /** The measuring technique, for the unknown's ATR default (`--technique`). @default undefined */
+  technique?: string;
 }
 
 /**
@@ -52,7 +56,10 @@ export function readTimeDomainUnknown(
       read: options.timeUnit === undefined ? {} : { timeUnit: options.timeUnit },
       recipe: { ...traces.recipe, timeDomain: step },
     },
-    { label: traces.samples[0] },
+    {
+      label: traces.samples[0],
+      ...(options.gridStep === undefined ? {} : { gridStep: options.gridStep }),
+    },
   );
   const first = traces.samples[0]!;
   return {
@@ -62,5 +69,8 @@ export function readTimeDomainUnknown(
     warnings: (original!.extras.warnings ?? []).map((w) =>
       w.line === undefined ? w.message : `line ${w.line}: ${w.message}`,
     ),
+    // The record length's resolution 1/(c·T), so like with like compares it as an entry of that resolution.
+    resolution: original!.labels.resolution,
+    ...(options.technique === undefined ? {} : { technique: options.technique }),
   };
 }

@@ -13,19 +13,21 @@ export interface ReadUnknownFileOptions {
   keepPath?: boolean;
   /** Reading overrides passed to readSpectrumFile (units, block, column). @default {} (detected from the file) */
   read?: Pick<SpectrumReadOptions, 'xUnit' | 'yUnit' | 'block' | 'column'>;
+  /** How the unknown was measured (`atr` gets the ATR correction, see MatchUnknown). @default the file's own label, if any */
+  technique?: string;
 }
 
-/** One unknown of the file, with the resolution its metadata states (for the recipe's resolution step). */
-export type UnknownOfFile = MatchUnknown & { resolution?: unknown };
-
 /** The unknown names the file only (a path can carry a patient or study code) unless `keepPath`. */
-export function readUnknownFile(file: string, options: ReadUnknownFileOptions = {}): UnknownOfFile[] {
+export function readUnknownFile(file: string, options: ReadUnknownFileOptions = {}): MatchUnknown[] {
   const bytes = readRegularFile(resolve(options.cwd ?? process.cwd(), file), { label: file });
   const hash = createHash('sha256').update(bytes).digest('hex');
   const read = options.read ?? {};
   const parsed = readSpectrumFile(bytes, { ...read, file });
   return parsed.map((p) => {
     const title = typeof p.meta.title === 'string' ? p.meta.title : undefined;
+    // The user's word first, then what the file says (a sidecar-less unknown rarely says it).
+    const technique =
+      options.technique ?? (typeof p.meta.technique === 'string' ? p.meta.technique : undefined);
     return {
       file: options.keepPath === true ? file : basename(file),
       ...(parsed.length > 1 && p.source.block !== undefined ? { block: p.source.block } : {}),
@@ -36,6 +38,7 @@ export function readUnknownFile(file: string, options: ReadUnknownFileOptions = 
       ...(p.saturated === undefined ? {} : { saturated: p.saturated }),
       warnings: p.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
       ...(p.meta.resolution === undefined ? {} : { resolution: p.meta.resolution }),
+      ...(technique === undefined ? {} : { technique }),
     };
   });
 }

@@ -19,6 +19,8 @@ export interface TraceFiles {
 export interface ReadTraceSpectrumOptions {
   /** Delay unit overriding the traces' headers (`--time-unit`). @default undefined (headers, else step.timeUnit) */
   timeUnit?: 'fs' | 'ps';
+  /** The library grid's step, cm⁻¹, for the record-length resolution warning (see traceToSpectrum). @default undefined */
+  gridStep?: number;
 }
 
 /**
@@ -44,7 +46,10 @@ export function readTraceSpectrum(
     traces.slice(0, input.samples.length),
     traces.slice(input.samples.length),
     input.step,
-    { files: files.map((f) => f.name) },
+    {
+      files: files.map((f) => f.name),
+      ...(options.gridStep === undefined ? {} : { gridStep: options.gridStep }),
+    },
   );
   return { ...result, warnings: [...result.warnings, ...traceWarnings] };
 }

@@ -50,7 +50,13 @@ export interface MatchReportInput {
   metrics: readonly Metric[];
   hitsByMetric: Partial<Record<Metric, readonly Hit[]>>;
   /** The mixture fit and how many candidates it chose from, or null without `--mixture`. */
-  mixture: (MixtureResult & { candidates: number }) | null;
+  mixture:
+    | (MixtureResult & {
+        candidates: number;
+        /** The common resolution of the fit (see fitAtCommonResolution), null or absent when none was needed. */
+        resolution?: { common: number; unknown: number; degraded: string[]; unknownDegraded: boolean } | null;
+      })
+    | null;
   bands: readonly IdentifiedBand[];
   /** The library's best-wrong-hit null (pearson) for per-hit p-values; absent or null gives pValue null. */
   wrongHitNull?: WrongHitNull | null;
@@ -227,6 +233,9 @@ export function buildMatchReport(
             criterion: mixture.criterion,
             stopReason: mixture.stopReason,
             skipped: [...mixture.skipped],
+            ...(mixture.resolution === undefined || mixture.resolution === null
+              ? {}
+              : { resolution: { ...mixture.resolution, degraded: [...mixture.resolution.degraded] } }),
           },
     bands: input.bands.map((b) => ({
       position: b.position,

@@ -1,14 +1,16 @@
 // Like with like across resolutions: a hit whose entry and unknown differ in resolution is scored again with the
 // sharper of the two degraded to the coarser, and marked.
 import type { MatchHit, MatchReport } from '../schema/matchReport.js';
-import type { Recipe, WavenumberWindow } from '../schema/recipe.js';
+import type { WavenumberWindow } from '../schema/recipe.js';
 import { processSpectrum } from '../spectrum/processSpectrum.js';
-import { resolutionOf } from '../spectrum/resolutionOf.js';
 import type { Spectrum } from '../spectrum/types.js';
+import { comparedResolution, LIKE_RESOLUTION_TOLERANCE } from './comparedResolution.js';
 import { empiricalPValue } from './empiricalPValue.js';
+import { entryResolution } from './entryResolution.js';
 import { hitStanding } from './hitStanding.js';
 import { maskedRowScore } from './maskedRowScore.js';
 import type { EntryOriginal, MatchSource } from './pipeline/types.js';
+import { recipeAtResolution } from './recipeAtResolution.js';
 import { scoringMask } from './scoringMask.js';
 
 export interface CompareAtCoarserResolutionInput {
@@ -22,7 +24,7 @@ export interface CompareAtCoarserResolutionInput {
 }
 
 export interface CompareAtCoarserResolutionOptions {
-  /** Resolutions within this fraction of each other count as equal. @default 0.25 */
+  /** Resolutions within this fraction of each other count as equal. @default LIKE_RESOLUTION_TOLERANCE (0.25) */
   tolerance?: number;
   /** The reference spectra the unknown's recipe names. @default source.references */
   references?: ReadonlyMap<string, Spectrum>;
@@ -36,17 +38,6 @@ export interface CompareAtCoarserResolutionResult {
   report: MatchReport;
   /** One note per hit compared again, also appended to the report's query warnings. */
   notes: string[];
-}
-
-/** The resolution a spectrum is compared at under `recipe`: a step brings sharper ones to its target. */
-function effective(own: number, recipe: Recipe): number {
-  const step = recipe.resolution;
-  return step === undefined || step === null ? own : Math.max(own, step.target);
-}
-
-/** The recipe with its resolution step set to bring a spectrum of resolution `own` to `target` (Gaussian). */
-function toResolution(recipe: Recipe, own: number, target: number): Recipe {
-  return { ...recipe, resolution: { target, lineShape: 'gaussian', own, estimated: false } };
 }
 
 /**
@@ -64,13 +55,13 @@ export async function compareAtCoarserResolution(
   options: CompareAtCoarserResolutionOptions = {},
 ): Promise<CompareAtCoarserResolutionResult> {
   const { report, unknown, source } = input;
-  const tolerance = options.tolerance ?? 0.25;
+  const tolerance = options.tolerance ?? LIKE_RESOLUTION_TOLERANCE;
   const recipe = report.query.recipe;
   const ranges = options.ranges ?? report.query.ranges;
   const minOverlap = options.minOverlap ?? report.settings.minOverlap;
   const ownUnknown = input.resolution;
   if (!(Number.isFinite(ownUnknown) && ownUnknown > 0)) return { report, notes: [] };
-  const atUnknown = effective(ownUnknown, recipe);
+  const atUnknown = comparedResolution(ownUnknown, recipe);
   const rowOf = new Map(source.entries.map((e, i) => [e.id, i]));
   const metrics = Object.keys(report.hitsByMetric) as (keyof MatchReport['hitsByMetric'])[];
   const ids = [...new Set(metrics.flatMap((m) => (report.hitsByMetric[m] ?? []).map((h) => h.id)))];
@@ -82,7 +73,7 @@ export async function compareAtCoarserResolution(
   const processUnknownAt = (target: number): Float64Array => {
     let v = unknownAt.get(target);
     if (v === undefined) {
-      v = processSpectrum(unknown, toResolution(recipe, ownUnknown, target), source.grid, {
+      v = processSpectrum(unknown, recipeAtResolution(recipe, { own: ownUnknown, target }), source.grid, {
         references: new Map(options.references ?? source.references),
       }).processed;
       unknownAt.set(target, v);
@@ -96,19 +87,22 @@ export async function compareAtCoarserResolution(
     const row = rowOf.get(id);
     const original = row === undefined ? undefined : originals.get(row);
     if (row === undefined || original === undefined) continue;
-    // The revision's recorded resolution, else its recipe's pinned one, else two point spacings of its original.
-    const own =
-      original.resolution ?? original.recipe.resolution?.own ?? resolutionOf(original.original).value;
+    const own = entryResolution(original);
     if (!(Number.isFinite(own) && own > 0)) continue;
-    const atEntry = effective(own, original.recipe);
+    const atEntry = comparedResolution(own, original.recipe);
     if (Math.abs(atEntry - atUnknown) <= tolerance * Math.min(atEntry, atUnknown)) continue;
     const coarser = Math.max(atEntry, atUnknown);
     const query = atUnknown < coarser ? processUnknownAt(coarser) : processed;
     const reference =
       atEntry < coarser
-        ? processSpectrum(original.original, toResolution(original.recipe, own, coarser), source.grid, {
-            references: new Map(original.references),
-          }).processed
+        ? processSpectrum(
+            original.original,
+            recipeAtResolution(original.recipe, { own, target: coarser }),
+            source.grid,
+            {
+              references: new Map(original.references),
+            },
+          ).processed
         : source.processed.subarray(row * source.cols, (row + 1) * source.cols);
     const mask = scoringMask(query, source.grid, { ranges, exclude: recipe.exclude });
     const scored = maskedRowScore(reference, query, mask, { step: source.grid.step });

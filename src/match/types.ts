@@ -113,7 +113,15 @@ export type MisfitBand = MisfitBandReport;
 
 export type MixtureResult = Omit<
   MixtureReport,
-  'components' | 'r2' | 'fitted' | 'residual' | 'notSelected' | 'residualBands' | 'misfitBands' | 'candidates'
+  | 'components'
+  | 'r2'
+  | 'fitted'
+  | 'residual'
+  | 'notSelected'
+  | 'residualBands'
+  | 'misfitBands'
+  | 'candidates'
+  | 'resolution'
 > & {
   components: MixtureComponent[];
   /** NaN when the fitted points have no variance. */

@@ -135,6 +135,10 @@ export const residualBandSchema = z
     position: z.number().finite(),
     height: z.number().finite(),
     prominence: z.number().finite(),
+    /**
+     * Width at half prominence, cm⁻¹ (findPeaks): the FWHM for a band standing alone on a flat baseline, narrower
+     * for a band sitting on a neighbour's flank. The key keeps its older name.
+     */
     fwhm: z.number().finite().nullable(),
     /** FWHM of the residual band, cm⁻¹ (at least the instrument resolution). */
     width: z.number().finite().nullable(),
@@ -198,6 +202,20 @@ export const mixtureReportSchema = z
     criterion: z.string().min(1),
     stopReason: z.string(),
     skipped: z.array(z.string()),
+    /**
+     * Like with like: the common resolution (cm⁻¹, Gaussian line shape) the unknown and its references were fitted
+     * at, the unknown's own (as compared under its recipe), the references degraded to it and whether the unknown
+     * was. Absent when every resolution already agreed (and in reports written before this field).
+     */
+    resolution: z
+      .object({
+        common: z.number().finite().positive(),
+        unknown: z.number().finite().positive(),
+        degraded: z.array(z.string()),
+        unknownDegraded: z.boolean(),
+      })
+      .strict()
+      .optional(),
   })
   .strict();
 export type MixtureReport = z.output<typeof mixtureReportSchema>;
@@ -220,6 +238,10 @@ export const identifiedBandSchema = z
   .object({
     position: z.number().finite(),
     height: z.number().finite(),
+    /**
+     * A peak's width at half prominence (findPeaks: the FWHM for a band alone on a flat baseline), a shoulder's
+     * FWHM estimated from its second-derivative trough assuming a Gaussian shape (findShoulders), cm⁻¹.
+     */
     fwhm: z.number().finite().nullable(),
     kind: z.enum(['peak', 'shoulder']),
     /** Table rows offered for a band no fitted component carries, best first (empty when `assignedTo` is set). */

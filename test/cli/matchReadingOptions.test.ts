@@ -30,6 +30,12 @@ beforeAll(() => {
     join(fx.dir, 'protein-t-um.txt'),
     x.map((w, i) => `${(1e4 / w).toPrecision(12)}\t${(100 * 10 ** -y[i]!).toPrecision(12)}`).join('\n'),
   );
+  // The protein measured by ATR: weighted by Harrick's penetration depth, d_p ∝ λ ∝ 1/ν̃ (Harrick 1967), taken
+  // equal to transmission at 1000 cm⁻¹ as the ATR step assumes.
+  writeFileSync(
+    join(fx.dir, 'protein-atr.txt'),
+    x.map((w, i) => `${w}\t${((y[i]! * 1000) / w).toFixed(6)}`).join('\n'),
+  );
   // Two unknowns side by side in one file, as a study's spreadsheet export holds them.
   const urea = syntheticSpectrum(COMPOUNDS.urea!, { noise: 0.001, seed: 322, offset: 0.03 });
   writeFileSync(
@@ -101,6 +107,18 @@ describe('match and identify with the reading options', () => {
     });
   });
 
+  it('corrects an ATR unknown given --technique atr as ATR entries are, back to its transmission twin', () => {
+    const twin = report('match', ['protein-a.txt']);
+    const asIs = report('match', ['protein-atr.txt']);
+    const corrected = report('match', ['protein-atr.txt', '--technique', 'atr']);
+    expect(asIs.query.recipe.atr).toBeUndefined();
+    expect(corrected.query.recipe.atr).toMatchObject({ crystal: 'diamond', angle: 45, sampleIndex: 1.5 });
+    expect(corrected.hits[0]!.id).toBe(twin.hits[0]!.id);
+    // The weighting divided out again, the unknown scores as its transmission twin does (to the file's rounding).
+    expect(corrected.hits[0]!.score).toBeCloseTo(twin.hits[0]!.score, 3);
+    expect(corrected.hits[0]!.score).toBeGreaterThan(asIs.hits[0]!.score);
+  });
+
   it('refuses a unit it does not know with one line naming the flag', () => {
     const r = bandshelf(['match', 'protein-t.txt', '--y-unit', 'furlongs', '--library', fx.library], {
       cwd: fx.dir,
@@ -108,6 +126,12 @@ describe('match and identify with the reading options', () => {
     expect(r.code).toBe(2);
     expect(r.stderr.trim().split('\n')).toHaveLength(1);
     expect(r.stderr).toMatch(/--y-unit "furlongs" is not a unit.*\[BAD_OPTION\]/);
+    const t = bandshelf(['match', 'protein-t.txt', '--technique', 'sonar', '--library', fx.library], {
+      cwd: fx.dir,
+    });
+    expect(t.code).toBe(2);
+    expect(t.stderr.trim().split('\n')).toHaveLength(1);
+    expect(t.stderr).toMatch(/--technique must be one of atr, transmission.*not 'sonar'.*\[BAD_OPTION\]/);
   });
 });
 
@@ -150,6 +174,11 @@ describe('match --time-domain', () => {
     );
     expect(r.query.file).toBe('paracetamol-field-resolved-sample.csv');
     expect(r.hits[0]!.id).toBe('paracetamol');
+    // The record length sets the unknown's resolution: the traces span 0–8190 fs, so 1/(c·T) = 4.07 cm⁻¹
+    // (standard Fourier pair, common practice), coarser than two steps of the 2 cm⁻¹ grid, and said so. The FTIR
+    // entry (4 cm⁻¹) is within the like-with-like tolerance of it, so its score is not recomputed.
+    expect(r.query.warnings.some((w) => w.includes('1/(c·T) is 4.07 cm⁻¹'))).toBe(true);
+    expect(r.query.warnings.some((w) => /^hit 'paracetamol' .*compared at the coarser/.test(w))).toBe(false);
   });
 
   it('matches repeated glucose traces to their own library entry first, the FTIR glucose next', () => {

@@ -59,6 +59,10 @@ export const addCommand: CommandSpec = {
       .option('--force', 'store entries even when QC raises an error-level flag')
       .option('--atomic', 'all files in one transaction: any failure stores nothing')
       .option('--max-file-size <MB>', 'largest input file read, in MB (default 200)')
+      .option(
+        '--near-duplicate <r>',
+        'Pearson r above which a new entry is noted as a near-duplicate of another (default 0.999)',
+      )
       .option('--json', 'print {added, unchanged, failed} as JSON');
     readingOptions(command);
   },
@@ -85,6 +89,18 @@ export const addCommand: CommandSpec = {
         );
       }
       maxFileBytes = Math.round(mb * 1e6);
+    }
+    let nearDuplicateThreshold: number | undefined;
+    if (options.nearDuplicate !== undefined) {
+      const r = Number(options.nearDuplicate);
+      if (!(r > 0 && r < 1) || String(options.nearDuplicate).trim() === '') {
+        throw new BandshelfError(
+          'BAD_OPTION',
+          `--near-duplicate wants a correlation between 0 and 1 (not '${options.nearDuplicate}')`,
+          { field: 'near-duplicate' },
+        );
+      }
+      nearDuplicateThreshold = r;
     }
     const recipe =
       typeof options.recipe === 'string'
@@ -115,6 +131,7 @@ export const addCommand: CommandSpec = {
           force: Boolean(options.force),
           atomic: Boolean(options.atomic),
           ...(maxFileBytes === undefined ? {} : { maxFileBytes }),
+          ...(nearDuplicateThreshold === undefined ? {} : { nearDuplicateThreshold }),
           author,
           message,
           progress: context.progress,

@@ -9,6 +9,7 @@ import { recipeReferences } from '../../library/store/recipeReferences.js';
 import type { Library } from '../../library/types.js';
 import { buildBandIndex } from '../../match/buildBandIndex.js';
 import { parseBandQuery } from '../../match/parseBandQuery.js';
+import type { MatchUnknown } from '../../match/pipeline/types.js';
 import { type SearchBandsOptions, searchBands } from '../../match/searchBands.js';
 import { type SpectrumBandSearch, searchBandsOfSpectrum } from '../../match/searchBandsOfSpectrum.js';
 import { BAND_TOLERANCE_CM1, type BandIndex, type BandQuery } from '../../match/types.js';
@@ -16,7 +17,7 @@ import { MATCH_CAUTION } from '../../schema/matchReport.js';
 import type { CommandSpec } from '../command.js';
 import { readingOptions } from '../readingOptions.js';
 import { readTimeDomainUnknown } from '../readTimeDomainUnknown.js';
-import { readUnknownFile, type UnknownOfFile } from '../readUnknownFile.js';
+import { readUnknownFile } from '../readUnknownFile.js';
 import { textTable } from '../textTable.js';
 
 function positiveNumber(value: unknown, flag: string, integer: boolean): number {
@@ -47,7 +48,7 @@ interface FromFileSettings {
 function searchFromFile(from: string, settings: FromFileSettings): SpectrumBandSearch & { name: string } {
   const { library, at, read, cwd } = settings;
   const recipe = library.recipe;
-  const unknowns: UnknownOfFile[] =
+  const unknowns: MatchUnknown[] =
     read.timeDomain === true
       ? [
           readTimeDomainUnknown(

@@ -32,6 +32,10 @@ export const identifyCommand: CommandSpec = {
       .option('--keep-path', 'keep the unknown’s folder in the report (default: file name and SHA-256 only)')
       .option('--at <tag>', 'use a release instead of the working state')
       .option('--recipe <file>', 'process the unknown with this recipe instead of the library’s')
+      .option(
+        '--technique <name>',
+        'how the unknown was measured (atr: corrected for penetration depth, as ATR entries are)',
+      )
       .option('--tolerance <cm-1>', 'a library peak this close is the same band', '4')
       .option('--no-mixture', 'skip the mixture fit (explained is then unknown)');
     configureMixtureOptions(command);

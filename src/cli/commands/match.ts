@@ -42,6 +42,10 @@ export const matchCommand: CommandSpec = {
       .option('--keep-path', 'keep the unknown’s folder in the report (default: file name and SHA-256 only)')
       .option('--at <tag>', 'match against a release instead of the working state')
       .option('--recipe <file>', 'process the unknown with this recipe instead of the library’s')
+      .option(
+        '--technique <name>',
+        'how the unknown was measured (atr: corrected for penetration depth, as ATR entries are)',
+      )
       .option('--range <high:low>', 'score only inside this window (repeatable)', collectRepeated, [])
       .option('--metric <name>', 'pearson, derivative, cosine, euclidean or all', 'pearson')
       .option('--top <n>', 'hits per metric', '10')

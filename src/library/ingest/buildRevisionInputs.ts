@@ -153,7 +153,10 @@ export function buildRevisionInputs(
         })),
       ]
     : [{ role: 'data', name: basename(job.dataPath!), bytes: readBytes(job.dataPath!, job.label, maxBytes) }];
-  const originals = readOriginals({ files, read, recipe }, { label: job.label, maxBytes });
+  const originals = readOriginals(
+    { files, read, recipe },
+    { label: job.label, maxBytes, gridStep: library.grid.step },
+  );
 
   const given: Record<string, unknown> = {
     ...job.manifestMeta,

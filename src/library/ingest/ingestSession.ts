@@ -1,6 +1,7 @@
 // The state one ingest carries from file to file: which job owns which entry id, the near-duplicate pool as it
 // grows, and the outcome and notes gathered so far.
 import { BandshelfError } from '../../error.js';
+import { gridAxis } from '../../spectrum/gridAxis.js';
 import { readProcessedVector } from '../store/readProcessedVector.js';
 import type { Library } from '../types.js';
 import { type BuildRevisionInputsOptions, buildRevisionInputs } from './buildRevisionInputs.js';
@@ -59,6 +60,7 @@ export function ingestSession(library: Library, options: IngestSessionOptions): 
   });
   const { pool, index: rowOf } = index === null ? nearDuplicatePoolOf(library) : own();
   const threshold = options.nearDuplicateThreshold ?? 0.999;
+  const axis = gridAxis(library.grid);
   const owners = new Map<string, string>();
   const outcome: IngestOutcome = { added: [], unchanged: [], failed: [], notes: [] };
 
@@ -111,7 +113,11 @@ export function ingestSession(library: Library, options: IngestSessionOptions): 
           earlier.ids.push(p.id);
           earlier.rows.push(p.processed);
         }
-        const duplicate = nearDuplicateFlag(p.processed, candidates, { exclude: p.id, threshold });
+        const duplicate = nearDuplicateFlag(p.processed, candidates, {
+          exclude: p.id,
+          threshold,
+          wavenumber: axis,
+        });
         return duplicate === null ? p : { ...p, qc: [...p.qc, duplicate] };
       }),
     );

@@ -2,6 +2,7 @@
 // stays reproducible after those entries change.
 import { BandshelfError } from '../../error.js';
 import type { Recipe } from '../../schema/recipe.js';
+import { pinAtr } from '../../spectrum/pinAtr.js';
 import { pinResolution } from '../../spectrum/pinResolution.js';
 import type { Resolution } from '../../spectrum/resolutionOf.js';
 import { headRevision } from '../store/headRevision.js';
@@ -16,20 +17,6 @@ export interface PinRecipeOptions {
   technique?: string;
   /** The entry's resolution (stated or estimated), pinned into a resolution step. @default undefined */
   resolution?: Resolution;
-}
-
-/**
- * The recipe's ATR step made explicit: 'auto' or absent → the diamond preset at 45° for an entry measured by ATR,
- * no step otherwise (the key left out, as in recipes written before the step existed).
- */
-function pinAtr(recipe: Recipe, technique: string | undefined): Recipe {
-  const { atr, ...rest } = recipe;
-  if (atr === null || (atr !== undefined && atr !== 'auto')) return recipe;
-  if (technique !== 'atr') return rest;
-  return {
-    ...rest,
-    atr: { crystal: 'diamond', sampleIndex: 1.5, angle: 45, referenceWavenumber: 1000 },
-  };
 }
 
 /**
@@ -83,7 +70,7 @@ export function pinRecipe(library: Library, recipe: Recipe, options: PinRecipeOp
     }
     return { ...step, revision: head.revision };
   };
-  const withAtr = pinAtr(recipe, options.technique);
+  const withAtr = pinAtr(recipe, options.technique === undefined ? {} : { technique: options.technique });
   const { subtract: _subtract, ...rest } = pinResolution(
     withAtr,
     options.resolution === undefined ? {} : { resolution: options.resolution },

@@ -21,6 +21,8 @@ export interface ReadOriginalsOptions {
   /** Largest file accepted, bytes (passed to the reader).
    * @default the reader's default */
   maxBytes?: number;
+  /** The library grid's step, cm⁻¹, for the time-domain record-length warning. @default undefined (no such warning) */
+  gridStep?: number;
 }
 
 export interface OriginalRead {
@@ -52,7 +54,10 @@ export function readOriginals(input: ReadOriginalsInput, options: ReadOriginalsO
     // An explicit unit (add --time-unit) overrides the headers; the recipe's unit only fills in for headers without one.
     const result = readTraceSpectrum(
       { samples, references, step: recipe.timeDomain },
-      read.timeUnit === undefined ? {} : { timeUnit: read.timeUnit },
+      {
+        ...(read.timeUnit === undefined ? {} : { timeUnit: read.timeUnit }),
+        ...(options.gridStep === undefined ? {} : { gridStep: options.gridStep }),
+      },
     );
     const extras: RevisionExtras = {
       dynamicRangeOrders: result.dynamicRangeOrders,
@@ -61,7 +66,10 @@ export function readOriginals(input: ReadOriginalsInput, options: ReadOriginalsO
     if (result.timingSpreadAs !== null) extras.timingSpreadAs = result.timingSpreadAs;
     const warnings = result.warnings;
     if (warnings.length > 0) extras.warnings = warnings;
-    return [{ spectrum: result.spectrum, labels: {}, blocks: 1, extras }];
+    // The record length fixes the resolution (1/(c·T)), as a file's ##RESOLUTION= would state it.
+    return [
+      { spectrum: result.spectrum, labels: { resolution: result.recordResolution }, blocks: 1, extras },
+    ];
   }
   const data = files.find((f) => f.role === 'data');
   if (data === undefined || files.length !== 1) {

@@ -3,17 +3,23 @@ import { BandshelfError } from '../../error.js';
 import type { MatchReport } from '../../schema/matchReport.js';
 import type { Recipe, WavenumberWindow } from '../../schema/recipe.js';
 import { gridAxis } from '../../spectrum/gridAxis.js';
+import { pinAtr } from '../../spectrum/pinAtr.js';
 import { processSpectrum } from '../../spectrum/processSpectrum.js';
+import { resolutionOf } from '../../spectrum/resolutionOf.js';
+import type { Spectrum } from '../../spectrum/types.js';
 import { buildBandIndex } from '../buildBandIndex.js';
 import { buildMatchReport } from '../buildMatchReport.js';
+import { compareAtCoarserResolution } from '../compareAtCoarserResolution.js';
 import { coveredSpan } from '../coveredSpan.js';
 import { fitMixture } from '../fitMixture.js';
 import { identifyBands } from '../identifyBands.js';
 import { processedRow } from '../processedRow.js';
+import { resolutionForUnknown } from '../resolutionForUnknown.js';
 import { scoringMask } from '../scoringMask.js';
 import { type Hit, type Metric, MIN_OVERLAP_DEFAULT } from '../searchTypes.js';
 import { BAND_TOLERANCE_CM1, type BandIndex, type MixtureCandidate, type MixtureResult } from '../types.js';
 import { checkMatchSource } from './checkMatchSource.js';
+import { fitAtCommonResolution } from './fitAtCommonResolution.js';
 import { offerMixtureCandidates } from './offerMixtureCandidates.js';
 import type { MatchPipelineInput } from './types.js';
 
@@ -32,7 +38,7 @@ export interface RunMatchPipelineOptions {
   /** Where `recipe` came from, as the report records it. @default 'library' */
   recipeSource?: 'library' | 'file';
   /** The reference spectra `recipe` names when it is not the source's own. @default source.references */
-  references?: ReadonlyMap<string, import('../../spectrum/types.js').Spectrum>;
+  references?: ReadonlyMap<string, Spectrum>;
   /** Scoring windows, cm⁻¹. @default [] (whole grid) */
   ranges?: readonly WavenumberWindow[];
   /** @default ['pearson'] */
@@ -66,7 +72,16 @@ export interface RunMatchPipelineOptions {
   fitExcludeClass?: readonly string[];
   /** The source's band index, when the caller keeps one across unknowns. @default built from the source's peaks */
   index?: BandIndex;
+  /**
+   * Like with like across resolutions: the mixture fit brings the unknown and its references to a common resolution
+   * (fitAtCommonResolution), and Pearson hits of another resolution are scored again at the coarser of the two
+   * (compareAtCoarserResolution). False: the fit and the hits as the stored vectors give them. @default true
+   */
+  likeWithLike?: boolean;
 }
+
+/** What fitAtCommonResolution reports of the fit's common resolution. */
+type CommonResolution = Awaited<ReturnType<typeof fitAtCommonResolution>>['resolution'];
 
 /** Classes of composite references (a serum film, a calibration mixture) that are not pure-substance components. */
 export const COMPOSITE_CLASSES: readonly string[] = ['biofluid', 'mixture'];
@@ -117,8 +132,12 @@ async function fitOffered(
   processed: Float64Array,
   poolHits: readonly Hit[],
   recipe: Recipe,
-  options: RunMatchPipelineOptions,
-): Promise<{ mixture: MixtureResult & { candidates: number }; offered: MixtureCandidate[] }> {
+  options: RunMatchPipelineOptions & { resolution: number },
+): Promise<{
+  mixture: MixtureResult & { candidates: number; resolution: CommonResolution };
+  offered: MixtureCandidate[];
+  processed: Float64Array;
+}> {
   const { source } = input;
   const forced = [...new Set(options.with ?? [])];
   const rowOf = new Map(source.entries.map((e, i) => [e.id, i]));
@@ -130,13 +149,43 @@ async function fitOffered(
   ];
   const offered = await offerMixtureCandidates({ source, rows, unknown: input.unknown.spectrum }, { recipe });
   const ranges = options.ranges ?? [];
-  const fit = fitMixture(processed, offered.candidates, {
-    grid: source.grid,
-    with: forced,
-    maxComponents: options.maxComponents ?? MATCH_DEFAULTS.maxComponents,
-    ...(options.baselineDegree === undefined ? {} : { baselineDegree: options.baselineDegree }),
-    ranges: ranges.length === 0 ? null : ranges,
-  });
+  const fitWith = (vector: Float64Array, candidates: MixtureCandidate[]) =>
+    fitMixture(vector, candidates, {
+      grid: source.grid,
+      with: forced,
+      maxComponents: options.maxComponents ?? MATCH_DEFAULTS.maxComponents,
+      ...(options.baselineDegree === undefined ? {} : { baselineDegree: options.baselineDegree }),
+      ranges: ranges.length === 0 ? null : ranges,
+    });
+  const alike =
+    options.likeWithLike === false
+      ? {
+          mixture: fitWith(processed, offered.candidates),
+          candidates: offered.candidates,
+          processed,
+          resolution: null,
+        }
+      : await fitAtCommonResolution({
+          source,
+          unknown: {
+            spectrum: input.unknown.spectrum,
+            resolution: options.resolution,
+            ...(input.unknown.saturated === undefined ? {} : { saturated: input.unknown.saturated }),
+          },
+          processed,
+          recipe,
+          references: options.references ?? source.references,
+          candidates: offered.candidates.map((c, i) => ({ ...c, row: rows[i]! })),
+          window: offered.window,
+          fitWith,
+        });
+  const fit = alike.mixture;
+  const common = alike.resolution;
+  const resolutionNote =
+    common === null
+      ? ''
+      : `; compared like with like at a common resolution of ${Number(common.common.toPrecision(3))} cm⁻¹ ` +
+        `(Gaussian line shape; ${[common.unknownDegraded ? 'the unknown' : '', common.degraded.length > 0 ? `${common.degraded.length} sharper reference(s)` : ''].filter((t) => t !== '').join(' and ')} degraded to it)`;
   const window = offered.window;
   const classNote =
     leftOut.length === 0
@@ -144,13 +193,19 @@ async function fitOffered(
       : `; references of class ${leftOut.join(', ')} were left out (composites, not components)`;
   const criterion =
     window === null || offered.reprocessed.length === 0
-      ? `${fit.criterion}${classNote}`
-      : `${fit.criterion}${classNote}; the unknown covers only ${window.max.toFixed(0)}–${window.min.toFixed(0)} cm⁻¹, so ` +
+      ? `${fit.criterion}${classNote}${resolutionNote}`
+      : `${fit.criterion}${classNote}${resolutionNote}; the unknown covers only ${window.max.toFixed(0)}–${window.min.toFixed(0)} cm⁻¹, so ` +
         `${offered.reprocessed.length} reference(s) reaching beyond it were processed again over that span ` +
         `with their own recipes (baseline and normalisation over the same span as the unknown's)`;
   return {
-    mixture: { ...fit, criterion, candidates: new Set(offered.candidates.map((c) => c.id)).size },
-    offered: offered.candidates,
+    mixture: {
+      ...fit,
+      criterion,
+      candidates: new Set(offered.candidates.map((c) => c.id)).size,
+      resolution: common,
+    },
+    offered: alike.candidates,
+    processed: alike.processed,
   };
 }
 
@@ -165,7 +220,12 @@ export async function runMatchPipeline(
   const { unknown, source, scorer } = input;
   checkMatchSource(source, options.with === undefined ? {} : { with: options.with });
   const forced = [...new Set(options.with ?? [])];
-  const recipe = options.recipe ?? source.recipe;
+  // The unknown gets the entries' treatment: its technique's ATR default and its resolution pinned into the recipe.
+  const given = options.recipe ?? source.recipe;
+  const withAtr = unknown.technique === undefined ? given : pinAtr(given, { technique: unknown.technique });
+  const pinned = resolutionForUnknown(unknown.spectrum, withAtr, { stated: unknown.resolution });
+  const recipe = pinned.recipe;
+  const ownResolution = resolutionOf(unknown.spectrum, { stated: unknown.resolution }).value;
   const metrics = options.metrics ?? MATCH_DEFAULTS.metrics;
   const top = options.top ?? MATCH_DEFAULTS.top;
   const minOverlap = options.minOverlap ?? MIN_OVERLAP_DEFAULT;
@@ -189,11 +249,16 @@ export async function runMatchPipeline(
     hitsByMetric.set(metric, (hits ?? []).filter((h) => admitted(h)).slice(0, wanted));
   }
   const fitted = withMixture
-    ? await fitOffered(input, processed, hitsByMetric.get('pearson')!.slice(0, poolSize), recipe, options)
+    ? await fitOffered(input, processed, hitsByMetric.get('pearson')!.slice(0, poolSize), recipe, {
+        ...options,
+        resolution: ownResolution,
+      })
     : null;
+  // Bands are identified on the unknown as the fit saw it (at the common resolution when it had to be degraded).
+  const fittedUnknown = fitted === null ? processed : fitted.processed;
   const mixture = fitted === null ? null : fitted.mixture;
   const bands = identifyBands(
-    { wavenumber: gridAxis(source.grid), absorbance: processed },
+    { wavenumber: gridAxis(source.grid), absorbance: fittedUnknown },
     {
       assignments: input.assignments,
       index: options.index ?? buildBandIndex(source),
@@ -204,7 +269,7 @@ export async function runMatchPipeline(
   );
   const byMetric: Partial<Record<Metric, Hit[]>> = {};
   for (const metric of metrics) byMetric[metric] = hitsByMetric.get(metric)!.slice(0, top);
-  return buildMatchReport({
+  const report = buildMatchReport({
     query: {
       file: unknown.file,
       ...(unknown.block === undefined ? {} : { block: unknown.block }),
@@ -216,7 +281,7 @@ export async function runMatchPipeline(
       grid: source.grid,
       ranges,
       processed,
-      warnings: unknown.warnings,
+      warnings: [...unknown.warnings, ...pinned.warnings],
     },
     library: { name: source.name, release: source.at, stateKey: source.stateKey, entries: source.entries },
     settings: { top, minOverlap, tolerance, maxComponents, with: forced },
@@ -227,4 +292,11 @@ export async function runMatchPipeline(
     wrongHitNull: source.wrongHitNull ?? null,
     referenceOf: (row) => processedRow(source, row),
   });
+  if (options.likeWithLike === false) return report;
+  // Like with like: hits of another resolution are scored again at the coarser of the two.
+  const alike = await compareAtCoarserResolution(
+    { report, unknown: unknown.spectrum, resolution: ownResolution, source },
+    options.references === undefined ? {} : { references: options.references },
+  );
+  return alike.report;
 }

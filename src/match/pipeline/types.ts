@@ -72,6 +72,17 @@ export interface MatchUnknown {
   /** 1 per point the reader clipped at the absorbance ceiling (kept out of scoring and the fit). */
   saturated?: Uint8Array;
   warnings: readonly string[];
+  /**
+   * The resolution the file states, cm⁻¹ (JCAMP-DX `##RESOLUTION=`; a time-domain unknown's record-length
+   * resolution 1/(c·T)). Anything but a finite positive number counts as not stated: it is then estimated as two
+   * point spacings (resolutionOf).
+   */
+  resolution?: unknown;
+  /**
+   * How the unknown was measured (`atr`, `transmission` …, as entry metadata says it): `atr` gets the ATR step an
+   * ATR entry gets under the recipe (its 'auto' default: the diamond preset). Absent: no ATR correction.
+   */
+  technique?: string;
 }
 
 /** Everything one run of the pipeline needs besides its settings. */

@@ -4,12 +4,10 @@ import { readSpectrumFile } from '../../formats/readSpectrumFile.js';
 import { readTraceSpectrum, type TraceFile } from '../../formats/readTraceSpectrum.js';
 import type { ParsedSpectrum, SpectrumReadOptions } from '../../formats/types.js';
 import { buildBandIndex } from '../../match/buildBandIndex.js';
-import { compareAtCoarserResolution } from '../../match/compareAtCoarserResolution.js';
 import { instantiateScoreKernels } from '../../match/instantiateScoreKernels.js';
 import { jsScoreKernels } from '../../match/jsScoreKernels.js';
 import { runMatchPipeline } from '../../match/pipeline/runMatchPipeline.js';
 import type { MatchScorer, MatchSource } from '../../match/pipeline/types.js';
-import { resolutionForUnknown } from '../../match/resolutionForUnknown.js';
 import { searchSpectra } from '../../match/searchSpectra.js';
 import { type Metric, MIN_OVERLAP_DEFAULT } from '../../match/searchTypes.js';
 import { shippedAssignments } from '../../match/shippedAssignments.js';
@@ -18,7 +16,6 @@ import type { BandIndex } from '../../match/types.js';
 import type { BandAssignment } from '../../schema/bandAssignment.js';
 import type { MatchHit, MatchReport } from '../../schema/matchReport.js';
 import { type Grid, type Recipe, timeDomainSchema, type WavenumberWindow } from '../../schema/recipe.js';
-import { resolutionOf } from '../../spectrum/resolutionOf.js';
 import { pinNoiseFloor } from '../../spectrum/trace/pinNoiseFloor.js';
 import { publishedMatchSource } from './publishedMatchSource.js';
 
@@ -85,6 +82,11 @@ export interface MatchSpectrumFileOptions {
    * step's defaults), its noise floor pinned as the CLI pins it. @default undefined (a spectrum file)
    */
   timeDomain?: { references: readonly TraceFile[]; timeUnit?: 'fs' | 'ps' };
+  /**
+   * How the file was measured, as `bandshelf match --technique` (`atr`: the ATR correction ATR entries get).
+   * @default the file's own label, if any (else no ATR correction)
+   */
+  technique?: string;
 }
 
 export interface FileMatch {
@@ -132,13 +134,20 @@ function traceUnknown(
   file: string,
   recipe: Recipe,
   traces: NonNullable<MatchSpectrumFileOptions['timeDomain']>,
+  recipeGridStep: number,
 ): ReadUnknown {
   const step = pinNoiseFloor(recipe.timeDomain ?? timeDomainSchema.parse({}));
   const result = readTraceSpectrum(
     { samples: [{ name: file, bytes }], references: traces.references, step },
-    traces.timeUnit === undefined ? {} : { timeUnit: traces.timeUnit },
+    { ...(traces.timeUnit === undefined ? {} : { timeUnit: traces.timeUnit }), gridStep: recipeGridStep },
   );
-  return { spectrum: result.spectrum, meta: {}, warnings: result.warnings, source: {} };
+  // The record length's resolution 1/(c·T), as `bandshelf match --time-domain` gives it to like with like.
+  return {
+    spectrum: result.spectrum,
+    meta: { resolution: result.recordResolution },
+    warnings: result.warnings,
+    source: {},
+  };
 }
 
 export async function matchSpectrumFile(
@@ -154,7 +163,15 @@ export async function matchSpectrumFile(
   const parsed: ReadUnknown[] =
     traces === undefined
       ? readSpectrumFile(bytes, { ...read, file })
-      : [traceUnknown(bytes, file, options.source?.recipe ?? set.recipe, traces)];
+      : [
+          traceUnknown(
+            bytes,
+            file,
+            options.source?.recipe ?? set.recipe,
+            traces,
+            (options.source?.grid ?? set.grid).step,
+          ),
+        ];
   const first = parsed[0]!;
   const title = typeof first.meta.title === 'string' ? first.meta.title : undefined;
   const source = options.source ?? publishedMatchSource(set);
@@ -163,16 +180,9 @@ export async function matchSpectrumFile(
     index = buildBandIndex(source);
     bandIndexes.set(source, index);
   }
-  // As `bandshelf match --time-domain`: a converted trace pair is matched as converted (no resolution step).
-  const matched =
-    traces === undefined
-      ? resolutionForUnknown(first.spectrum, source.recipe, { stated: first.meta.resolution })
-      : { recipe: source.recipe, warnings: [] };
-  const warnings = [
-    ...first.warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`)),
-    ...matched.warnings,
-  ];
-  const piped = await runMatchPipeline(
+  const technique =
+    options.technique ?? (typeof first.meta.technique === 'string' ? first.meta.technique : undefined);
+  const report = await runMatchPipeline(
     {
       unknown: {
         file,
@@ -182,7 +192,11 @@ export async function matchSpectrumFile(
         ...(title === undefined ? {} : { title }),
         spectrum: first.spectrum,
         ...(first.saturated === undefined ? {} : { saturated: first.saturated }),
-        warnings,
+        warnings: first.warnings.map((w) =>
+          w.line === undefined ? w.message : `line ${w.line}: ${w.message}`,
+        ),
+        resolution: first.meta.resolution,
+        ...(technique === undefined ? {} : { technique }),
       },
       source,
       // The last search ends before the fit: its end is when the hits are ranked.
@@ -201,21 +215,10 @@ export async function matchSpectrumFile(
       metrics: [options.metric ?? 'pearson'],
       excludeClass: options.excludeClass ?? [],
       index,
-      ...(matched.recipe === source.recipe ? {} : { recipe: matched.recipe }),
     },
   );
-  // Like with like, as `bandshelf match` does: hits of another resolution scored again at the coarser of the two.
-  const alike =
-    traces === undefined
-      ? await compareAtCoarserResolution({
-          report: piped,
-          unknown: first.spectrum,
-          resolution: resolutionOf(first.spectrum, { stated: first.meta.resolution }).value,
-          source,
-        })
-      : { report: piped, notes: [] };
-  const report = alike.report;
-  warnings.push(...alike.notes);
+  // The reader's, the resolution step's and the like-with-like notes, as the report records them.
+  const warnings = [...report.query.warnings];
   const paths = new Map(set.entries.map((e) => [e.id, e.path]));
   return {
     title: title !== undefined && title !== '' ? title : file,

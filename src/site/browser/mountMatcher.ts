@@ -50,6 +50,8 @@ function settingsOf(form: HTMLFormElement | null, k: number): WorkerMatchOptions
     mixture: data.get('mixture') !== null,
     excludeClass: data.getAll('excludeClass').map(String),
     read,
+    // As `match --technique`: an ATR unknown gets the ATR step ATR entries get.
+    ...(text('technique') === '' ? {} : { technique: text('technique') }),
   };
 }
 

@@ -92,19 +92,26 @@ export function publishedMatchSource(
     originals: async (rows) => {
       const out = new Map<number, EntryOriginal>();
       if (options.loadEntry === undefined) return out;
-      for (const row of rows) {
-        const path = set.entries[row]?.path;
-        if (path == null) continue;
-        const doc = await load(path);
-        out.set(row, {
-          original: spectrumOf({ wavenumber: doc.original.x, absorbance: doc.original.y }),
-          recipe: doc.recipe,
-          references: await referencesOf(doc.recipe),
-          ...(typeof doc.extras?.resolution?.value === 'number'
-            ? { resolution: doc.extras.resolution.value }
-            : {}),
-        });
-      }
+      // Loaded side by side: the mixture fit asks for every candidate's original (its resolution) at once.
+      const loaded = await Promise.all(
+        rows.map(async (row): Promise<[number, EntryOriginal] | null> => {
+          const path = set.entries[row]?.path;
+          if (path == null) return null;
+          const doc = await load(path);
+          return [
+            row,
+            {
+              original: spectrumOf({ wavenumber: doc.original.x, absorbance: doc.original.y }),
+              recipe: doc.recipe,
+              references: await referencesOf(doc.recipe),
+              ...(typeof doc.extras?.resolution?.value === 'number'
+                ? { resolution: doc.extras.resolution.value }
+                : {}),
+            },
+          ];
+        }),
+      );
+      for (const pair of loaded) if (pair !== null) out.set(pair[0], pair[1]);
       return out;
     },
   };

@@ -20,6 +20,7 @@ import { averageTraces } from './averageTraces.js';
 import { fieldSpectrum } from './fieldSpectrum.js';
 import { mainPulseIndex } from './mainPulseIndex.js';
 import { removeMean } from './removeMean.js';
+import { sampleEchoes } from './sampleEchoes.js';
 import { type NoiseSource, spectralDynamicRange } from './spectralDynamicRange.js';
 import { timeGate } from './timeGate.js';
 import { traceTimeStep } from './traceTimeStep.js';
@@ -48,7 +49,16 @@ export interface TraceToSpectrumOptions {
    * @default pulseDelay's (200)
    */
   maxDelay?: number;
+  /**
+   * The library grid's step, cm⁻¹: a warning is given when the record-length resolution 1/(c·T) is coarser than
+   * two grid steps (the grid would then show finer detail than the record holds).
+   * @default undefined (no such warning)
+   */
+  gridStep?: number;
 }
+
+/** Speed of light in vacuum, cm/s (exact, SI definition of the metre). */
+const C_CM_PER_S = 29979245800;
 
 export interface TraceToSpectrumResult {
   /** Absorbance on the covered wavenumbers only, ascending cm⁻¹. */
@@ -64,6 +74,12 @@ export interface TraceToSpectrumResult {
   noiseFrom: NoiseSource;
   /** Wavenumber spacing of the spectrum's points (after zero-filling), cm⁻¹. */
   spacing: number;
+  /**
+   * Resolution the record length allows, 1/(c·T) cm⁻¹ with T the delay span used (the traces' span, narrowed to
+   * the gate): the standard Fourier pair, common practice. Apodisation broadens the line shape beyond it;
+   * zero-filling only interpolates, so `spacing` is finer than this without resolving more.
+   */
+  recordResolution: number;
   warnings: TraceWarning[];
 }
 
@@ -157,6 +173,22 @@ export function traceToSpectrum(
     hi = Math.min(hi, gate.end * unit);
   }
   const halfWidth = Math.max(Math.abs(centre - lo), Math.abs(hi - centre), dt);
+  // A pulse replica only the sample has (a reflection in the sample cell) is read as absorbance unless gated out.
+  const [echo] = sampleEchoes(sample.trace, ref, {
+    window: gate === null ? null : { start: gate.start * unit, end: gate.end * unit },
+  });
+  if (echo !== undefined) {
+    warnings.push({
+      message: `the sample trace shows a replica of the pulse ${Math.abs(echo.delay).toFixed(0)} fs ${echo.delay > 0 ? 'after' : 'before'} its main pulse (${(100 * echo.sample).toPrecision(2)} % of it in field) that the reference lacks: its interference is read as absorbance; gate it out (timeDomain.gate) or record the reference with the same echo`,
+    });
+  }
+  // T in fs; 1/(c·T) in cm⁻¹.
+  const recordResolution = 1e15 / (C_CM_PER_S * Math.max(hi - lo, dt));
+  if (options.gridStep !== undefined && recordResolution > 2 * options.gridStep) {
+    warnings.push({
+      message: `the record spans ${((hi - lo) / 1000).toPrecision(3)} ps, so its resolution 1/(c·T) is ${recordResolution.toPrecision(3)} cm⁻¹, coarser than two steps of the ${options.gridStep} cm⁻¹ grid: bands narrower than that are broadened and lowered (record longer, or compare at that resolution)`,
+    });
+  }
   const window = (trace: Trace): Trace => {
     const gated =
       gate === null
@@ -246,6 +278,7 @@ export function traceToSpectrum(
     coverage: { min: wavenumber[0]!, max: wavenumber[wavenumber.length - 1]! },
     noiseFrom: range.noiseFrom,
     spacing: wavenumberFromTerahertz(frequency[1]! - frequency[0]!),
+    recordResolution,
     warnings,
   };
 }

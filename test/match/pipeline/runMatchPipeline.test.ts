@@ -9,6 +9,7 @@ import { matchReportSchema } from '../../../src/schema/matchReport.js';
 import { type Grid, recipeSchema } from '../../../src/schema/recipe.js';
 import { findPeaks } from '../../../src/spectrum/findPeaks.js';
 import { gridAxis } from '../../../src/spectrum/gridAxis.js';
+import { penetrationDepth } from '../../../src/spectrum/penetrationDepth.js';
 import { processSpectrum } from '../../../src/spectrum/processSpectrum.js';
 import type { Spectrum } from '../../../src/spectrum/types.js';
 
@@ -189,6 +190,44 @@ describe('runMatchPipeline', () => {
     );
     expect(filtered.hitsByMetric.pearson!.map((h) => h.id)).not.toContain('gamma');
     expect(filtered.hitsByMetric.pearson!).toHaveLength(3);
+  });
+
+  it('corrects an unknown measured by ATR as ATR entries are, when its technique says so', async () => {
+    // Harrick (1967): an ATR spectrum samples a depth d_p ∝ λ, so A_ATR(ν̃) = A(ν̃) · d_p(ν̃) / d_p(1000 cm⁻¹) for a
+    // weak absorber (diamond at 45°, sample index 1.5); the correction divides that weighting out again.
+    const g = originals.gamma!;
+    const depth = (x: number) => penetrationDepth(x, { crystalIndex: 2.4, sampleIndex: 1.5, angle: 45 });
+    const atr: Spectrum = {
+      wavenumber: g.wavenumber,
+      absorbance: g.absorbance.map((a, i) => (a * depth(g.wavenumber[i]!)) / depth(1000)),
+    };
+    const run = (technique?: string) =>
+      runMatchPipeline({
+        unknown: {
+          file: 'gamma-atr.csv',
+          hash: 'c'.repeat(64),
+          spectrum: atr,
+          warnings: [],
+          ...(technique === undefined ? {} : { technique }),
+        },
+        source: source(),
+        scorer,
+        assignments: [],
+      });
+    const asIs = await run();
+    const corrected = await run('atr');
+    expect(asIs.query.recipe.atr).toBeUndefined();
+    expect(corrected.query.recipe.atr).toEqual({
+      crystal: 'diamond',
+      sampleIndex: 1.5,
+      angle: 45,
+      referenceWavenumber: 1000,
+    });
+    // The corrected unknown is the transmission spectrum again: its entry's stored vector, to rounding.
+    expect(corrected.hitsByMetric.pearson![0]!.id).toBe('gamma');
+    expect(corrected.hitsByMetric.pearson![0]!.score).toBeGreaterThan(0.99999);
+    expect(corrected.hitsByMetric.pearson![0]!.score).toBeGreaterThan(asIs.hitsByMetric.pearson![0]!.score);
+    expect(asIs.hitsByMetric.pearson![0]!.score).toBeLessThan(0.995);
   });
 
   it('refuses a forced id the source does not hold', async () => {

@@ -49,6 +49,21 @@ describe('traceToSpectrum: absorbance from attenuation', () => {
     expect(result.timingSpreadAs).toBeNull();
     expect(result.timingJitterAs).toBeNull();
   });
+
+  it('records the record length’s resolution 1/(c·T) and warns when it is coarser than two grid steps', () => {
+    // Standard Fourier pair (common practice): a record of length T resolves 1/T in frequency, 1/(c·T) in
+    // wavenumber; zero-filling does not change it. 2048 samples at 1 fs span T = 2047 fs: 1/(c·T) = 16.29 cm⁻¹.
+    const expected = 1 / (29_979_245_800 * 2047e-15);
+    const coarse = traceToSpectrum(reference, reference, { zeroFill: 4 }, { gridStep: 2 });
+    expect(coarse.recordResolution).toBeCloseTo(expected, 9);
+    expect(coarse.spacing).toBeLessThan(coarse.recordResolution / 4);
+    expect(coarse.warnings.some((w) => w.message.includes('1/(c·T) is 16.3 cm⁻¹'))).toBe(true);
+    const fine = traceToSpectrum(reference, reference, { zeroFill: 4 }, { gridStep: 10 });
+    expect(fine.warnings.some((w) => w.message.includes('1/(c·T)'))).toBe(false);
+    // A gate narrows the record: 400–1400 fs is T = 1000 fs, 1/(c·T) = 33.36 cm⁻¹.
+    const gated = traceToSpectrum(reference, reference, { gate: { start: 400, end: 1400, edge: 20 } });
+    expect(gated.recordResolution).toBeCloseTo(1 / (29_979_245_800 * 1000e-15), 9);
+  });
 });
 
 describe('traceToSpectrum: a free-induction decay gives a Lorentzian band', () => {
