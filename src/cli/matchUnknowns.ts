@@ -3,12 +3,10 @@ import { createHash } from 'node:crypto';
 import { basename, resolve } from 'node:path';
 import { BandshelfError, errorLine } from '../error.js';
 import type { SpectrumReadOptions } from '../formats/types.js';
-import type { SourceFile } from '../library/ingest/ingestTypes.js';
 import { closeLibrary } from '../library/store/closeLibrary.js';
 import { libraryPath } from '../library/store/libraryPath.js';
 import { listAssignments } from '../library/store/listAssignments.js';
 import { openLibrary } from '../library/store/openLibrary.js';
-import { readOriginals } from '../library/store/readOriginals.js';
 import { readRecipeFile } from '../library/store/readRecipeFile.js';
 import { readRegularFile } from '../library/store/readRegularFile.js';
 import { readSearchSet } from '../library/store/readSearchSet.js';
@@ -22,10 +20,10 @@ import type { MatchUnknown } from '../match/pipeline/types.js';
 import { resolutionForUnknown } from '../match/resolutionForUnknown.js';
 import { MIN_OVERLAP_DEFAULT } from '../match/searchTypes.js';
 import { shippedAssignments } from '../match/shippedAssignments.js';
+import { timeDomainUnknown } from '../match/timeDomainUnknown.js';
 import type { MatchReport } from '../schema/matchReport.js';
-import { type Recipe, timeDomainSchema } from '../schema/recipe.js';
+import type { Recipe } from '../schema/recipe.js';
 import { resolutionOf } from '../spectrum/resolutionOf.js';
-import { pinNoiseFloor } from '../spectrum/trace/pinNoiseFloor.js';
 import type { CommandContext } from './command.js';
 import { readUnknownFile, type UnknownOfFile } from './readUnknownFile.js';
 import { spectrumFilesOf } from './spectrumFilesOf.js';
@@ -73,44 +71,31 @@ function readBytes(file: string, cwd: string): Uint8Array {
   return readRegularFile(resolve(cwd, file), { label: file });
 }
 
-function warningLines(warnings: readonly { line?: number; message: string }[]): string[] {
-  return warnings.map((w) => (w.line === undefined ? w.message : `line ${w.line}: ${w.message}`));
-}
-
-/**
- * Sample traces and reference traces → one unknown, through the same conversion `add --time-domain` uses (the
- * recipe's time-domain step, the library default's, or the step's defaults). Its hash is the SHA-256 of the
- * sample files' bytes followed by the references', in the order given.
- */
+/** Sample and reference trace files from disk → one unknown; its hash covers the samples' bytes, then the references'. */
 function readTimeDomainUnknown(
   samples: readonly string[],
   references: readonly string[],
   settings: { cwd: string; keepPath: boolean; recipe: Recipe; timeUnit?: 'fs' | 'ps' },
 ): MatchUnknown {
   const hash = createHash('sha256');
-  const files: SourceFile[] = [
-    ...samples.map((f) => ({ role: 'sample-trace' as const, f })),
-    ...references.map((f) => ({ role: 'reference-trace' as const, f })),
-  ].map(({ role, f }) => {
-    const bytes = readBytes(f, settings.cwd);
-    hash.update(bytes);
-    return { role, name: basename(f), bytes };
-  });
-  const step = pinNoiseFloor(settings.recipe.timeDomain ?? timeDomainSchema.parse({}));
-  const [original] = readOriginals(
+  const read = (files: readonly string[]) =>
+    files.map((f) => {
+      const bytes = readBytes(f, settings.cwd);
+      hash.update(bytes);
+      return { name: basename(f), bytes };
+    });
+  const sampleFiles = read(samples);
+  const referenceFiles = read(references);
+  return timeDomainUnknown(
     {
-      files,
-      read: settings.timeUnit === undefined ? {} : { timeUnit: settings.timeUnit },
-      recipe: { ...settings.recipe, timeDomain: step },
+      samples: sampleFiles,
+      references: referenceFiles,
+      recipe: settings.recipe,
+      file: settings.keepPath ? samples[0]! : basename(samples[0]!),
+      hash: hash.digest('hex'),
     },
-    { label: samples[0] },
+    settings.timeUnit === undefined ? {} : { timeUnit: settings.timeUnit },
   );
-  return {
-    file: settings.keepPath ? samples[0]! : basename(samples[0]!),
-    hash: hash.digest('hex'),
-    spectrum: original!.spectrum,
-    warnings: warningLines(original!.extras.warnings ?? []),
-  };
 }
 
 /**

@@ -2,9 +2,8 @@
 // reference traces. Ingest and `check` both go through here, so a stored original can always be re-derived.
 import { BandshelfError } from '../../error.js';
 import { readSpectrumFile } from '../../formats/readSpectrumFile.js';
-import { readTimeTrace } from '../../formats/readTimeTrace.js';
+import { readTimeDomainPair } from '../../formats/readTimeDomainPair.js';
 import type { Recipe } from '../../schema/recipe.js';
-import { traceToSpectrum } from '../../spectrum/trace/traceToSpectrum.js';
 import type { Spectrum } from '../../spectrum/types.js';
 import type { SourceFile } from '../ingest/ingestTypes.js';
 import type { ReadOptions, RevisionExtras } from '../types.js';
@@ -50,31 +49,16 @@ export function readOriginals(input: ReadOriginalsInput, options: ReadOriginalsO
         file: label,
       });
     }
-    // An explicit unit (add --time-unit) overrides the headers; the recipe's unit only fills in for headers without one.
-    const traceOptions = {
-      timeUnit: read.timeUnit ?? recipe.timeDomain.timeUnit,
-      overrideHeader: read.timeUnit !== undefined,
-    };
-    const traces = (list: SourceFile[]) =>
-      list.map((f) => readTimeTrace(f.bytes, { ...traceOptions, file: f.name }));
-    const sampleTraces = traces(samples);
-    const referenceTraces = traces(references);
-    const traceWarnings = [...samples, ...references].flatMap((f, i) =>
-      [...sampleTraces, ...referenceTraces][i]!.warnings.map((w) => ({
-        ...w,
-        message: `${f.name}: ${w.message}`,
-      })),
+    const result = readTimeDomainPair(
+      { samples, references, step: recipe.timeDomain },
+      read.timeUnit === undefined ? {} : { timeUnit: read.timeUnit },
     );
-    const result = traceToSpectrum(sampleTraces, referenceTraces, recipe.timeDomain, {
-      files: [...samples, ...references].map((f) => f.name),
-    });
     const extras: RevisionExtras = {
       dynamicRangeOrders: result.dynamicRangeOrders,
       traces: { sample: samples.length, reference: references.length },
     };
     if (result.timingSpreadAs !== null) extras.timingSpreadAs = result.timingSpreadAs;
-    const warnings = [...result.warnings, ...traceWarnings];
-    if (warnings.length > 0) extras.warnings = warnings;
+    if (result.warnings.length > 0) extras.warnings = result.warnings;
     return [{ spectrum: result.spectrum, labels: {}, blocks: 1, extras }];
   }
   const data = files.find((f) => f.role === 'data');

@@ -66,6 +66,7 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
   const target = doc.getElementById('match-report');
   const form = doc.getElementById('match-options') as HTMLFormElement | null;
   const overlay = doc.getElementById('match-overlay') as HTMLSelectElement | null;
+  const references = doc.getElementById('match-reference') as HTMLInputElement | null;
   const base = doc.body.dataset.base ?? '/';
   if (!zone || !input || !status || !target) return;
   const k = options.k ?? 10;
@@ -115,6 +116,7 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
 
   let last: { file: File; result: FileMatch; data: PublishedData } | undefined;
   let lastFile: File | undefined;
+  let lastMore: readonly File[] = [];
   let jsonUrl = '';
 
   /** The report through the report pages' renderer, its plots drawn as there. */
@@ -174,15 +176,30 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
     overlay.closest('label')?.removeAttribute('hidden');
   };
 
-  const show = async (file: File): Promise<void> => {
+  /** With reference traces chosen, the file (and any further dropped files) are sample traces, as `--time-domain`. */
+  const timeDomainOf = async (more: readonly File[]): Promise<WorkerMatchOptions['timeDomain']> => {
+    const chosen = Array.from(references?.files ?? []);
+    if (chosen.length === 0) return undefined;
+    const bytesOf = async (f: File) => ({ name: f.name, bytes: new Uint8Array(await f.arrayBuffer()) });
+    const unit = form ? String(new FormData(form).get('timeUnit') ?? '') : '';
+    return {
+      references: await Promise.all(chosen.map(bytesOf)),
+      samples: await Promise.all(more.map(bytesOf)),
+      ...(unit === 'fs' || unit === 'ps' ? { timeUnit: unit } : {}),
+    };
+  };
+
+  const show = async (file: File, more: readonly File[] = []): Promise<void> => {
     lastFile = file;
+    lastMore = more;
     status.textContent = `Reading ${file.name} …`;
     delete zone.dataset.matched;
     delete zone.dataset.failed;
     // A failure inside the worker arrives as the status line already written there.
     let viaWorker = false;
     try {
-      const settings = settingsOf(form, k);
+      const timeDomain = await timeDomainOf(more);
+      const settings = { ...settingsOf(form, k), ...(timeDomain === undefined ? {} : { timeDomain }) };
       const data = await ready;
       const bytes = new Uint8Array(await file.arrayBuffer());
       const w = await worker;
@@ -215,12 +232,12 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
   };
 
   input.addEventListener('change', () => {
-    const file = input.files?.[0];
-    if (file) void show(file);
+    const [file, ...more] = Array.from(input.files ?? []);
+    if (file) void show(file, more);
   });
   // A changed setting matches the last file again; a changed overlay only redraws.
   form?.addEventListener('change', () => {
-    if (lastFile) void show(lastFile);
+    if (lastFile) void show(lastFile, lastMore);
   });
   form?.addEventListener('submit', (event) => event.preventDefault());
   overlay?.addEventListener('change', () => {
@@ -234,7 +251,7 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
   zone.addEventListener('drop', (event) => {
     event.preventDefault();
     zone.classList.remove('dragging');
-    const file = event.dataTransfer?.files[0];
-    if (file) void show(file);
+    const [file, ...more] = Array.from(event.dataTransfer?.files ?? []);
+    if (file) void show(file, more);
   });
 }
