@@ -233,7 +233,7 @@ describe.skipIf(!browserTestsRun())('the matcher page in a browser', () => {
     await page.screenshot({ path: join(SHOTS, 'matcher-time-domain.png'), fullPage: true });
     await page.close();
     expect(problems).toEqual([]);
-  });
+  }, 240_000);
 
   it('opened from disk, the page says the worker was refused and matches on its own thread', async () => {
     const page = await openMatcher(pathToFileURL(join(out, 'match', 'index.html')).href);
