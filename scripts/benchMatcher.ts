@@ -55,8 +55,8 @@ async function measure(
   try {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
     const start = Date.now();
-    await page.goto(url, { waitUntil: 'load' });
-    await page.waitForSelector('#match-drop[data-ready="true"][data-engine]', { timeout: 300_000 });
+    await page.goto(url, { waitUntil: 'load', timeout: 600_000 });
+    await page.waitForSelector('#match-drop[data-ready="true"][data-engine]', { timeout: 600_000 });
     const ready = Date.now() - start;
     const engine = (await page.getAttribute('#match-drop', 'data-engine')) ?? '?';
     const drops: DropFigures[] = [];

@@ -1,7 +1,8 @@
 // `npm run bench:site`: build time and output size of the static site for the demo library and for a synthetic
-// library of many entries (default 10,000), each built by the real CLI in a fresh process.
+// library of many entries (default 10,000), each built by the real CLI in a fresh process; then, after one `add`,
+// the time of `site` again into the same folder (reusing what did not change) and how many files it changed.
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { cpSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
@@ -19,6 +20,10 @@ interface SiteFigures {
   entry_bytes: number;
   /** Peak resident memory of the build process, MB (from /usr/bin/time when present, else null). */
   rss_mb: number | null;
+  /** `site` again into the same folder after one `add`: seconds, entries whose files were reused, files changed. */
+  rebuild_after_add_s: number;
+  rebuild_reused: number;
+  rebuild_files_changed: number;
 }
 
 const root = findPackageRoot(import.meta.url);
@@ -84,11 +89,37 @@ function demoLibrary(work: string): string {
   return library;
 }
 
+/** Files whose bytes differ between two build manifests (added and removed files count too). */
+function filesChanged(before: Record<string, string>, after: Record<string, string>): number {
+  const paths = new Set([...Object.keys(before), ...Object.keys(after)]);
+  return [...paths].filter((p) => before[p] !== after[p]).length;
+}
+
+const manifestFiles = (out: string): Record<string, string> =>
+  (JSON.parse(readFileSync(join(out, '.bandshelf-site.json'), 'utf8')) as { files: Record<string, string> })
+    .files;
+
 function measure(label: string, library: string, out: string): SiteFigures {
   const { ms, rssMb, stdout } = run(
     ['site', '--library', library, '--out', out, '--clean', '--json'],
     `site (${label})`,
   );
+  const first = manifestFiles(out);
+  // One add (a demo compound under a new id), then the same `site` again: only what the add changed is made.
+  run(
+    [
+      'add',
+      join(root, 'library', '31-caffeine.jdx'),
+      '--id',
+      'bench-added-entry',
+      '--force',
+      '--library',
+      library,
+    ],
+    `add (${label})`,
+  );
+  const again = run(['site', '--library', library, '--out', out, '--json'], `site again (${label})`);
+  const rebuilt = JSON.parse(again.stdout) as { reused: number };
   const built = JSON.parse(stdout) as { entries: number };
   const { files, bytes } = sizeOf(out);
   const entriesDir = join(out, 'entries');
@@ -102,6 +133,9 @@ function measure(label: string, library: string, out: string): SiteFigures {
     mb: Math.round(bytes / 1e5) / 10,
     entry_bytes: built.entries > 0 ? Math.round(entryBytes / built.entries) : 0,
     rss_mb: rssMb === null ? null : Math.round(rssMb),
+    rebuild_after_add_s: Math.round(again.ms / 100) / 10,
+    rebuild_reused: rebuilt.reused,
+    rebuild_files_changed: filesChanged(first, manifestFiles(out)),
   };
 }
 
@@ -111,11 +145,12 @@ function main(): void {
   mkdirSync(work, { recursive: true });
   try {
     const demo = measure('demo', demoLibrary(work), join(work, 'demo-site'));
-    const synthetic = measure(
-      `synthetic-${args.entries}`,
-      syntheticSiteLibrary(args.entries, { run: (a, what) => run(a, what) }).library,
-      join(work, 'synthetic-site'),
-    );
+    // A copy of the cached synthetic library (the add below must not change the cache other runs share).
+    const cached = syntheticSiteLibrary(args.entries, { run: (a, what) => run(a, what) }).library;
+    const copy = join(work, 'synthetic.sqlite');
+    run(['backup', copy, '--library', cached], 'backup (synthetic)');
+    if (existsSync(`${cached}.cache`)) cpSync(`${cached}.cache`, `${copy}.cache`, { recursive: true });
+    const synthetic = measure(`synthetic-${args.entries}`, copy, join(work, 'synthetic-site'));
     const targets = { build_s: 60, mb: 500 };
     const result = { demo, synthetic, targets, cores: availableParallelism() };
     if (args.json) {
@@ -123,10 +158,10 @@ function main(): void {
       return;
     }
     const row = (f: SiteFigures) =>
-      `${f.library.padEnd(18)} ${String(f.entries).padStart(7)} ${f.build_s.toFixed(1).padStart(8)} ${String(f.files).padStart(7)} ${f.mb.toFixed(1).padStart(9)} ${String(f.entry_bytes).padStart(10)} ${String(f.rss_mb ?? '–').padStart(7)}`;
+      `${f.library.padEnd(18)} ${String(f.entries).padStart(7)} ${f.build_s.toFixed(1).padStart(8)} ${String(f.files).padStart(7)} ${f.mb.toFixed(1).padStart(9)} ${String(f.entry_bytes).padStart(10)} ${String(f.rss_mb ?? '–').padStart(7)} ${f.rebuild_after_add_s.toFixed(1).padStart(10)} ${`${f.rebuild_reused} reused, ${f.rebuild_files_changed} files changed`.padStart(30)}`;
     process.stdout.write(
       [
-        `${'library'.padEnd(18)} ${'entries'.padStart(7)} ${'build s'.padStart(8)} ${'files'.padStart(7)} ${'output MB'.padStart(9)} ${'B / entry'.padStart(10)} ${'RSS MB'.padStart(7)}`,
+        `${'library'.padEnd(18)} ${'entries'.padStart(7)} ${'build s'.padStart(8)} ${'files'.padStart(7)} ${'output MB'.padStart(9)} ${'B / entry'.padStart(10)} ${'RSS MB'.padStart(7)} ${'1 add: s'.padStart(10)} ${'what the rebuild made'.padStart(30)}`,
         row(demo),
         row(synthetic),
         `targets for 10,000 entries: build under ${targets.build_s} s, output under ${targets.mb} MB`,

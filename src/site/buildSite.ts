@@ -1,7 +1,20 @@
 // Builds the static site: entry downloads, the search index, the matcher's binary matrix, the Eleventy pages and
 // the copied scripts and styles, then records what it wrote so a later build knows its own files.
-import { existsSync, mkdirSync, realpathSync, renameSync, rmSync, writeFileSync } from 'node:fs';
-import { basename, dirname, join, resolve } from 'node:path';
+import { createHash } from 'node:crypto';
+import {
+  copyFileSync,
+  existsSync,
+  linkSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  realpathSync,
+  renameSync,
+  rmSync,
+  statSync,
+  writeFileSync,
+} from 'node:fs';
+import { basename, dirname, join, relative, resolve } from 'node:path';
 import { BandshelfError } from '../error.js';
 import { canonicalJson } from '../library/store/canonicalJson.js';
 import { BAND_TOLERANCE_CM1 } from '../match/types.js';
@@ -17,6 +30,7 @@ import { findPackageRoot } from './findPackageRoot.js';
 import { float32Bytes } from './float32Bytes.js';
 import { jsonForScript } from './jsonForScript.js';
 import { prepareOutDir } from './prepareOutDir.js';
+import { type BuildManifest, readBuildManifest } from './readBuildManifest.js';
 import { redactReport } from './redactReport.js';
 import { reportPage } from './reportPage.js';
 import { siteEleventyPlugin } from './siteEleventyPlugin.js';
@@ -45,6 +59,13 @@ export interface BuildSiteOptions {
   /** The working directory (relative paths, and --clean never empties it).
    * @default process.cwd() */
   cwd?: string;
+  /**
+   * Reuse what the previous build in `out` made for entries whose inputs are unchanged: their files are hard-linked
+   * (copied where links are refused) into the new site instead of being made and written again, and their pages are
+   * not rendered. The output is byte for byte what a build without reuse writes.
+   * @default true
+   */
+  reuse?: boolean;
   /** Called as entries are written.
    * @default no-op */
   progress?: (done: number, total: number, label: string) => void;
@@ -60,6 +81,8 @@ export interface BuiltSite {
   files: number;
   bytes: number;
   entries: number;
+  /** Entries whose files were taken over from the previous build unchanged. */
+  reused: number;
   reports: number;
   pathPrefix: string;
 }
@@ -137,9 +160,11 @@ export async function buildSite(source: SiteSource, options: BuildSiteOptions): 
   }
   mkdirSync(building, { recursive: true });
   writeFileSync(join(building, BUILDING_MARKER), '');
+  const manifest = options.reuse !== false && existsSync(target) ? readBuildManifest(target) : undefined;
+  const previous = manifest === undefined ? undefined : { dir: target, manifest };
   let built: BuiltSite;
   try {
-    built = await writeSite(source, options, { out: building, root, templates, pathPrefix });
+    built = await writeSite(source, options, { out: building, root, templates, pathPrefix, previous });
   } catch (error) {
     rmSync(building, { recursive: true, force: true });
     throw error;
@@ -152,52 +177,129 @@ export async function buildSite(source: SiteSource, options: BuildSiteOptions): 
   return { ...built, out };
 }
 
+const sha256Hex = (text: string): string => createHash('sha256').update(text).digest('hex');
+
+/** The templates' names and bytes (every page is rendered from them). */
+function templatesHash(templates: string): string {
+  const hash = createHash('sha256');
+  const walk = (dir: string): void => {
+    for (const name of readdirSync(dir).sort()) {
+      const full = join(dir, name);
+      if (statSync(full).isDirectory()) walk(full);
+      else if (name.endsWith('.njk'))
+        hash.update(`${relative(templates, full)}\n`).update(readFileSync(full));
+    }
+  };
+  walk(templates);
+  return hash.digest('hex');
+}
+
 /** Written first into a folder being built, so a later build knows a leftover of a killed one as its own. */
 const BUILDING_MARKER = '.bandshelf-building';
 
 async function writeSite(
   source: SiteSource,
   options: BuildSiteOptions,
-  where: { out: string; root: string; templates: string; pathPrefix: string },
+  where: {
+    out: string;
+    root: string;
+    templates: string;
+    pathPrefix: string;
+    previous: { dir: string; manifest: BuildManifest } | undefined;
+  },
 ): Promise<BuiltSite> {
-  const { out, root, templates, pathPrefix } = where;
+  const { out, root, templates, pathPrefix, previous } = where;
   const made = new Set<string>();
-  const write = (path: string, content: string | Uint8Array): number => {
+  const folderOf = (path: string): string => {
     const full = join(out, path);
     const folder = dirname(full);
     if (!made.has(folder)) {
       mkdirSync(folder, { recursive: true });
       made.add(folder);
     }
-    writeFileSync(full, content);
+    return full;
+  };
+  const write = (path: string, content: string | Uint8Array): number => {
+    writeFileSync(folderOf(path), content);
     return typeof content === 'string' ? Buffer.byteLength(content) : content.byteLength;
+  };
+  /** A file of the previous build taken over as it is: a hard link (the old site stays whole until the swap). */
+  const link = (from: string, path: string): void => {
+    const to = folderOf(path);
+    try {
+      linkSync(from, to);
+    } catch {
+      copyFileSync(from, to);
+    }
   };
 
   const taken = new Set<string>();
   const slugs = new Map(source.entries.map((e) => [e.id, slugFor(e.id, taken)]));
-  const entryPages: EntryPage[] = [];
   const searchEntries: SearchIndexEntry[] = [];
   // Entries processed with a recipe of their own: a hit on one is marked, on report pages and in the matcher.
   const libraryRecipe = canonicalJson(source.recipe);
   const ownRecipe = new Set<string>();
   const total = source.entries.length;
+  // What every entry page is also made from besides its entry: the site's name, caution, version and grid, and the
+  // templates. An entry whose key is the previous build's has its files linked from there, not made again.
+  const siteKey = sha256Hex(
+    canonicalJson({
+      name: source.name,
+      version: options.version ?? 'bandshelf',
+      caution: options.caution,
+      grid: source.grid,
+      templates: templatesHash(templates),
+    }),
+  );
+  const known: Record<string, string> = {};
+  const entryKeys: Record<string, string> = {};
+  const toRender: EntryPage[] = [];
+  let reused = 0;
   for (const [i, summary] of source.entries.entries()) {
     const slug = slugs.get(summary.id)!;
     const detail = source.loadEntry(summary.id);
     if (canonicalJson(detail.recipe) !== libraryRecipe) ownRecipe.add(summary.id);
     const folder = `entries/${slug}/`;
     const processed = float32Bytes(detail.processed);
-    const processedBytes = write(`${folder}${slug}.processed.f32`, processed);
     const json = entryJson(detail, { processedFile: `${slug}.processed.f32` });
-    const dataBytes = write(`${folder}${slug}.json`, json);
-    // The page reads the same data from a script file, which a browser loads from disk too (fetch it refuses).
-    write(
-      `${folder}${slug}.data.js`,
-      dataScript(`entry:${slug}`, null, {
-        json: `{"document":${json.trim()},"processed":${JSON.stringify(Buffer.from(processed).toString('base64'))}}`,
-      }),
+    const page = entryPage(detail, {
+      assignments: source.assignments,
+      dataBytes: Buffer.byteLength(json),
+      processedBytes: processed.byteLength,
+      slug,
+    });
+    const key = createHash('sha256')
+      .update(siteKey)
+      .update(canonicalJson(page))
+      .update(json)
+      .update(processed)
+      .digest('hex');
+    entryKeys[folder] = key;
+    const files = ['index.html', `${slug}.json`, `${slug}.processed.f32`, `${slug}.data.js`].map(
+      (f) => `${folder}${f}`,
     );
-    entryPages.push(entryPage(detail, { assignments: source.assignments, dataBytes, processedBytes, slug }));
+    if (
+      previous !== undefined &&
+      previous.manifest.entries?.[folder] === key &&
+      files.every((f) => previous.manifest.files[f] !== undefined)
+    ) {
+      for (const f of files) {
+        link(join(previous.dir, f), f);
+        known[f] = previous.manifest.files[f]!;
+      }
+      reused++;
+    } else {
+      write(`${folder}${slug}.processed.f32`, processed);
+      write(`${folder}${slug}.json`, json);
+      // The page reads the same data from a script file, which a browser loads from disk too (fetch it refuses).
+      write(
+        `${folder}${slug}.data.js`,
+        dataScript(`entry:${slug}`, null, {
+          json: `{"document":${json.trim()},"processed":${JSON.stringify(Buffer.from(processed).toString('base64'))}}`,
+        }),
+      );
+      toRender.push(page);
+    }
     searchEntries.push({
       summary: detail.summary,
       path: folder,
@@ -300,7 +402,7 @@ async function writeSite(
     return reportPage(r, { slugs, slug, vector, jsonBytes, marks });
   });
   const view = siteView(source, {
-    entryPages,
+    entryPages: toRender,
     reportPages,
     slugs,
     version: options.version,
@@ -324,6 +426,6 @@ async function writeSite(
   }
   copySiteAssets(root, out);
 
-  const { files, bytes } = writeBuildManifest(out);
-  return { out, files, bytes, entries: total, reports: reportPages.length, pathPrefix };
+  const { files, bytes } = writeBuildManifest(out, { known, entries: entryKeys });
+  return { out, files, bytes, entries: total, reused, reports: reportPages.length, pathPrefix };
 }

@@ -14,6 +14,8 @@ export interface DecodedSearchMatrix {
   matrix: Float32Array;
 }
 
+const LITTLE_ENDIAN = new Uint8Array(new Uint16Array([1]).buffer)[0] === 1;
+
 /** Reads the layout `encodeSearchMatrix` writes; a wrong magic, a short file or a bad size is a BAD_FORMAT error. */
 export function decodeSearchMatrix(
   bytes: Uint8Array,
@@ -37,14 +39,16 @@ export function decodeSearchMatrix(
     );
   }
   const matrix = new Float32Array(rows * cols);
-  let offset = 16 + rows * 4;
+  const start = 16 + rows * 4;
+  // The file is little-endian; on a little-endian engine with an even offset the values are read as one Int16Array.
+  const direct = LITTLE_ENDIAN && (bytes.byteOffset + start) % 2 === 0;
+  const values = direct ? new Int16Array(bytes.buffer, bytes.byteOffset + start, rows * cols) : null;
   for (let r = 0; r < rows; r++) {
     const scale = view.getFloat32(16 + r * 4, true);
     const base = r * cols;
     for (let c = 0; c < cols; c++) {
-      const q = view.getInt16(offset, true);
+      const q = values ? values[base + c]! : view.getInt16(start + (base + c) * 2, true);
       matrix[base + c] = q === -32768 ? Number.NaN : q * scale;
-      offset += 2;
     }
   }
   return { rows, cols, matrix };

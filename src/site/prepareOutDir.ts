@@ -5,6 +5,7 @@ import { homedir } from 'node:os';
 import { basename, dirname, join, parse, relative, resolve, sep } from 'node:path';
 import { BandshelfError } from '../error.js';
 import { buildManifestPath } from './buildManifestPath.js';
+import { readBuildManifest } from './readBuildManifest.js';
 
 export interface PrepareOutDirOptions {
   /** Empty the folder even when it holds files an earlier build did not make.
@@ -39,12 +40,6 @@ function realOf(p: string): string {
   }
 }
 
-interface BuildManifest {
-  generator: 'bandshelf site';
-  /** Relative path (with `/`) → SHA-256 of the bytes written. */
-  files: Record<string, string>;
-}
-
 function listFiles(dir: string, base = dir): string[] {
   const out: string[] = [];
   for (const name of readdirSync(dir).sort()) {
@@ -54,19 +49,6 @@ function listFiles(dir: string, base = dir): string[] {
     else out.push(relative(base, full).split(sep).join('/'));
   }
   return out;
-}
-
-function readManifest(dir: string): BuildManifest | undefined {
-  const path = buildManifestPath(dir);
-  if (!existsSync(path)) return undefined;
-  try {
-    const parsed = JSON.parse(readFileSync(path, 'utf8')) as BuildManifest;
-    return parsed && parsed.generator === 'bandshelf site' && typeof parsed.files === 'object'
-      ? parsed
-      : undefined;
-  } catch {
-    return undefined;
-  }
 }
 
 function isInside(child: string, parent: string): boolean {
@@ -113,7 +95,7 @@ export function prepareOutDir(out: string, options: PrepareOutDirOptions = {}): 
   }
   const top = readdirSync(dir).sort();
   if (top.length === 0) return;
-  const manifest = readManifest(dir);
+  const manifest = readBuildManifest(dir);
   // Without a manifest every file is foreign: say so at once instead of walking what may be a large folder.
   const foreign =
     manifest === undefined

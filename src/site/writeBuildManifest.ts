@@ -8,6 +8,12 @@ export interface WriteBuildManifestOptions {
   /** Also remove folders that hold no file (an entry that left the library leaves its folder empty).
    * @default true */
   removeEmptyFolders?: boolean;
+  /** Hashes already known (files linked from the previous build): not read again.
+   * @default {} */
+  known?: Record<string, string>;
+  /** Each entry folder's input key, recorded for the next build.
+   * @default {} */
+  entries?: Record<string, string>;
 }
 
 /** Returns how many files (besides the manifest) the folder holds and their total size in bytes. */
@@ -30,12 +36,20 @@ export function writeBuildManifest(
   walk(out);
   const hashes: Record<string, string> = {};
   let bytes = 0;
+  const known = options.known ?? {};
   for (const f of files) {
     if (f === own) continue;
+    const hash = known[f];
+    if (hash !== undefined) {
+      bytes += statSync(join(out, f)).size;
+      hashes[f] = hash;
+      continue;
+    }
     const content = readFileSync(join(out, f));
     bytes += content.byteLength;
     hashes[f] = createHash('sha256').update(content).digest('hex');
   }
-  writeFileSync(manifest, `${JSON.stringify({ generator: 'bandshelf site', files: hashes }, null, 1)}\n`);
+  const record = { generator: 'bandshelf site', files: hashes, entries: options.entries ?? {} };
+  writeFileSync(manifest, `${JSON.stringify(record, null, 1)}\n`);
   return { files: Object.keys(hashes).length, bytes };
 }

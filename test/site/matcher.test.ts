@@ -169,6 +169,72 @@ describe.skipIf(!browserTestsRun())('the matcher page in a browser', () => {
     expect(problems).toEqual([]);
   });
 
+  it('a time-domain sample and reference trace pair gives the report of match --time-domain --reference', async () => {
+    // The expected report is the CLI's, on the same release; both read the traces through readTraceSpectrum.
+    const traces = join(DEMO_LIBRARY, 'time-domain');
+    const cases = [
+      {
+        samples: ['paracetamol-field-resolved-sample.csv'],
+        references: ['paracetamol-field-resolved-reference.csv'],
+      },
+      {
+        samples: ['glucose-field-resolved-sample-1.csv', 'glucose-field-resolved-sample-2.csv'],
+        references: ['glucose-field-resolved-reference-1.csv', 'glucose-field-resolved-reference-2.csv'],
+      },
+    ];
+    const page = await openMatcher(`${server.url}match/`);
+    for (const { samples, references } of cases) {
+      const expected = parseJson<CliReport & { query: { file: string; hash: string } }>(
+        bandshelf([
+          'match',
+          ...samples.map((f) => join(traces, f)),
+          '--time-domain',
+          ...references.flatMap((f) => ['--reference', join(traces, f)]),
+          '--library',
+          fx.library,
+          '--json',
+          '--mixture',
+        ]).stdout,
+      );
+      await page.setInputFiles(
+        '#match-reference',
+        references.map((f) => join(traces, f)),
+      );
+      const dataTransfer = await page.evaluateHandle(
+        (files) => {
+          const dt = new DataTransfer();
+          for (const f of files) dt.items.add(new File([f.text], f.name, { type: 'text/plain' }));
+          return dt;
+        },
+        samples.map((name) => ({ name, text: readFileSync(join(traces, name), 'utf8') })),
+      );
+      await page.dispatchEvent('#match-drop', 'drop', { dataTransfer });
+      await page.waitForSelector(`#match-drop[data-matched="${samples[0]}"]`);
+      expect(
+        await page.getAttribute('#match-drop', 'data-failed'),
+        (await page.textContent('#match-status')) ?? '',
+      ).toBeNull();
+      const got = await shown(page);
+      expect(got.hits.slice(0, 3), samples[0]).toEqual(expected.hits.slice(0, 3).map((h) => h.id));
+      expect(got.components, samples[0]).toEqual(expected.mixture!.components.map((c) => c.id));
+      // The downloaded report names the same file and hash (the samples' bytes, then the references').
+      const [download] = await Promise.all([
+        page.waitForEvent('download'),
+        page.click('#match-report .report-download a'),
+      ]);
+      const query = (
+        JSON.parse(readFileSync((await download.path())!, 'utf8')) as {
+          query: { file: string; hash: string };
+        }
+      ).query;
+      expect(query.file).toBe(expected.query.file);
+      expect(query.hash).toBe(expected.query.hash);
+    }
+    await page.screenshot({ path: join(SHOTS, 'matcher-time-domain.png'), fullPage: true });
+    await page.close();
+    expect(problems).toEqual([]);
+  }, 240_000);
+
   it('opened from disk, the page says the worker was refused and matches on its own thread', async () => {
     const page = await openMatcher(pathToFileURL(join(out, 'match', 'index.html')).href);
     // Chromium refuses `new Worker()` of a file:// script (origin 'null'): the page says so and matches itself.

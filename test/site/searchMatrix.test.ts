@@ -27,6 +27,20 @@ describe('encodeSearchMatrix / decodeSearchMatrix', () => {
     expect(Array.from(back.matrix.subarray(3))).toEqual([0, 0, 0]);
   });
 
+  it('reads the same values from bytes at an odd offset (no aligned Int16Array view there) as at an even one', () => {
+    // The hand-checkable matrix above, decoded once in place and once from a copy shifted by one byte.
+    const bytes = encodeSearchMatrix({
+      processed: Float32Array.from([1, -0.5, Number.NaN, 0.25, 0, -1]),
+      rows: 2,
+      cols: 3,
+    });
+    const shifted = new Uint8Array(bytes.byteLength + 1);
+    shifted.set(bytes, 1);
+    const odd = decodeSearchMatrix(shifted.subarray(1));
+    expect(Array.from(odd.matrix)).toEqual(Array.from(decodeSearchMatrix(bytes).matrix));
+    expect(odd.matrix[3]).toBeCloseTo(0.25, 4);
+  });
+
   it('keeps every value within half a quantisation step, and Pearson r within 1e-4 (simple-statistics as reference)', () => {
     const rng = seededRandom(42);
     const rows = 20;

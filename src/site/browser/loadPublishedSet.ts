@@ -1,5 +1,6 @@
 // Loads the site's published search set (vectors, peaks, recipe) and builds the match source over it; the page and
-// the matcher's worker both call it, each with its own way of loading a data script.
+// the matcher's worker both call it. Served over http the binary matrix and its description are fetched as they are
+// (no base64, no script to parse); opened from disk, where browsers refuse fetch, the one data script is loaded.
 import type { MatchSource } from '../../match/pipeline/types.js';
 import { decodeSearchMatrix } from '../decodeSearchMatrix.js';
 import { base64Bytes } from './base64Bytes.js';
@@ -9,12 +10,28 @@ import { type PublishedEntryDocument, publishedMatchSource } from './publishedMa
 /** Loads the data script at `src` (relative to `base`'s page) and resolves with the value it stores under `key`. */
 export type DataLoader = <T>(src: string, key: string) => Promise<T>;
 
+/** Where the published matrix is: the data script, and beside it the binary file and its JSON description. */
+export interface PublishedMatrixFiles {
+  /** `assets/search-matrix.js`: description and base64 matrix in one script (works from file://). */
+  script: string;
+  /** `assets/search-matrix.bin` (the layout of encodeSearchMatrix). */
+  binary: string;
+  /** `assets/search-matrix.json`. */
+  json: string;
+}
+
 export interface LoadPublishedSetOptions {
   /** How a data script is loaded: a <script> tag in a page, importScripts in a worker. */
   load: DataLoader;
   /** The site root relative to the page (the body's `data-base`), prefixed to entry folders.
    * @default '' */
   base?: string;
+  /**
+   * Fetch the binary matrix and its description (a page or worker served over http); the data script is loaded only
+   * when a fetch fails. False from file://, where browsers refuse fetch.
+   * @default false
+   */
+  fetch?: boolean;
 }
 
 type MatrixMeta = Omit<PublishedSearchSet, 'processed'> & { rows: number; cols: number };
@@ -24,16 +41,36 @@ export interface PublishedData {
   source: MatchSource;
 }
 
-/** `matrixScript` is the URL of `assets/search-matrix.js`. */
+async function fetched(files: PublishedMatrixFiles): Promise<{ meta: MatrixMeta; bytes: Uint8Array }> {
+  const get = async (url: string): Promise<Response> => {
+    const response = await fetch(url);
+    if (!response.ok) throw new Error(`${url}: HTTP ${response.status}`);
+    return response;
+  };
+  const [meta, bytes] = await Promise.all([
+    get(files.json).then((r) => r.json() as Promise<MatrixMeta>),
+    get(files.binary).then(async (r) => new Uint8Array(await r.arrayBuffer())),
+  ]);
+  return { meta, bytes };
+}
+
+async function scripted(
+  files: PublishedMatrixFiles,
+  load: DataLoader,
+): Promise<{ meta: MatrixMeta; bytes: Uint8Array }> {
+  const { meta, matrix } = await load<{ meta: MatrixMeta; matrix: string }>(files.script, 'search-matrix');
+  return { meta, bytes: base64Bytes(matrix) };
+}
+
 export async function loadPublishedSet(
-  matrixScript: string,
+  files: PublishedMatrixFiles,
   options: LoadPublishedSetOptions,
 ): Promise<PublishedData> {
-  const { meta, matrix } = await options.load<{ meta: MatrixMeta; matrix: string }>(
-    matrixScript,
-    'search-matrix',
-  );
-  const decoded = decodeSearchMatrix(base64Bytes(matrix));
+  const { meta, bytes } =
+    options.fetch === true
+      ? await fetched(files).catch(() => scripted(files, options.load))
+      : await scripted(files, options.load);
+  const decoded = decodeSearchMatrix(bytes);
   if (decoded.rows !== meta.rows || decoded.cols !== meta.cols) {
     throw new Error('the matrix and its description disagree; rebuild the site');
   }

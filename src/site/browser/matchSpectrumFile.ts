@@ -79,9 +79,10 @@ export interface MatchSpectrumFileOptions {
   /**
    * The file is a field-resolved sample trace and these are its reference traces, as `bandshelf match
    * --time-domain --reference FILE [--time-unit U]`: converted with the published recipe's time-domain step (or the
-   * step's defaults), its noise floor pinned as the CLI pins it. @default undefined (a spectrum file)
+   * step's defaults), its noise floor pinned as the CLI pins it; further `samples` are averaged with it, as several
+   * sample files are in the CLI. @default undefined (a spectrum file)
    */
-  timeDomain?: { references: readonly TraceFile[]; timeUnit?: 'fs' | 'ps' };
+  timeDomain?: { references: readonly TraceFile[]; samples?: readonly TraceFile[]; timeUnit?: 'fs' | 'ps' };
   /**
    * How the file was measured, as `bandshelf match --technique` (`atr`: the ATR correction ATR entries get).
    * @default the file's own label, if any (else no ATR correction)
@@ -123,6 +124,17 @@ async function sha256(bytes: Uint8Array): Promise<string> {
   return Array.from(new Uint8Array(digest), (b) => b.toString(16).padStart(2, '0')).join('');
 }
 
+/** Concatenated bytes (the hash of a trace pair covers the samples' bytes, then the references'). */
+function joined(parts: readonly Uint8Array[]): Uint8Array {
+  const out = new Uint8Array(parts.reduce((n, p) => n + p.byteLength, 0));
+  let at = 0;
+  for (const p of parts) {
+    out.set(p, at);
+    at += p.byteLength;
+  }
+  return out;
+}
+
 /** What the match reads of a file: a parsed spectrum, or a converted trace pair (which has no block or column). */
 type ReadUnknown = Pick<ParsedSpectrum, 'spectrum' | 'meta' | 'warnings' | 'saturated'> & {
   source: Partial<Pick<ParsedSpectrum['source'], 'block' | 'column'>>;
@@ -138,7 +150,7 @@ function traceUnknown(
 ): ReadUnknown {
   const step = pinNoiseFloor(recipe.timeDomain ?? timeDomainSchema.parse({}));
   const result = readTraceSpectrum(
-    { samples: [{ name: file, bytes }], references: traces.references, step },
+    { samples: [{ name: file, bytes }, ...(traces.samples ?? [])], references: traces.references, step },
     { ...(traces.timeUnit === undefined ? {} : { timeUnit: traces.timeUnit }), gridStep: recipeGridStep },
   );
   // The record length's resolution 1/(c·T), as `bandshelf match --time-domain` gives it to like with like.
@@ -188,7 +200,16 @@ export async function matchSpectrumFile(
         file,
         ...(parsed.length > 1 && first.source.block !== undefined ? { block: first.source.block } : {}),
         ...(first.source.column === undefined ? {} : { column: first.source.column }),
-        hash: await sha256(bytes),
+        // As the CLI: a trace pair's hash covers the sample files' bytes, then the references'.
+        hash: await sha256(
+          traces === undefined
+            ? bytes
+            : joined([
+                bytes,
+                ...(traces.samples ?? []).map((f) => f.bytes),
+                ...traces.references.map((f) => f.bytes),
+              ]),
+        ),
         ...(title === undefined ? {} : { title }),
         spectrum: first.spectrum,
         ...(first.saturated === undefined ? {} : { saturated: first.saturated }),

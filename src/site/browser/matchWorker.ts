@@ -1,5 +1,6 @@
-// Entry of the matcher's Web Worker (assets/bandshelf-worker.js): loads the published data with importScripts and
-// runs matchSpectrumFile off the page's thread, so parsing and scoring never freeze the page.
+// Entry of the matcher's Web Worker (assets/bandshelf-worker.js): loads the published data (data scripts by importScripts) and
+// runs matchSpectrumFile off the page's thread, so parsing and scoring never freeze the page; served over http it
+// fetches the binary matrix instead.
 import { loadPublishedSet, type PublishedData } from './loadPublishedSet.js';
 import { matchErrorText } from './matchErrorText.js';
 import { matchSpectrumFile } from './matchSpectrumFile.js';
@@ -31,9 +32,9 @@ function load<T>(src: string, key: string): Promise<T> {
 scope.addEventListener('message', (event) => {
   const request = event.data;
   if (request.kind === 'init') {
-    data = loadPublishedSet(request.matrixScript, { load, base: request.base });
+    data = loadPublishedSet(request.files, { load, base: request.base, fetch: request.fetch });
     data.then(
-      ({ set }) => scope.postMessage({ kind: 'ready', rows: set.entries.length }),
+      ({ set }) => scope.postMessage({ kind: 'ready', entries: set.entries }),
       (error: unknown) =>
         scope.postMessage({
           kind: 'failed',
@@ -44,7 +45,18 @@ scope.addEventListener('message', (event) => {
   }
   const { id, bytes, file, options } = request;
   (data ?? Promise.reject(new Error('the worker was not started')))
-    .then(({ set, source }) => matchSpectrumFile(bytes, file, set, { ...options, source }))
+    .then(async ({ set, source }) => {
+      const result = await matchSpectrumFile(bytes, file, set, { ...options, source });
+      // The page keeps no matrix: it gets the vectors its overlay plot draws (the hits') with the result.
+      const cols = set.processed.length / Math.max(1, set.entries.length);
+      const rowOf = new Map(set.entries.map((e, i) => [e.id, i]));
+      const vectors: Record<string, Float32Array> = {};
+      for (const h of result.report.hits) {
+        const row = rowOf.get(h.id);
+        if (row !== undefined) vectors[h.id] = set.processed.slice(row * cols, (row + 1) * cols);
+      }
+      return { ...result, vectors };
+    })
     .then(
       (result) => scope.postMessage({ kind: 'result', id, result }),
       (error: unknown) => scope.postMessage({ kind: 'error', id, message: matchErrorText(error, file) }),

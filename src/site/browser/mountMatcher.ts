@@ -16,7 +16,7 @@ import { mountReportPlots } from './mountReportPlots.js';
 import { pageHref } from './pageHref.js';
 import { siteData } from './siteData.js';
 import { type MatchWorker, startMatchWorker } from './startMatchWorker.js';
-import type { WorkerMatchOptions } from './workerMessages.js';
+import type { PublishedEntryRow, WorkerMatch, WorkerMatchOptions } from './workerMessages.js';
 
 export interface MountMatcherOptions {
   /** Hits listed.
@@ -50,8 +50,23 @@ function settingsOf(form: HTMLFormElement | null, k: number): WorkerMatchOptions
     mixture: data.get('mixture') !== null,
     excludeClass: data.getAll('excludeClass').map(String),
     read,
-    // As `match --technique`: an ATR unknown gets the ATR step ATR entries get.
-    ...(text('technique') === '' ? {} : { technique: text('technique') }),
+  };
+}
+
+/** Who matches: the worker (the page holds only the entry list) or the page itself (holding the whole set). */
+type Engine =
+  | { worker: MatchWorker; entries: PublishedEntryRow[] }
+  | { data: PublishedData; entries: PublishedEntryRow[] };
+
+/** A hit's processed vector: sent with the worker's result, or read from the page's own matrix. */
+function vectorsOf(result: FileMatch, matcher: Engine): (id: string) => Float32Array | undefined {
+  if ('worker' in matcher) return (id) => (result as WorkerMatch).vectors?.[id];
+  const { set } = matcher.data;
+  const rowOf = new Map(set.entries.map((e, i) => [e.id, i]));
+  const cols = set.processed.length / Math.max(1, set.entries.length);
+  return (id) => {
+    const row = rowOf.get(id);
+    return row === undefined ? undefined : set.processed.subarray(row * cols, (row + 1) * cols);
   };
 }
 
@@ -63,34 +78,46 @@ function absolute(doc: Document, relative: string): string {
 export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): void {
   const zone = doc.getElementById('match-drop');
   const input = doc.getElementById('match-file') as HTMLInputElement | null;
-  const referenceInput = doc.getElementById('match-reference') as HTMLInputElement | null;
   const status = doc.getElementById('match-status');
   const engine = doc.getElementById('match-engine');
   const target = doc.getElementById('match-report');
   const form = doc.getElementById('match-options') as HTMLFormElement | null;
   const overlay = doc.getElementById('match-overlay') as HTMLSelectElement | null;
+  const references = doc.getElementById('match-reference') as HTMLInputElement | null;
   const base = doc.body.dataset.base ?? '/';
   if (!zone || !input || !status || !target) return;
   const k = options.k ?? 10;
-  const matrixScript = zone.dataset.script ?? `${base}assets/search-matrix.js`;
-  // Script files, not fetch: a browser refuses fetch from file:// but loads scripts (the page lists the matrix's).
-  const ready = loadPublishedSet(matrixScript, {
-    load: (src, key) => siteData(src, key, { doc }),
-    base,
-  });
-  let worker: Promise<MatchWorker | null> = Promise.resolve(null);
+  const files = {
+    script: zone.dataset.script ?? `${base}assets/search-matrix.js`,
+    binary: zone.dataset.binary ?? `${base}assets/search-matrix.bin`,
+    json: zone.dataset.json ?? `${base}assets/search-matrix.json`,
+  };
+  // Served over http the binary matrix is fetched as it is; from file://, where browsers refuse fetch, the data
+  // script (the same matrix in base64) is loaded with a <script> tag.
+  const served = /^https?:$/.test(doc.location.protocol);
   const note = (text: string): void => {
     if (engine) engine.textContent = text;
   };
+  /** The page loads the set only when it matches itself; beside a worker it holds just the entry list. */
+  const onPage = (): Promise<Engine> =>
+    loadPublishedSet(files, { load: (src, key) => siteData(src, key, { doc }), base, fetch: served }).then(
+      (data) => ({ data, entries: data.set.entries }),
+    );
+  let ready: Promise<Engine>;
   if (options.worker !== false && typeof Worker === 'function' && zone.dataset.worker) {
-    worker = startMatchWorker(absolute(doc, zone.dataset.worker), {
-      matrixScript: absolute(doc, matrixScript),
+    ready = startMatchWorker(absolute(doc, zone.dataset.worker), {
+      files: {
+        script: absolute(doc, files.script),
+        binary: absolute(doc, files.binary),
+        json: absolute(doc, files.json),
+      },
       base: absolute(doc, base),
+      fetch: served,
     }).then(
-      (w) => {
+      (w): Engine => {
         note('Matching runs in a background worker: the page stays responsive.');
         zone.dataset.engine = 'worker';
-        return w;
+        return { worker: w, entries: w.entries };
       },
       (error: unknown) => {
         note(
@@ -99,16 +126,17 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
         );
         if (engine) engine.title = error instanceof Error ? error.message : String(error);
         zone.dataset.engine = 'page';
-        return null;
+        return onPage();
       },
     );
   } else {
     note('Matching runs on the page itself: the page may pause while a file is matched.');
     zone.dataset.engine = 'page';
+    ready = onPage();
   }
   ready.then(
-    ({ set }) => {
-      status.textContent = `Ready: ${set.entries.length} reference spectra loaded.`;
+    ({ entries }) => {
+      status.textContent = `Ready: ${entries.length} reference spectra loaded.`;
       zone.dataset.ready = 'true';
     },
     (error: unknown) => {
@@ -116,19 +144,19 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
     },
   );
 
-  let last: { file: File; result: FileMatch; data: PublishedData } | undefined;
+  let last: { file: File; result: FileMatch; engine: Engine } | undefined;
   let lastFile: File | undefined;
+  let lastMore: readonly File[] = [];
   let jsonUrl = '';
 
   /** The report through the report pages' renderer, its plots drawn as there. */
-  const render = (result: FileMatch, data: PublishedData): void => {
-    const { set } = data;
-    const rowOf = new Map(set.entries.map((e, i) => [e.id, i]));
-    const cols = set.processed.length / Math.max(1, set.entries.length);
+  const render = (result: FileMatch, matcher: Engine): void => {
+    const { entries } = matcher;
     const slugs = new Map(
-      set.entries.filter((e) => e.path).map((e) => [e.id, e.path!.replace(/\/$/, '').split('/').pop() ?? '']),
+      entries.filter((e) => e.path).map((e) => [e.id, e.path!.replace(/\/$/, '').split('/').pop() ?? '']),
     );
-    const byId = new Map(set.entries.map((e) => [e.id, e]));
+    const byId = new Map(entries.map((e) => [e.id, e]));
+    const vectorOf = vectorsOf(result, matcher);
     const json = `${JSON.stringify(result.report, null, 2)}\n`;
     if (jsonUrl) URL.revokeObjectURL(jsonUrl);
     jsonUrl = URL.createObjectURL(new Blob([json], { type: 'application/json' }));
@@ -139,11 +167,7 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
         slugs,
         slug: 'match',
         jsonBytes: json.length,
-        vector: (id, revision) => {
-          const row = rowOf.get(id);
-          if (row === undefined || set.entries[row]!.revision !== revision) return undefined;
-          return set.processed.subarray(row * cols, (row + 1) * cols);
-        },
+        vector: (id, revision) => (byId.get(id)?.revision === revision ? vectorOf(id) : undefined),
         marks: (id) => {
           const e = byId.get(id);
           return entryMarks({ reviewState: e?.reviewState, ownRecipe: e?.ownRecipe });
@@ -177,34 +201,43 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
     overlay.closest('label')?.removeAttribute('hidden');
   };
 
-  const show = async (file: File): Promise<void> => {
+  /** With reference traces chosen, the file (and any further dropped files) are sample traces, as `--time-domain`. */
+  const timeDomainOf = async (more: readonly File[]): Promise<WorkerMatchOptions['timeDomain']> => {
+    const chosen = Array.from(references?.files ?? []);
+    if (chosen.length === 0) return undefined;
+    const bytesOf = async (f: File) => ({ name: f.name, bytes: new Uint8Array(await f.arrayBuffer()) });
+    const unit = form ? String(new FormData(form).get('timeUnit') ?? '') : '';
+    return {
+      references: await Promise.all(chosen.map(bytesOf)),
+      samples: await Promise.all(more.map(bytesOf)),
+      ...(unit === 'fs' || unit === 'ps' ? { timeUnit: unit } : {}),
+    };
+  };
+
+  const show = async (file: File, more: readonly File[] = []): Promise<void> => {
     lastFile = file;
+    lastMore = more;
     status.textContent = `Reading ${file.name} …`;
     delete zone.dataset.matched;
     delete zone.dataset.failed;
     // A failure inside the worker arrives as the status line already written there.
     let viaWorker = false;
     try {
-      const settings = settingsOf(form, k);
-      // With reference traces chosen, the file is a field-resolved sample trace (match --time-domain --reference).
-      const referenceFiles = Array.from(referenceInput?.files ?? []);
-      if (referenceFiles.length > 0) {
-        const references = await Promise.all(
-          referenceFiles.map(async (f) => ({ name: f.name, bytes: new Uint8Array(await f.arrayBuffer()) })),
-        );
-        const unit = form ? String(new FormData(form).get('timeUnit') ?? '') : '';
-        settings.timeDomain = { references, ...(unit === 'fs' || unit === 'ps' ? { timeUnit: unit } : {}) };
-      }
-      const data = await ready;
+      const timeDomain = await timeDomainOf(more);
+      const settings = { ...settingsOf(form, k), ...(timeDomain === undefined ? {} : { timeDomain }) };
+      const matcher = await ready;
       const bytes = new Uint8Array(await file.arrayBuffer());
-      const w = await worker;
-      viaWorker = w !== null;
-      const result = w
-        ? await w.match(bytes, file.name, settings)
-        : await matchSpectrumFile(bytes, file.name, data.set, { ...settings, source: data.source });
-      last = { file, result, data };
+      viaWorker = 'worker' in matcher;
+      const result =
+        'worker' in matcher
+          ? await matcher.worker.match(bytes, file.name, settings)
+          : await matchSpectrumFile(bytes, file.name, matcher.data.set, {
+              ...settings,
+              source: matcher.data.source,
+            });
+      last = { file, result, engine: matcher };
       fillOverlay(result);
-      render(result, data);
+      render(result, matcher);
       const notes = [
         result.spectra > 1 ? `the file holds ${result.spectra} spectra; the first was matched` : '',
         ...result.warnings,
@@ -227,16 +260,16 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
   };
 
   input.addEventListener('change', () => {
-    const file = input.files?.[0];
-    if (file) void show(file);
+    const [file, ...more] = Array.from(input.files ?? []);
+    if (file) void show(file, more);
   });
   // A changed setting matches the last file again; a changed overlay only redraws.
   form?.addEventListener('change', () => {
-    if (lastFile) void show(lastFile);
+    if (lastFile) void show(lastFile, lastMore);
   });
   form?.addEventListener('submit', (event) => event.preventDefault());
   overlay?.addEventListener('change', () => {
-    if (last) render(last.result, last.data);
+    if (last) render(last.result, last.engine);
   });
   zone.addEventListener('dragover', (event) => {
     event.preventDefault();
@@ -246,7 +279,7 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
   zone.addEventListener('drop', (event) => {
     event.preventDefault();
     zone.classList.remove('dragging');
-    const file = event.dataTransfer?.files[0];
-    if (file) void show(file);
+    const [file, ...more] = Array.from(event.dataTransfer?.files ?? []);
+    if (file) void show(file, more);
   });
 }

@@ -1,11 +1,19 @@
 // Starts the matcher's Web Worker and resolves once it holds the published data; rejects where the browser refuses
 // a worker (Chromium does for a page opened from file://), so the page can fall back to its own thread.
-import type { FileMatch } from './matchSpectrumFile.js';
-import type { WorkerMatchOptions, WorkerReply, WorkerRequest } from './workerMessages.js';
+import type { PublishedMatrixFiles } from './loadPublishedSet.js';
+import type {
+  PublishedEntryRow,
+  WorkerMatch,
+  WorkerMatchOptions,
+  WorkerReply,
+  WorkerRequest,
+} from './workerMessages.js';
 
 export interface StartMatchWorkerOptions {
-  /** Absolute URL of assets/search-matrix.js. */
-  matrixScript: string;
+  /** Absolute URLs of the published matrix files. */
+  files: PublishedMatrixFiles;
+  /** Fetch the binary matrix (served over http). @default true */
+  fetch?: boolean;
   /** Absolute URL of the site root (entry folders are relative to it). */
   base: string;
   /** Give up on a worker that has not loaded the data by then, ms.
@@ -14,8 +22,10 @@ export interface StartMatchWorkerOptions {
 }
 
 export interface MatchWorker {
+  /** The published entries the worker loaded. */
+  entries: PublishedEntryRow[];
   /** Rejects with the status line to show (the worker formats a failed match as the page would). */
-  match(bytes: Uint8Array, file: string, options: WorkerMatchOptions): Promise<FileMatch>;
+  match(bytes: Uint8Array, file: string, options: WorkerMatchOptions): Promise<WorkerMatch>;
 }
 
 export function startMatchWorker(url: string, options: StartMatchWorkerOptions): Promise<MatchWorker> {
@@ -27,7 +37,7 @@ export function startMatchWorker(url: string, options: StartMatchWorkerOptions):
       reject(error instanceof Error ? error : new Error(String(error)));
       return;
     }
-    const pending = new Map<number, { ok: (r: FileMatch) => void; fail: (e: Error) => void }>();
+    const pending = new Map<number, { ok: (r: WorkerMatch) => void; fail: (e: Error) => void }>();
     let next = 1;
     let ready = false;
     const timer = setTimeout(() => {
@@ -55,8 +65,9 @@ export function startMatchWorker(url: string, options: StartMatchWorkerOptions):
         ready = true;
         clearTimeout(timer);
         resolve({
+          entries: reply.entries,
           match: (bytes, file, matchOptions) =>
-            new Promise<FileMatch>((ok, fail) => {
+            new Promise<WorkerMatch>((ok, fail) => {
               const id = next++;
               pending.set(id, { ok, fail });
               const copy = bytes.slice();
@@ -74,6 +85,6 @@ export function startMatchWorker(url: string, options: StartMatchWorkerOptions):
         else p?.fail(new Error(reply.message));
       }
     });
-    send({ kind: 'init', matrixScript: options.matrixScript, base: options.base });
+    send({ kind: 'init', files: options.files, base: options.base, fetch: options.fetch ?? true });
   });
 }
