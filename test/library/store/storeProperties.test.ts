@@ -2,7 +2,7 @@
 // operations leaves a library that `check` passes, with every earlier revision, review and release unchanged; an
 // operation the model says must be refused is refused with its stable code and stores nothing. Any single-row
 // change of a table of record, made outside bandshelf, is refused by its triggers or named by `check`.
-import { copyFileSync } from 'node:fs';
+import { copyFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import Database from 'better-sqlite3';
 import fc from 'fast-check';
@@ -28,6 +28,7 @@ import { bandsFor, tempDir } from '../../cli/bandshelfCli.js';
 import { inputFor } from '../libraryFixture.js';
 
 const SEED = 20_261_204;
+// STORE_RUNS lowers the count for a quick local run; `npm test` runs 1,000 of each.
 const RUNS = Number(process.env.STORE_RUNS ?? 1000);
 const IDS = ['a', 'b', 'c'] as const;
 const NOW = new Date('2026-01-02T03:04:05Z');
@@ -75,6 +76,11 @@ function freshLibrary(): Library {
   // Durability against power cuts is not what is tested here; without the fsyncs a case is ten times faster.
   library.db.pragma('synchronous = OFF');
   return library;
+}
+
+/** Removes a case's library file and its WAL companions (a full run would otherwise leave ~150 MB behind). */
+function removeLibrary(path: string): void {
+  for (const suffix of ['', '-wal', '-shm']) rmSync(`${path}${suffix}`, { force: true });
 }
 
 /** The head of an entry in the model, or undefined when it was never added. */
@@ -252,6 +258,7 @@ describe('store properties (fast-check, seeded)', () => {
           expectHistory(library, model);
         } finally {
           closeLibrary(library);
+          removeLibrary(library.path);
         }
       }),
       { seed: SEED, numRuns: RUNS },
@@ -268,7 +275,10 @@ describe('store properties (fast-check, seeded)', () => {
         const path = join(dir, `tamper-${cases++}.sqlite`);
         copyFileSync(pristine, path);
         const changed = applyTamper(path, t);
-        if (!changed) return;
+        if (!changed) {
+          removeLibrary(path);
+          return;
+        }
         found++;
         let library: Library;
         try {
@@ -277,6 +287,7 @@ describe('store properties (fast-check, seeded)', () => {
           // A setting the store cannot read refuses the library at open, with its own code.
           expect(error).toBeInstanceOf(BandshelfError);
           expect(t.table).toBe('settings');
+          removeLibrary(path);
           return;
         }
         try {
@@ -289,6 +300,7 @@ describe('store properties (fast-check, seeded)', () => {
           expect(named, JSON.stringify(problems)).toBe(true);
         } finally {
           closeLibrary(library);
+          removeLibrary(path);
         }
       }),
       { seed: SEED, numRuns: RUNS },
