@@ -5,6 +5,7 @@ import { availableParallelism, cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { createInterface } from 'node:readline';
 import { parseArgs } from 'node:util';
+import { crc32 } from 'node:zlib';
 import { seededRandom } from '../src/demo/seededRandom.js';
 import { buildSearchMatrix } from '../src/match/buildSearchMatrix.js';
 import { createScorePool } from '../src/match/createScorePool.js';
@@ -274,6 +275,8 @@ async function main(): Promise<void> {
 
   const folder = mkdtempSync(join(tmpdir(), 'bandshelf-bench-'));
   let cacheReadMs: number | null = null;
+  let crcMs: number | null = null;
+  let crcMb: number | null = null;
   let numpy: NumpyService | string = 'not run';
   const t = {
     exact: [] as number[],
@@ -355,6 +358,14 @@ async function main(): Promise<void> {
     rssMb = process.memoryUsage().rss / 2 ** 20;
     if (typeof numpy !== 'string') numpy.close();
     log('timing the matrix cache …');
+    // The cache's CRC-32 (node:zlib) over the bytes the cache file holds, as writeCachedSearchMatrix and check
+    // compute it; median of 3.
+    const cachedBytes = layout.end - layout.cached;
+    const crcRuns = [0, 1, 2].map(
+      () => timed(() => crc32(new Uint8Array(matrix.memory.buffer, layout.cached, cachedBytes)))[1],
+    );
+    crcMs = median(crcRuns);
+    crcMb = cachedBytes / 2 ** 20;
     const cacheFile = join(folder, 'search.bin');
     if (writeCachedSearchMatrix(cacheFile, matrix, { keep: 1 })) {
       const [back, ms] = timed(() =>
@@ -391,6 +402,8 @@ async function main(): Promise<void> {
     generate_ms: round(generateMs, 1),
     matrix_build_ms: round(buildMs, 1),
     matrix_from_cache_ms: cacheReadMs === null ? null : round(cacheReadMs, 1),
+    cache_crc32_ms: crcMs === null ? null : round(crcMs, 1),
+    cache_mb: crcMb === null ? null : round(crcMb, 1),
     single_query_ms: round(single),
     single_query_path: 'int8 scan + exact float32 rescoring (default)',
     single_query_exact_ms: round(singleExact),
@@ -434,6 +447,7 @@ async function main(): Promise<void> {
     ],
     ['machine', `${report.cpu}, Node ${process.version}`],
     ['matrix build / from cache', `${ms(report.matrix_build_ms)} / ${ms(report.matrix_from_cache_ms)}`],
+    ['cache CRC-32 (node:zlib)', `${ms(report.cache_crc32_ms)} over ${report.cache_mb} MB`],
     ['one query (default: int8 + exact rescore)', ms(report.single_query_ms)],
     ['one query, exact float32 SIMD', ms(report.single_query_exact_ms)],
     ['one query, exact, 1 thread', ms(report.single_query_exact_1thread_ms)],

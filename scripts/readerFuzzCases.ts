@@ -8,7 +8,7 @@ import { readSidecarSections } from '../src/formats/readSidecarSections.js';
 import { readSpectrumFile } from '../src/formats/readSpectrumFile.js';
 import { readTimeTrace } from '../src/formats/readTimeTrace.js';
 import { writeCsv } from '../src/formats/writeCsv.js';
-import { type JcampForm, writeJcampDx } from '../src/formats/writeJcampDx.js';
+import { type JcampForm, MIN_EXPONENT, writeJcampDx } from '../src/formats/writeJcampDx.js';
 
 /** One generated input and how to judge what the reader made of it. */
 export interface FuzzInput {
@@ -20,7 +20,7 @@ export interface FuzzInput {
 
 /** A named property of one reader: an arbitrary of inputs, each carrying its own check. */
 export interface ReaderFuzzCase {
-  reader: 'jcamp-dx' | 'delimited' | 'trace' | 'sidecar' | 'manifest';
+  reader: 'jcamp-dx' | 'delimited' | 'delimited, several y columns' | 'trace' | 'sidecar' | 'manifest';
   property: 'round-trip' | 'benign variant' | 'damaged';
   inputs: fc.Arbitrary<FuzzInput>;
   /** The reader on bytes, for mutated inputs that may only ever raise a BandshelfError. */
@@ -104,8 +104,8 @@ const jcampArb: fc.Arbitrary<WrittenSpectrum> = fc
     const text = writeJcampDx(spectrum, { form, title: `synthetic ${form}` });
     let maxAbs = 0;
     for (const v of spectrum.absorbance) maxAbs = Math.max(maxAbs, Math.abs(v));
-    // writeJcampDx's documented bound: within 0.5·YFACTOR, YFACTOR = 10^(⌊log10 max|y|⌋ − 7).
-    const yFactor = maxAbs > 0 ? 10 ** (Math.floor(Math.log10(maxAbs)) - 7) : 1;
+    // writeJcampDx's documented bound: within 0.5·YFACTOR, YFACTOR = 10^max(⌊log10 max|y|⌋ − 7, −300).
+    const yFactor = maxAbs > 0 ? 10 ** Math.max(MIN_EXPONENT, Math.floor(Math.log10(maxAbs)) - 7) : 1;
     return { text, expected: spectrum, yTolerance: 0.5 * yFactor * (1 + 1e-9), xTolerance: 1e-6 };
   });
 
@@ -116,8 +116,13 @@ const csvArb: fc.Arbitrary<WrittenSpectrum> = spectrumArb.map((spectrum) => ({
   xTolerance: 0,
 }));
 
+/** Every spectrum the file holds (mutated bytes may gain or lose a column: any count is a valid reading). */
+function readSpectra(bytes: Uint8Array) {
+  return readSpectrumFile(bytes, { file: FILE });
+}
+
 function readSpectrum(bytes: Uint8Array) {
-  const parsed = readSpectrumFile(bytes, { file: FILE });
+  const parsed = readSpectra(bytes);
   if (parsed.length !== 1) throw new Error(`${parsed.length} spectra read, not 1`);
   return parsed[0]!.spectrum;
 }
@@ -238,7 +243,7 @@ function spectrumCases(
   return [
     {
       reader,
-      read: readSpectrum,
+      read: readSpectra,
       property: 'round-trip',
       inputs: written.map((w) => {
         const bytes = encoder.encode(w.text);
@@ -250,7 +255,7 @@ function spectrumCases(
     },
     {
       reader,
-      read: readSpectrum,
+      read: readSpectra,
       property: 'benign variant',
       inputs: fc.tuple(written, variantArb).map(([w, variant]) => {
         const bytes = benignVariant(w.text, variant);
@@ -267,13 +272,83 @@ function spectrumCases(
     },
     {
       reader,
-      read: readSpectrum,
+      read: readSpectra,
       property: 'damaged',
       inputs: fc.tuple(written, damageArb).map(([w, [kind, pick]]) => {
         // Compressed XYDATA lines end in pseudo-digits: damage is appended there; AFFN pairs are replaced in place.
         const append = reader === 'jcamp-dx' && !w.text.includes('(XY..XY)');
         const { bytes, code } = damage(w.text, kind, pick, append);
         return { bytes, check: () => expectCode(bytes, code, readSpectrum) };
+      }),
+    },
+  ];
+}
+
+// ---- delimited files with several y columns ----
+
+interface WrittenColumns {
+  text: string;
+  names: string[];
+  columns: WrittenSpectrum['expected'][];
+}
+
+/** One x column and 2–4 y columns (each its own generated ordinates), comma, semicolon or tab separated. */
+const columnsArb: fc.Arbitrary<WrittenColumns> = fc
+  .tuple(spectrumArb, fc.array(spectrumArb, { minLength: 1, maxLength: 3 }), fc.constantFrom(',', ';', '\t'))
+  .map(([first, others, sep]) => {
+    const n = first.wavenumber.length;
+    // Every column on the first spectrum's abscissae, each with its own ordinates (cycled to length n).
+    const columns = [first, ...others].map((o) => ({
+      wavenumber: first.wavenumber,
+      absorbance: Float64Array.from({ length: n }, (_, i) => o.absorbance[i % o.absorbance.length]!),
+    }));
+    const names = columns.map((_, j) => `sample_${j + 1}`);
+    const rows = [['wavenumber_cm-1', ...names].join(sep)];
+    for (let i = 0; i < n; i++)
+      rows.push([first.wavenumber[i]!, ...columns.map((c) => c.absorbance[i]!)].join(sep));
+    return { text: `${rows.join('\n')}\n`, names, columns };
+  });
+
+function sameColumns(bytes: Uint8Array, w: WrittenColumns): void {
+  const parsed = readSpectra(bytes);
+  if (parsed.length !== w.columns.length) {
+    throw new Error(`${parsed.length} spectra read, ${w.columns.length} columns written`);
+  }
+  parsed.forEach((p, j) => {
+    if (p.source.column !== w.names[j]) throw new Error(`column ${j + 1} read as ${p.source.column}`);
+    // Number → String is exact, so the values must come back exactly (|difference| ≤ 0; −0 reads as 0).
+    sameSpectrum(p.spectrum, w.columns[j]!, 0, 0);
+  });
+}
+
+function columnsCases(): ReaderFuzzCase[] {
+  const reader = 'delimited, several y columns';
+  return [
+    {
+      reader,
+      read: readSpectra,
+      property: 'round-trip',
+      inputs: columnsArb.map((w) => {
+        const bytes = encoder.encode(w.text);
+        return { bytes, check: () => sameColumns(bytes, w) };
+      }),
+    },
+    {
+      reader,
+      read: readSpectra,
+      property: 'benign variant',
+      inputs: fc.tuple(columnsArb, variantArb).map(([w, variant]) => {
+        const bytes = benignVariant(w.text, variant);
+        return { bytes, check: () => sameColumns(bytes, w) };
+      }),
+    },
+    {
+      reader,
+      read: readSpectra,
+      property: 'damaged',
+      inputs: fc.tuple(columnsArb, damageArb).map(([w, [kind, pick]]) => {
+        const { bytes, code } = damage(w.text, kind, pick);
+        return { bytes, check: () => expectCode(bytes, code, readSpectra) };
       }),
     },
   ];
@@ -489,6 +564,7 @@ export function readerFuzzCases(): ReaderFuzzCase[] {
   return [
     ...spectrumCases('jcamp-dx', jcampArb),
     ...spectrumCases('delimited', csvArb),
+    ...columnsCases(),
     ...traceCases(),
     ...sidecarCases(),
     ...manifestCases(),

@@ -293,6 +293,15 @@ function isAbsorbanceShaped(v: string): boolean {
   );
 }
 
+/**
+ * The most ordinates an ASDF body may decode to is EXPANSION_ALLOWANCE + EXPANSION_PER_BYTE × its bytes: a
+ * repeat count (DUP) can otherwise make a file of a few hundred bytes hold millions of points. 65,536 covers a whole
+ * high-resolution spectrum of constant value; real compressed data take 1–4 bytes per point (JCAMP-DX 4.24 DIFDUP,
+ * common practice), far inside 16 points per byte.
+ */
+const EXPANSION_ALLOWANCE = 65_536;
+const EXPANSION_PER_BYTE = 16;
+
 function readBlock(
   block: JcampBlock,
   data: JcampRecord,
@@ -338,10 +347,13 @@ function readBlock(
   if (data.label === 'XYDATA' && /^\(X\+\+\((Y\.\.Y|R\.\.R)\)\)$/.test(form)) {
     // A repeat count (DUP) turns a few bytes into many points: with NPOINTS declared, data that decode to far more
     // (4× + 4,096) are a stray count, refused before the points are built rather than after seconds of work.
-    const cap =
-      nPoints !== undefined && Number.isInteger(nPoints) && nPoints > 0
-        ? Math.min(maxPoints, 4 * nPoints + 4096)
-        : maxPoints;
+    const declaredCap =
+      nPoints !== undefined && Number.isInteger(nPoints) && nPoints > 0 ? 4 * nPoints + 4096 : maxPoints;
+    // Whatever NPOINTS says, a body may not expand past a fixed allowance plus so many points per byte.
+    let bodyBytes = 0;
+    for (const line of body) bodyBytes += line.length + 1;
+    const expansionCap = EXPANSION_ALLOWANCE + EXPANSION_PER_BYTE * bodyBytes;
+    const cap = Math.min(maxPoints, declaredCap, expansionCap);
     const asdf = {
       file,
       firstLine: data.bodyStart + 1,
@@ -357,11 +369,14 @@ function readBlock(
         error instanceof BandshelfError &&
         /^the data hold more than/.test(error.message)
       ) {
-        throw new BandshelfError(
-          'BAD_FORMAT',
-          `the data decode to more than ${cap} points but NPOINTS=${nPoints} (a stray repeat count?)`,
-          { file, line: error.line },
-        );
+        const why =
+          cap === declaredCap
+            ? `but NPOINTS=${nPoints} (a stray repeat count?)`
+            : `from ${bodyBytes} bytes, more than ${EXPANSION_ALLOWANCE} + ${EXPANSION_PER_BYTE} per byte (a stray repeat count?)`;
+        throw new BandshelfError('BAD_FORMAT', `the data decode to more than ${cap} points ${why}`, {
+          file,
+          line: error.line,
+        });
       }
       throw error;
     }

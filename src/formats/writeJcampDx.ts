@@ -25,10 +25,13 @@ export interface WriteJcampDxOptions {
   comments?: readonly string[];
 }
 
+/** The smallest YFACTOR exponent written: 10^-300 is a normal double, and so is 10^300 (the divisor below). */
+export const MIN_EXPONENT = -300;
+
 /**
  * Evenly spaced x (every point within 1e-6 of a step from FIRSTX + i·ΔX) → `##XYDATA=(X++(Y..Y))` with FIRSTX,
  * LASTX, DELTAX and NPOINTS; otherwise `##XYPOINTS=(XY..XY)`. Ordinates are integers times YFACTOR, so a
- * write → read round trip is within 0.5·YFACTOR (≤ 5e-8 of max|y| at the default digits). No line exceeds
+ * write → read round trip is within 0.5·YFACTOR (≤ 5e-8 of max|y| at the default digits; YFACTOR ≥ 1E-300). No line exceeds
  * 80 characters. In DIF forms every line after the first repeats the previous line's last ordinate (the
  * Y check) and a last line repeats the final ordinate, as the standard's own examples do.
  */
@@ -59,7 +62,10 @@ export function writeJcampDx(spectrum: Spectrum, options: WriteJcampDxOptions = 
     if (Math.abs(yi) > maxAbs) maxAbs = Math.abs(yi);
   }
 
-  const exponent = maxAbs > 0 ? Math.floor(Math.log10(maxAbs)) - significantDigits + 1 : 0;
+  // The exponent stops at MIN_EXPONENT: 1E-331 would read as 0 (a YFACTOR the reader refuses), and ordinates
+  // that small round to 0 within the documented 0.5·YFACTOR.
+  const exponent =
+    maxAbs > 0 ? Math.max(MIN_EXPONENT, Math.floor(Math.log10(maxAbs)) - significantDigits + 1) : 0;
   const yFactorText = `1E${exponent}`;
   const yFactor = Number(yFactorText);
   const ints = new Float64Array(n);

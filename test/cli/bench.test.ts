@@ -21,6 +21,8 @@ describe('npm run bench', () => {
       'batch32_exact_ms_per_query',
       'bandwidth_floor_ms',
       'rss_mb',
+      'cache_crc32_ms',
+      'cache_mb',
     ]) {
       expect(typeof report[key], key).toBe('number');
     }

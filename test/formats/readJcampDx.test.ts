@@ -293,7 +293,7 @@ describe('readJcampDx: real files bend the rules (read and warn)', () => {
   });
 
   it('refuses a stray repeat count that decodes far beyond NPOINTS, with the line', () => {
-    // DUP S9999 repeats a value to 9,999 occurrences (JCAMP-DX 4.24 pseudo-digits): 50 such lines are 500,000
+    // DUP S9999 makes a value occur 19,999 times (S = 1, JCAMP-DX 4.24 pseudo-digits): 50 such lines are ~10⁶
     // points from 600 bytes. NPOINTS=10 says the file meant ten.
     const e = bandshelfErrorOf(() =>
       readJcampDx(jdx(Array.from({ length: 50 }, (_, i) => `${i} A1S9999`)), { file: 'dup.jdx' }),
@@ -301,6 +301,32 @@ describe('readJcampDx: real files bend the rules (read and warn)', () => {
     expect(e.code).toBe('BAD_FORMAT');
     expect(e.message).toMatch(/NPOINTS=10 \(a stray repeat count\?\)/);
     expect(e.line).toBe(12);
+  });
+
+  it('refuses a repeat count that expands a tiny body past its byte allowance, without NPOINTS or despite it', () => {
+    // DUP pseudo-digits S–Z, s are 1–9 (JCAMP-DX 4.24), so `A1S9999` is the value 11 occurring 19,999 times: 50
+    // such lines are ~10⁶ points from ~600 bytes. With no NPOINTS to compare, and with an NPOINTS that vouches for
+    // them, the body may only hold 65,536 + 16 points per byte (~75,000 here).
+    const lines = Array.from({ length: 50 }, (_, i) => `${i} A1S9999`);
+    for (const labels of [
+      { NPOINTS: '-', LASTX: '-' },
+      { NPOINTS: '999950', LASTX: '999949' },
+    ]) {
+      const e = bandshelfErrorOf(() => readJcampDx(jdx(lines, labels), { file: 'dup.jdx' }));
+      expect(e.code).toBe('BAD_FORMAT');
+      expect(e.file).toBe('dup.jdx');
+      expect(e.message).toMatch(/from \d+ bytes, more than 65536 \+ 16 per byte \(a stray repeat count\?\)/);
+      // The fourth data line passes 75,000 points: line 13 without NPOINTS and LASTX, line 15 with them.
+      expect(e.line).toBe(labels.NPOINTS === '-' ? 13 : 15);
+    }
+  });
+
+  it('still reads a long constant run within the allowance (59,997 points of one value)', () => {
+    // Three lines of `A1S9999`: the value 11 occurring 19,999 times per line (JCAMP-DX 4.24 DUP).
+    const lines = Array.from({ length: 3 }, (_, i) => `${i * 19_999} A1S9999`);
+    const [p] = readJcampDx(jdx(lines, { NPOINTS: '59997', LASTX: '59996' }), { file: 'flat.jdx' });
+    expect(p!.spectrum.absorbance).toHaveLength(59_997);
+    expect(p!.spectrum.absorbance.every((v) => v === 11)).toBe(true);
   });
 
   it('uses the data when NPOINTS disagrees, taking the spacing from the data lines', () => {

@@ -68,6 +68,21 @@ describe('writeJcampDx', () => {
     }
   });
 
+  it('writes ordinates at the edge of the double range with a YFACTOR the reader accepts (no 1E-331)', () => {
+    // 5e-324 is the smallest subnormal double (IEEE 754); 10^(⌊log10 5e-324⌋ − 7) = 1E-331 would read as 0.
+    const spectrum: Spectrum = {
+      wavenumber: Float64Array.from([1000, 1001, 1002]),
+      absorbance: Float64Array.from([5e-324, 0, -1e-310]),
+    };
+    for (const form of FORMS) {
+      const text = writeJcampDx(spectrum, { form });
+      expect(text).toContain('##YFACTOR=1E-300');
+      const [back] = readJcampDx(text);
+      // Within the documented 0.5·YFACTOR: every value this small reads back as 0.
+      expect(Array.from(back!.spectrum.absorbance)).toEqual([0, 0, 0]);
+    }
+  });
+
   for (const scale of [1e-9, 1, 1e6]) {
     it(`round-trips seeded random data in every form within 1e-6 of max|y| (scale ${scale})`, () => {
       const spectrum = randomSpectrum(42 + Math.round(Math.log10(scale)), scale);

@@ -16,9 +16,9 @@ export function newLibrary(): { library: Library; dir: string } {
   };
 }
 
-/** A revision input as `add` would build it from a CSV of these bands. */
-export function inputFor(library: Library, id: string, bands: Band[], seed = 1): RevisionInput {
-  const s = syntheticSpectrum(bands, { seed });
+/** A revision input as `add` would build it from a CSV of these bands (`step`: its spacing, cm⁻¹). */
+export function inputFor(library: Library, id: string, bands: Band[], seed = 1, step = 2): RevisionInput {
+  const s = syntheticSpectrum(bands, { seed, step });
   const text = `wavenumber_cm-1,absorbance\n${s.x.map((x, i) => `${x},${s.y[i]!.toFixed(6)}`).join('\n')}\n`;
   const order = s.x.map((_, i) => s.x.length - 1 - i);
   return {

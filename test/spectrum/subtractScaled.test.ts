@@ -1,6 +1,10 @@
-// subtractScaled: the fitted scale and its standard error, and a given scale.
+// subtractScaled: the fitted scale and its standard error, and a given scale; on generated spectra, a given
+// scale subtracts exactly and a fitted one recovers the scale of an exact model.
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { BandshelfError } from '../../src/error.js';
 import { fitReferences } from '../../src/spectrum/fitReferences.js';
+import { interpolateAtWavenumbers } from '../../src/spectrum/interpolateAtWavenumbers.js';
 import { subtractScaled } from '../../src/spectrum/subtractScaled.js';
 import type { Spectrum } from '../../src/spectrum/types.js';
 import { mulberry32 } from '../mulberry32.js';
@@ -41,5 +45,92 @@ describe('subtractScaled', () => {
     expect(r.standardError).toBeNull();
     expect(r.spectrum.wavenumber.length).toBe(600);
     expect(r.spectrum.absorbance[10]).toBeCloseTo(0.5 * water[10]!, 12);
+  });
+});
+
+describe('subtractScaled on generated spectra (fast-check, seeded)', () => {
+  // What `bandshelf subtract` feeds it: an unknown and a reference on axes of their own, a scale given or fitted.
+  const SEED = 20_261_206;
+  const RUNS = 1000;
+  const axisArb = fc
+    .record({
+      n: fc.integer({ min: 2, max: 300 }),
+      start: fc.integer({ min: 1000, max: 1800 }),
+      step: fc.constantFrom(0.5, 1, 2, 4),
+    })
+    .map(({ n, start, step }) => Float64Array.from({ length: n }, (_, i) => start + i * step));
+  const valuesArb = fc.array(
+    fc.integer({ min: -3000, max: 3000 }).map((v) => v / 1000),
+    {
+      minLength: 300,
+      maxLength: 300,
+    },
+  );
+  const spectrumArb = fc
+    .tuple(axisArb, valuesArb)
+    .map(([w, v]): Spectrum => ({ wavenumber: w, absorbance: w.map((_, i) => v[i]!) }));
+
+  it(`a given scale subtracts exactly scale × the interpolated reference, or refuses with a stable code (${RUNS} cases, seed ${SEED})`, () => {
+    fc.assert(
+      fc.property(spectrumArb, spectrumArb, fc.double({ min: -10, max: 10, noNaN: true }), (u, r, k) => {
+        let result: ReturnType<typeof subtractScaled>;
+        try {
+          result = subtractScaled(u, r, { scale: k });
+        } catch (error) {
+          // The reference may not reach the unknown at all.
+          expect(error).toBeInstanceOf(BandshelfError);
+          expect(['SMALL_OVERLAP', 'TOO_FEW_POINTS', 'NOT_A_SPECTRUM', 'BAD_OPTION']).toContain(
+            (error as BandshelfError).code,
+          );
+          return;
+        }
+        expect(result.scale).toBe(k);
+        expect(result.standardError).toBeNull();
+        const ref = interpolateAtWavenumbers(r, result.spectrum.wavenumber, { maxGap: 16 });
+        result.spectrum.wavenumber.forEach((w, i) => {
+          const at = u.wavenumber.indexOf(w);
+          expect(at, 'the output stays on the unknown’s own wavenumbers').toBeGreaterThanOrEqual(0);
+          expect(result.spectrum.absorbance[i]!).toBeCloseTo(u.absorbance[at]! - k * ref[i]!, 9);
+        });
+      }),
+      { seed: SEED, numRuns: RUNS },
+    );
+  });
+
+  it(`a fitted scale recovers k from unknown = k × reference + offset + slope (${RUNS} cases, seed ${SEED})`, () => {
+    // Least squares with the offset and slope columns is exact when the model holds exactly (no noise).
+    const referenceArb = fc
+      .tuple(fc.integer({ min: 2, max: 8 }), fc.double({ min: 1800, max: 2400, noNaN: true }))
+      .map(([bands, centre]) => {
+        const w = Float64Array.from({ length: 701 }, (_, i) => 1700 + i);
+        // A broad band plus narrower ones: never a straight line, so the scale is identifiable.
+        const y = w.map(
+          (v) =>
+            Math.exp(-0.5 * ((v - centre) / 120) ** 2) +
+            Array.from(
+              { length: bands },
+              (_, b) => 0.3 * Math.exp(-0.5 * ((v - 1750 - 80 * b) / 9) ** 2),
+            ).reduce((s, x) => s + x, 0),
+        );
+        return { wavenumber: w, absorbance: y } satisfies Spectrum;
+      });
+    fc.assert(
+      fc.property(
+        referenceArb,
+        fc.double({ min: -5, max: 5, noNaN: true }),
+        fc.double({ min: -1, max: 1, noNaN: true }),
+        fc.double({ min: -1e-3, max: 1e-3, noNaN: true }),
+        (r, k, a, b) => {
+          const u: Spectrum = {
+            wavenumber: r.wavenumber,
+            absorbance: r.absorbance.map((y, i) => k * y + a + b * (r.wavenumber[i]! - 2000)),
+          };
+          const result = subtractScaled(u, r, { window: { min: 1900, max: 2300 } });
+          expect(result.scale).toBeCloseTo(k, 6);
+          expect(result.points).toBe(401);
+        },
+      ),
+      { seed: SEED, numRuns: RUNS },
+    );
   });
 });

@@ -26,7 +26,7 @@ describe('backup and a damaged library', () => {
     expect(bandshelf(['backup', copy, '--library', lib]).stderr).toMatch(/ALREADY_EXISTS/);
   });
 
-  it('a damaged file: list names DAMAGED_LIBRARY with the way to verify and restore; release refuses it', () => {
+  it('a damaged file: list, match, site, export name DAMAGED_LIBRARY with the way to verify and restore; release refuses it', () => {
     const damaged = join(dir, 'damaged.sqlite');
     expect(bandshelf(['backup', damaged, '--library', lib]).code).toBe(0);
     const bytes = readFileSync(damaged);
@@ -34,7 +34,14 @@ describe('backup and a damaged library', () => {
     const from = Math.floor(bytes.length / 3);
     for (let i = from; i < from + Math.floor(bytes.length / 3); i++) bytes[i] = 0xa5;
     writeFileSync(damaged, bytes);
-    for (const args of [['list'], ['release', 'v1', '--message', 'x']]) {
+    const unknown = writeSpectrumCsv(join(dir, 'unknown.csv'), bandsFor(5));
+    for (const args of [
+      ['list'],
+      ['release', 'v1', '--message', 'x'],
+      ['match', unknown],
+      ['site', '--out', join(dir, 'site')],
+      ['export', '--all', join(dir, 'export')],
+    ]) {
       const r = bandshelf([...args, '--library', damaged]);
       expect(r.code, `${args[0]}: ${r.stderr}`).toBe(1);
       expect(r.stderr).toMatch(/DAMAGED_LIBRARY/);

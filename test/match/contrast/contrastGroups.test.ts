@@ -1,6 +1,9 @@
-// contrastGroups on seeded synthetic cohorts: one raised band is found and assigned; null cohorts stay quiet.
+// contrastGroups on seeded synthetic cohorts: one raised band is found and assigned; null cohorts stay quiet;
+// generated groups give valid reports with the symmetries of Welch's t, and bad groups a stable code.
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { COHORT_GRID, syntheticCohort } from '../../../src/demo/syntheticCohort.js';
+import { BandshelfError } from '../../../src/error.js';
 import { contrastGroups } from '../../../src/match/contrast/contrastGroups.js';
 import { CONTRAST_CAUTION, contrastReportSchema } from '../../../src/schema/contrastReport.js';
 
@@ -95,4 +98,108 @@ describe('contrastGroups', () => {
       message: expect.stringMatching(/group 'A' has 2 spectra.*at least 3/),
     });
   });
+});
+
+/** The BandshelfError an async call rejects with; any other outcome fails the test. */
+async function bandshelfErrorOfAsync(run: () => Promise<unknown>): Promise<BandshelfError> {
+  try {
+    await run();
+  } catch (error) {
+    if (error instanceof BandshelfError) return error;
+    throw error;
+  }
+  throw new Error('expected a BandshelfError');
+}
+
+describe('contrastGroups on generated cohorts (fast-check, seeded)', () => {
+  // What `bandshelf contrast` feeds it: two groups of processed grid vectors, any values, any coverage.
+  const GRID = { start: 1100, stop: 1000, step: 2 };
+  const COLS = 51;
+  const SEED = 20_261_205;
+  const RUNS = 300;
+  const vectorArb = fc
+    .tuple(
+      // Absorbances in steps of 0.001 (what a processed spectrum resolves), so an offset is exact enough to compare.
+      fc.array(
+        fc.integer({ min: -2000, max: 2000 }).map((v) => v / 1000),
+        { minLength: COLS, maxLength: COLS },
+      ),
+      fc.array(fc.boolean(), { minLength: COLS, maxLength: COLS }),
+      fc.boolean(),
+    )
+    // A vector is fully covered or, in the other half of the cases, has random points not covered (NaN).
+    .map(([values, holes, gappy]) => values.map((v, j) => (gappy && holes[j] ? Number.NaN : v)));
+  const groupArb = fc.array(vectorArb, { minLength: 3, maxLength: 7 });
+  const spectra = (vectors: number[][], tag: string) =>
+    vectors.map((processed, i) => ({ file: `${tag}${i}.csv`, hash: 'a'.repeat(64), processed }));
+  const contrast = (a: number[][], b: number[][]) =>
+    contrastGroups(
+      {
+        a: { label: 'A', spectra: spectra(a, 'a') },
+        b: { label: 'B', spectra: spectra(b, 'b') },
+        grid: GRID,
+      },
+      { created: '2026-01-01T00:00:00.000Z' },
+    );
+
+  it(`gives a valid report with p ≤ q ≤ 1, antisymmetric in the groups, blind to a common offset (${RUNS} cases, seed ${SEED})`, async () => {
+    await fc.assert(
+      fc.asyncProperty(
+        groupArb,
+        groupArb,
+        fc.double({ min: -5, max: 5, noNaN: true }),
+        async (a, b, offset) => {
+          const report = await contrast(a, b);
+          expect(contrastReportSchema.parse(report)).toEqual(report);
+          const { p, q, t } = report.pointwise;
+          for (let j = 0; j < COLS; j++) {
+            if (p[j] === null) continue;
+            // Benjamini–Hochberg q-values are never below their p-values (q_i = min over j ≥ i of m·p_(j)/j).
+            expect(p[j]!).toBeGreaterThanOrEqual(0);
+            expect(q[j]!).toBeGreaterThanOrEqual(p[j]! * (1 - 1e-12));
+            expect(q[j]!).toBeLessThanOrEqual(1);
+          }
+          // Welch's t changes sign when the groups change places; p and the number of discoveries do not.
+          const swapped = await contrast(b, a);
+          expect(swapped.tested).toBe(report.tested);
+          expect(swapped.discoveries).toBe(report.discoveries);
+          for (let j = 0; j < COLS; j++) {
+            if (t[j] === null) expect(swapped.pointwise.t[j]).toBeNull();
+            else expect(swapped.pointwise.t[j]!).toBeCloseTo(-t[j]!, 9);
+          }
+          // The same offset added to every spectrum leaves means' difference and SDs, hence t, unchanged.
+          const shift = (g: number[][]) => g.map((v) => v.map((x) => x + offset));
+          const shifted = await contrast(shift(a), shift(b));
+          for (let j = 0; j < COLS; j++) {
+            if (t[j] === null || !Number.isFinite(t[j]!)) continue;
+            expect(shifted.pointwise.t[j]!).toBeCloseTo(t[j]!, 5);
+          }
+        },
+      ),
+      { seed: SEED, numRuns: RUNS },
+    );
+  }, 600_000);
+
+  it(`refuses a group of fewer than three spectra or a vector off the grid with a stable code (${RUNS} cases, seed ${SEED})`, async () => {
+    await fc.assert(
+      fc.asyncProperty(
+        fc.array(vectorArb, { minLength: 0, maxLength: 2 }),
+        groupArb,
+        fc.integer({ min: 0, max: COLS + 5 }),
+        async (small, ok, cut) => {
+          const few = await bandshelfErrorOfAsync(() => contrast(small, ok));
+          expect(few.code).toBe('BAD_OPTION');
+          expect(few.field).toBe('groupA');
+          if (cut === COLS) return;
+          // A vector cut short or running past the grid.
+          const wrong =
+            cut < COLS ? ok[0]!.slice(0, cut) : [...ok[0]!, ...new Array<number>(cut - COLS).fill(0)];
+          const off = await bandshelfErrorOfAsync(() => contrast(ok, [...ok.slice(1), wrong]));
+          expect(off.code).toBe('BAD_OPTION');
+          expect(off.field).toBe('processed');
+        },
+      ),
+      { seed: SEED, numRuns: RUNS },
+    );
+  }, 600_000);
 });
