@@ -26,7 +26,7 @@ export function verifyBundle(bundle: Bundle, options: VerifyBundleOptions = {}):
       fail(`file ${sha.slice(0, 12)}… does not match its SHA-256`);
   }
   for (const entry of bundle.entries) {
-    entry.revisions.forEach((revision, i) => {
+    for (const [i, revision] of entry.revisions.entries()) {
       const where = `${entry.id} revision ${revision.revision}`;
       if (revision.revision !== i + 1) fail(`${where}: revisions must run 1, 2, … without gaps`, 'entries');
       for (const f of revision.files) {
@@ -47,7 +47,7 @@ export function verifyBundle(bundle: Bundle, options: VerifyBundleOptions = {}):
         fail(`${where}: the content hash does not match its files, recipe and metadata`);
       const { row, files } = revisionRowFromBundle({ revision, entryId: entry.id });
       if (recordHash(row, files) !== revision.recordHash) fail(`${where}: the record hash does not match`);
-    });
+    }
   }
   const ids = new Set(bundle.entries.map((e) => e.id));
   for (const release of bundle.releases) {
