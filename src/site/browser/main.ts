@@ -1,5 +1,6 @@
 // Entry of the browser bundle: starts the part of the site's behaviour the current page asks for.
 import { mountBrowse } from './mountBrowse.js';
+import { mountContrastPlots } from './mountContrastPlots.js';
 import { mountEntryPlot } from './mountEntryPlot.js';
 import { mountMatcher } from './mountMatcher.js';
 import { mountReportPlots } from './mountReportPlots.js';
@@ -11,6 +12,7 @@ const pages: Record<string, (doc: Document) => void> = {
   search: mountSearch,
   match: mountMatcher,
   report: mountReportPlots,
+  contrast: mountContrastPlots,
 };
 
 /** Opened from disk, a link to a folder shows a file listing: point such links at the folder's index.html. */
