@@ -1,6 +1,7 @@
 // Entry of the browser bundle: starts the part of the site's behaviour the current page asks for.
 import { mountBrowse } from './mountBrowse.js';
 import { mountContrastPlots } from './mountContrastPlots.js';
+import { mountEntryOverlay } from './mountEntryOverlay.js';
 import { mountEntryPlot } from './mountEntryPlot.js';
 import { mountMatcher } from './mountMatcher.js';
 import { mountReportPlots } from './mountReportPlots.js';
@@ -8,7 +9,10 @@ import { mountSearch } from './mountSearch.js';
 
 const pages: Record<string, (doc: Document) => void> = {
   browse: mountBrowse,
-  entry: mountEntryPlot,
+  entry: (doc) => {
+    mountEntryPlot(doc);
+    mountEntryOverlay(doc);
+  },
   search: mountSearch,
   match: mountMatcher,
   report: mountReportPlots,
