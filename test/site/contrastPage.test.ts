@@ -89,7 +89,10 @@ describe('contrast reports on the site', () => {
       }
       expect(problems).toEqual([]);
       mkdirSync(join(ROOT, 'test-output', 'screenshots'), { recursive: true });
-      await page.screenshot({ path: join(ROOT, 'test-output', 'screenshots', 'contrast-page.png'), fullPage: true });
+      await page.screenshot({
+        path: join(ROOT, 'test-output', 'screenshots', 'contrast-page.png'),
+        fullPage: true,
+      });
       await page.close();
     });
   });

@@ -33,7 +33,10 @@ export const siteCommand: CommandSpec = {
     command
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
       .option('--at <tag>', 'publish the state a release froze (default: the working state)')
-      .option('--reports <dir>', 'a folder of match and contrast reports (JSON from `match --report DIR`, `contrast --report DIR`)')
+      .option(
+        '--reports <dir>',
+        'a folder of match and contrast reports (JSON from `match --report DIR`, `contrast --report DIR`)',
+      )
       .requiredOption(
         '--out <dir>',
         'the output folder (created; refused if it holds files the build did not make)',

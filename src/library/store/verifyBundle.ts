@@ -15,6 +15,23 @@ export interface VerifyBundleOptions {
   file?: string;
 }
 
+/** The revision's data and content hash recomputed from its stored JSON; `unreadable` when that JSON is not JSON. */
+function storedHashes(
+  revision: Bundle['entries'][number]['revisions'][number],
+  unreadable: () => never,
+): ReturnType<typeof contentHashes> {
+  try {
+    return contentHashes({
+      files: revision.files.map((f) => ({ role: f.role as FileRole, sha256: f.sha256 })),
+      read: JSON.parse(revision.readOptions) as ReadOptions,
+      recipe: JSON.parse(revision.recipe),
+      meta: JSON.parse(revision.meta),
+    });
+  } catch {
+    return unreadable();
+  }
+}
+
 export function verifyBundle(bundle: Bundle, options: VerifyBundleOptions = {}): void {
   const fail = (message: string, field?: string): never => {
     throw new BandshelfError('BAD_FORMAT', message, { file: options.file, ...(field ? { field } : {}) });
@@ -32,17 +49,9 @@ export function verifyBundle(bundle: Bundle, options: VerifyBundleOptions = {}):
       for (const f of revision.files) {
         if (bundle.files[f.sha256] === undefined) fail(`${where}: file ${f.name} is missing from the bundle`);
       }
-      let hashes: ReturnType<typeof contentHashes>;
-      try {
-        hashes = contentHashes({
-          files: revision.files.map((f) => ({ role: f.role as FileRole, sha256: f.sha256 })),
-          read: JSON.parse(revision.readOptions) as ReadOptions,
-          recipe: JSON.parse(revision.recipe),
-          meta: JSON.parse(revision.meta),
-        });
-      } catch {
-        return fail(`${where}: its stored JSON (reading options, recipe or metadata) is unreadable`);
-      }
+      const hashes = storedHashes(revision, () =>
+        fail(`${where}: its stored JSON (reading options, recipe or metadata) is unreadable`),
+      );
       if (hashes.content !== revision.contentHash || hashes.data !== revision.dataHash)
         fail(`${where}: the content hash does not match its files, recipe and metadata`);
       const { row, files } = revisionRowFromBundle({ revision, entryId: entry.id });

@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { addAssignments } from '../../../src/library/store/addAssignments.js';
+import { bundleDigest } from '../../../src/library/store/bundleDigest.js';
 import { checkLibrary } from '../../../src/library/store/checkLibrary.js';
 import { createRelease } from '../../../src/library/store/createRelease.js';
 import { editEntry } from '../../../src/library/store/editEntry.js';
@@ -211,6 +212,11 @@ describe('importBundle', () => {
     edited.entries[0]!.revisions[0]!.author = 'mallory';
     const b = emptyLibrary();
     expect(bandshelfErrorOf(() => importBundle(b, edited)).code).toBe('BAD_FORMAT');
+    // Stored JSON that is not JSON, under a digest made to match: refused as BAD_FORMAT, not a raw SyntaxError.
+    const garbled = structuredClone(bundle);
+    garbled.entries[0]!.revisions[0]!.meta = '{not json';
+    garbled.digest = bundleDigest(garbled);
+    expect(bandshelfErrorOf(() => importBundle(b, garbled)).message).toMatch(/stored JSON .* is unreadable/);
     const c = initLibrary(join(tempDir('bandshelf-bundle-'), 'c.sqlite'), {
       grid: { start: 4000, stop: 400, step: 4 },
     });
