@@ -181,6 +181,9 @@ export async function matchUnknowns(
       ...(options.baselineDegree === undefined ? {} : { baselineDegree: options.baselineDegree }),
       tolerance: options.tolerance ?? 4,
       index: buildBandIndex(set),
+      ...(options.contributionRegions === undefined
+        ? {}
+        : { contributionRegions: options.contributionRegions }),
     };
     const assignments = [...shippedAssignments(), ...listAssignments(library)];
 

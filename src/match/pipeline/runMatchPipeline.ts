@@ -10,6 +10,7 @@ import { coveredSpan } from '../coveredSpan.js';
 import { fitMixture } from '../fitMixture.js';
 import { identifyBands } from '../identifyBands.js';
 import { processedRow } from '../processedRow.js';
+import type { ContributionRegion } from '../scoreContributions.js';
 import { scoringMask } from '../scoringMask.js';
 import { type Hit, type Metric, MIN_OVERLAP_DEFAULT } from '../searchTypes.js';
 import type { BandIndex, MixtureCandidate, MixtureResult } from '../types.js';
@@ -56,6 +57,8 @@ export interface RunMatchPipelineOptions {
   fitExcludeClass?: readonly string[];
   /** The source's band index, when the caller keeps one across unknowns. @default built from the source's peaks */
   index?: BandIndex;
+  /** Regions each hit's score is split into ("why this hit"). @default DEFAULT_CONTRIBUTION_REGIONS */
+  contributionRegions?: readonly ContributionRegion[];
 }
 
 /** Classes of composite references (a serum film, a calibration mixture) that are not pure-substance components. */
@@ -228,5 +231,8 @@ export async function runMatchPipeline(
     bands,
     wrongHitNull: source.wrongHitNull ?? null,
     referenceOf: (row) => processedRow(source, row),
+    ...(options.contributionRegions === undefined
+      ? {}
+      : { contributionRegions: options.contributionRegions }),
   });
 }
