@@ -81,8 +81,22 @@ async function runDemo(): Promise<void> {
     join(COHORT, 'controls'),
     ...lib,
     '--report',
-    join(OUT, 'contrasts'),
+    REPORTS,
   ]);
+  await step('Share the library with its history: a bundle, imported into a new library, then checked', [
+    'export',
+    '--bundle',
+    join(OUT, 'demo.bundle'),
+    ...lib,
+    '--force',
+  ]);
+  await step('Import the bundle into a new library', [
+    'import',
+    join(OUT, 'demo.bundle'),
+    '--library',
+    join(OUT, 'imported.sqlite'),
+  ]);
+  await step('Check the imported library', ['check', '--library', join(OUT, 'imported.sqlite')]);
   await step('Build the static site', ['site', ...lib, '--reports', REPORTS, '--out', SITE, '--clean']);
   if (existsSync(SITE)) {
     process.stdout.write(

@@ -2,6 +2,7 @@
 // user may write, defaults optional).
 import { z } from 'zod';
 import { bandAssignmentSchema } from '../src/schema/bandAssignment.js';
+import { bundleSchema } from '../src/schema/bundle.js';
 import { contrastReportSchema } from '../src/schema/contrastReport.js';
 import { matchReportSchema } from '../src/schema/matchReport.js';
 import { entryMetaSchema } from '../src/schema/meta.js';
@@ -42,6 +43,13 @@ const SCHEMAS: { file: string; title: string; description: string; schema: z.Zod
     description:
       'Two groups of spectra compared at every grid point (Welch t-test, Benjamini–Hochberg q-values, Hedges g) and the difference bands, printed by contrast --json.',
     schema: contrastReportSchema,
+  },
+  {
+    file: 'library-bundle.schema.json',
+    title: 'bandshelf library bundle',
+    description:
+      'A library with its whole history (every revision with its original bytes, recipe, metadata, peaks and QC; reviews; releases; lab band-assignment rows), written gzip-compressed by export --bundle and read by import.',
+    schema: bundleSchema,
   },
 ];
 

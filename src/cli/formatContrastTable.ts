@@ -17,6 +17,41 @@ function hitList(hits: readonly ContrastHit[], count: number): string {
     .join(', ');
 }
 
+/** The band-level test: one row per window, its area difference, interval, g, p and q. */
+function bandTestTable(report: ContrastReport): string {
+  const tests = report.bandTests;
+  const passing = tests.filter((t) => t.significant).length;
+  const head = `band-level test (integrated areas, Welch, Benjamini–Hochberg over ${tests.length} window${tests.length === 1 ? '' : 's'}): ${passing} pass at q ≤ ${report.settings.q}`;
+  if (tests.length === 0) return `${head}; no window to test`;
+  const level = `${Math.round(report.settings.level * 100)} % CI`;
+  return [
+    head,
+    textTable(
+      [
+        ['WINDOW', 'CENTRE', 'AREA DIFFERENCE', level, 'g', 'p', 'q', '', 'ASSIGNMENT'],
+        ...tests.map((t) => [
+          `${t.max.toFixed(0)}–${t.min.toFixed(0)}`,
+          t.position.toFixed(0),
+          fixed(t.difference, 4),
+          `${fixed(t.lower, 4)} … ${fixed(t.upper, 4)}`,
+          t.g.toFixed(2),
+          fixed(t.p, 3),
+          fixed(t.q, 3),
+          t.significant
+            ? t.difference > 0
+              ? `higher in ${report.groups.a.label}`
+              : `lower in ${report.groups.a.label}`
+            : '',
+          t.assignments[0] === undefined
+            ? '–'
+            : `${t.assignments[0].label} (${t.assignments[0].class.join(', ')})`,
+        ]),
+      ],
+      { right: [1, 2, 4, 5, 6] },
+    ),
+  ].join('\n');
+}
+
 export function formatContrastTable(
   report: ContrastReport,
   options: FormatContrastTableOptions = {},
@@ -82,6 +117,7 @@ export function formatContrastTable(
       ),
     );
   }
+  lines.push('', bandTestTable(report));
   if (report.search.higher !== null)
     lines.push('', `library hits, higher in ${a.label}: ${hitList(report.search.higher, count)}`);
   if (report.search.lower !== null)
@@ -91,6 +127,7 @@ export function formatContrastTable(
     report.method.test,
     `Assumes: ${report.method.assumptions.join('; ')}.`,
     report.method.fdr,
+    report.method.bandTest,
     report.caution,
   );
   return lines.join('\n');

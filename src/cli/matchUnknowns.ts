@@ -125,6 +125,9 @@ export async function matchUnknowns(
       ...(options.baselineDegree === undefined ? {} : { baselineDegree: options.baselineDegree }),
       ...(options.tolerance === undefined ? {} : { tolerance: options.tolerance }),
       index: buildBandIndex(set),
+      ...(options.contributionRegions === undefined
+        ? {}
+        : { contributionRegions: options.contributionRegions }),
     };
     const assignments = [...shippedAssignments(), ...listAssignments(library)];
 

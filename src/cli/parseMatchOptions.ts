@@ -49,6 +49,23 @@ function ranges(value: unknown): WavenumberWindow[] {
   return list(value).map((text) => rangeFromText(text, { label: '--range' }));
 }
 
+/** `--explain-region "C=O=1800:1700"` (repeatable) → the regions of "why this hit": LABEL=HIGH:LOW. */
+function explainRegions(value: unknown): { label: string; min: number; max: number }[] | undefined {
+  const texts = Array.isArray(value) ? value.map(String) : [];
+  if (texts.length === 0) return undefined;
+  return texts.map((text) => {
+    const at = text.lastIndexOf('=');
+    const label = at > 0 ? text.slice(0, at).trim() : '';
+    if (label === '') {
+      throw new BandshelfError('BAD_OPTION', `--explain-region wants LABEL=HIGH:LOW (not '${text}')`, {
+        field: 'explain-region',
+      });
+    }
+    const w = rangeFromText(text.slice(at + 1), { label: '--explain-region' });
+    return { label, min: w.min, max: w.max };
+  });
+}
+
 export function parseMatchOptions(
   options: Record<string, unknown>,
   settings: ParseMatchOptionsOptions = {},
@@ -89,6 +106,9 @@ export function parseMatchOptions(
     library: options.library,
     keepPath: options.keepPath === true,
     ranges: ranges(options.range),
+    ...(explainRegions(options.explainRegion) === undefined
+      ? {}
+      : { contributionRegions: explainRegions(options.explainRegion)! }),
     metrics,
     top: number(options.top, 'top', (n) => Number.isInteger(n) && n >= 1, 'a whole number ≥ 1') ?? 10,
     minOverlap:

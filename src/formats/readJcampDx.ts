@@ -311,6 +311,65 @@ function readBlock(
   const { file, maxPoints = 5_000_000 } = options;
   const warnings: ParseWarning[] = [];
   const meta = readMeta(block, lines);
+  checkDataType(block, file, warnings);
+  const xFactor = factorLabel(block, 'XFACTOR', file);
+  const yFactor = factorLabel(block, 'YFACTOR', file);
+  const nPoints = numberLabel(block, 'NPOINTS', file);
+  const body = lines.slice(data.bodyStart, data.bodyEnd);
+  const form = data.value.toUpperCase().replace(/\s+/g, '');
+  const table = { block, data, body, file, maxPoints, xFactor, nPoints, warnings };
+  let points: Points;
+  if (data.label === 'XYDATA' && /^\(X\+\+\((Y\.\.Y|R\.\.R)\)\)$/.test(form)) points = xyDataPoints(table);
+  else if (form === '(XY..XY)' || form === '(XYW..XYW)')
+    points = xyPointsPoints(table, form === '(XY..XY)' ? 2 : 3);
+  else {
+    throw new BandshelfError(
+      'BAD_FORMAT',
+      `##${data.rawLabel}=${clip(data.value)} is not a variable list bandshelf reads ((X++(Y..Y)) or (XY..XY))`,
+      { file, line: data.line, field: data.rawLabel },
+    );
+  }
+  const yReal = realOrdinates(block, points.yRaw, yFactor, file, warnings);
+  const { xs, ys, ls } = withoutMissing(points, yReal, warnings);
+  const xUnit = options.xUnit ?? readXUnit(block, file, warnings);
+  const yUnit = options.yUnit ?? readYUnit(block, ys, file, warnings);
+  const converted = toWavenumberAbsorbance({ x: xs, y: ys }, { xUnit, yUnit, file, lines: ls });
+  const { spectrum, warnings: pointWarnings } = spectrumFromPoints(converted, { file, lines: ls });
+  warnings.push(...pointWarnings);
+  const yUnitsText = inheritedRecord(block, 'YUNITS')?.value;
+  if (yUnitsText && isAbsorbanceShaped(yUnitsText.toUpperCase().replace(/\s+/g, ' ').trim())) {
+    meta.yUnitsText = yUnitsText.trim();
+  }
+  const parsed: ParsedSpectrum = { spectrum, meta, source: { format: 'jcamp-dx', xUnit, yUnit }, warnings };
+  if (yUnit !== 'absorbance') {
+    const { saturated, warning } = markSaturated(spectrum);
+    if (saturated) parsed.saturated = saturated;
+    if (warning) warnings.push(warning);
+  }
+  return parsed;
+}
+
+/** One data table as decoded: abscissae, raw ordinates (NaN for `?`) and the line of each point. */
+interface Points {
+  x: Float64Array;
+  yRaw: Float64Array;
+  pointLine: Uint32Array;
+}
+
+/** What the decoders of a data table read from. */
+interface DataTable {
+  block: JcampBlock;
+  data: JcampRecord;
+  body: string[];
+  file: string | undefined;
+  maxPoints: number;
+  xFactor: number;
+  nPoints: number | undefined;
+  warnings: ParseWarning[];
+}
+
+/** Another spectroscopy named outright in ##DATA TYPE is refused; an unknown type and a newer version are warned of. */
+function checkDataType(block: JcampBlock, file: string | undefined, warnings: ParseWarning[]): void {
   const dataType = (ownValue(block, 'DATATYPE') ?? '').toUpperCase();
   if (dataType !== '' && !/INFRARED|\bIR\b/.test(dataType)) {
     // Another spectroscopy named outright is refused: its axis would be misread as an infrared one.
@@ -332,97 +391,98 @@ function readBlock(
       message: `JCAMP-DX version ${clip(version)} is newer than 5.01; read by the 5.01 rules`,
     });
   }
+}
 
-  const xFactor = factorLabel(block, 'XFACTOR', file);
-  const yFactor = factorLabel(block, 'YFACTOR', file);
-  const nPoints = numberLabel(block, 'NPOINTS', file);
-  const nPointsRec = ownRecord(block, 'NPOINTS');
-  const firstY = numberLabel(block, 'FIRSTY', file);
-  const body = lines.slice(data.bodyStart, data.bodyEnd);
-  const form = data.value.toUpperCase().replace(/\s+/g, '');
-
-  let x: Float64Array;
-  let yRaw: Float64Array;
-  let pointLine: Uint32Array;
-  if (data.label === 'XYDATA' && /^\(X\+\+\((Y\.\.Y|R\.\.R)\)\)$/.test(form)) {
-    // A repeat count (DUP) turns a few bytes into many points: with NPOINTS declared, data that decode to far more
-    // (4× + 4,096) are a stray count, refused before the points are built rather than after seconds of work.
-    const declaredCap =
-      nPoints !== undefined && Number.isInteger(nPoints) && nPoints > 0 ? 4 * nPoints + 4096 : maxPoints;
-    // Whatever NPOINTS says, a body may not expand past a fixed allowance plus so many points per byte.
-    let bodyBytes = 0;
-    for (const line of body) bodyBytes += line.length + 1;
-    const expansionCap = EXPANSION_ALLOWANCE + EXPANSION_PER_BYTE * bodyBytes;
-    const cap = Math.min(maxPoints, declaredCap, expansionCap);
-    const asdf = {
-      file,
-      firstLine: data.bodyStart + 1,
-      maxPoints: cap,
-      xHint: spacingHint(block, xFactor, file),
-    };
-    let decoded: ReturnType<typeof decodeAsdfLines>;
-    try {
-      decoded = decodeAsdfLines(body, asdf);
-    } catch (error) {
-      if (
-        cap < maxPoints &&
-        error instanceof BandshelfError &&
-        /^the data hold more than/.test(error.message)
-      ) {
-        const why =
-          cap === declaredCap
-            ? `but NPOINTS=${nPoints} (a stray repeat count?)`
-            : `from ${bodyBytes} bytes, more than ${EXPANSION_ALLOWANCE} + ${EXPANSION_PER_BYTE} per byte (a stray repeat count?)`;
-        throw new BandshelfError('BAD_FORMAT', `the data decode to more than ${cap} points ${why}`, {
-          file,
-          line: error.line,
-        });
-      }
-      throw error;
-    }
-    // The line X misled the Y-check call when NPOINTS disagrees; a reading that repeats a value as the check
-    // and agrees with NPOINTS is the file's own (an extra point at the end is usually the last line's check).
-    const declared = numberLabel(block, 'NPOINTS', file);
-    if (declared !== undefined && decoded.y.length !== declared) {
-      const again = decodeAsdfLines(body, { ...asdf, matchingValueIsCheck: true });
-      if (again.y.length === declared) decoded = again;
-    }
-    warnings.push(...decoded.warnings);
-    yRaw = decoded.y;
-    pointLine = decoded.pointLine;
-    if (yRaw.length === 0) {
-      throw new BandshelfError('EMPTY_FILE', `##${data.rawLabel} holds no data`, { file, line: data.line });
-    }
-    x = abscissae(block, decoded, xFactor, nPoints, warnings, file, data);
-  } else if (form === '(XY..XY)' || form === '(XYW..XYW)') {
-    const decoded = decodeXyPairs(body, {
-      file,
-      firstLine: data.bodyStart + 1,
-      columns: form === '(XY..XY)' ? 2 : 3,
-      maxPoints,
-    });
-    yRaw = decoded.y;
-    pointLine = decoded.pointLine;
-    if (yRaw.length === 0) {
-      throw new BandshelfError('EMPTY_FILE', `##${data.rawLabel} holds no data`, { file, line: data.line });
-    }
-    x = new Float64Array(decoded.x.length);
-    for (let i = 0; i < x.length; i++) x[i] = decoded.x[i]! * xFactor;
-    if (nPoints !== undefined && nPoints !== yRaw.length) {
-      warnings.push({
-        line: nPointsRec?.line,
-        message: `NPOINTS=${nPoints} but the data hold ${yRaw.length} points; the data were used`,
+/** `##XYDATA=(X++(Y..Y))`: the ASDF body, bounded against repeat counts, with the abscissae rebuilt from the labels. */
+function xyDataPoints(table: DataTable): Points {
+  const { block, data, body, file, maxPoints, xFactor, nPoints, warnings } = table;
+  // A repeat count (DUP) turns a few bytes into many points: with NPOINTS declared, data that decode to far more
+  // (4× + 4,096) are a stray count, refused before the points are built rather than after seconds of work.
+  const declaredCap =
+    nPoints !== undefined && Number.isInteger(nPoints) && nPoints > 0 ? 4 * nPoints + 4096 : maxPoints;
+  // Whatever NPOINTS says, a body may not expand past a fixed allowance plus so many points per byte.
+  let bodyBytes = 0;
+  for (const line of body) bodyBytes += line.length + 1;
+  const expansionCap = EXPANSION_ALLOWANCE + EXPANSION_PER_BYTE * bodyBytes;
+  const cap = Math.min(maxPoints, declaredCap, expansionCap);
+  const asdf = {
+    file,
+    firstLine: data.bodyStart + 1,
+    maxPoints: cap,
+    xHint: spacingHint(block, xFactor, file),
+  };
+  let decoded: ReturnType<typeof decodeAsdfLines>;
+  try {
+    decoded = decodeAsdfLines(body, asdf);
+  } catch (error) {
+    if (
+      cap < maxPoints &&
+      error instanceof BandshelfError &&
+      /^the data hold more than/.test(error.message)
+    ) {
+      const why =
+        cap === declaredCap
+          ? `but NPOINTS=${nPoints} (a stray repeat count?)`
+          : `from ${bodyBytes} bytes, more than ${EXPANSION_ALLOWANCE} + ${EXPANSION_PER_BYTE} per byte (a stray repeat count?)`;
+      throw new BandshelfError('BAD_FORMAT', `the data decode to more than ${cap} points ${why}`, {
+        file,
+        line: error.line,
       });
     }
-  } else {
-    throw new BandshelfError(
-      'BAD_FORMAT',
-      `##${data.rawLabel}=${clip(data.value)} is not a variable list bandshelf reads ((X++(Y..Y)) or (XY..XY))`,
-      { file, line: data.line, field: data.rawLabel },
-    );
+    throw error;
   }
+  // The line X misled the Y-check call when NPOINTS disagrees; a reading that repeats a value as the check
+  // and agrees with NPOINTS is the file's own (an extra point at the end is usually the last line's check).
+  const declared = numberLabel(block, 'NPOINTS', file);
+  if (declared !== undefined && decoded.y.length !== declared) {
+    const again = decodeAsdfLines(body, { ...asdf, matchingValueIsCheck: true });
+    if (again.y.length === declared) decoded = again;
+  }
+  warnings.push(...decoded.warnings);
+  const yRaw = decoded.y;
+  const pointLine = decoded.pointLine;
+  if (yRaw.length === 0) {
+    throw new BandshelfError('EMPTY_FILE', `##${data.rawLabel} holds no data`, { file, line: data.line });
+  }
+  const x = abscissae(block, decoded, xFactor, nPoints, warnings, file, data);
+  return { x, yRaw, pointLine };
+}
 
-  // Real values; FIRSTY is checked against the first ordinate in file order, before any reordering.
+/** `##XYPOINTS=(XY..XY)` or `(XYW..XYW)`: explicit pairs (the weight column ignored). */
+function xyPointsPoints(table: DataTable, columns: 2 | 3): Points {
+  const { block, data, body, file, maxPoints, xFactor, nPoints, warnings } = table;
+  const nPointsRec = ownRecord(block, 'NPOINTS');
+  const decoded = decodeXyPairs(body, {
+    file,
+    firstLine: data.bodyStart + 1,
+    columns,
+    maxPoints,
+  });
+  const yRaw = decoded.y;
+  const pointLine = decoded.pointLine;
+  if (yRaw.length === 0) {
+    throw new BandshelfError('EMPTY_FILE', `##${data.rawLabel} holds no data`, { file, line: data.line });
+  }
+  const x = new Float64Array(decoded.x.length);
+  for (let i = 0; i < x.length; i++) x[i] = decoded.x[i]! * xFactor;
+  if (nPoints !== undefined && nPoints !== yRaw.length) {
+    warnings.push({
+      line: nPointsRec?.line,
+      message: `NPOINTS=${nPoints} but the data hold ${yRaw.length} points; the data were used`,
+    });
+  }
+  return { x, yRaw, pointLine };
+}
+
+/** Ordinates × YFACTOR; FIRSTY is checked against the first ordinate in file order, before any reordering. */
+function realOrdinates(
+  block: JcampBlock,
+  yRaw: Float64Array,
+  yFactor: number,
+  file: string | undefined,
+  warnings: ParseWarning[],
+): Float64Array {
+  const firstY = numberLabel(block, 'FIRSTY', file);
   const yReal = new Float64Array(yRaw.length);
   let maxAbs = 0;
   for (let i = 0; i < yRaw.length; i++) {
@@ -440,7 +500,16 @@ function readBlock(
     }
   }
 
-  // `?` ordinates keep their abscissa slot until here, then drop out.
+  return yReal;
+}
+
+/** `?` ordinates keep their abscissa slot until here, then drop out with one warning naming their lines. */
+function withoutMissing(
+  points: Points,
+  yReal: Float64Array,
+  warnings: ParseWarning[],
+): { xs: Float64Array; ys: Float64Array; ls: Uint32Array } {
+  const { x, yRaw, pointLine } = points;
   let missing = 0;
   const missingLines: number[] = [];
   for (let i = 0; i < yReal.length; i++) {
@@ -472,22 +541,7 @@ function readBlock(
     });
   }
 
-  const xUnit = options.xUnit ?? readXUnit(block, file, warnings);
-  const yUnit = options.yUnit ?? readYUnit(block, ys, file, warnings);
-  const converted = toWavenumberAbsorbance({ x: xs, y: ys }, { xUnit, yUnit, file, lines: ls });
-  const { spectrum, warnings: pointWarnings } = spectrumFromPoints(converted, { file, lines: ls });
-  warnings.push(...pointWarnings);
-  const yUnitsText = inheritedRecord(block, 'YUNITS')?.value;
-  if (yUnitsText && isAbsorbanceShaped(yUnitsText.toUpperCase().replace(/\s+/g, ' ').trim())) {
-    meta.yUnitsText = yUnitsText.trim();
-  }
-  const parsed: ParsedSpectrum = { spectrum, meta, source: { format: 'jcamp-dx', xUnit, yUnit }, warnings };
-  if (yUnit !== 'absorbance') {
-    const { saturated, warning } = markSaturated(spectrum);
-    if (saturated) parsed.saturated = saturated;
-    if (warning) warnings.push(warning);
-  }
-  return parsed;
+  return { xs, ys, ls };
 }
 
 /** FIRSTX and the header's step in line units, for telling a Y check from a new point; undefined if unknown. */

@@ -235,27 +235,19 @@ export function fitMixture(
   );
   const { selected } = selection;
   const current = { x: selection.weights, rss: selection.rss };
-  // The baseline's part of each weight's uncertainty: how far it moves when the same components are fitted with a
-  // baseline one degree higher (a bench's baseline is no polynomial of any stated degree).
-  const baselineShiftOf = new Map<number, number>();
-  if (basis !== null && degree !== null && degree < 6 && selected.length > 0) {
-    const higher = polynomialBasis(
-      Float64Array.from(at, (i) => (axis[i]! - centre) / halfWidth),
-      degree + 1,
-    ).q;
-    const refit = forwardSelection(
-      {
-        columns: selected.map((s) => project(usable[s]!.raw, higher)),
-        query: project(b, higher),
-        forced: selected.map((_, j) => j),
-        shapes: selected.map((s) => shapesRaw[s]!.map((v) => project(v, higher))),
-      },
-      { alpha, maxComponents: selected.length, bandwidth: Math.round(correlationWidth / grid.step) },
-    );
-    selected.forEach((s, j) => {
-      baselineShiftOf.set(s, Math.abs(refit.weights[j]! - current.x[j]!));
-    });
-  }
+  const baselineShiftOf =
+    basis !== null && degree !== null && degree < 6 && selected.length > 0
+      ? baselineShifts({
+          u: Float64Array.from(at, (i) => (axis[i]! - centre) / halfWidth),
+          degree: degree + 1,
+          query: b,
+          columns: selected.map((s) => usable[s]!.raw),
+          shapes: selected.map((s) => shapesRaw[s]!),
+          weights: current.x,
+          selected,
+          settings: { alpha, bandwidth: Math.round(correlationWidth / grid.step) },
+        })
+      : new Map<number, number>();
   const modelVariance = (s: number): number => {
     const shift = selection.modelShiftOf.get(s) ?? 0;
     const base = baselineShiftOf.get(s) ?? 0;
@@ -722,4 +714,36 @@ function componentReports(input: {
   });
 
   return { components, notSelected };
+}
+
+/**
+ * The baseline's part of each weight's uncertainty: how far it moves when the same components (with their line-shape
+ * terms) are fitted again with a baseline one degree higher — a bench's baseline is no polynomial of any stated degree.
+ * Keyed by the selected column.
+ */
+function baselineShifts(input: {
+  u: Float64Array;
+  degree: number;
+  query: Float64Array;
+  columns: readonly Float64Array[];
+  shapes: readonly (readonly Float64Array[])[];
+  weights: ArrayLike<number>;
+  selected: readonly number[];
+  settings: { alpha: number; bandwidth: number };
+}): Map<number, number> {
+  const higher = polynomialBasis(input.u, input.degree).q;
+  const refit = forwardSelection(
+    {
+      columns: input.columns.map((v) => project(v, higher)),
+      query: project(input.query, higher),
+      forced: input.columns.map((_, j) => j),
+      shapes: input.shapes.map((list) => list.map((v) => project(v, higher))),
+    },
+    { ...input.settings, maxComponents: input.columns.length },
+  );
+  const shifts = new Map<number, number>();
+  input.selected.forEach((s, j) => {
+    shifts.set(s, Math.abs(refit.weights[j]! - input.weights[j]!));
+  });
+  return shifts;
 }

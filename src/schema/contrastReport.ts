@@ -5,7 +5,7 @@ import { bandCandidateSchema, matchHitSchema } from './matchReport.js';
 import { gridSchema, gridVectorSchema, windowSchema } from './recipe.js';
 
 /** Bump on any change a reader must know about; readers refuse versions they do not know. */
-export const CONTRAST_REPORT_VERSION = 1;
+export const CONTRAST_REPORT_VERSION = 2;
 
 /** The caution every contrast report and table carries. */
 export const CONTRAST_CAUTION =
@@ -78,6 +78,49 @@ export const differenceBandSchema = z
   })
   .strict();
 
+/** One band-level test: a window's integrated area per spectrum (above a local straight baseline), Welch-tested. */
+export const bandAreaTestSchema = z
+  .object({
+    /** The window's centre: the pooled mean's band maximum, or the middle of a given window, cm⁻¹. */
+    position: z.number().finite(),
+    /** The window's edges, cm⁻¹ (inclusive grid points). */
+    min: z.number().finite(),
+    max: z.number().finite(),
+    /** 'pooled-mean': found on the mean of all spectra, groups ignored; 'given': a window named in advance. */
+    origin: z.enum(['pooled-mean', 'given']),
+    /** Mean integrated area per group, absorbance × cm⁻¹ (of the processed spectra). */
+    meanA: z.number().finite(),
+    meanB: z.number().finite(),
+    /** Mean area A − mean area B, with its Welch interval. */
+    difference: z.number().finite(),
+    lower: z.number().finite(),
+    upper: z.number().finite(),
+    t: z.number(),
+    df: z.number(),
+    p: z.number().min(0).max(1),
+    /** Benjamini–Hochberg q-value over the windows tested. */
+    q: z.number().min(0).max(1),
+    /** Hedges' g of the areas (0 when both groups are constant). */
+    g: z.number().finite(),
+    /** q ≤ the report's q. */
+    significant: z.boolean(),
+    /** Band-assignment table rows for a band at `position` with the window's width, best first. */
+    assignments: z.array(
+      z
+        .object({
+          id: z.string().optional(),
+          label: z.string(),
+          vibration: z.string(),
+          group: z.string(),
+          class: z.array(z.string()),
+          source: z.string(),
+          score: z.number().finite(),
+        })
+        .strict(),
+    ),
+  })
+  .strict();
+
 export const contrastReportSchema = z
   .object({
     version: z.literal(CONTRAST_REPORT_VERSION),
@@ -101,6 +144,8 @@ export const contrastReportSchema = z
         tolerance: z.number().positive(),
         /** The windows tested, cm⁻¹; empty: the whole grid. */
         ranges: z.array(windowSchema),
+        /** The band-level test's windows named in advance, cm⁻¹; empty: the bands of the pooled mean ± 1 FWHM. */
+        bandWindows: z.array(windowSchema),
       })
       .strict(),
     method: z
@@ -112,6 +157,7 @@ export const contrastReportSchema = z
         effectSize: z.string(),
         outliers: z.string(),
         search: z.string(),
+        bandTest: z.string(),
       })
       .strict(),
     groups: z.object({ a: contrastGroupSchema, b: contrastGroupSchema }).strict(),
@@ -133,6 +179,8 @@ export const contrastReportSchema = z
     tested: z.number().int().nonnegative(),
     discoveries: z.number().int().nonnegative(),
     bands: z.array(differenceBandSchema),
+    /** The band-level test, one row per window, highest wavenumber first. */
+    bandTests: z.array(bandAreaTestSchema),
     /** Library hits of the positive (higher in A) and negative (lower in A) parts; null without a library or part. */
     search: z
       .object({ higher: z.array(contrastHitSchema).nullable(), lower: z.array(contrastHitSchema).nullable() })
@@ -143,5 +191,6 @@ export const contrastReportSchema = z
 
 export type ContrastReport = z.infer<typeof contrastReportSchema>;
 export type DifferenceBand = z.infer<typeof differenceBandSchema>;
+export type BandAreaTestRow = z.infer<typeof bandAreaTestSchema>;
 export type ContrastSpectrumSummary = z.infer<typeof contrastSpectrumSchema>;
 export type ContrastHit = z.infer<typeof contrastHitSchema>;

@@ -20,6 +20,7 @@ import { canonicalJson } from '../library/store/canonicalJson.js';
 import { BAND_TOLERANCE_CM1 } from '../match/types.js';
 import { buildManifestPath } from './buildManifestPath.js';
 import { buildSearchIndex, type SearchIndexEntry } from './buildSearchIndex.js';
+import { contrastPage } from './contrastPage.js';
 import { copySiteAssets } from './copySiteAssets.js';
 import { dataScript } from './dataScript.js';
 import { encodeSearchMatrix } from './encodeSearchMatrix.js';
@@ -35,7 +36,7 @@ import { redactReport } from './redactReport.js';
 import { reportPage } from './reportPage.js';
 import { siteEleventyPlugin } from './siteEleventyPlugin.js';
 import { siteView } from './siteView.js';
-import type { EntryPage, SiteReport, SiteSource } from './types.js';
+import type { EntryPage, SiteContrast, SiteReport, SiteSource } from './types.js';
 import { writeBuildManifest } from './writeBuildManifest.js';
 
 export interface BuildSiteOptions {
@@ -50,6 +51,9 @@ export interface BuildSiteOptions {
   /** Validated match reports to publish.
    * @default [] */
   reports?: SiteReport[];
+  /** Validated contrast reports to publish, each on a page of its own under contrasts/.
+   * @default [] */
+  contrasts?: SiteContrast[];
   /** Withhold the unknowns' file names and titles from the published reports: each is named by its SHA-256.
    * @default false */
   redact?: boolean;
@@ -401,9 +405,20 @@ async function writeSite(
       entryMarks({ reviewState: summaries.get(id)?.reviewState, ownRecipe: ownRecipe.has(id) });
     return reportPage(r, { slugs, slug, vector, jsonBytes, marks });
   });
+  const contrastTaken = new Set<string>();
+  const contrastPages = (options.contrasts ?? []).map((c) => {
+    const slug = slugFor(c.slug, contrastTaken);
+    // Redacted: each spectrum is named by its file's SHA-256 (a file name can carry a patient or study code).
+    const report = options.redact
+      ? { ...c.report, spectra: c.report.spectra.map((s) => ({ ...s, file: s.hash })) }
+      : c.report;
+    write(`contrasts/${slug}/${slug}.json`, `${JSON.stringify(report, null, 2)}\n`);
+    return contrastPage({ ...c, report }, { slug });
+  });
   const view = siteView(source, {
     entryPages: toRender,
     reportPages,
+    contrastPages,
     slugs,
     version: options.version,
     caution: options.caution,

@@ -2,9 +2,10 @@
 import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { BandshelfError } from '../error.js';
+import { contrastReportSchema } from '../schema/contrastReport.js';
 import { matchReportSchema } from '../schema/matchReport.js';
 import { metaErrorFromIssues } from '../schema/metaErrorFromIssues.js';
-import type { SiteReport } from './types.js';
+import type { SiteContrast, SiteReport } from './types.js';
 
 export interface ReadReportsOptions {
   /** The folder as the user named it, for messages.
@@ -12,11 +13,18 @@ export interface ReadReportsOptions {
   shownAs?: string;
 }
 
+/** The match reports and the contrast reports of one folder. */
+export interface SiteReports {
+  reports: SiteReport[];
+  contrasts: SiteContrast[];
+}
+
 /**
- * Every `*.json` file directly in `dir`, in name order; other files (a batch CSV) are skipped. A file that is not
- * JSON, or fails `matchReportSchema`, is a BAD_REPORT error naming the file and the first failing field.
+ * Every `*.json` file directly in `dir`, in name order; other files (a batch CSV) are skipped. A file with
+ * `"kind": "contrast"` is a contrast report (`contrastReportSchema`), any other a match report (`matchReportSchema`).
+ * A file that is not JSON, or fails its schema, is a BAD_REPORT error naming the file and the first failing field.
  */
-export function readReports(dir: string, options: ReadReportsOptions = {}): SiteReport[] {
+export function readReports(dir: string, options: ReadReportsOptions = {}): SiteReports {
   const shown = options.shownAs ?? dir;
   let names: string[];
   try {
@@ -31,6 +39,7 @@ export function readReports(dir: string, options: ReadReportsOptions = {}): Site
     });
   }
   const reports: SiteReport[] = [];
+  const contrasts: SiteContrast[] = [];
   for (const name of names) {
     const path = join(dir, name);
     const file = join(shown, name);
@@ -42,6 +51,20 @@ export function readReports(dir: string, options: ReadReportsOptions = {}): Site
       const detail = error instanceof Error ? error.message : String(error);
       throw new BandshelfError('BAD_REPORT', `not valid JSON (${detail})`, { file });
     }
+    const slug = basename(name, name.slice(name.lastIndexOf('.')));
+    if ((json as { kind?: unknown } | null)?.kind === 'contrast') {
+      const contrast = contrastReportSchema.safeParse(json);
+      if (!contrast.success) {
+        throw metaErrorFromIssues(contrast.error.issues, {
+          file,
+          code: 'BAD_REPORT',
+          lead: 'not a bandshelf contrast report',
+          knownFields: [],
+        });
+      }
+      contrasts.push({ slug, file: name, report: contrast.data });
+      continue;
+    }
     const parsed = matchReportSchema.safeParse(json);
     if (!parsed.success) {
       throw metaErrorFromIssues(parsed.error.issues, {
@@ -52,10 +75,10 @@ export function readReports(dir: string, options: ReadReportsOptions = {}): Site
       });
     }
     reports.push({
-      slug: basename(name, name.slice(name.lastIndexOf('.'))),
+      slug,
       file: name,
       report: parsed.data,
     });
   }
-  return reports;
+  return { reports, contrasts };
 }

@@ -34,6 +34,7 @@ const optionsSchema = z.object({
           .loose(),
       ),
       reports: z.array(z.object({ path: pagePath('reports') }).loose()),
+      contrasts: z.array(z.object({ path: pagePath('contrasts') }).loose()),
       releases: z.array(z.object({ tag: z.string(), anchor: z.string().regex(/^[A-Za-z0-9._-]+$/) }).loose()),
       assignments: z.array(z.object({}).loose()),
       browse: z.object({ rows: z.array(z.object({}).loose()) }).loose(),

@@ -5,7 +5,7 @@ import { gridLength } from '../spectrum/gridLength.js';
 import { formatNumber } from './formatNumber.js';
 import { releaseAnchor } from './releaseAnchor.js';
 import { techniqueLabel } from './techniqueLabel.js';
-import type { EntryPage, ReleasePage, ReportPage, SiteSource, SiteView } from './types.js';
+import type { ContrastPage, EntryPage, ReleasePage, ReportPage, SiteSource, SiteView } from './types.js';
 
 export interface SiteViewOptions {
   /** Page models of the entries, in `source.entries` order.
@@ -14,6 +14,9 @@ export interface SiteViewOptions {
   /** Page models of the match reports.
    * @default [] */
   reportPages?: ReportPage[];
+  /** Page models of the contrast reports.
+   * @default [] */
+  contrastPages?: ContrastPage[];
   /** The entry id → site path segment map (ids are slugs already; kept separate so links and pages agree).
    * @default each id maps to itself */
   slugs?: Map<string, string>;
@@ -136,6 +139,7 @@ export function siteView(source: SiteSource, options: SiteViewOptions = {}): Sit
     },
     entries: options.entryPages ?? [],
     reports: options.reportPages ?? [],
+    contrasts: options.contrastPages ?? [],
     releases,
     assignments: source.assignments.map((a) => ({
       range:

@@ -1,11 +1,13 @@
 // Shapes of the site's data layer: what is gathered from the library and the reports, and the page models the
 // templates print. Page models hold display-ready strings only, so templates stay free of logic and every string
 // reaches the page through the template engine's escaping.
+
 import type {
   ProcessedVectorFile,
   EntryDocument as StoredEntryDocument,
 } from '../library/store/entryDocument.js';
 import type { BandAssignment } from '../schema/bandAssignment.js';
+import type { ContrastReport } from '../schema/contrastReport.js';
 import type { MatchReport } from '../schema/matchReport.js';
 import type { Grid, Recipe } from '../schema/recipe.js';
 import type { Peak, QcFlag, Spectrum } from '../spectrum/types.js';
@@ -366,6 +368,7 @@ export interface SiteView {
   };
   entries: EntryPage[];
   reports: ReportPage[];
+  contrasts: ContrastPage[];
   releases: ReleasePage[];
   assignments: AssignmentRow[];
 }
@@ -385,4 +388,66 @@ export interface ReportPlotData {
   mixture: ReportPlotSeries[];
   /** Positions of the unexplained bands, cm⁻¹. */
   unexplained: number[];
+}
+
+/** A validated contrast report to publish, as read from the reports folder. */
+export interface SiteContrast {
+  slug: string;
+  file: string;
+  report: ContrastReport;
+}
+
+/** What a contrast page's plots draw: wavenumbers ascending, null where not covered. */
+export interface ContrastPlotData {
+  labelA: string;
+  labelB: string;
+  x: number[];
+  meanA: (number | null)[];
+  sdA: (number | null)[];
+  meanB: (number | null)[];
+  sdB: (number | null)[];
+  difference: (number | null)[];
+  lower: (number | null)[];
+  upper: (number | null)[];
+  /** The difference bands (pointwise q ≤ the report's q), cm⁻¹. */
+  regions: { min: number; max: number; sign: string }[];
+  /** The significant windows of the band-level test, cm⁻¹. */
+  windows: { min: number; max: number }[];
+}
+
+/** The page model of one contrast report; built by contrastPage. */
+export interface ContrastPage {
+  slug: string;
+  path: string;
+  file: string;
+  title: string;
+  summary: string;
+  groups: SiteRow[];
+  method: SiteRow[];
+  bands: {
+    position: string;
+    region: string;
+    sign: string;
+    difference: string;
+    interval: string;
+    g: string;
+    q: string;
+    assignment: string;
+    candidates: string;
+  }[];
+  bandTests: {
+    window: string;
+    centre: string;
+    difference: string;
+    interval: string;
+    g: string;
+    p: string;
+    q: string;
+    verdict: string;
+    assignment: string;
+  }[];
+  outliers: string[];
+  hits: { higher: string; lower: string };
+  caution: string;
+  plotJson: string;
 }

@@ -112,6 +112,30 @@ describe('bandshelf contrast', () => {
     expect(written.groups.a.label).toBe('dosed');
   });
 
+  it('tests a --band-window named in advance at band level, and prints the band-level table', () => {
+    const r = run([
+      'contrast',
+      '--group-a',
+      'cases',
+      '--group-b',
+      'controls',
+      '--band-window',
+      '1770:1710',
+      '--json',
+    ]);
+    expect(r.code, r.stderr).toBe(0);
+    const report = contrastReportSchema.parse(parseJson(r.stdout));
+    expect(report.settings.bandWindows).toEqual([{ min: 1710, max: 1770 }]);
+    expect(report.bandTests).toHaveLength(1);
+    expect(report.bandTests[0]).toMatchObject({ origin: 'given', min: 1710, max: 1770, significant: true });
+    expect(report.bandTests[0]!.difference).toBeGreaterThan(0);
+    const text = run(['contrast', '--group-a', 'cases', '--group-b', 'controls']);
+    expect(text.stdout).toMatch(
+      /band-level test \(integrated areas, Welch, Benjamini–Hochberg over \d+ windows\): [1-9]\d* pass/,
+    );
+    expect(text.stdout).toMatch(/higher in cases +ester C=O stretch/);
+  });
+
   it('refuses a group of fewer than 3 spectra with one line and a non-zero exit', () => {
     const r = run(['contrast', '--group-a', 'pair', '--group-b', 'controls']);
     expect(r.code).toBe(2);

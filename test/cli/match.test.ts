@@ -54,6 +54,27 @@ describe('bandshelf match', () => {
       cwd: fx.dir,
     });
     expect(text.stdout).toMatch(/why #1 \S+: r [\d.]+ = .+ [+-]\d\.\d{3}/);
+    // Regions of one's own: two that cover the grid split r in two (the same sum of products, regrouped).
+    const own = bandshelf(
+      [
+        ...['match', fx.unknowns.urea, '--library', fx.library, '--json'],
+        ...['--explain-region', 'high=4000:1500', '--explain-region', 'low=1500:600'],
+      ],
+      { cwd: fx.dir },
+    );
+    expect(own.code, own.stderr).toBe(0);
+    for (const h of parseJson<MatchReport>(own.stdout).hits) {
+      expect(h.contributions!.map((c) => c.label)).toEqual(['high', 'low']);
+      expect(h.contributions!.reduce((s, c) => s + c.share, 0)).toBeCloseTo(h.rawScore, 4);
+    }
+    const bad = bandshelf(
+      ['match', fx.unknowns.urea, '--library', fx.library, '--explain-region', '1800:1700'],
+      {
+        cwd: fx.dir,
+      },
+    );
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toMatch(/--explain-region wants LABEL=HIGH:LOW/);
   });
 
   it('prints a readable table with the standing and the caution line by default', () => {

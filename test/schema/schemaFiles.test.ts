@@ -10,11 +10,12 @@ const dir = join(ROOT, 'schema');
 describe('schema/*.schema.json', () => {
   const documents = schemaDocuments();
 
-  it('covers the recipe, entry metadata, band assignment, match report and contrast report', () => {
+  it('covers the recipe, entry metadata, band assignment, match report, contrast report and library bundle', () => {
     expect([...documents.keys()].sort()).toEqual([
       'band-assignment.schema.json',
       'contrast-report.schema.json',
       'entry-meta.schema.json',
+      'library-bundle.schema.json',
       'match-report.schema.json',
       'recipe.schema.json',
     ]);

@@ -11,7 +11,7 @@ describe('readReports', () => {
     const dir = tempDir();
     writeFileSync(join(dir, 'batch.csv'), 'file,top\n');
     mkdirSync(join(dir, 'old.json'));
-    expect(readReports(dir)).toEqual([]);
+    expect(readReports(dir)).toEqual({ reports: [], contrasts: [] });
   });
 
   it('names a file that is not JSON', () => {

@@ -32,6 +32,7 @@ const view = (): SiteView =>
     browse: { rows: [], classes: [], techniques: [], tags: [], sampleForms: [], reviewStates: [] },
     entries: [],
     reports: [],
+    contrasts: [],
     releases: [],
     assignments: [],
   }) as SiteView;

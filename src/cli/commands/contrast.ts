@@ -60,6 +60,12 @@ export const contrastCommand: CommandSpec = {
         collectRepeated,
         [],
       )
+      .option(
+        '--band-window <high:low>',
+        'a band-level test window named in advance (repeatable; default: the bands of the mean of all spectra)',
+        collectRepeated,
+        [],
+      )
       .option('--q <rate>', 'false-discovery rate of the Benjamini–Hochberg procedure', '0.05')
       .option('--drop-outliers', 'leave the flagged outlier spectra out of the statistics')
       .option('--tolerance <cm-1>', 'band tolerance for library peaks on a difference band', '4')
@@ -91,6 +97,9 @@ export const contrastCommand: CommandSpec = {
         top,
         dropOutliers: options.dropOutliers === true,
         ranges: (Array.isArray(options.range) ? options.range : []).map((t) => parseWindow(String(t))),
+        bandWindows: (Array.isArray(options.bandWindow) ? options.bandWindow : []).map((t) =>
+          parseWindow(String(t)),
+        ),
       },
       context,
     );

@@ -7,9 +7,11 @@ import { type JcampForm, writeJcampDx } from '../../formats/writeJcampDx.js';
 import { closeLibrary } from '../../library/store/closeLibrary.js';
 import { describeIoError } from '../../library/store/describeIoError.js';
 import { exportAll } from '../../library/store/exportAll.js';
+import { exportBundle } from '../../library/store/exportBundle.js';
 import { libraryPath } from '../../library/store/libraryPath.js';
 import { openLibrary } from '../../library/store/openLibrary.js';
 import { readEntry } from '../../library/store/readEntry.js';
+import { writeBundleFile } from '../../library/store/writeBundleFile.js';
 import { gridAxis } from '../../spectrum/gridAxis.js';
 import type { Spectrum } from '../../spectrum/types.js';
 import type { CommandSpec } from '../command.js';
@@ -50,6 +52,8 @@ export const exportCommand: CommandSpec = {
     'bandshelf export serum-07 --format csv --out serum-07.csv --at 2026.1',
     'bandshelf export serum-07 --out serum-07-processed.csv --processed   # the processed grid vector',
     'bandshelf export --all backup/      # original files + sidecars; `bandshelf add backup/` re-creates them',
+    'bandshelf export --bundle serum-refs.bundle   # every revision, review, release and lab assignment row',
+    'bandshelf import serum-refs.bundle --library other-lab.sqlite',
   ].join('\n'),
   configure(command) {
     command
@@ -60,7 +64,14 @@ export const exportCommand: CommandSpec = {
       .option('--out <file>', 'file to write (never overwritten unless --force)')
       .option('--processed', 'export the processed grid vector instead of the original spectrum')
       .option('--all <dir>', 'export every entry (original bytes + sidecars) into a new or empty folder')
-      .option('--at <tag>', 'export the state a release froze')
+      .option(
+        '--bundle <file>',
+        'write the whole library with its history as one file `bandshelf import` reads',
+      )
+      .option(
+        '--at <tag>',
+        'export the state a release froze (with --bundle: its members and their histories)',
+      )
       .option('--force', 'overwrite an existing --out file')
       .option('--json', 'print what was written as JSON');
   },
@@ -68,6 +79,39 @@ export const exportCommand: CommandSpec = {
     const id = args[0] as string | undefined;
     const at = options.at as string | undefined;
     const path = libraryPath(options.library, context.cwd);
+    if (typeof options.bundle === 'string') {
+      if (id !== undefined || options.all !== undefined)
+        throw new BandshelfError('BAD_OPTION', 'give --bundle FILE alone (no entry id, no --all)', {
+          field: 'bundle',
+        });
+      const library = openLibrary(path, { readonly: true });
+      try {
+        const bundle = exportBundle(library, { at });
+        const bytes = writeBundleFile(bundle, resolve(context.cwd, options.bundle), {
+          force: options.force === true,
+          label: options.bundle,
+        });
+        const revisions = bundle.entries.reduce((n, e) => n + e.revisions.length, 0);
+        const result = {
+          bundle: options.bundle,
+          bytes,
+          entries: bundle.entries.length,
+          revisions,
+          releases: bundle.releases.length,
+          assignments: bundle.assignments.length,
+          digest: bundle.digest,
+        };
+        if (options.json) return { stdout: JSON.stringify(result), exitCode: 0 };
+        return {
+          stdout:
+            `${result.entries} entries (${revisions} revisions), ${result.releases} releases and ` +
+            `${result.assignments} assignment rows written to ${options.bundle} (${bytes} bytes)`,
+          exitCode: 0,
+        };
+      } finally {
+        closeLibrary(library);
+      }
+    }
     if (typeof options.all === 'string') {
       if (id !== undefined)
         throw new BandshelfError('BAD_OPTION', 'give an entry id or --all, not both', { field: 'all' });

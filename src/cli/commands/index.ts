@@ -12,6 +12,7 @@ import { editCommand } from './edit.js';
 import { exportCommand } from './export.js';
 import { historyCommand } from './history.js';
 import { identifyCommand } from './identify.js';
+import { importCommand } from './import.js';
 import { initCommand } from './init.js';
 import { listCommand } from './list.js';
 import { matchCommand } from './match.js';
@@ -36,6 +37,7 @@ export const commands: CommandSpec[] = [
   checkCommand,
   backupCommand,
   exportCommand,
+  importCommand,
   assignmentsCommand,
   matchCommand,
   bandsCommand,

@@ -61,7 +61,13 @@ export const matchCommand: CommandSpec = {
       .option('--report <dir>', 'write one JSON report per unknown into this folder')
       .option('--csv <file>', 'write one CSV row per unknown into this file')
       .option('--json', 'print the report (batch: {reports, failed}) as JSON')
-      .option('--explain', 'under each pearson hit, print the share of its score each spectral region gives');
+      .option('--explain', 'under each pearson hit, print the share of its score each spectral region gives')
+      .option(
+        '--explain-region <label=high:low>',
+        'a region of --explain and the report\'s contributions, e.g. "C=O=1800:1700" (repeatable; replaces the default regions)',
+        collectRepeated,
+        [],
+      );
     readingOptions(command);
   },
   async run(args, options, context) {

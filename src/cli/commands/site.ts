@@ -33,7 +33,10 @@ export const siteCommand: CommandSpec = {
     command
       .option('--library <path>', 'library file', 'bandshelf.sqlite')
       .option('--at <tag>', 'publish the state a release froze (default: the working state)')
-      .option('--reports <dir>', 'a folder of match reports (JSON from `bandshelf match --report DIR`)')
+      .option(
+        '--reports <dir>',
+        'a folder of match and contrast reports (JSON from `match --report DIR`, `contrast --report DIR`)',
+      )
       .requiredOption(
         '--out <dir>',
         'the output folder (created; refused if it holds files the build did not make)',
@@ -49,10 +52,10 @@ export const siteCommand: CommandSpec = {
     }
     const path = libraryPath(options.library, context.cwd);
     // Reports are validated first: a bad one stops the build before anything is written.
-    const reports =
+    const { reports, contrasts } =
       typeof options.reports === 'string'
         ? readReports(resolve(context.cwd, options.reports), { shownAs: options.reports })
-        : [];
+        : { reports: [], contrasts: [] };
     const library = openLibrary(path, { readonly: true });
     try {
       const source = collectSiteData(library, {
@@ -63,6 +66,7 @@ export const siteCommand: CommandSpec = {
         base: typeof options.base === 'string' ? options.base : '/',
         clean: options.clean === true,
         reports,
+        contrasts,
         redact: options.redact === true,
         protect: [path, `${path}.cache`],
         cwd: context.cwd,

@@ -15,6 +15,7 @@ import { fitMixture } from '../fitMixture.js';
 import { identifyBands } from '../identifyBands.js';
 import { processedRow } from '../processedRow.js';
 import { resolutionForUnknown } from '../resolutionForUnknown.js';
+import type { ContributionRegion } from '../scoreContributions.js';
 import { scoringMask } from '../scoringMask.js';
 import { type Hit, type Metric, MIN_OVERLAP_DEFAULT } from '../searchTypes.js';
 import { BAND_TOLERANCE_CM1, type BandIndex, type MixtureCandidate, type MixtureResult } from '../types.js';
@@ -78,6 +79,8 @@ export interface RunMatchPipelineOptions {
    * (compareAtCoarserResolution). False: the fit and the hits as the stored vectors give them. @default true
    */
   likeWithLike?: boolean;
+  /** Regions each hit's score is split into ("why this hit"). @default DEFAULT_CONTRIBUTION_REGIONS */
+  contributionRegions?: readonly ContributionRegion[];
 }
 
 /** What fitAtCommonResolution reports of the fit's common resolution. */
@@ -291,6 +294,9 @@ export async function runMatchPipeline(
     bands,
     wrongHitNull: source.wrongHitNull ?? null,
     referenceOf: (row) => processedRow(source, row),
+    ...(options.contributionRegions === undefined
+      ? {}
+      : { contributionRegions: options.contributionRegions }),
   });
   if (options.likeWithLike === false) return report;
   // Like with like: hits of another resolution are scored again at the coarser of the two.

@@ -1,5 +1,7 @@
 // Entry of the browser bundle: starts the part of the site's behaviour the current page asks for.
 import { mountBrowse } from './mountBrowse.js';
+import { mountContrastPlots } from './mountContrastPlots.js';
+import { mountEntryOverlay } from './mountEntryOverlay.js';
 import { mountEntryPlot } from './mountEntryPlot.js';
 import { mountMatcher } from './mountMatcher.js';
 import { mountReportPlots } from './mountReportPlots.js';
@@ -7,10 +9,14 @@ import { mountSearch } from './mountSearch.js';
 
 const pages: Record<string, (doc: Document) => void> = {
   browse: mountBrowse,
-  entry: mountEntryPlot,
+  entry: (doc) => {
+    mountEntryPlot(doc);
+    mountEntryOverlay(doc);
+  },
   search: mountSearch,
   match: mountMatcher,
   report: mountReportPlots,
+  contrast: mountContrastPlots,
 };
 
 /** Opened from disk, a link to a folder shows a file listing: point such links at the folder's index.html. */

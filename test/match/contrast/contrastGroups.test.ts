@@ -40,6 +40,12 @@ describe('contrastGroups', () => {
     expect(report.search).toEqual({ higher: null, lower: null });
     expect(report.caution).toBe(CONTRAST_CAUTION);
     expect(report.method.assumptions.join(' ')).toMatch(/independent.*variances.*normal/);
+    // The band-level test finds the same band: higher in A, its window assigned first to the ester C=O row.
+    const significant = report.bandTests.filter((t) => t.significant);
+    expect(significant.map((t) => Math.round(t.position))).toEqual([1740]);
+    expect(significant[0]!.difference).toBeGreaterThan(0);
+    expect(significant[0]!.assignments[0]?.label).toBe('ester C=O stretch');
+    expect(report.method.bandTest).toMatch(/Benjamini–Hochberg over the windows/);
   });
 
   it('finds no difference band in a null cohort (fixed seed) at q = 0.05', async () => {
@@ -47,6 +53,7 @@ describe('contrastGroups', () => {
     expect(report.bands).toEqual([]);
     expect(report.discoveries).toBe(0);
     expect(report.tested).toBe(451);
+    expect(report.bandTests.filter((t) => t.significant)).toEqual([]);
   });
 
   it('has any discovery in about the nominal share of null cohorts', async () => {
