@@ -221,7 +221,11 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
     };
   };
 
+  // A newer drop or settings change supersedes a match still running: only the latest request's result is shown
+  // (the worker answers in its own order).
+  let latest = 0;
   const show = async (file: File, more: readonly File[] = []): Promise<void> => {
+    const request = ++latest;
     lastFile = file;
     lastMore = more;
     status.textContent = `Reading ${file.name} …`;
@@ -242,6 +246,7 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
               ...settings,
               source: matcher.data.source,
             });
+      if (request !== latest) return;
       last = { file, result, engine: matcher };
       fillOverlay(result);
       render(result, matcher);
@@ -258,6 +263,7 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
       zone.dataset.reportMs = String(result.timings.report);
       zone.dataset.matched = file.name;
     } catch (error) {
+      if (request !== latest) return;
       target.replaceChildren();
       status.textContent =
         viaWorker && error instanceof Error ? error.message : matchErrorText(error, file.name);
