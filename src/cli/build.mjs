@@ -1,6 +1,6 @@
 // Bundles the TypeScript sources with esbuild: the Node entry points into dist/, the browser matcher into dist/browser/.
 
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { build } from 'esbuild';
@@ -65,6 +65,20 @@ export async function buildAll() {
       logLevel: 'warning',
       loader: { '.wasm': 'binary' },
     });
+    // The worker's source as a data script (see src/site/dataScript.ts): the page loads it with a <script> tag and
+    // starts the worker from a Blob URL, which Chromium allows from file:// where it refuses `new Worker(fileUrl)`.
+    const worker = join(root, 'dist', 'browser', 'bandshelf-worker.js');
+    if (existsSync(worker)) {
+      const source = readFileSync(worker, 'utf8').replace(/\n?\/\/# sourceMappingURL=\S+\s*$/, '\n');
+      const text = JSON.stringify(source)
+        .replace(/</g, '\\u003c')
+        .replace(/\u2028/g, '\\u2028')
+        .replace(/\u2029/g, '\\u2029');
+      writeFileSync(
+        join(root, 'dist', 'browser', 'bandshelf-worker-source.js'),
+        `(self.__bandshelf=self.__bandshelf||{})["worker-source"]=${text};\n`,
+      );
+    }
   }
 }
 

@@ -25,6 +25,8 @@ function assetSources(root: string): [string, string][] {
     ['assets/vendor/LICENSE-lunr.txt', join(modules, 'lunr', 'LICENSE')],
     ['assets/bandshelf-browser.js', join(root, 'dist', 'browser', 'bandshelf-browser.js')],
     ['assets/bandshelf-worker.js', join(root, 'dist', 'browser', 'bandshelf-worker.js')],
+    // The same worker as a data script holding its source, started from a Blob URL (works from file://).
+    ['assets/bandshelf-worker-source.js', join(root, 'dist', 'browser', 'bandshelf-worker-source.js')],
   ];
   const own = join(root, 'site', 'assets');
   if (existsSync(own)) {

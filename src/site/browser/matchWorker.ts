@@ -1,36 +1,47 @@
-// Entry of the matcher's Web Worker (assets/bandshelf-worker.js): loads the published data (data scripts by importScripts) and
-// runs matchSpectrumFile off the page's thread, so parsing and scoring never freeze the page; served over http it
-// fetches the binary matrix instead.
+// Entry of the matcher's Web Worker (started from a Blob URL of assets/bandshelf-worker-source.js): loads the published
+// data (data scripts through the page, which loads them with a <script> tag) and runs matchSpectrumFile off the
+// page's thread, so parsing and scoring never freeze the page; served over http it fetches the binary matrix instead.
 import { loadPublishedSet, type PublishedData } from './loadPublishedSet.js';
 import { matchErrorText } from './matchErrorText.js';
 import { matchSpectrumFile } from './matchSpectrumFile.js';
 import type { WorkerReply, WorkerRequest } from './workerMessages.js';
 
 interface WorkerScope {
-  importScripts(...urls: string[]): void;
   postMessage(message: WorkerReply): void;
   addEventListener(type: 'message', listener: (event: MessageEvent<WorkerRequest>) => void): void;
-  __bandshelf?: Record<string, unknown>;
 }
 
 const scope = globalThis as unknown as WorkerScope;
 let data: Promise<PublishedData> | undefined;
 
-/** A data script, loaded synchronously into this worker's global (the same script a page loads with a tag). */
+const asked = new Map<number, { ok: (value: unknown) => void; fail: (error: Error) => void }>();
+let nextLoad = 1;
+
+/**
+ * A data script's value, loaded by the page (a Blob-URL worker cannot importScripts the site's files from file://)
+ * and posted here; each script is asked for once.
+ */
+const loaded = new Map<string, Promise<unknown>>();
 function load<T>(src: string, key: string): Promise<T> {
-  try {
-    if (!(key in (scope.__bandshelf ?? {}))) scope.importScripts(src);
-    const value = scope.__bandshelf?.[key];
-    return value === undefined
-      ? Promise.reject(new Error(`${src} did not hold ${key}`))
-      : Promise.resolve(value as T);
-  } catch (error) {
-    return Promise.reject(error instanceof Error ? error : new Error(String(error)));
+  let value = loaded.get(key);
+  if (value === undefined) {
+    const id = nextLoad++;
+    value = new Promise<unknown>((ok, fail) => asked.set(id, { ok, fail }));
+    loaded.set(key, value);
+    scope.postMessage({ kind: 'load', id, src, key });
   }
+  return value as Promise<T>;
 }
 
 scope.addEventListener('message', (event) => {
   const request = event.data;
+  if (request.kind === 'loaded') {
+    const p = asked.get(request.id);
+    asked.delete(request.id);
+    if (request.message === undefined) p?.ok(request.value);
+    else p?.fail(new Error(request.message));
+    return;
+  }
   if (request.kind === 'init') {
     data = loadPublishedSet(request.files, { load, base: request.base, fetch: request.fetch });
     data.then(

@@ -104,31 +104,38 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
       (data) => ({ data, entries: data.set.entries }),
     );
   let ready: Promise<Engine>;
-  if (options.worker !== false && typeof Worker === 'function' && zone.dataset.worker) {
-    ready = startMatchWorker(absolute(doc, zone.dataset.worker), {
-      files: {
-        script: absolute(doc, files.script),
-        binary: absolute(doc, files.binary),
-        json: absolute(doc, files.json),
-      },
-      base: absolute(doc, base),
-      fetch: served,
-    }).then(
-      (w): Engine => {
-        note('Matching runs in a background worker: the page stays responsive.');
-        zone.dataset.engine = 'worker';
-        return { worker: w, entries: w.entries };
-      },
-      (error: unknown) => {
-        note(
-          'This browser refused the background worker (Chromium does for a page opened from disk), so matching ' +
-            'runs on the page itself: the page may pause while a file is matched.',
-        );
-        if (engine) engine.title = error instanceof Error ? error.message : String(error);
-        zone.dataset.engine = 'page';
-        return onPage();
-      },
-    );
+  const workerSource = zone.dataset.workerSource;
+  if (options.worker !== false && typeof Worker === 'function' && workerSource) {
+    const load = (src: string, key: string) => siteData<never>(src, key, { doc });
+    ready = siteData<string>(workerSource, 'worker-source', { doc })
+      .then((source) =>
+        startMatchWorker(source, {
+          files: {
+            script: absolute(doc, files.script),
+            binary: absolute(doc, files.binary),
+            json: absolute(doc, files.json),
+          },
+          base: absolute(doc, base),
+          fetch: served,
+          load,
+        }),
+      )
+      .then(
+        (w): Engine => {
+          note('Matching runs in a background worker: the page stays responsive.');
+          zone.dataset.engine = 'worker';
+          return { worker: w, entries: w.entries };
+        },
+        (error: unknown) => {
+          note(
+            'This browser refused the background worker, so matching runs on the page itself: the page may ' +
+              'pause while a file is matched.',
+          );
+          if (engine) engine.title = error instanceof Error ? error.message : String(error);
+          zone.dataset.engine = 'page';
+          return onPage();
+        },
+      );
   } else {
     note('Matching runs on the page itself: the page may pause while a file is matched.');
     zone.dataset.engine = 'page';
@@ -214,7 +221,11 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
     };
   };
 
+  // A newer drop or settings change supersedes a match still running: only the latest request's result is shown
+  // (the worker answers in its own order).
+  let latest = 0;
   const show = async (file: File, more: readonly File[] = []): Promise<void> => {
+    const request = ++latest;
     lastFile = file;
     lastMore = more;
     status.textContent = `Reading ${file.name} …`;
@@ -235,6 +246,7 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
               ...settings,
               source: matcher.data.source,
             });
+      if (request !== latest) return;
       last = { file, result, engine: matcher };
       fillOverlay(result);
       render(result, matcher);
@@ -251,6 +263,7 @@ export function mountMatcher(doc: Document, options: MountMatcherOptions = {}): 
       zone.dataset.reportMs = String(result.timings.report);
       zone.dataset.matched = file.name;
     } catch (error) {
+      if (request !== latest) return;
       target.replaceChildren();
       status.textContent =
         viaWorker && error instanceof Error ? error.message : matchErrorText(error, file.name);

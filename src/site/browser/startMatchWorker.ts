@@ -1,6 +1,7 @@
-// Starts the matcher's Web Worker and resolves once it holds the published data; rejects where the browser refuses
-// a worker (Chromium does for a page opened from file://), so the page can fall back to its own thread.
-import type { PublishedMatrixFiles } from './loadPublishedSet.js';
+// Starts the matcher's Web Worker from a Blob URL of its source (Chromium allows that from file://, where it refuses
+// `new Worker(fileUrl)`), answers the worker's requests for data scripts, and resolves once it holds the published
+// data; rejects where the browser refuses the worker, so the page can fall back to its own thread.
+import type { DataLoader, PublishedMatrixFiles } from './loadPublishedSet.js';
 import type {
   PublishedEntryRow,
   WorkerMatch,
@@ -16,6 +17,8 @@ export interface StartMatchWorkerOptions {
   fetch?: boolean;
   /** Absolute URL of the site root (entry folders are relative to it). */
   base: string;
+  /** Loads a data script in the page (a <script> tag) for the worker. */
+  load: DataLoader;
   /** Give up on a worker that has not loaded the data by then, ms.
    * @default 60000 */
   timeout?: number;
@@ -28,11 +31,14 @@ export interface MatchWorker {
   match(bytes: Uint8Array, file: string, options: WorkerMatchOptions): Promise<WorkerMatch>;
 }
 
-export function startMatchWorker(url: string, options: StartMatchWorkerOptions): Promise<MatchWorker> {
+/** `source` is the worker bundle's text (from assets/bandshelf-worker-source.js). */
+export function startMatchWorker(source: string, options: StartMatchWorkerOptions): Promise<MatchWorker> {
   return new Promise<MatchWorker>((resolve, reject) => {
     let worker: Worker;
     try {
+      const url = URL.createObjectURL(new Blob([source], { type: 'text/javascript' }));
       worker = new Worker(url);
+      URL.revokeObjectURL(url);
     } catch (error) {
       reject(error instanceof Error ? error : new Error(String(error)));
       return;
@@ -61,7 +67,14 @@ export function startMatchWorker(url: string, options: StartMatchWorkerOptions):
     });
     worker.addEventListener('message', (event: MessageEvent<WorkerReply>) => {
       const reply = event.data;
-      if (reply.kind === 'ready') {
+      if (reply.kind === 'load') {
+        const { id } = reply;
+        options.load<unknown>(reply.src, reply.key).then(
+          (value) => send({ kind: 'loaded', id, value }),
+          (error: unknown) =>
+            send({ kind: 'loaded', id, message: error instanceof Error ? error.message : String(error) }),
+        );
+      } else if (reply.kind === 'ready') {
         ready = true;
         clearTimeout(timer);
         resolve({

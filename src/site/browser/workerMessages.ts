@@ -13,10 +13,14 @@ export type WorkerMatch = FileMatch & { vectors: Record<string, Float32Array> };
 
 export type WorkerRequest =
   | { kind: 'init'; files: PublishedMatrixFiles; base: string; fetch: boolean }
-  | { kind: 'match'; id: number; bytes: Uint8Array; file: string; options: WorkerMatchOptions };
+  | { kind: 'match'; id: number; bytes: Uint8Array; file: string; options: WorkerMatchOptions }
+  /** The page's answer to a `load`: the value the data script stored, or why it could not be loaded. */
+  | { kind: 'loaded'; id: number; value?: unknown; message?: string };
 
 export type WorkerReply =
   | { kind: 'ready'; entries: PublishedEntryRow[] }
   | { kind: 'failed'; message: string }
+  /** The worker (started from a Blob URL, so without importScripts of the site's files) asks the page for a data script. */
+  | { kind: 'load'; id: number; src: string; key: string }
   | { kind: 'result'; id: number; result: WorkerMatch }
   | { kind: 'error'; id: number; message: string };
