@@ -1,4 +1,5 @@
 // Writes prepared revisions in one BEGIN IMMEDIATE transaction: all of them land or none does.
+
 import { BandshelfError } from '../../error.js';
 import { float32Blob } from '../codecs/float32Blob.js';
 import { float64Blob } from '../codecs/float64Blob.js';
@@ -9,6 +10,7 @@ import { canonicalJson } from './canonicalJson.js';
 import { gridAxisMemo } from './gridAxisMemo.js';
 import { headRevision } from './headRevision.js';
 import { recordHash } from './recordHash.js';
+import { revisionStatements } from './revisionStatements.js';
 import type { RevisionRow } from './rowTypes.js';
 import { sha256Hex } from './sha256Hex.js';
 import { writeTransaction } from './writeTransaction.js';
@@ -29,22 +31,12 @@ export function commitRevisions(
   prepared: readonly PreparedRevision[],
   options: CommitRevisionsOptions = {},
 ): CommitOutcome[] {
-  const db = library.db;
-  const insertEntry = db.prepare(
-    'INSERT INTO entries (id, created_at) SELECT ?, ? WHERE NOT EXISTS (SELECT 1 FROM entries WHERE id = ?)',
-  );
-  const insertFile = db.prepare(
-    'INSERT INTO files (sha256, bytes) SELECT ?, ? WHERE NOT EXISTS (SELECT 1 FROM files WHERE sha256 = ?)',
-  );
-  const insertRevision = db.prepare(`INSERT INTO revisions (entry_id, revision, kind, content_hash, data_hash,
-    read_options, recipe, meta, original_x, original_y, processed, covered_points, coverage_min, coverage_max,
-    peaks, qc, extras, author, message, created_at, record_hash)
-    VALUES (@entry_id, @revision, @kind, @content_hash, @data_hash, @read_options, @recipe, @meta, @original_x,
-    @original_y, @processed, @covered_points, @coverage_min, @coverage_max, @peaks, @qc, @extras, @author,
-    @message, @created_at, @record_hash)`);
-  const insertRevisionFile = db.prepare(
-    'INSERT INTO revision_files (revision_key, position, role, name, sha256) VALUES (?, ?, ?, ?, ?)',
-  );
+  const {
+    entry: insertEntry,
+    file: insertFile,
+    revision: insertRevision,
+    revisionFile: insertRevisionFile,
+  } = revisionStatements(library);
   const createdAt = (options.now ?? new Date()).toISOString();
   const axis = gridAxisMemo(library.grid);
   return writeTransaction(

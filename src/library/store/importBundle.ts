@@ -1,6 +1,7 @@
 // Brings a bundle's history into a library: identical revisions are recognised by their record hash and kept as
 // they are, a history the bundle continues is appended, and one both sides changed is imported whole under a
 // suffixed id — nothing already stored is ever changed. Re-importing the same bundle writes nothing.
+
 import { BandshelfError } from '../../error.js';
 import type { Bundle } from '../../schema/bundle.js';
 import type { Library } from '../types.js';
@@ -12,6 +13,7 @@ import {
   planBundleImport,
 } from './planBundleImport.js';
 import { revisionRowFromBundle } from './revisionRowFromBundle.js';
+import { revisionStatements } from './revisionStatements.js';
 import { verifyBundle } from './verifyBundle.js';
 import { writeTransaction } from './writeTransaction.js';
 
@@ -48,21 +50,12 @@ function outcomeOf(bundle: Bundle, plan: BundleImportPlan): ImportBundleOutcome 
 
 function writePlan(library: Library, bundle: Bundle, plan: BundleImportPlan): void {
   const db = library.db;
-  const insertEntry = db.prepare(
-    'INSERT INTO entries (id, created_at) SELECT ?, ? WHERE NOT EXISTS (SELECT 1 FROM entries WHERE id = ?)',
-  );
-  const insertFile = db.prepare(
-    'INSERT INTO files (sha256, bytes) SELECT ?, ? WHERE NOT EXISTS (SELECT 1 FROM files WHERE sha256 = ?)',
-  );
-  const insertRevision = db.prepare(`INSERT INTO revisions (entry_id, revision, kind, content_hash, data_hash,
-    read_options, recipe, meta, original_x, original_y, processed, covered_points, coverage_min, coverage_max,
-    peaks, qc, extras, author, message, created_at, record_hash)
-    VALUES (@entry_id, @revision, @kind, @content_hash, @data_hash, @read_options, @recipe, @meta, @original_x,
-    @original_y, @processed, @covered_points, @coverage_min, @coverage_max, @peaks, @qc, @extras, @author,
-    @message, @created_at, @record_hash)`);
-  const insertRevisionFile = db.prepare(
-    'INSERT INTO revision_files (revision_key, position, role, name, sha256) VALUES (?, ?, ?, ?, ?)',
-  );
+  const {
+    entry: insertEntry,
+    file: insertFile,
+    revision: insertRevision,
+    revisionFile: insertRevisionFile,
+  } = revisionStatements(library);
   const keyOf = db.prepare('SELECT key FROM revisions WHERE entry_id = ? AND revision = ?').pluck();
   for (const { entryId, createdAt, revision } of plan.revisions) {
     insertEntry.run(entryId, createdAt, entryId);
